@@ -1,0 +1,106 @@
+//! A small flag parser: `--name value` pairs and bare switches.
+
+use std::collections::BTreeMap;
+use std::fmt;
+
+/// A command-line mistake, in words.
+#[derive(Clone, Debug, PartialEq)]
+pub struct ArgError(pub String);
+
+impl fmt::Display for ArgError {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        f.write_str(&self.0)
+    }
+}
+
+impl std::error::Error for ArgError {}
+
+/// Parsed flags: values by name, switches, and positional words.
+#[derive(Clone, Debug, Default)]
+pub struct Args {
+    values: BTreeMap<String, String>,
+    switches: Vec<String>,
+    /// Words that are not flags, in order.
+    pub positional: Vec<String>,
+    used: std::cell::RefCell<Vec<String>>,
+}
+
+impl Args {
+    /// Parse `args`; `switch_names` lists the flags that take no value.
+    pub fn parse<I: IntoIterator<Item = String>>(
+        args: I,
+        switch_names: &[&str],
+    ) -> Result<Self, ArgError> {
+        let mut out = Args::default();
+        let mut it = args.into_iter();
+        while let Some(a) = it.next() {
+            if let Some(name) = a.strip_prefix("--") {
+                let (name, inline) = match name.split_once('=') {
+                    Some((n, v)) => (n.to_owned(), Some(v.to_owned())),
+                    None => (name.to_owned(), None),
+                };
+                if switch_names.contains(&name.as_str()) {
+                    out.switches.push(name);
+                    continue;
+                }
+                let value = match inline {
+                    Some(v) => v,
+                    None => it
+                        .next()
+                        .ok_or_else(|| ArgError(format!("--{name} needs a value")))?,
+                };
+                if out.values.insert(name.clone(), value).is_some() {
+                    return Err(ArgError(format!("--{name} is given twice")));
+                }
+            } else {
+                out.positional.push(a);
+            }
+        }
+        Ok(out)
+    }
+
+    /// Whether a switch was given.
+    pub fn switch(&self, name: &str) -> bool {
+        self.switches.iter().any(|s| s == name)
+    }
+
+    /// A flag's raw value.
+    pub fn text(&self, name: &str) -> Option<&str> {
+        self.used.borrow_mut().push(name.to_owned());
+        self.values.get(name).map(String::as_str)
+    }
+
+    /// A flag's value as a finite number.
+    pub fn number(&self, name: &str) -> Result<Option<f64>, ArgError> {
+        match self.text(name) {
+            None => Ok(None),
+            Some(v) => match v.trim().parse::<f64>() {
+                Ok(x) if x.is_finite() => Ok(Some(x)),
+                _ => Err(ArgError(format!("--{name} expects a number, got '{v}'"))),
+            },
+        }
+    }
+
+    /// A flag's value as a whole number.
+    pub fn integer(&self, name: &str) -> Result<Option<i32>, ArgError> {
+        match self.text(name) {
+            None => Ok(None),
+            Some(v) => v
+                .trim()
+                .parse::<i32>()
+                .map(Some)
+                .map_err(|_| ArgError(format!("--{name} expects a whole number, got '{v}'"))),
+        }
+    }
+
+    /// Refuse any flag that no `text`/`number` call asked for (call after reading them all).
+    pub fn reject_unknown(&self) -> Result<(), ArgError> {
+        let used = self.used.borrow();
+        match self.values.keys().find(|k| !used.contains(k)) {
+            Some(k) => Err(ArgError(format!(
+                "unknown flag --{k} (see 'tankwright help')"
+            ))),
+            None => Ok(()),
+        }
+    }
+}

@@ -1,0 +1,62 @@
+//! The machine-readable form of an [`Analysis`], in display units named in the keys.
+
+use crate::model::Analysis;
+use serde_json::{Value, json};
+
+const NH: f64 = 1e9;
+const PF: f64 = 1e12;
+const MHZ: f64 = 1e-6;
+const MM: f64 = 1e3;
+
+/// One JSON object with every figure; units in the key names (nh, pf, mhz, mm, ohm).
+pub fn analysis_json(a: &Analysis) -> Value {
+    let i = &a.inductance;
+    let g = &a.geometry;
+    json!({
+        "nagaoka_coefficient": a.nagaoka_coefficient,
+        "inductance_nh": {
+            "wheeler_1928": i.wheeler_1928 * NH,
+            "current_sheet": i.current_sheet * NH,
+            "lundin_1985": i.lundin_1985 * NH,
+            "round_wire_low_freq": i.round_wire_low_freq * NH,
+            "round_wire": i.round_wire * NH,
+            "filament_sum": i.filament_sum.map(|l| l * NH),
+            "leads": i.leads * NH,
+            "total": a.total_inductance * NH,
+            "apparent": a.apparent_inductance * NH,
+        },
+        "model": a.model.label(),
+        "rosa_k_s": i.k_s,
+        "rosa_k_m": i.k_m,
+        "internal_inductance_fraction": i.internal_inductance_fraction,
+        "self_capacitance_pf": a.self_capacitance * PF,
+        "medhurst_h": a.medhurst_factor,
+        "external_capacitance_pf": a.external_capacitance * PF,
+        "total_capacitance_pf": a.total_capacitance * PF,
+        "resonance_mhz": a.resonance * MHZ,
+        "self_resonance_mhz": {
+            "lumped": a.self_resonance.lumped * MHZ,
+            "helical": a.self_resonance.helical * MHZ,
+        },
+        "skin_depth_um": a.skin_depth * 1e6,
+        "skin_resistance_ratio": a.skin_resistance_ratio,
+        "proximity_factor": a.proximity_factor,
+        "dc_resistance_ohm": a.dc_resistance,
+        "ac_resistance_ohm": a.ac_resistance,
+        "q": a.q,
+        "wire_length_mm": g.wire_length * MM,
+        "geometry_mm": {
+            "mean_diameter": g.mean_diameter * MM,
+            "former_diameter": g.former_diameter * MM,
+            "wire_bare": g.wire_bare * MM,
+            "wire_overall": g.wire_overall * MM,
+            "pitch": g.pitch * MM,
+            "gap": g.gap * MM,
+            "length": g.length * MM,
+            "lead_length": g.lead_length * MM,
+        },
+        "turns": g.turns,
+        "length_over_diameter": g.length_over_diameter,
+        "warnings": a.warnings.iter().map(|w| w.message.clone()).collect::<Vec<_>>(),
+    })
+}

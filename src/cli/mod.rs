@@ -1,0 +1,36 @@
+//! The headless commands: `evaluate` (and, with recipes, `report`).
+//!
+//! Everything here returns strings; `main.rs` prints them and sets the exit code.
+
+mod args;
+mod evaluate;
+mod json;
+mod text;
+
+pub use args::{ArgError, Args};
+pub use evaluate::{EvaluateRequest, run_evaluate};
+pub use json::analysis_json;
+pub use text::analysis_report;
+
+/// Usage text for `--help`.
+pub const USAGE: &str = "\
+tankwright — workbench for hand-wound air-core VHF coils
+
+usage:
+  tankwright [--screenshot FILE.png]      open the window (with the demo recipe)
+  tankwright evaluate FLAGS [--json]      print every figure for one coil
+  tankwright help                         this text
+
+evaluate flags (millimetres, picofarads, megahertz):
+  --mean-diameter-mm D   mean (wire-centre) diameter     (or --former-diameter-mm)
+  --turns N              turns, fractions allowed
+  --length-mm L          coil length, turns x pitch      (or --gap-mm G)
+  --wire-mm d            bare wire diameter              (or --awg N, --swg N)
+  --enamel GRADE         1 or 2: IEC 60317 enamel grade (default bare)
+  --lead-mm x            each of the two leads (default 0)
+  --capacitance-pf C     external tank capacitance, all of it but stray (default 0)
+  --stray-pf S           stray capacitance (default 0)
+  --temperature-c T      wire temperature (default 20)
+  --model NAME           round-wire | filament-sum | current-sheet | lundin | wheeler
+  --json                 one JSON object instead of the report
+";

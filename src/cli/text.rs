@@ -1,0 +1,140 @@
+//! The readable report of an [`Analysis`].
+
+use crate::model::{Analysis, InductanceModel};
+use std::fmt::Write;
+
+/// A plain-text report with units, one figure a line.
+pub fn analysis_report(a: &Analysis) -> String {
+    let g = &a.geometry;
+    let i = &a.inductance;
+    let mut s = String::new();
+    // Writing to a String cannot fail.
+    let mut line = |t: String| {
+        s.push_str(&t);
+        s.push('\n');
+    };
+    line("Coil".to_owned());
+    line(format!(
+        "  mean diameter      {:>10.3} mm   (former {:.3} mm)",
+        g.mean_diameter * 1e3,
+        g.former_diameter * 1e3
+    ));
+    line(format!(
+        "  wire               {:>10.3} mm bare, {:.3} mm overall",
+        g.wire_bare * 1e3,
+        g.wire_overall * 1e3
+    ));
+    line(format!("  turns              {:>10.2}", g.turns));
+    line(format!(
+        "  length (N x pitch) {:>10.3} mm   pitch {:.3} mm, gap {:.3} mm",
+        g.length * 1e3,
+        g.pitch * 1e3,
+        g.gap * 1e3
+    ));
+    line(format!(
+        "  l/D                {:>10.3}",
+        g.length_over_diameter
+    ));
+    line(format!(
+        "  wire to cut        {:>10.1} mm   (helix plus two {:.1} mm leads)",
+        g.wire_length * 1e3,
+        g.lead_length * 1e3
+    ));
+    line("Inductance (coil only)".to_owned());
+    line(format!(
+        "  Nagaoka K_N        {:>10.6}",
+        a.nagaoka_coefficient
+    ));
+    let mut model = |name: &str, value: Option<f64>, m: Option<InductanceModel>| {
+        let mark = if m == Some(a.model) {
+            "  <- drives the resonance"
+        } else {
+            ""
+        };
+        match value {
+            Some(v) => line(format!("  {name:<18} {:>10.2} nH{mark}", v * 1e9)),
+            None => line(format!("  {name:<18} {:>10}", "not computed")),
+        }
+    };
+    model(
+        "Rosa round wire",
+        Some(i.round_wire),
+        Some(InductanceModel::RoundWire),
+    );
+    model("  (uniform current)", Some(i.round_wire_low_freq), None);
+    model(
+        "Maxwell filaments",
+        i.filament_sum,
+        Some(InductanceModel::FilamentSum),
+    );
+    model(
+        "current sheet",
+        Some(i.current_sheet),
+        Some(InductanceModel::CurrentSheet),
+    );
+    model(
+        "Lundin 1985",
+        Some(i.lundin_1985),
+        Some(InductanceModel::Lundin1985),
+    );
+    model(
+        "Wheeler 1928",
+        Some(i.wheeler_1928),
+        Some(InductanceModel::Wheeler1928),
+    );
+    line(format!("  leads (both)       {:>10.2} nH", i.leads * 1e9));
+    line(format!(
+        "  total              {:>10.2} nH   apparent at resonance {:.2} nH",
+        a.total_inductance * 1e9,
+        a.apparent_inductance * 1e9
+    ));
+    line("Capacitance".to_owned());
+    line(format!(
+        "  self (Medhurst)    {:>10.3} pF   H = {:.3}",
+        a.self_capacitance * 1e12,
+        a.medhurst_factor
+    ));
+    line(format!(
+        "  external           {:>10.3} pF",
+        a.external_capacitance * 1e12
+    ));
+    line(format!(
+        "  total              {:>10.3} pF",
+        a.total_capacitance * 1e12
+    ));
+    line("Resonance".to_owned());
+    line(format!(
+        "  tank               {:>10.4} MHz",
+        a.resonance * 1e-6
+    ));
+    line(format!(
+        "  self, lumped       {:>10.0} MHz",
+        a.self_resonance.lumped * 1e-6
+    ));
+    line(format!(
+        "  self, helical line {:>10.0} MHz",
+        a.self_resonance.helical * 1e-6
+    ));
+    line("Loss".to_owned());
+    line(format!(
+        "  skin depth         {:>10.2} µm",
+        a.skin_depth * 1e6
+    ));
+    line(format!(
+        "  R_ac / R_dc        {:>10.2}   proximity factor {:.2}",
+        a.skin_resistance_ratio, a.proximity_factor
+    ));
+    line(format!(
+        "  AC resistance      {:>10.4} ohm (DC {:.4} ohm)",
+        a.ac_resistance, a.dc_resistance
+    ));
+    line(format!("  Q                  {:>10.0}", a.q));
+    if !a.warnings.is_empty() {
+        line("Warnings".to_owned());
+        for w in &a.warnings {
+            line(format!("  - {}", w.message));
+        }
+    }
+    let _ = s.write_str("");
+    s
+}

@@ -1,0 +1,16 @@
+//! Tankwright: a workbench for hand-wound single-layer air-core coils in VHF LC tanks.
+//!
+//! Layers, each depending only on those above it in this list:
+//! - [`physics`]: pure formulas, SI units, each citing its source;
+//! - [`model`]: the coil and tank as a builder gives them, validated, and `evaluate()`;
+//! - [`tuning`]: sweeps for charts, sensitivities, solving for a target channel, band plans;
+//! - [`recipe`]: the saved document and its file format (the only layer that touches the disk);
+//! - [`cli`]: the headless commands;
+//! - [`ui`]: the eframe window (the only layer that imports egui).
+
+pub mod cli;
+pub mod model;
+pub mod physics;
+pub mod recipe;
+pub mod tuning;
+pub mod ui;

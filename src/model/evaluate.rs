@@ -1,0 +1,383 @@
+//! From a winding and tank to every figure: the engine's one entry point.
+
+use super::analysis::{Analysis, Geometry, Inductances, SelfResonance};
+use super::coil::Coil;
+use super::error::{Field, InputError};
+use super::tank::Tank;
+use super::winding::Winding;
+use crate::physics::{
+    copper, filament, helix, leads, medhurst, nagaoka, proximity, round_wire, wheeler,
+};
+use std::f64::consts::PI;
+
+/// Which inductance model drives the resonance (the others are reported beside it).
+#[derive(Clone, Copy, Debug, PartialEq, Eq, Hash)]
+pub enum InductanceModel {
+    /// Wheeler 1928 closed form.
+    Wheeler1928,
+    /// Nagaoka's current sheet, exact.
+    CurrentSheet,
+    /// Lundin 1985 closed form.
+    Lundin1985,
+    /// Rosa's round-wire correction, frequency-aware (the default).
+    RoundWire,
+    /// Sum over rings (Maxwell's mutual inductance).
+    FilamentSum,
+}
+
+impl InductanceModel {
+    /// Every model, in the order shown.
+    pub const ALL: [InductanceModel; 5] = [
+        InductanceModel::RoundWire,
+        InductanceModel::FilamentSum,
+        InductanceModel::CurrentSheet,
+        InductanceModel::Lundin1985,
+        InductanceModel::Wheeler1928,
+    ];
+
+    /// Short name with the method's author.
+    pub fn label(self) -> &'static str {
+        match self {
+            InductanceModel::Wheeler1928 => "Wheeler 1928",
+            InductanceModel::CurrentSheet => "Nagaoka current sheet",
+            InductanceModel::Lundin1985 => "Lundin 1985",
+            InductanceModel::RoundWire => "Rosa round wire",
+            InductanceModel::FilamentSum => "Maxwell filament sum",
+        }
+    }
+}
+
+/// Conditions of the evaluation that are not part of the coil or tank.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct Conditions {
+    /// Wire temperature, °C.
+    pub temperature_c: f64,
+    /// The model that drives the resonance.
+    pub model: InductanceModel,
+    /// Also compute the filament sum when another model drives (it costs N Maxwell terms).
+    pub filament_sum: bool,
+}
+
+impl Default for Conditions {
+    fn default() -> Self {
+        Self {
+            temperature_c: 20.0,
+            model: InductanceModel::RoundWire,
+            filament_sum: true,
+        }
+    }
+}
+
+/// Largest capacitance accepted anywhere in the tank, farads (10 nF: far beyond any VHF tank).
+const CAPACITANCE_MAX: f64 = 10e-9;
+
+fn check_capacitance(field: Field, what: &str, value: f64) -> Result<(), InputError> {
+    if !value.is_finite() {
+        return Err(InputError::new(field, format!("{what} is not a number")));
+    }
+    if !(0.0..=CAPACITANCE_MAX).contains(&value) {
+        return Err(InputError::new(
+            field,
+            format!("{what} {:.3} pF is outside 0–10000 pF", value * 1e12),
+        ));
+    }
+    Ok(())
+}
+
+/// Check a tank: every capacitance finite and within 0–10 nF, trimmer max ≥ min, setting 0–1.
+pub(crate) fn validate_tank(t: &Tank) -> Result<(), InputError> {
+    check_capacitance(Field::FixedCapacitance, "fixed capacitance", t.fixed)?;
+    check_capacitance(Field::Trimmer, "trimmer minimum", t.trimmer_min)?;
+    check_capacitance(Field::Trimmer, "trimmer maximum", t.trimmer_max)?;
+    if t.trimmer_max < t.trimmer_min {
+        return Err(InputError::new(
+            Field::Trimmer,
+            format!(
+                "trimmer maximum {:.2} pF is below its minimum {:.2} pF",
+                t.trimmer_max * 1e12,
+                t.trimmer_min * 1e12
+            ),
+        ));
+    }
+    if !t.trimmer_setting.is_finite() || !(0.0..=1.0).contains(&t.trimmer_setting) {
+        return Err(InputError::new(
+            Field::TrimmerSetting,
+            format!(
+                "trimmer setting {} % is outside 0–100 %",
+                t.trimmer_setting * 100.0
+            ),
+        ));
+    }
+    check_capacitance(Field::StrayCapacitance, "stray capacitance", t.stray)?;
+    if let Some(fb) = t.feedback {
+        check_capacitance(Field::Feedback, "upper feedback capacitor", fb.upper)?;
+        check_capacitance(Field::Feedback, "lower feedback capacitor", fb.lower)?;
+        if fb.upper <= 0.0 || fb.lower <= 0.0 {
+            return Err(InputError::new(
+                Field::Feedback,
+                "both feedback capacitors must be above 0 pF",
+            ));
+        }
+    }
+    Ok(())
+}
+
+fn validate_conditions(c: &Conditions) -> Result<(), InputError> {
+    if !c.temperature_c.is_finite() || !(-60.0..=200.0).contains(&c.temperature_c) {
+        return Err(InputError::new(
+            Field::Temperature,
+            format!(
+                "wire temperature {} °C is outside −60–200 °C",
+                c.temperature_c
+            ),
+        ));
+    }
+    Ok(())
+}
+
+/// Evaluate a winding in a tank: validate, then compute every figure.
+pub fn evaluate(
+    winding: &Winding,
+    tank: &Tank,
+    conditions: &Conditions,
+) -> Result<Analysis, InputError> {
+    let coil = Coil::from_winding(winding)?;
+    validate_tank(tank)?;
+    validate_conditions(conditions)?;
+    Ok(evaluate_coil(
+        &coil,
+        tank.external_capacitance(),
+        conditions,
+    ))
+}
+
+/// The frequency-independent part of a coil's figures, computed once per evaluation.
+#[derive(Clone, Copy, Debug)]
+struct Fixed {
+    nagaoka: f64,
+    current_sheet: f64,
+    k_m: f64,
+    ln_2p_over_d: f64,
+    self_capacitance: f64,
+}
+
+impl Fixed {
+    fn new(coil: &Coil) -> Self {
+        let nagaoka = nagaoka::coefficient(coil.mean_diameter / coil.length);
+        Self {
+            nagaoka,
+            current_sheet: nagaoka::current_sheet_inductance(
+                coil.mean_diameter,
+                coil.length,
+                coil.turns,
+                nagaoka,
+            ),
+            k_m: round_wire::k_m(coil.turns),
+            ln_2p_over_d: (2.0 * coil.pitch / coil.wire_bare).ln(),
+            self_capacitance: medhurst::self_capacitance(
+                coil.mean_diameter,
+                coil.length_over_diameter(),
+            ),
+        }
+    }
+}
+
+/// Inductances at one frequency.
+#[derive(Clone, Copy, Debug)]
+struct AtFrequency {
+    chi: f64,
+    skin: copper::InternalImpedance,
+    skin_depth: f64,
+    k_s: f64,
+    round_wire: f64,
+    filament: Option<f64>,
+    leads: f64,
+    driving: f64,
+}
+
+fn at_frequency(
+    coil: &Coil,
+    fixed: &Fixed,
+    c: &Conditions,
+    resistivity: f64,
+    frequency: f64,
+) -> AtFrequency {
+    let radius = 0.5 * coil.wire_bare;
+    let skin_depth = copper::skin_depth(resistivity, frequency);
+    let skin = copper::internal_impedance(radius / skin_depth);
+    let chi = skin.internal_inductance_fraction;
+    let k_s = 1.5 - fixed.ln_2p_over_d - 0.25 * chi;
+    let round_wire = fixed.current_sheet
+        - round_wire::correction(coil.mean_diameter, coil.turns, k_s, fixed.k_m);
+    let filament = (c.filament_sum || c.model == InductanceModel::FilamentSum).then(|| {
+        filament::filament_sum(
+            coil.turns,
+            0.5 * coil.mean_diameter,
+            coil.pitch,
+            radius,
+            chi,
+        )
+    });
+    let leads = 2.0 * leads::straight_wire_inductance(coil.lead_length, radius, chi);
+    let coil_l = match c.model {
+        InductanceModel::Wheeler1928 => {
+            wheeler::inductance(coil.mean_diameter, coil.length, coil.turns)
+        }
+        InductanceModel::CurrentSheet => fixed.current_sheet,
+        InductanceModel::Lundin1985 => nagaoka::current_sheet_inductance(
+            coil.mean_diameter,
+            coil.length,
+            coil.turns,
+            nagaoka::coefficient_lundin(coil.mean_diameter / coil.length),
+        ),
+        InductanceModel::RoundWire => round_wire,
+        InductanceModel::FilamentSum => filament.unwrap_or(round_wire),
+    };
+    AtFrequency {
+        chi,
+        skin,
+        skin_depth,
+        k_s,
+        round_wire,
+        filament,
+        leads,
+        driving: coil_l + leads,
+    }
+}
+
+fn lc_frequency(inductance: f64, capacitance: f64) -> f64 {
+    1.0 / (2.0 * PI * (inductance * capacitance).sqrt())
+}
+
+/// Solve f = 1/(2π√(L(f)·C)) by fixed-point iteration; L depends on f only through the
+/// wire's internal inductance, so two or three rounds settle it to 1e-12.
+fn solve(
+    coil: &Coil,
+    fixed: &Fixed,
+    c: &Conditions,
+    resistivity: f64,
+    capacitance: f64,
+) -> (f64, AtFrequency) {
+    let mut f = lc_frequency(fixed.current_sheet, capacitance);
+    let mut at = at_frequency(coil, fixed, c, resistivity, f);
+    for _ in 0..8 {
+        let next = lc_frequency(at.driving, capacitance);
+        let done = (next - f).abs() <= 1e-12 * next;
+        f = next;
+        at = at_frequency(coil, fixed, c, resistivity, f);
+        if done {
+            break;
+        }
+    }
+    (f, at)
+}
+
+/// Resonant frequency only, hertz, for a validated coil and an external capacitance: the same
+/// solution as [`evaluate_coil`] without the other figures (for sweeps and solvers).
+pub fn resonance_of(coil: &Coil, external_capacitance: f64, conditions: &Conditions) -> f64 {
+    let fixed = Fixed::new(coil);
+    let c = Conditions {
+        filament_sum: false,
+        ..*conditions
+    };
+    let resistivity = copper::resistivity(conditions.temperature_c);
+    solve(
+        coil,
+        &fixed,
+        &c,
+        resistivity,
+        external_capacitance + fixed.self_capacitance,
+    )
+    .0
+}
+
+/// Every figure for a validated coil across `external_capacitance` farads.
+///
+/// The self-capacitance is counted once: added to the tank capacitance beside the coil's
+/// inductance. The apparent inductance is reported separately and not used again.
+pub fn evaluate_coil(coil: &Coil, external_capacitance: f64, conditions: &Conditions) -> Analysis {
+    let fixed = Fixed::new(coil);
+    let resistivity = copper::resistivity(conditions.temperature_c);
+    let total_capacitance = external_capacitance + fixed.self_capacitance;
+    let (f, at) = solve(coil, &fixed, conditions, resistivity, total_capacitance);
+    let d = coil.mean_diameter;
+    let l = coil.length;
+    let lod = coil.length_over_diameter();
+
+    let inductance = Inductances {
+        wheeler_1928: wheeler::inductance(d, l, coil.turns),
+        current_sheet: fixed.current_sheet,
+        lundin_1985: nagaoka::current_sheet_inductance(
+            d,
+            l,
+            coil.turns,
+            nagaoka::coefficient_lundin(d / l),
+        ),
+        round_wire_low_freq: fixed.current_sheet
+            - round_wire::correction(
+                d,
+                coil.turns,
+                round_wire::k_s(coil.pitch, coil.wire_bare, 1.0),
+                fixed.k_m,
+            ),
+        round_wire: at.round_wire,
+        filament_sum: at.filament,
+        leads: at.leads,
+        k_s: at.k_s,
+        k_m: fixed.k_m,
+        internal_inductance_fraction: at.chi,
+    };
+
+    let self_resonance = SelfResonance {
+        lumped: helix::lumped_self_resonance(at.driving, fixed.self_capacitance),
+        helical: helix::helical_self_resonance(d, coil.pitch, l),
+    };
+    let ratio_to_self = f / self_resonance.lumped;
+    let apparent_inductance = at.driving / (1.0 - ratio_to_self * ratio_to_self).max(1e-9);
+
+    let coil_wire = coil.wire_length() - 2.0 * coil.lead_length;
+    let proximity_factor = proximity::wall_proximity_factor(coil.pitch / coil.wire_bare);
+    let r_dc_coil = copper::dc_resistance(resistivity, coil.wire_bare, coil_wire);
+    let r_dc_leads = copper::dc_resistance(resistivity, coil.wire_bare, 2.0 * coil.lead_length);
+    let ac_resistance = at.skin.resistance_ratio * (r_dc_coil * proximity_factor + r_dc_leads);
+    let q = 2.0 * PI * f * at.driving / ac_resistance;
+
+    let geometry = Geometry {
+        mean_diameter: d,
+        former_diameter: coil.former_diameter,
+        wire_bare: coil.wire_bare,
+        wire_overall: coil.wire_overall,
+        turns: coil.turns,
+        pitch: coil.pitch,
+        gap: coil.gap(),
+        length: l,
+        length_over_diameter: lod,
+        lead_length: coil.lead_length,
+        wire_length: coil.wire_length(),
+    };
+
+    let mut analysis = Analysis {
+        geometry,
+        nagaoka_coefficient: fixed.nagaoka,
+        inductance,
+        model: conditions.model,
+        total_inductance: at.driving,
+        apparent_inductance,
+        self_capacitance: fixed.self_capacitance,
+        medhurst_factor: medhurst::factor(lod),
+        external_capacitance,
+        total_capacitance,
+        resonance: f,
+        self_resonance,
+        resistivity,
+        skin_depth: at.skin_depth,
+        skin_resistance_ratio: at.skin.resistance_ratio,
+        proximity_factor,
+        dc_resistance: r_dc_coil + r_dc_leads,
+        ac_resistance,
+        q,
+        warnings: Vec::new(),
+    };
+    analysis.warnings = super::warnings::collect(&analysis, coil);
+    analysis
+}

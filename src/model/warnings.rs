@@ -1,0 +1,120 @@
+//! Cautions attached to an [`Analysis`]: figures outside a model's range.
+
+use super::analysis::{Analysis, Warning, WarningTopic};
+use super::coil::Coil;
+use crate::physics::{medhurst, wheeler};
+
+/// Operating frequency above this fraction of self-resonance raises the apparent inductance by
+/// more than about 6 % ((f/f_self)²): worth a warning (common practice).
+const SELF_RESONANCE_MARGIN: f64 = 0.25;
+/// Leads carrying more than this fraction of the total inductance are worth a warning.
+const LEADS_FRACTION: f64 = 0.2;
+/// Below this r/δ the high-frequency proximity model overstates the loss.
+const MIN_RADIUS_OVER_SKIN_DEPTH: f64 = 3.0;
+/// The aeronautical band just above FM broadcast, hertz (common practice: a tank that tunes
+/// there is a hazard to flag).
+const AERONAUTICAL: (f64, f64) = (108e6, 137e6);
+
+fn push(out: &mut Vec<Warning>, topic: WarningTopic, message: String) {
+    out.push(Warning { topic, message });
+}
+
+/// All warnings for a finished analysis.
+pub(super) fn collect(a: &Analysis, coil: &Coil) -> Vec<Warning> {
+    let mut out = Vec::new();
+    let g = &a.geometry;
+    if !wheeler::in_range(g.mean_diameter, g.length) {
+        let err = (a.inductance.wheeler_1928 / a.inductance.current_sheet - 1.0) * 100.0;
+        push(
+            &mut out,
+            WarningTopic::Inductance,
+            format!(
+                "Wheeler 1928 is outside its range (length {:.2} mm < 0.8 × radius); it differs \
+                 from the exact current sheet by {err:+.1} %",
+                g.length * 1e3
+            ),
+        );
+    }
+    if !medhurst::in_table(g.length_over_diameter) {
+        push(
+            &mut out,
+            WarningTopic::SelfCapacitance,
+            format!(
+                "l/D = {:.3} is outside Medhurst's table (0.1–50): self-capacitance extrapolated",
+                g.length_over_diameter
+            ),
+        );
+    }
+    let lower = a.self_resonance.lower();
+    let ratio = a.resonance / lower;
+    if ratio > SELF_RESONANCE_MARGIN {
+        push(
+            &mut out,
+            WarningTopic::SelfResonance,
+            format!(
+                "resonance is {:.0} % of the lower self-resonance estimate ({:.0} MHz): the \
+                 coil no longer behaves as a plain inductance",
+                ratio * 100.0,
+                lower * 1e-6
+            ),
+        );
+    }
+    if coil.turns < 5.0 {
+        push(
+            &mut out,
+            WarningTopic::SelfResonance,
+            "fewer than 5 turns: both self-resonance estimates are rough (the helical-line model \
+             assumes a long helix; leads and mounting dominate)"
+                .to_owned(),
+        );
+    }
+    if 0.5 * g.wire_bare / a.skin_depth < MIN_RADIUS_OVER_SKIN_DEPTH {
+        push(
+            &mut out,
+            WarningTopic::Loss,
+            format!(
+                "skin depth {:.1} µm is not small against the wire radius: the proximity factor \
+                 (a high-frequency model) overstates the loss",
+                a.skin_depth * 1e6
+            ),
+        );
+    }
+    if g.length_over_diameter < 1.0 {
+        push(
+            &mut out,
+            WarningTopic::Loss,
+            "short coil (l/D < 1): the end turns add proximity loss that the infinite-wall model \
+             leaves out, so Q is likely optimistic"
+                .to_owned(),
+        );
+    }
+    if a.inductance.leads > LEADS_FRACTION * a.total_inductance {
+        push(
+            &mut out,
+            WarningTopic::Leads,
+            format!(
+                "the leads carry {:.0} % of the inductance: their routing will move the frequency",
+                a.inductance.leads / a.total_inductance * 100.0
+            ),
+        );
+    }
+    if a.external_capacitance <= 0.0 {
+        push(
+            &mut out,
+            WarningTopic::Tank,
+            "no external capacitance: the coil resonates with its own self-capacitance only"
+                .to_owned(),
+        );
+    }
+    if (AERONAUTICAL.0..=AERONAUTICAL.1).contains(&a.resonance) {
+        push(
+            &mut out,
+            WarningTopic::Band,
+            format!(
+                "{:.2} MHz is in the aeronautical band (108–137 MHz): do not radiate there",
+                a.resonance * 1e-6
+            ),
+        );
+    }
+    out
+}

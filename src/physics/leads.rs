@@ -1,0 +1,24 @@
+//! The two straight leads between the coil and the rest of the tank.
+
+use super::constants::MU_0;
+use std::f64::consts::PI;
+
+/// Self-inductance of a straight round wire, henries.
+///
+/// # Formula
+/// L = (µ0·ℓ/2π)·(ln(2ℓ/r) − 1 + χ/4), for length ℓ ≫ radius r, with χ the internal-inductance
+/// fraction (Rosa 1908, Bull. Bureau of Standards 4, 301; Grover 1946 eq. 7: χ = 1 gives the
+/// familiar ln(2ℓ/r) − 3/4). Zero for zero length.
+pub fn straight_wire_inductance(
+    length: f64,
+    wire_radius: f64,
+    internal_inductance_fraction: f64,
+) -> f64 {
+    if length <= 0.0 {
+        return 0.0;
+    }
+    // Below ℓ ≈ r the long-wire formula turns negative; a lead that short adds nothing.
+    let log_term =
+        ((2.0 * length / wire_radius).ln() - 1.0 + 0.25 * internal_inductance_fraction).max(0.0);
+    MU_0 * length / (2.0 * PI) * log_term
+}

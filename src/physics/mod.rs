@@ -1,0 +1,17 @@
+//! Pure formulas in SI units: no state, no I/O, no egui.
+//!
+//! One file per family of formulas, each citing its source. Everything here takes metres,
+//! henries, farads, hertz and ohms and returns the same.
+
+pub mod constants;
+pub mod copper;
+pub mod elliptic;
+pub mod filament;
+pub mod helix;
+pub mod leads;
+pub mod medhurst;
+pub mod nagaoka;
+pub mod proximity;
+pub mod round_wire;
+pub mod wheeler;
+pub mod wire_gauge;

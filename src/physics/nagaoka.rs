@@ -1,0 +1,58 @@
+//! Nagaoka's coefficient and the current-sheet inductance of a solenoid.
+//!
+//! A single-layer coil whose current is spread evenly over a cylinder of mean (wire-centre)
+//! diameter D and length l has L = µ0·π·a²·N²·K_N / l (a = D/2), where K_N ≤ 1 is Nagaoka's
+//! coefficient (H. Nagaoka, J. Coll. Sci. Tokyo 27, 1909; tabulated in F. W. Grover,
+//! *Inductance Calculations*, 1946, Table 36).
+
+use super::constants::MU_0;
+use super::elliptic::complete_k_e;
+use std::f64::consts::PI;
+
+/// Nagaoka's coefficient K_N, exact, from complete elliptic integrals.
+///
+/// # Formula
+/// With the modulus k, k² = D²/(D²+l²) and k′ = l/√(D²+l²):
+/// K_N = 4/(3π k′)·[(k′²/k²)(K(k) − E(k)) + E(k) − k]
+/// (Grover 1946, eq. 76), evaluated with parameter m = k².
+///
+/// `diameter_over_length` = D/l must be positive and finite.
+pub fn coefficient(diameter_over_length: f64) -> f64 {
+    let x = diameter_over_length;
+    // k² = x²/(1+x²), k′² = 1/(1+x²).
+    let m = x * x / (1.0 + x * x);
+    let k = m.sqrt();
+    let kp2 = 1.0 - m;
+    let kp = kp2.sqrt();
+    let (big_k, big_e) = complete_k_e(m);
+    4.0 / (3.0 * PI * kp) * ((kp2 / m) * (big_k - big_e) + big_e - k)
+}
+
+/// Nagaoka's coefficient by Lundin's closed form, accurate to a few ppm over all shapes.
+///
+/// # Formula
+/// R. Lundin, "A handbook formula for the inductance of a single-layer circular coil",
+/// Proc. IEEE 73 (1985) 1428. With x = D/l,
+/// f₁(y) = (1 + 0.383901y + 0.017108y²)/(1 + 0.258952y),
+/// f₂(y) = 0.093842y + 0.002029y² − 0.000801y³;
+/// l ≥ D: K_N = f₁(x²) − 4x/(3π);
+/// l < D: K_N = (2/(πx))·[(ln(4x) − ½)·f₁(1/x²) + f₂(1/x²)].
+pub fn coefficient_lundin(diameter_over_length: f64) -> f64 {
+    let x = diameter_over_length;
+    let f1 = |y: f64| (1.0 + 0.383901 * y + 0.017108 * y * y) / (1.0 + 0.258952 * y);
+    let f2 = |y: f64| 0.093842 * y + 0.002029 * y * y - 0.000801 * y * y * y;
+    if x <= 1.0 {
+        f1(x * x) - 4.0 * x / (3.0 * PI)
+    } else {
+        let y = 1.0 / (x * x);
+        2.0 / (PI * x) * (((4.0 * x).ln() - 0.5) * f1(y) + f2(y))
+    }
+}
+
+/// Inductance of the ideal current sheet, henries: µ0·π·a²·N²·K_N/l.
+///
+/// `mean_diameter` and `length` in metres; `nagaoka` is K_N for D/l.
+pub fn current_sheet_inductance(mean_diameter: f64, length: f64, turns: f64, nagaoka: f64) -> f64 {
+    let a = 0.5 * mean_diameter;
+    MU_0 * PI * a * a * turns * turns * nagaoka / length
+}

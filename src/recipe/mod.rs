@@ -1,0 +1,1 @@
+//! The saved coil recipe (in progress).

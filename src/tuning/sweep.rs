@@ -1,0 +1,66 @@
+//! Sweeps of the resonance for the charts.
+
+use crate::model::{Coil, Conditions, Tank, evaluate::resonance_of};
+
+/// Resonance against coil length at one trimmer setting.
+#[derive(Clone, Debug, PartialEq)]
+pub struct SpacingCurve {
+    /// Trimmer setting 0–1.
+    pub setting: f64,
+    /// (coil length in metres, resonance in hertz).
+    pub points: Vec<[f64; 2]>,
+}
+
+/// Shortest coil length possible: close-wound, turns × overall wire diameter.
+pub fn touching_length(coil: &Coil) -> f64 {
+    coil.turns * coil.wire_overall
+}
+
+/// Resonance against coil length for each trimmer setting.
+///
+/// `lengths` is the (shortest, longest) coil length in metres; the shortest is raised to the
+/// touching limit. `samples` points per curve, evenly spaced in length.
+pub fn spacing_sweep(
+    coil: &Coil,
+    tank: &Tank,
+    conditions: &Conditions,
+    settings: &[f64],
+    lengths: (f64, f64),
+    samples: usize,
+) -> Vec<SpacingCurve> {
+    let lo = lengths.0.max(touching_length(coil));
+    let hi = lengths.1.max(lo * 1.001);
+    let n = samples.max(2);
+    settings
+        .iter()
+        .map(|&setting| {
+            let c_ext = tank.external_capacitance_at(setting);
+            let points = (0..n)
+                .map(|i| {
+                    let l = lo + (hi - lo) * i as f64 / (n - 1) as f64;
+                    [l, resonance_of(&coil.with_length(l), c_ext, conditions)]
+                })
+                .collect();
+            SpacingCurve { setting, points }
+        })
+        .collect()
+}
+
+/// Resonance against trimmer setting (0–1) at the coil's own length: (setting, hertz).
+pub fn trimmer_sweep(
+    coil: &Coil,
+    tank: &Tank,
+    conditions: &Conditions,
+    samples: usize,
+) -> Vec<[f64; 2]> {
+    let n = samples.max(2);
+    (0..n)
+        .map(|i| {
+            let s = i as f64 / (n - 1) as f64;
+            [
+                s,
+                resonance_of(coil, tank.external_capacitance_at(s), conditions),
+            ]
+        })
+        .collect()
+}
