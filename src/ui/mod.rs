@@ -1,4 +1,6 @@
-//! The eframe window (in progress: the engine lands first).
+//! The eframe window: the only layer that imports egui.
+
+pub mod units;
 
 /// Open the window. Until it exists, explain and fail.
 pub fn run(_args: Vec<String>) -> Result<(), String> {

@@ -1,0 +1,96 @@
+//! The recipe as the program holds it: SI units, validated by the model's rules.
+
+use crate::model::{
+    Coating, Conditions, DiameterSpec, FeedbackDivider, Gauge, InductanceModel, SpacingSpec, Tank,
+    Winding, WireSpec,
+};
+use crate::tuning::BandPlan;
+
+/// The channel a recipe aims at.
+#[derive(Clone, Debug, PartialEq)]
+pub struct Target {
+    /// The band plan the channel is picked from.
+    pub plan: BandPlan,
+    /// The channel centre, hertz.
+    pub channel: f64,
+}
+
+/// One measurement at the bench.
+#[derive(Clone, Debug, PartialEq)]
+pub struct BenchEntry {
+    /// Measured resonance (or oscillation) frequency, hertz.
+    pub measured: f64,
+    /// Coil length (turns × pitch) at the time, metres.
+    pub length: f64,
+    /// Trimmer setting at the time, 0–1.
+    pub trimmer_setting: f64,
+    /// What it was measured with (free text).
+    pub instrument: String,
+    /// The instrument's frequency error in ppm, if known.
+    pub error_ppm: Option<f64>,
+    /// Anything else worth keeping.
+    pub note: String,
+}
+
+/// A coil recipe: the winding, the tank it works in, its target, and what was measured.
+#[derive(Clone, Debug, PartialEq)]
+pub struct Recipe {
+    /// Short name, shown in the title bar.
+    pub name: String,
+    /// Free notes.
+    pub notes: String,
+    /// The coil as the builder knows it.
+    pub winding: Winding,
+    /// The tank.
+    pub tank: Tank,
+    /// Temperature and the driving inductance model.
+    pub conditions: Conditions,
+    /// The channel aimed at.
+    pub target: Target,
+    /// Measurements, oldest first.
+    pub bench_log: Vec<BenchEntry>,
+}
+
+impl Recipe {
+    /// The demo coil: an invented scenario (see assets/recipes). A 5-turn coil of 1.0 mm bare
+    /// copper on a 6 mm former for a bench oscillator aimed at 98.7 MHz, with a 2–10 pF trimmer.
+    pub fn demo() -> Self {
+        Self {
+            name: "Lantern Hill bench oscillator".to_owned(),
+            notes: "Practice coil for the Thursday apprentices: wind on the 6 mm drill shank, \
+                    spread to 8 mm, trim to the club's test channel."
+                .to_owned(),
+            winding: Winding {
+                diameter: DiameterSpec::Former(6.0e-3),
+                wire: WireSpec {
+                    gauge: Gauge::Metric(1.0e-3),
+                    coating: Coating::Bare,
+                },
+                turns: 5.0,
+                spacing: SpacingSpec::Length(8.0e-3),
+                lead_length: 5.0e-3,
+            },
+            tank: Tank {
+                fixed: 6.8e-12,
+                trimmer_min: 2e-12,
+                trimmer_max: 10e-12,
+                trimmer_setting: 0.5,
+                stray: 6e-12,
+                feedback: Some(FeedbackDivider {
+                    upper: 10e-12,
+                    lower: 22e-12,
+                }),
+            },
+            conditions: Conditions {
+                temperature_c: 25.0,
+                model: InductanceModel::RoundWire,
+                filament_sum: true,
+            },
+            target: Target {
+                plan: BandPlan::UsFm,
+                channel: 98.7e6,
+            },
+            bench_log: Vec::new(),
+        }
+    }
+}

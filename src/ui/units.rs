@@ -1,0 +1,72 @@
+//! Display units at the edge: SI inside, millimetres or inches, pF, nH, MHz on screen.
+
+/// How lengths are shown.
+#[derive(Clone, Copy, Debug, PartialEq, Eq, Default)]
+pub enum LengthUnit {
+    /// Millimetres.
+    #[default]
+    Millimetres,
+    /// Inches.
+    Inches,
+}
+
+impl LengthUnit {
+    /// Metres per display unit.
+    pub fn metres_per_unit(self) -> f64 {
+        match self {
+            LengthUnit::Millimetres => 1e-3,
+            LengthUnit::Inches => 0.0254,
+        }
+    }
+
+    /// Metres to display units.
+    pub fn from_metres(self, metres: f64) -> f64 {
+        metres / self.metres_per_unit()
+    }
+
+    /// Display units to metres.
+    pub fn to_metres(self, value: f64) -> f64 {
+        value * self.metres_per_unit()
+    }
+
+    /// Unit suffix.
+    pub fn suffix(self) -> &'static str {
+        match self {
+            LengthUnit::Millimetres => "mm",
+            LengthUnit::Inches => "in",
+        }
+    }
+
+    /// Decimal places that suit the unit for coil dimensions.
+    pub fn decimals(self) -> usize {
+        match self {
+            LengthUnit::Millimetres => 2,
+            LengthUnit::Inches => 3,
+        }
+    }
+
+    /// A length formatted with its unit.
+    pub fn show(self, metres: f64) -> String {
+        format!(
+            "{:.*} {}",
+            self.decimals(),
+            self.from_metres(metres),
+            self.suffix()
+        )
+    }
+}
+
+/// Farads to picofarads.
+pub fn pf(farads: f64) -> f64 {
+    farads * 1e12
+}
+
+/// Henries to nanohenries.
+pub fn nh(henries: f64) -> f64 {
+    henries * 1e9
+}
+
+/// Hertz to megahertz.
+pub fn mhz(hertz: f64) -> f64 {
+    hertz * 1e-6
+}
