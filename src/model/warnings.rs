@@ -7,6 +7,9 @@ use crate::physics::{medhurst, wheeler};
 /// Operating frequency above this fraction of self-resonance raises the apparent inductance by
 /// more than about 6 % ((f/f_self)²): worth a warning (common practice).
 const SELF_RESONANCE_MARGIN: f64 = 0.25;
+/// Rosa's corrections come from straight-conductor geometric mean distances; beyond a pitch of
+/// half the diameter the neglected curvature terms (order (p/D)²) exceed about 3 %.
+const ROSA_MAX_PITCH_OVER_DIAMETER: f64 = 0.5;
 /// Leads carrying more than this fraction of the total inductance are worth a warning.
 const LEADS_FRACTION: f64 = 0.2;
 /// Below this r/δ the high-frequency proximity model overstates the loss.
@@ -32,6 +35,17 @@ pub(super) fn collect(a: &Analysis, coil: &Coil) -> Vec<Warning> {
                 "Wheeler 1928 is outside its range (length {:.2} mm < 0.8 × radius); it differs \
                  from the exact current sheet by {err:+.1} %",
                 g.length * 1e3
+            ),
+        );
+    }
+    if g.pitch > ROSA_MAX_PITCH_OVER_DIAMETER * g.mean_diameter {
+        push(
+            &mut out,
+            WarningTopic::Inductance,
+            format!(
+                "pitch {:.2} mm exceeds half the diameter: Rosa's round-wire correction assumes \
+                 a pitch small against the diameter; trust the filament sum here",
+                g.pitch * 1e3
             ),
         );
     }

@@ -1,0 +1,134 @@
+//! The headless `evaluate` command, run as a user would run it.
+
+use std::process::Command;
+
+fn run(args: &[&str]) -> (bool, String, String) {
+    let out = Command::new(env!("CARGO_BIN_EXE_tankwright"))
+        .args(args)
+        .output()
+        .expect("the binary runs");
+    (
+        out.status.success(),
+        String::from_utf8_lossy(&out.stdout).into_owned(),
+        String::from_utf8_lossy(&out.stderr).into_owned(),
+    )
+}
+
+const COIL: [&str; 14] = [
+    "evaluate",
+    "--mean-diameter-mm",
+    "7",
+    "--turns",
+    "5",
+    "--length-mm",
+    "7",
+    "--wire-mm",
+    "1",
+    "--lead-mm",
+    "5",
+    "--capacitance-pf",
+    "20",
+    "--json",
+];
+
+#[test]
+fn json_has_every_key_the_issue_names() {
+    let (ok, out, err) = run(&COIL);
+    assert!(ok, "{err}");
+    let v: serde_json::Value = serde_json::from_str(&out).expect("one JSON object");
+    for key in [
+        "nagaoka_coefficient",
+        "self_capacitance_pf",
+        "total_capacitance_pf",
+        "resonance_mhz",
+        "ac_resistance_ohm",
+        "q",
+        "wire_length_mm",
+        "warnings",
+    ] {
+        assert!(v.get(key).is_some(), "missing {key}");
+    }
+    for key in [
+        "wheeler_1928",
+        "current_sheet",
+        "lundin_1985",
+        "round_wire_low_freq",
+        "round_wire",
+        "filament_sum",
+    ] {
+        assert!(
+            v["inductance_nh"][key].as_f64().is_some(),
+            "missing inductance_nh.{key}"
+        );
+    }
+    for key in ["lumped", "helical"] {
+        assert!(
+            v["self_resonance_mhz"][key].as_f64().is_some(),
+            "missing self_resonance_mhz.{key}"
+        );
+    }
+    // Grover 1946 Table 36: K_N = 0.688423 at l/D = 1.
+    assert!((v["nagaoka_coefficient"].as_f64().unwrap_or(0.0) - 0.688423).abs() < 2e-6);
+    // Thomson: f = 1/(2π√(LC)) with the reported total L and C.
+    let l = v["inductance_nh"]["total"].as_f64().unwrap_or(0.0) * 1e-9;
+    let c = v["total_capacitance_pf"].as_f64().unwrap_or(0.0) * 1e-12;
+    let f = v["resonance_mhz"].as_f64().unwrap_or(0.0) * 1e6;
+    assert!((f * 2.0 * std::f64::consts::PI * (l * c).sqrt() - 1.0).abs() < 1e-9);
+}
+
+#[test]
+fn the_report_has_units() {
+    let (ok, out, _) = run(&COIL[..13]);
+    assert!(ok);
+    for unit in ["mm", "nH", "pF", "MHz", "ohm"] {
+        assert!(out.contains(unit), "report lacks {unit}:\n{out}");
+    }
+}
+
+#[test]
+fn bad_input_gives_one_line_and_failure() {
+    for args in [
+        vec!["evaluate", "--turns", "5"],
+        vec![
+            "evaluate",
+            "--mean-diameter-mm",
+            "7",
+            "--turns",
+            "five",
+            "--length-mm",
+            "7",
+            "--wire-mm",
+            "1",
+        ],
+        vec![
+            "evaluate",
+            "--mean-diameter-mm",
+            "7",
+            "--turns",
+            "5",
+            "--length-mm",
+            "2",
+            "--wire-mm",
+            "1",
+        ],
+        vec![
+            "evaluate",
+            "--mean-diameter-mm",
+            "7",
+            "--turns",
+            "5",
+            "--length-mm",
+            "7",
+            "--wire-mm",
+            "1",
+            "--bogus",
+            "3",
+        ],
+    ] {
+        let (ok, out, err) = run(&args);
+        assert!(!ok, "{args:?} should fail");
+        assert!(out.is_empty());
+        assert_eq!(err.trim().lines().count(), 1, "{err}");
+        assert!(!err.contains("NaN") && !err.contains("panicked"), "{err}");
+    }
+}
