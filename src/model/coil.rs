@@ -209,7 +209,8 @@ impl Coil {
 
     /// Wire to cut, metres: the helix √((πD)² + p²) per turn times N, plus both leads.
     pub fn wire_length(&self) -> f64 {
-        let per_turn = (std::f64::consts::PI * self.mean_diameter).hypot(self.pitch);
+        let circumference = std::f64::consts::PI * self.mean_diameter;
+        let per_turn = (circumference * circumference + self.pitch * self.pitch).sqrt();
         per_turn * self.turns + 2.0 * self.lead_length
     }
 

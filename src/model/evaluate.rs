@@ -152,34 +152,69 @@ pub fn evaluate(
 }
 
 /// The frequency-independent part of a coil's figures, computed once per evaluation.
+///
+/// Rosa's k_s, the ring self-inductance and the leads are linear in the wire's internal
+/// inductance fraction χ, so each is kept as its values at χ = 0 and χ = 1 and blended.
 #[derive(Clone, Copy, Debug)]
 struct Fixed {
     nagaoka: f64,
     current_sheet: f64,
     k_m: f64,
-    ln_2p_over_d: f64,
+    /// Rosa round-wire inductance with surface current (χ = 0) and uniform current (χ = 1).
+    round_wire: [f64; 2],
+    /// Both leads at χ = 0 and χ = 1.
+    leads: [f64; 2],
+    /// The driving model's inductance when it does not depend on frequency.
+    sheet_model: Option<f64>,
+    medhurst_factor: f64,
     self_capacitance: f64,
 }
 
 impl Fixed {
-    fn new(coil: &Coil) -> Self {
-        let nagaoka = nagaoka::coefficient(coil.mean_diameter / coil.length);
-        Self {
-            nagaoka,
-            current_sheet: nagaoka::current_sheet_inductance(
-                coil.mean_diameter,
+    fn new(coil: &Coil, model: InductanceModel) -> Self {
+        let d = coil.mean_diameter;
+        let d_over_l = d / coil.length;
+        let nagaoka = nagaoka::coefficient(d_over_l);
+        let current_sheet = nagaoka::current_sheet_inductance(d, coil.length, coil.turns, nagaoka);
+        let k_m = round_wire::k_m(coil.turns);
+        // k_s is 3/2 − ln(2p/d) − χ/4: one logarithm serves both limits.
+        let k_s_surface = round_wire::k_s(coil.pitch, coil.wire_bare, 0.0);
+        let rosa = |k_s: f64| current_sheet - round_wire::correction(d, coil.turns, k_s, k_m);
+        let lead = leads::straight_wire_inductance_limits(coil.lead_length, 0.5 * coil.wire_bare);
+        let sheet_model = match model {
+            InductanceModel::Wheeler1928 => Some(wheeler::inductance(d, coil.length, coil.turns)),
+            InductanceModel::CurrentSheet => Some(current_sheet),
+            InductanceModel::Lundin1985 => Some(nagaoka::current_sheet_inductance(
+                d,
                 coil.length,
                 coil.turns,
-                nagaoka,
-            ),
-            k_m: round_wire::k_m(coil.turns),
-            ln_2p_over_d: (2.0 * coil.pitch / coil.wire_bare).ln(),
-            self_capacitance: medhurst::self_capacitance(
-                coil.mean_diameter,
-                coil.length_over_diameter(),
-            ),
+                nagaoka::coefficient_lundin(d_over_l),
+            )),
+            InductanceModel::RoundWire | InductanceModel::FilamentSum => None,
+        };
+        let medhurst_factor = medhurst::factor(coil.length_over_diameter());
+        Self {
+            nagaoka,
+            current_sheet,
+            k_m,
+            round_wire: [rosa(k_s_surface), rosa(k_s_surface - 0.25)],
+            leads: [2.0 * lead[0], 2.0 * lead[1]],
+            sheet_model,
+            medhurst_factor,
+            // Medhurst: H pF per cm of diameter.
+            self_capacitance: medhurst_factor * d * 1e-10,
         }
     }
+
+    /// The driving inductance (coil by the model, plus leads) with surface current, the
+    /// high-frequency limit: the starting point of the resonance iteration.
+    fn high_frequency_inductance(&self) -> f64 {
+        self.sheet_model.unwrap_or(self.round_wire[0]) + self.leads[0]
+    }
+}
+
+fn blend(pair: [f64; 2], chi: f64) -> f64 {
+    pair[0] + chi * (pair[1] - pair[0])
 }
 
 /// Inductances at one frequency.
@@ -188,7 +223,6 @@ struct AtFrequency {
     chi: f64,
     skin: copper::InternalImpedance,
     skin_depth: f64,
-    k_s: f64,
     round_wire: f64,
     filament: Option<f64>,
     leads: f64,
@@ -206,9 +240,7 @@ fn at_frequency(
     let skin_depth = copper::skin_depth(resistivity, frequency);
     let skin = copper::internal_impedance(radius / skin_depth);
     let chi = skin.internal_inductance_fraction;
-    let k_s = 1.5 - fixed.ln_2p_over_d - 0.25 * chi;
-    let round_wire = fixed.current_sheet
-        - round_wire::correction(coil.mean_diameter, coil.turns, k_s, fixed.k_m);
+    let round_wire = blend(fixed.round_wire, chi);
     let filament = (c.filament_sum || c.model == InductanceModel::FilamentSum).then(|| {
         filament::filament_sum(
             coil.turns,
@@ -218,26 +250,16 @@ fn at_frequency(
             chi,
         )
     });
-    let leads = 2.0 * leads::straight_wire_inductance(coil.lead_length, radius, chi);
+    let leads = blend(fixed.leads, chi);
     let coil_l = match c.model {
-        InductanceModel::Wheeler1928 => {
-            wheeler::inductance(coil.mean_diameter, coil.length, coil.turns)
-        }
-        InductanceModel::CurrentSheet => fixed.current_sheet,
-        InductanceModel::Lundin1985 => nagaoka::current_sheet_inductance(
-            coil.mean_diameter,
-            coil.length,
-            coil.turns,
-            nagaoka::coefficient_lundin(coil.mean_diameter / coil.length),
-        ),
         InductanceModel::RoundWire => round_wire,
         InductanceModel::FilamentSum => filament.unwrap_or(round_wire),
+        _ => fixed.sheet_model.unwrap_or(round_wire),
     };
     AtFrequency {
         chi,
         skin,
         skin_depth,
-        k_s,
         round_wire,
         filament,
         leads,
@@ -249,8 +271,14 @@ fn lc_frequency(inductance: f64, capacitance: f64) -> f64 {
     1.0 / (2.0 * PI * (inductance * capacitance).sqrt())
 }
 
-/// Solve f = 1/(2π√(L(f)·C)) by fixed-point iteration; L depends on f only through the
-/// wire's internal inductance, so two or three rounds settle it to 1e-12.
+/// Relative change of the resonance below which the iteration stops (0.1 Hz at 100 MHz).
+const RESONANCE_TOLERANCE: f64 = 1e-9;
+
+/// Solve f = 1/(2π√(L(f)·C)) by fixed-point iteration. L depends on f only through the wire's
+/// internal inductance, whose share of L is a fraction of a per cent at VHF, so each round
+/// shrinks the error about a thousandfold; starting from the surface-current limit, three
+/// rounds reach [`RESONANCE_TOLERANCE`]. The figures returned are those at the last frequency
+/// tried, within the tolerance of the one returned.
 fn solve(
     coil: &Coil,
     fixed: &Fixed,
@@ -258,16 +286,15 @@ fn solve(
     resistivity: f64,
     capacitance: f64,
 ) -> (f64, AtFrequency) {
-    let mut f = lc_frequency(fixed.current_sheet, capacitance);
+    let mut f = lc_frequency(fixed.high_frequency_inductance(), capacitance);
     let mut at = at_frequency(coil, fixed, c, resistivity, f);
-    for _ in 0..8 {
+    for _ in 0..12 {
         let next = lc_frequency(at.driving, capacitance);
-        let done = (next - f).abs() <= 1e-12 * next;
+        if (next - f).abs() <= RESONANCE_TOLERANCE * next {
+            return (next, at);
+        }
         f = next;
         at = at_frequency(coil, fixed, c, resistivity, f);
-        if done {
-            break;
-        }
     }
     (f, at)
 }
@@ -275,7 +302,7 @@ fn solve(
 /// Resonant frequency only, hertz, for a validated coil and an external capacitance: the same
 /// solution as [`evaluate_coil`] without the other figures (for sweeps and solvers).
 pub fn resonance_of(coil: &Coil, external_capacitance: f64, conditions: &Conditions) -> f64 {
-    let fixed = Fixed::new(coil);
+    let fixed = Fixed::new(coil, conditions.model);
     let c = Conditions {
         filament_sum: false,
         ..*conditions
@@ -296,7 +323,7 @@ pub fn resonance_of(coil: &Coil, external_capacitance: f64, conditions: &Conditi
 /// The self-capacitance is counted once: added to the tank capacitance beside the coil's
 /// inductance. The apparent inductance is reported separately and not used again.
 pub fn evaluate_coil(coil: &Coil, external_capacitance: f64, conditions: &Conditions) -> Analysis {
-    let fixed = Fixed::new(coil);
+    let fixed = Fixed::new(coil, conditions.model);
     let resistivity = copper::resistivity(conditions.temperature_c);
     let total_capacitance = external_capacitance + fixed.self_capacitance;
     let (f, at) = solve(coil, &fixed, conditions, resistivity, total_capacitance);
@@ -313,17 +340,11 @@ pub fn evaluate_coil(coil: &Coil, external_capacitance: f64, conditions: &Condit
             coil.turns,
             nagaoka::coefficient_lundin(d / l),
         ),
-        round_wire_low_freq: fixed.current_sheet
-            - round_wire::correction(
-                d,
-                coil.turns,
-                round_wire::k_s(coil.pitch, coil.wire_bare, 1.0),
-                fixed.k_m,
-            ),
+        round_wire_low_freq: fixed.round_wire[1],
         round_wire: at.round_wire,
         filament_sum: at.filament,
         leads: at.leads,
-        k_s: at.k_s,
+        k_s: round_wire::k_s(coil.pitch, coil.wire_bare, at.chi),
         k_m: fixed.k_m,
         internal_inductance_fraction: at.chi,
     };
@@ -335,7 +356,8 @@ pub fn evaluate_coil(coil: &Coil, external_capacitance: f64, conditions: &Condit
     let ratio_to_self = f / self_resonance.lumped;
     let apparent_inductance = at.driving / (1.0 - ratio_to_self * ratio_to_self).max(1e-9);
 
-    let coil_wire = coil.wire_length() - 2.0 * coil.lead_length;
+    let wire_length = coil.wire_length();
+    let coil_wire = wire_length - 2.0 * coil.lead_length;
     let proximity_factor = proximity::wall_proximity_factor(coil.pitch / coil.wire_bare);
     let r_dc_coil = copper::dc_resistance(resistivity, coil.wire_bare, coil_wire);
     let r_dc_leads = copper::dc_resistance(resistivity, coil.wire_bare, 2.0 * coil.lead_length);
@@ -353,7 +375,7 @@ pub fn evaluate_coil(coil: &Coil, external_capacitance: f64, conditions: &Condit
         length: l,
         length_over_diameter: lod,
         lead_length: coil.lead_length,
-        wire_length: coil.wire_length(),
+        wire_length,
     };
 
     let mut analysis = Analysis {
@@ -364,7 +386,7 @@ pub fn evaluate_coil(coil: &Coil, external_capacitance: f64, conditions: &Condit
         total_inductance: at.driving,
         apparent_inductance,
         self_capacitance: fixed.self_capacitance,
-        medhurst_factor: medhurst::factor(lod),
+        medhurst_factor: fixed.medhurst_factor,
         external_capacitance,
         total_capacitance,
         resonance: f,

@@ -29,19 +29,25 @@ pub fn axial_velocity_factor(mean_diameter: f64, pitch: f64, frequency: f64) -> 
 /// Kandoian–Sichak velocity factor.
 ///
 /// # Formula
-/// f = VF(f)·c/(2·l), solved by relaxed fixed-point iteration: VF varies as f^(−1/4) at most,
-/// so the plain map has slope near −1/4 and the step f ← f + 0.8·(g(f) − f) cancels it.
+/// f = VF(f)·c/(2·l). With H = c/(2l), s = 20·(D/p)^2.5·√(D/c) and u = √f this is
+/// s·u⁵ + u⁴ − H² = 0, solved by Newton's method from above (the left side is increasing and
+/// convex for u > 0, so the iterates fall monotonically onto the root).
 pub fn helical_self_resonance(mean_diameter: f64, pitch: f64, length: f64) -> f64 {
-    let shape = 20.0 * (mean_diameter / pitch).powf(2.5) * (mean_diameter / SPEED_OF_LIGHT).sqrt();
-    let half_wave = SPEED_OF_LIGHT / (2.0 * length);
-    let mut f = half_wave;
-    for _ in 0..40 {
-        let vf = 1.0 / (1.0 + shape * f.sqrt()).sqrt();
-        let next = half_wave * vf;
-        if (next - f).abs() <= 1e-10 * next {
-            return next;
+    let ratio = mean_diameter / pitch;
+    let s = 20.0 * ratio * ratio * ratio.sqrt() * (mean_diameter / SPEED_OF_LIGHT).sqrt();
+    let h = SPEED_OF_LIGHT / (2.0 * length);
+    let h2 = h * h;
+    // Both (H²/s)^(1/5) and √H bound the root from above.
+    let mut u = (h2 / s).powf(0.2).min(h.sqrt());
+    for _ in 0..30 {
+        let u3 = u * u * u;
+        let g = s * u3 * u * u + u3 * u - h2;
+        let dg = 5.0 * s * u3 * u + 4.0 * u3;
+        let step = g / dg;
+        u -= step;
+        if step.abs() <= 1e-13 * u {
+            break;
         }
-        f += 0.8 * (next - f);
     }
-    f
+    u * u
 }

@@ -22,3 +22,17 @@ pub fn straight_wire_inductance(
         ((2.0 * length / wire_radius).ln() - 1.0 + 0.25 * internal_inductance_fraction).max(0.0);
     MU_0 * length / (2.0 * PI) * log_term
 }
+
+/// Straight-wire inductance with surface current (χ = 0) and with uniform current (χ = 1),
+/// henries: the inductance at any χ is the linear blend of the two (one logarithm for both).
+pub fn straight_wire_inductance_limits(length: f64, wire_radius: f64) -> [f64; 2] {
+    if length <= 0.0 {
+        return [0.0, 0.0];
+    }
+    let scale = MU_0 * length / (2.0 * PI);
+    let log_term = (2.0 * length / wire_radius).ln() - 1.0;
+    [
+        scale * log_term.max(0.0),
+        scale * (log_term + 0.25).max(0.0),
+    ]
+}

@@ -55,14 +55,20 @@ pub const MAX_LENGTH_OVER_DIAMETER: f64 = 50.0;
 pub fn factor(length_over_diameter: f64) -> f64 {
     let x = length_over_diameter.max(1e-6);
     let i = TABLE
-        .iter()
-        .position(|&(lx, _)| lx >= x)
-        .unwrap_or(TABLE.len() - 1)
+        .partition_point(|&(lx, _)| lx < x)
         .clamp(1, TABLE.len() - 1);
-    let (x0, h0) = TABLE[i - 1];
-    let (x1, h1) = TABLE[i];
-    let t = (x / x0).ln() / (x1 / x0).ln();
+    let (_, h0) = TABLE[i - 1];
+    let (_, h1) = TABLE[i];
+    // ln(x/x0)/ln(x1/x0), with the table's logarithms taken once.
+    let logs = log_table();
+    let t = (x.ln() - logs[i - 1]) / (logs[i] - logs[i - 1]);
     (h0 + t * (h1 - h0)).max(0.0)
+}
+
+/// ln(l/D) of each table entry, computed once.
+fn log_table() -> &'static [f64; 33] {
+    static LOGS: std::sync::OnceLock<[f64; 33]> = std::sync::OnceLock::new();
+    LOGS.get_or_init(|| TABLE.map(|(x, _)| x.ln()))
 }
 
 /// Whether `length_over_diameter` lies inside Medhurst's table.
