@@ -1,0 +1,85 @@
+//! Sweep results kept between frames, recomputed only when the coil, tank or conditions change.
+
+use crate::model::{Coil, Conditions, Tank};
+use crate::tuning::solve::longest_length;
+use crate::tuning::sweep::{SpacingCurve, spacing_sweep, touching_length, trimmer_sweep};
+
+/// Trimmer settings the spacing chart draws a curve for.
+pub(crate) const SETTINGS: [f64; 5] = [0.0, 0.25, 0.5, 0.75, 1.0];
+
+/// Points per curve: about one or two per horizontal pixel of a panel-sized chart.
+pub(crate) const SAMPLES: usize = 240;
+
+/// Sweep results plus the inputs they were computed from; recomputed only when those change.
+#[derive(Default)]
+pub struct ChartCache {
+    inputs: Option<(Coil, Tank, Conditions)>,
+    range: (f64, f64),
+    spacing: Vec<SpacingCurve>,
+    trimmer: Vec<[f64; 2]>,
+}
+
+impl ChartCache {
+    /// Recompute the sweeps if (coil, tank, conditions) differ from the last call; true if it recomputed.
+    pub fn refresh(&mut self, coil: &Coil, tank: &Tank, conditions: &Conditions) -> bool {
+        let inputs = (*coil, *tank, *conditions);
+        if self.inputs == Some(inputs) {
+            return false;
+        }
+        let range = self.length_range(coil);
+        self.spacing = spacing_sweep(coil, tank, conditions, &SETTINGS, range, SAMPLES);
+        self.trimmer = trimmer_sweep(coil, tank, conditions, SAMPLES);
+        // The sweep raises the low end to the touching limit; keep what it actually used.
+        self.range = self
+            .spacing
+            .first()
+            .and_then(|c| Some((c.points.first()?[0], c.points.last()?[0])))
+            .unwrap_or(range);
+        self.inputs = Some(inputs);
+        true
+    }
+
+    /// The lengths swept: close-wound to somewhat past the present length.
+    ///
+    /// The upper end is kept while only the length changes and it still leaves room both ways,
+    /// so that dragging the spacing does not rescale the axis under the pointer every frame.
+    fn length_range(&self, coil: &Coil) -> (f64, f64) {
+        let lo = touching_length(coil);
+        let wanted = longest_length(coil).max(1.5 * coil.length);
+        let same_winding = self
+            .inputs
+            .is_some_and(|(old, _, _)| same_winding(&old, coil));
+        let kept = self.range.1;
+        let hi = if same_winding && kept >= 1.2 * coil.length && kept <= 2.0 * wanted {
+            kept
+        } else {
+            wanted
+        };
+        (lo, hi)
+    }
+
+    /// Lengths swept, metres: (turns touching, longest).
+    pub fn length_range_swept(&self) -> (f64, f64) {
+        self.range
+    }
+
+    /// Resonance against coil length, one curve per setting in 0/25/50/75/100 %.
+    pub fn spacing_curves(&self) -> &[SpacingCurve] {
+        &self.spacing
+    }
+
+    /// Resonance against trimmer setting at the present length: (setting 0–1, hertz).
+    pub fn trimmer_curve(&self) -> &[[f64; 2]] {
+        &self.trimmer
+    }
+}
+
+/// Everything but the spacing is the same.
+fn same_winding(a: &Coil, b: &Coil) -> bool {
+    a.mean_diameter == b.mean_diameter
+        && a.former_diameter == b.former_diameter
+        && a.wire_bare == b.wire_bare
+        && a.wire_overall == b.wire_overall
+        && a.turns == b.turns
+        && a.lead_length == b.lead_length
+}
