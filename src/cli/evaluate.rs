@@ -128,7 +128,10 @@ impl EvaluateRequest {
 /// Run `evaluate` on the words after the subcommand; Ok(stdout) or Err(one-line message).
 pub fn run_evaluate(words: Vec<String>) -> Result<String, String> {
     let args = Args::parse(words, &["json"]).map_err(|e| e.to_string())?;
-    let req = EvaluateRequest::from_args(&args).map_err(|e| e.to_string())?;
+    let req = match args.text("recipe") {
+        Some(file) => super::recipe_args::request_from_recipe(&args, file)?,
+        None => EvaluateRequest::from_args(&args).map_err(|e| e.to_string())?,
+    };
     let analysis = crate::model::evaluate(&req.winding, &req.tank, &req.conditions)
         .map_err(|e| format!("invalid input: {e}"))?;
     Ok(if req.json {

@@ -1,15 +1,18 @@
-//! The headless commands: `evaluate` (and, with recipes, `report`).
+//! The headless commands: `evaluate` (from flags or `--recipe FILE`) and `report FILE`.
 //!
 //! Everything here returns strings; `main.rs` prints them and sets the exit code.
 
 mod args;
 mod evaluate;
 mod json;
+mod recipe_args;
+mod report;
 mod text;
 
 pub use args::{ArgError, Args};
 pub use evaluate::{EvaluateRequest, run_evaluate};
 pub use json::analysis_json;
+pub use report::{build_report, run_report};
 pub use text::analysis_report;
 
 /// Usage text for `--help`.
@@ -19,6 +22,8 @@ tankwright — workbench for hand-wound air-core VHF coils
 usage:
   tankwright [--screenshot FILE.png]      open the window (with the demo recipe)
   tankwright evaluate FLAGS [--json]      print every figure for one coil
+  tankwright evaluate --recipe FILE [--json]   the same for a saved recipe
+  tankwright report FILE                  a recipe as a build sheet, then every figure
   tankwright help                         this text
 
 evaluate flags (millimetres, picofarads, megahertz):

@@ -1,9 +1,20 @@
 //! The saved coil recipe: the document the window edits and the file it is kept in.
 //!
-//! `document` holds the in-memory recipe in SI units (no I/O). The file format, loading with
-//! line-and-column errors, and atomic saving live beside it; this layer is the only one that
-//! touches the disk.
+//! `document` holds the in-memory recipe in SI units (no I/O). `schema` is the on-disk layout
+//! (mm, pF, MHz, percent), `convert` the one place the two meet, `format` the text (RON) with
+//! line-and-column errors, `store` the atomic save, `demos` the compiled-in demo recipes. This
+//! layer is the only one that touches the disk.
 
+mod convert;
+mod decimal;
+pub mod demos;
 pub mod document;
+pub mod format;
+pub mod load;
+pub mod schema;
+pub mod store;
 
+pub use demos::demos;
 pub use document::{BenchEntry, Recipe, Target};
+pub use load::{LoadError, LoadErrorKind};
+pub use store::{SaveError, load, save};

@@ -1,0 +1,22 @@
+//! `evaluate --recipe FILE`: the coil, tank and conditions of a saved recipe instead of flags.
+
+use super::args::Args;
+use super::evaluate::EvaluateRequest;
+use crate::recipe::store;
+use std::path::Path;
+
+/// The request a recipe file describes; only `--json` may stand beside `--recipe`.
+pub(crate) fn request_from_recipe(args: &Args, file: &str) -> Result<EvaluateRequest, String> {
+    args.reject_unknown()
+        .map_err(|e| format!("with --recipe only --json may be given: {e}"))?;
+    if let Some(word) = args.positional.first() {
+        return Err(format!("unexpected word '{word}' after --recipe"));
+    }
+    let recipe = store::load(Path::new(file)).map_err(|e| e.to_string())?;
+    Ok(EvaluateRequest {
+        winding: recipe.winding,
+        tank: recipe.tank,
+        conditions: recipe.conditions,
+        json: args.switch("json"),
+    })
+}

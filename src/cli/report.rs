@@ -1,0 +1,246 @@
+//! `tankwright report FILE`: a recipe as a build sheet, then every figure.
+
+use super::args::Args;
+use crate::model::{Analysis, Coating, Coil, DiameterSpec, Gauge, SpacingSpec, evaluate};
+use crate::recipe::{Recipe, store};
+use crate::tuning::BandPlan;
+use crate::tuning::bands::us_fm_channel_number;
+use crate::tuning::fit::correct_from_measurement;
+use crate::tuning::solve::{length_for_target, setting_for_target, stretch_sensitivity};
+use crate::tuning::sweep::touching_length;
+use std::path::Path;
+
+/// Run `report` on the words after the subcommand; Ok(stdout) or Err(one-line message).
+pub fn run_report(words: Vec<String>) -> Result<String, String> {
+    let args = Args::parse(words, &[]).map_err(|e| e.to_string())?;
+    args.reject_unknown().map_err(|e| e.to_string())?;
+    let file = match args.positional.as_slice() {
+        [one] => one,
+        [] => return Err("report needs a recipe file: tankwright report FILE.ron".to_owned()),
+        _ => return Err("report takes one recipe file".to_owned()),
+    };
+    let recipe = store::load(Path::new(file)).map_err(|e| e.to_string())?;
+    build_report(&recipe)
+}
+
+/// The readable build report of a recipe: name, notes, how to wind it, the tank, the target
+/// and how to reach it, the bench log, then the full analysis.
+pub fn build_report(r: &Recipe) -> Result<String, String> {
+    let coil = Coil::from_winding(&r.winding).map_err(|e| format!("invalid recipe: {e}"))?;
+    let a =
+        evaluate(&r.winding, &r.tank, &r.conditions).map_err(|e| format!("invalid recipe: {e}"))?;
+    let mut out = Vec::new();
+    out.push(format!("Recipe: {}", r.name));
+    if !r.notes.trim().is_empty() {
+        out.push(format!("Notes: {}", r.notes.trim()));
+    }
+    out.push(String::new());
+    winding_lines(r, &a, &mut out);
+    tank_lines(r, &mut out);
+    target_lines(r, &coil, &a, &mut out);
+    bench_lines(r, &coil, &mut out);
+    out.push(String::new());
+    out.push(
+        "Caution: an oscillator on these frequencies can radiate. Keep it screened and into a \
+         dummy load; transmitting needs a licence and follows your local rules."
+            .to_owned(),
+    );
+    out.push(String::new());
+    let mut text = out.join("\n");
+    text.push('\n');
+    text.push_str(&super::analysis_report(&a));
+    Ok(text)
+}
+
+fn winding_lines(r: &Recipe, a: &Analysis, out: &mut Vec<String>) {
+    let w = &r.winding;
+    let g = &a.geometry;
+    out.push("To wind".to_owned());
+    out.push(match w.diameter {
+        DiameterSpec::Former(d) => format!(
+            "  former             {:>10.3} mm   (mean diameter {:.3} mm)",
+            d * 1e3,
+            g.mean_diameter * 1e3
+        ),
+        DiameterSpec::Mean(d) => format!(
+            "  mean diameter      {:>10.3} mm   (former {:.3} mm)",
+            d * 1e3,
+            g.former_diameter * 1e3
+        ),
+    });
+    let size = match w.wire.gauge {
+        Gauge::Awg(n) => format!("AWG {n} ({:.3} mm)", g.wire_bare * 1e3),
+        Gauge::Swg(n) => format!("SWG {n} ({:.3} mm)", g.wire_bare * 1e3),
+        Gauge::Metric(d) => format!("{:.3} mm", d * 1e3),
+    };
+    let coating = match w.wire.coating {
+        Coating::Bare => "bare copper".to_owned(),
+        Coating::EnamelGrade1 => format!("enamel grade 1, {:.3} mm overall", g.wire_overall * 1e3),
+        Coating::EnamelGrade2 => format!("enamel grade 2, {:.3} mm overall", g.wire_overall * 1e3),
+    };
+    out.push(format!("  wire               {size}, {coating}"));
+    out.push(format!("  turns              {:>10.2}", g.turns));
+    out.push(match w.spacing {
+        SpacingSpec::Length(l) => format!(
+            "  length (N x pitch) {:>10.3} mm   (gap {:.3} mm between turns)",
+            l * 1e3,
+            g.gap * 1e3
+        ),
+        SpacingSpec::Gap(gap) => format!(
+            "  gap between turns  {:>10.3} mm   (length {:.3} mm)",
+            gap * 1e3,
+            g.length * 1e3
+        ),
+    });
+    out.push(format!(
+        "  leads              {:>10.1} mm each",
+        g.lead_length * 1e3
+    ));
+    out.push(format!(
+        "  wire to cut        {:>10.1} mm   (helix plus both leads)",
+        g.wire_length * 1e3
+    ));
+    out.push(String::new());
+}
+
+fn tank_lines(r: &Recipe, out: &mut Vec<String>) {
+    let t = &r.tank;
+    out.push("Tank".to_owned());
+    out.push(format!("  fixed              {:>10.2} pF", t.fixed * 1e12));
+    if t.trimmer_max > 0.0 {
+        out.push(format!(
+            "  trimmer            {:>10.2} pF   ({:.1}–{:.1} pF at {:.0} %)",
+            t.trimmer_at(t.trimmer_setting) * 1e12,
+            t.trimmer_min * 1e12,
+            t.trimmer_max * 1e12,
+            t.trimmer_setting * 100.0
+        ));
+    }
+    out.push(format!("  stray              {:>10.2} pF", t.stray * 1e12));
+    if let Some(f) = t.feedback {
+        out.push(format!(
+            "  feedback divider   {:>10.2} pF   ({:.1} pF over {:.1} pF, in series)",
+            f.series_capacitance() * 1e12,
+            f.upper * 1e12,
+            f.lower * 1e12
+        ));
+    }
+    out.push(format!(
+        "  across the coil    {:>10.2} pF   (without its self-capacitance)",
+        t.external_capacitance() * 1e12
+    ));
+    out.push(String::new());
+}
+
+fn target_lines(r: &Recipe, coil: &Coil, a: &Analysis, out: &mut Vec<String>) {
+    let target = r.target.channel;
+    let c_ext = r.tank.external_capacitance();
+    out.push("Target".to_owned());
+    out.push(format!("  band plan          {}", r.target.plan.label()));
+    // Channel numbers belong to the US plan (47 CFR §73.201).
+    let number = matches!(r.target.plan, BandPlan::UsFm)
+        .then(|| us_fm_channel_number(target))
+        .flatten()
+        .map(|n| format!("   (channel {n})"))
+        .unwrap_or_default();
+    out.push(format!(
+        "  channel            {:>10.4} MHz{number}",
+        target * 1e-6
+    ));
+    out.push(format!(
+        "  resonance now      {:>10.4} MHz   offset {:+.1} kHz",
+        a.resonance * 1e-6,
+        (a.resonance - target) * 1e-3
+    ));
+    match length_for_target(coil, c_ext, &r.conditions, target) {
+        Ok(l) => out.push(format!(
+            "  length for target  {:>10.3} mm   ({:+.3} mm from now)",
+            l * 1e3,
+            (l - coil.length) * 1e3
+        )),
+        Err(e) => out.push(format!("  length for target  not reachable: {e}")),
+    }
+    out.push(format!(
+        "  stretch moves it   {:>10.1} kHz per mm",
+        stretch_sensitivity(coil, c_ext, &r.conditions) * 1e-6
+    ));
+    if r.tank.trimmer_max > r.tank.trimmer_min {
+        match setting_for_target(coil, &r.tank, &r.conditions, target) {
+            Ok(s) => out.push(format!(
+                "  or trimmer at      {:>10.1} %    (at the present length)",
+                s * 100.0
+            )),
+            Err(e) => out.push(format!("  trimmer alone      not enough: {e}")),
+        }
+    }
+    out.push(String::new());
+}
+
+fn bench_lines(r: &Recipe, coil: &Coil, out: &mut Vec<String>) {
+    out.push("Bench log".to_owned());
+    if r.bench_log.is_empty() {
+        out.push("  no measurements yet".to_owned());
+        return;
+    }
+    for (i, e) in r.bench_log.iter().enumerate() {
+        let error = e
+            .error_ppm
+            .map(|p| format!(", ±{p} ppm"))
+            .unwrap_or_default();
+        let instrument = if e.instrument.is_empty() {
+            "instrument not noted".to_owned()
+        } else {
+            e.instrument.clone()
+        };
+        let note = if e.note.is_empty() {
+            String::new()
+        } else {
+            format!(" — {}", e.note)
+        };
+        out.push(format!(
+            "  {}. {:.4} MHz at {:.2} mm, trimmer {:.0} % ({instrument}{error}){note}",
+            i + 1,
+            e.measured * 1e-6,
+            e.length * 1e3,
+            e.trimmer_setting * 100.0
+        ));
+    }
+    let Some(last) = r.bench_log.last() else {
+        return;
+    };
+    if last.length < touching_length(coil) {
+        out.push("  the latest reading's length is shorter than close-wound: no correction".into());
+        return;
+    }
+    let at_reading = coil.with_length(last.length);
+    let c_ext = r.tank.external_capacitance_at(last.trimmer_setting);
+    match correct_from_measurement(
+        &at_reading,
+        c_ext,
+        &r.conditions,
+        last.measured,
+        r.target.channel,
+    ) {
+        Some(c) => {
+            out.push(format!(
+                "  from the latest reading the build has {:+.2} pF beyond the model",
+                c.extra_capacitance * 1e12
+            ));
+            match (c.length_for_target, c.stretch) {
+                (Ok(l), Some(s)) => out.push(format!(
+                    "  with that, the target needs {:.3} mm ({s:+.3} mm from the reading)",
+                    l * 1e3,
+                    s = s * 1e3
+                )),
+                (Ok(l), None) => {
+                    out.push(format!("  with that, the target needs {:.3} mm", l * 1e3))
+                }
+                (Err(e), _) => out.push(format!("  with that, the target is out of reach: {e}")),
+            }
+        }
+        None => out.push(
+            "  the latest reading is far from anything this coil can do: check the instrument"
+                .to_owned(),
+        ),
+    }
+}

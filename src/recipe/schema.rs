@@ -1,0 +1,329 @@
+//! The on-disk recipe, schema 1: what a builder reads and edits by hand.
+//!
+//! Units are in the names: millimetres (`_mm`, `…Mm`), picofarads (`_pf`), megahertz
+//! (`_mhz`), degrees Celsius (`_c`), percent and ppm. These structs are separate from the SI
+//! model types; `convert` is the one place that translates between them.
+
+use super::decimal::{si_from_text, text_from_si};
+use ron::value::RawValue;
+use serde::{Deserialize, Deserializer, Serialize, Serializer, de::Error as _};
+
+/// The schema this build writes and the newest it reads.
+pub const SCHEMA: u32 = 1;
+
+/// A number written in units of 10^-EXP of its SI unit (mm: EXP = 3) and held in SI.
+///
+/// Written as the SI value's shortest digits with the decimal point moved, and read from the
+/// digits as written, so both directions are exact: "6.8" pF is the SI literal 6.8e-12 F, and
+/// any SI value reads back to the same bits.
+#[derive(Clone, Copy, Debug, Default, PartialEq)]
+pub struct Scaled<const EXP: i32>(f64);
+
+/// Millimetres.
+pub type Millimetres = Scaled<3>;
+/// Picofarads.
+pub type Picofarads = Scaled<12>;
+/// Megahertz.
+pub type Megahertz = Scaled<-6>;
+/// Percent of a 0–1 fraction.
+pub type Percent = Scaled<2>;
+
+impl<const EXP: i32> Scaled<EXP> {
+    /// From the SI value.
+    pub fn from_si(si: f64) -> Self {
+        Self(si)
+    }
+
+    /// The SI value.
+    pub fn si(self) -> f64 {
+        self.0
+    }
+
+    /// From a number in the file's unit, read as its shortest decimal digits.
+    pub fn from_file_units(value: f64) -> Self {
+        Self(si_from_text(&format!("{value:?}"), EXP).unwrap_or(f64::NAN))
+    }
+
+    /// The number in the file's unit (as written, parsed as a float).
+    pub fn file_units(self) -> f64 {
+        text_from_si(self.0, EXP).parse().unwrap_or(f64::NAN)
+    }
+
+    /// The number as written in the file.
+    pub fn text(self) -> String {
+        text_from_si(self.0, EXP)
+    }
+}
+
+impl<const EXP: i32> Serialize for Scaled<EXP> {
+    fn serialize<S: Serializer>(&self, serializer: S) -> Result<S::Ok, S::Error> {
+        match RawValue::from_boxed_ron(self.text().into_boxed_str()) {
+            Ok(raw) => raw.serialize(serializer),
+            // Only for a serialiser other than RON's: the nearest float.
+            Err(_) => serializer.serialize_f64(self.file_units()),
+        }
+    }
+}
+
+impl<'de, const EXP: i32> Deserialize<'de> for Scaled<EXP> {
+    fn deserialize<D: Deserializer<'de>>(deserializer: D) -> Result<Self, D::Error> {
+        let raw = Box::<RawValue>::deserialize(deserializer)?;
+        let token = number_token(raw.get_ron());
+        si_from_text(token, EXP)
+            .map(Self)
+            .ok_or_else(|| D::Error::custom(format!("expected a number, found {token}")))
+    }
+}
+
+/// The number in a raw value, without surrounding blanks or comments.
+fn number_token(raw: &str) -> &str {
+    let mut text = raw.trim();
+    loop {
+        let before = text;
+        if let Some(rest) = text.strip_prefix("/*") {
+            text = rest
+                .split_once("*/")
+                .map_or("", |(_, after)| after)
+                .trim_start();
+        }
+        if let Some(rest) = text.strip_prefix("//") {
+            text = rest
+                .split_once('\n')
+                .map_or("", |(_, after)| after)
+                .trim_start();
+        }
+        if text == before {
+            break;
+        }
+    }
+    let end = text
+        .find(['/', ' ', '\t', '\n', '\r'])
+        .unwrap_or(text.len());
+    &text[..end]
+}
+
+/// A whole recipe file.
+#[derive(Clone, Debug, PartialEq, Serialize, Deserialize)]
+#[serde(rename = "TankwrightRecipe", deny_unknown_fields)]
+pub struct RecipeFile {
+    /// File schema version; read first, so a newer file is refused before anything else.
+    pub schema: u32,
+    /// Short name of the recipe.
+    pub name: String,
+    /// Free notes.
+    #[serde(default)]
+    pub notes: String,
+    /// The winding as wound.
+    pub coil: CoilSheet,
+    /// The capacitors across the coil.
+    pub tank: TankSheet,
+    /// Wire temperature and the model that drives the resonance.
+    #[serde(default)]
+    pub conditions: ConditionsSheet,
+    /// The channel aimed at.
+    pub aim: AimSheet,
+    /// Bench measurements, oldest first.
+    #[serde(default)]
+    pub bench_log: Vec<ReadingSheet>,
+}
+
+/// The winding as the builder knows it.
+#[derive(Clone, Debug, PartialEq, Serialize, Deserialize)]
+#[serde(rename = "Winding", deny_unknown_fields)]
+pub struct CoilSheet {
+    /// Former (mandrel) or mean diameter.
+    pub diameter: DiameterMm,
+    /// Wire size.
+    pub wire: WireSize,
+    /// Insulation.
+    #[serde(default)]
+    pub coating: CoatingName,
+    /// Turns, fractions allowed.
+    pub turns: f64,
+    /// Coil length or clear gap.
+    pub spacing: SpacingMm,
+    /// Each of the two straight leads, mm.
+    #[serde(default)]
+    pub each_lead_mm: Millimetres,
+}
+
+/// How the diameter is given, mm.
+#[derive(Clone, Copy, Debug, PartialEq, Serialize, Deserialize)]
+pub enum DiameterMm {
+    /// The former the wire is wound on.
+    FormerMm(Millimetres),
+    /// Wire-centre diameter.
+    MeanMm(Millimetres),
+}
+
+/// Wire size.
+#[derive(Clone, Copy, Debug, PartialEq, Serialize, Deserialize)]
+pub enum WireSize {
+    /// Bare copper diameter, mm.
+    BareMm(Millimetres),
+    /// American Wire Gauge number.
+    Awg(i32),
+    /// Standard Wire Gauge number.
+    Swg(i32),
+}
+
+/// Insulation on the wire.
+#[derive(Clone, Copy, Debug, Default, PartialEq, Serialize, Deserialize)]
+pub enum CoatingName {
+    /// Bare or tinned copper.
+    #[default]
+    Bare,
+    /// Enamel, IEC 60317 grade 1.
+    EnamelGrade1,
+    /// Enamel, IEC 60317 grade 2.
+    EnamelGrade2,
+}
+
+/// How the spacing is given, mm.
+#[derive(Clone, Copy, Debug, PartialEq, Serialize, Deserialize)]
+pub enum SpacingMm {
+    /// Coil length, turns × pitch.
+    LengthMm(Millimetres),
+    /// Clear gap between neighbouring turns.
+    GapMm(Millimetres),
+}
+
+/// The capacitors across the coil, pF.
+#[derive(Clone, Debug, PartialEq, Serialize, Deserialize)]
+#[serde(rename = "Tank", deny_unknown_fields)]
+pub struct TankSheet {
+    /// Fixed capacitor.
+    pub fixed_pf: Picofarads,
+    /// Trimmer at its minimum.
+    #[serde(default)]
+    pub trimmer_min_pf: Picofarads,
+    /// Trimmer at its maximum.
+    #[serde(default)]
+    pub trimmer_max_pf: Picofarads,
+    /// Trimmer setting: 0 at its minimum, 100 at its maximum.
+    #[serde(default)]
+    pub trimmer_setting_percent: Percent,
+    /// Device, wiring and layout.
+    #[serde(default)]
+    pub stray_pf: Picofarads,
+    /// Optional feedback divider across the tank.
+    #[serde(default)]
+    pub feedback: Option<DividerSheet>,
+}
+
+/// Two capacitors in series across the tank, pF.
+#[derive(Clone, Copy, Debug, PartialEq, Serialize, Deserialize)]
+#[serde(rename = "Divider", deny_unknown_fields)]
+pub struct DividerSheet {
+    /// Hot end to tap.
+    pub upper_pf: Picofarads,
+    /// Tap to ground.
+    pub lower_pf: Picofarads,
+}
+
+/// Conditions of the evaluation.
+#[derive(Clone, Copy, Debug, PartialEq, Serialize, Deserialize)]
+#[serde(rename = "Conditions", deny_unknown_fields)]
+pub struct ConditionsSheet {
+    /// Wire temperature, °C.
+    #[serde(default = "room_temperature")]
+    pub wire_temperature_c: f64,
+    /// The inductance model that drives the resonance.
+    #[serde(default)]
+    pub drives_resonance: ModelName,
+    /// Also compute Maxwell's filament sum.
+    #[serde(default = "yes")]
+    pub filament_sum: bool,
+}
+
+fn room_temperature() -> f64 {
+    20.0
+}
+
+fn yes() -> bool {
+    true
+}
+
+impl Default for ConditionsSheet {
+    fn default() -> Self {
+        Self {
+            wire_temperature_c: room_temperature(),
+            drives_resonance: ModelName::default(),
+            filament_sum: yes(),
+        }
+    }
+}
+
+/// Inductance models by the method's name.
+#[derive(Clone, Copy, Debug, Default, PartialEq, Serialize, Deserialize)]
+pub enum ModelName {
+    /// Rosa's round-wire correction.
+    #[default]
+    RoundWire,
+    /// Maxwell's filament sum.
+    FilamentSum,
+    /// Nagaoka's current sheet.
+    CurrentSheet,
+    /// Lundin 1985.
+    Lundin1985,
+    /// Wheeler 1928.
+    Wheeler1928,
+}
+
+/// The channel aimed at.
+#[derive(Clone, Debug, PartialEq, Serialize, Deserialize)]
+#[serde(rename = "Aim", deny_unknown_fields)]
+pub struct AimSheet {
+    /// The band plan the channel comes from.
+    pub plan: PlanName,
+    /// Channel centre, MHz.
+    pub channel_mhz: Megahertz,
+}
+
+/// Band plans.
+#[derive(Clone, Debug, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub enum PlanName {
+    /// FM broadcast, US raster (200 kHz).
+    UsFm,
+    /// FM broadcast on 100 kHz.
+    Fm100kHz,
+    /// 2 m amateur, ITU Region 1.
+    TwoMetreRegion1,
+    /// 2 m amateur, ITU Regions 2 and 3.
+    TwoMetreRegion2And3,
+    /// The builder's own channels, MHz.
+    OwnList {
+        /// Channel centres, MHz.
+        channels_mhz: Vec<Megahertz>,
+    },
+}
+
+/// One bench measurement.
+#[derive(Clone, Debug, PartialEq, Serialize, Deserialize)]
+#[serde(rename = "Reading", deny_unknown_fields)]
+pub struct ReadingSheet {
+    /// Measured frequency, MHz.
+    pub measured_mhz: Megahertz,
+    /// Coil length (turns × pitch) at the time, mm.
+    pub coil_length_mm: Millimetres,
+    /// Trimmer setting at the time, percent.
+    pub trimmer_percent: Percent,
+    /// What it was measured with.
+    #[serde(default)]
+    pub instrument: String,
+    /// The instrument's frequency error, ppm, if known.
+    #[serde(default)]
+    pub error_ppm: Option<f64>,
+    /// Anything else.
+    #[serde(default)]
+    pub note: String,
+}
+
+/// Only the version, for reading it before anything else; every other field is ignored.
+#[derive(Deserialize)]
+#[serde(rename = "TankwrightRecipe")]
+pub(crate) struct SchemaProbe {
+    /// The file's schema.
+    pub schema: u64,
+}

@@ -1,0 +1,15 @@
+//! In-window file handling: the "Recipe" menu, its shortcuts, the ask-before-discarding dialog
+//! and the typed-path fallback. The app owns one [`FileDesk`] and carries out the
+//! [`FileAction`]s it returns.
+
+mod asker;
+mod desk;
+mod folder;
+mod memory;
+mod menu;
+mod windows;
+
+pub use asker::{NO_DIALOG, PathAsker, Picked, SystemAsker};
+pub use desk::{FileAction, FileDesk, Notice};
+pub use folder::{default_folder, recipes_in, suggested_file_name};
+pub use memory::{FileDeskMemory, RECENT_MAX};

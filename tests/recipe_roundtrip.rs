@@ -1,0 +1,345 @@
+//! Recipes survive saving and opening unchanged; every demo asset opens and validates.
+
+use proptest::prelude::*;
+use std::path::Path;
+use tankwright::model::{Coating, Gauge, WireSpec, evaluate};
+use tankwright::recipe::schema::{
+    AimSheet, CoatingName, CoilSheet, ConditionsSheet, DiameterMm, DividerSheet, ModelName,
+    PlanName, ReadingSheet, RecipeFile, Scaled, SpacingMm, TankSheet, WireSize,
+};
+use tankwright::recipe::{self, Recipe, demos, format, store};
+
+fn demo_with_log() -> Recipe {
+    let mut r = Recipe::demo();
+    r.bench_log.push(recipe::BenchEntry {
+        measured: 99.134e6,
+        length: 8.0e-3,
+        trimmer_setting: 0.5,
+        instrument: "bench counter".to_owned(),
+        error_ppm: Some(2.5),
+        note: "first light, \"quoted\"# and r#\"raw\"##, a \\ backslash\nsecond line".to_owned(),
+    });
+    r
+}
+
+#[test]
+fn save_then_load_gives_the_same_recipe() {
+    let dir = tempfile::tempdir().unwrap();
+    let path = dir.path().join("bench.ron");
+    let r = demo_with_log();
+    store::save(&path, &r).unwrap();
+    assert_eq!(store::load(&path).unwrap(), r);
+    // Saving what was loaded writes the same bytes.
+    let first = std::fs::read_to_string(&path).unwrap();
+    store::save(&path, &store::load(&path).unwrap()).unwrap();
+    assert_eq!(std::fs::read_to_string(&path).unwrap(), first);
+}
+
+#[test]
+fn the_text_is_readable_with_units_in_the_names() {
+    let text = format::to_text(&Recipe::demo());
+    assert!(text.starts_with("// Tankwright coil recipe"));
+    for needle in [
+        "TankwrightRecipe(",
+        "schema: 1,",
+        "diameter: FormerMm(6.0)",
+        "wire: BareMm(1.0)",
+        "spacing: LengthMm(8.0)",
+        "fixed_pf: 6.8,",
+        "trimmer_setting_percent: 50.0,",
+        "channel_mhz: 98.7,",
+    ] {
+        assert!(text.contains(needle), "missing {needle} in\n{text}");
+    }
+}
+
+#[test]
+fn demo_equals_the_first_demo_asset() {
+    let (file, first) = &demos()[0];
+    assert_eq!(*file, "lantern_hill_bench_oscillator.ron");
+    assert_eq!(*first, Recipe::demo());
+}
+
+#[test]
+fn every_asset_recipe_loads_validates_and_is_listed() {
+    let dir = Path::new(env!("CARGO_MANIFEST_DIR")).join("assets/recipes");
+    let mut count = 0;
+    for entry in std::fs::read_dir(&dir).unwrap() {
+        let path = entry.unwrap().path();
+        if path.extension().is_none_or(|x| x != "ron") {
+            continue;
+        }
+        count += 1;
+        let r = store::load(&path).unwrap_or_else(|e| panic!("{e}"));
+        evaluate(&r.winding, &r.tank, &r.conditions).unwrap();
+        assert!(!r.name.is_empty(), "{} has no name", path.display());
+        let name = path.file_name().unwrap().to_str().unwrap();
+        let listed = recipe::demos::SOURCES
+            .iter()
+            .find(|(n, _)| *n == name)
+            .unwrap_or_else(|| panic!("{name} is not compiled in"));
+        assert_eq!(listed.1, std::fs::read_to_string(&path).unwrap());
+        // The assets are in the form the program writes.
+        assert_eq!(format::to_text(&r), listed.1, "{name} is not canonical");
+    }
+    assert_eq!(count, recipe::demos::SOURCES.len());
+    assert_eq!(demos().len(), count);
+}
+
+#[test]
+fn integers_and_omitted_fields_are_read_as_a_builder_would_write_them() {
+    let text = r#"TankwrightRecipe(
+        schema: 1,
+        name: "Scribbled on the back of an envelope",
+        coil: Winding(diameter: FormerMm(6), wire: Awg(18), turns: 5, spacing: GapMm(1)),
+        tank: Tank(fixed_pf: 22),
+        aim: Aim(plan: UsFm, channel_mhz: 100.1),
+    )"#;
+    let r = format::from_text(text).unwrap();
+    assert_eq!(r.winding.turns, 5.0);
+    assert_eq!(r.winding.lead_length, 0.0);
+    assert_eq!(r.winding.wire.coating, Coating::Bare);
+    assert_eq!(r.tank.fixed, 22e-12);
+    assert_eq!(r.tank.feedback, None);
+    assert_eq!(r.conditions, tankwright::model::Conditions::default());
+    assert!(r.notes.is_empty() && r.bench_log.is_empty());
+}
+
+fn overall(wire: WireSize, coating: CoatingName) -> Option<f64> {
+    let spec = WireSpec {
+        gauge: match wire {
+            WireSize::BareMm(d) => Gauge::Metric(d.si()),
+            WireSize::Awg(n) => Gauge::Awg(n),
+            WireSize::Swg(n) => Gauge::Swg(n),
+        },
+        coating: match coating {
+            CoatingName::Bare => Coating::Bare,
+            CoatingName::EnamelGrade1 => Coating::EnamelGrade1,
+            CoatingName::EnamelGrade2 => Coating::EnamelGrade2,
+        },
+    };
+    spec.bare_diameter().map(|d| spec.overall_diameter(d) * 1e3)
+}
+
+/// Millimetres as written in the file.
+fn mm(value: f64) -> tankwright::recipe::schema::Millimetres {
+    Scaled::from_file_units(value)
+}
+
+/// Numbers as a builder types them: `digits` decimals.
+fn typed(lo: f64, hi: f64, digits: i32) -> impl Strategy<Value = f64> {
+    let scale = 10f64.powi(digits);
+    ((lo * scale) as i64..=(hi * scale) as i64).prop_map(move |n| n as f64 / scale)
+}
+
+/// Any float in a range (values from sliders).
+fn any_in(lo: f64, hi: f64) -> impl Strategy<Value = f64> {
+    lo..hi
+}
+
+fn file_strategy(
+    num: fn(f64, f64) -> BoxedStrategy<f64>,
+    fix: fn(f64) -> f64,
+) -> impl Strategy<Value = RecipeFile> {
+    let wire = prop_oneof![
+        num(0.1, 2.5).prop_map(|d| WireSize::BareMm(mm(d))),
+        (10..=36i32).prop_map(WireSize::Awg),
+        (10..=36i32).prop_map(WireSize::Swg),
+    ];
+    let coating = prop_oneof![
+        Just(CoatingName::Bare),
+        Just(CoatingName::EnamelGrade1),
+        Just(CoatingName::EnamelGrade2)
+    ];
+    let diameter = prop_oneof![
+        num(2.0, 30.0).prop_map(|d| DiameterMm::FormerMm(mm(d))),
+        num(4.0, 40.0).prop_map(|d| DiameterMm::MeanMm(mm(d))),
+    ];
+    let coil = (
+        diameter,
+        wire,
+        coating,
+        num(1.0, 25.0),
+        num(0.0, 3.0),
+        any::<bool>(),
+        num(1.0, 3.0),
+        num(0.0, 30.0),
+    )
+        .prop_map(
+            move |(diameter, wire, coating, turns, gap, as_length, factor, lead)| {
+                let spacing = match overall(wire, coating) {
+                    Some(o) if as_length => SpacingMm::LengthMm(mm(fix(turns * o * factor))),
+                    _ => SpacingMm::GapMm(mm(gap)),
+                };
+                CoilSheet {
+                    diameter,
+                    wire,
+                    coating,
+                    turns,
+                    spacing,
+                    each_lead_mm: mm(lead),
+                }
+            },
+        );
+    let tank = (
+        num(0.0, 100.0),
+        num(0.0, 5.0),
+        num(0.0, 30.0),
+        num(0.0, 100.0),
+        num(0.0, 10.0),
+        proptest::option::of((num(1.0, 100.0), num(1.0, 100.0))),
+    )
+        .prop_map(move |(fixed, tmin, span, setting, stray, fb)| TankSheet {
+            fixed_pf: Scaled::from_file_units(fixed),
+            trimmer_min_pf: Scaled::from_file_units(tmin),
+            trimmer_max_pf: Scaled::from_file_units(fix(tmin + span)),
+            trimmer_setting_percent: Scaled::from_file_units(setting),
+            stray_pf: Scaled::from_file_units(stray),
+            feedback: fb.map(|(u, l)| DividerSheet {
+                upper_pf: Scaled::from_file_units(u),
+                lower_pf: Scaled::from_file_units(l),
+            }),
+        });
+    let plan = prop_oneof![
+        Just(PlanName::UsFm),
+        Just(PlanName::Fm100kHz),
+        Just(PlanName::TwoMetreRegion1),
+        Just(PlanName::TwoMetreRegion2And3),
+        proptest::collection::vec(num(30.0, 500.0), 1..5).prop_map(|list| PlanName::OwnList {
+            channels_mhz: list.into_iter().map(Scaled::from_file_units).collect(),
+        }),
+    ];
+    let model = prop_oneof![
+        Just(ModelName::RoundWire),
+        Just(ModelName::FilamentSum),
+        Just(ModelName::CurrentSheet),
+        Just(ModelName::Lundin1985),
+        Just(ModelName::Wheeler1928),
+    ];
+    let reading = (
+        num(30.0, 500.0),
+        num(0.5, 100.0),
+        num(0.0, 100.0),
+        "[a-z ]{0,12}",
+        proptest::option::of(num(0.0, 50.0)),
+        "\\PC{0,20}",
+    )
+        .prop_map(|(f, l, s, instrument, ppm, note)| ReadingSheet {
+            measured_mhz: Scaled::from_file_units(f),
+            coil_length_mm: Scaled::from_file_units(l),
+            trimmer_percent: Scaled::from_file_units(s),
+            instrument,
+            error_ppm: ppm,
+            note,
+        });
+    (
+        "\\PC{0,30}",
+        "\\PC{0,60}",
+        coil,
+        tank,
+        (num(-20.0, 80.0), model, any::<bool>()),
+        plan,
+        num(30.0, 500.0),
+        proptest::collection::vec(reading, 0..4),
+    )
+        .prop_map(
+            |(name, notes, coil, tank, (t, m, fs), plan, channel, bench_log)| RecipeFile {
+                schema: 1,
+                name,
+                notes,
+                coil,
+                tank,
+                conditions: ConditionsSheet {
+                    wire_temperature_c: t,
+                    drives_resonance: m,
+                    filament_sum: fs,
+                },
+                aim: AimSheet {
+                    plan,
+                    channel_mhz: Scaled::from_file_units(channel),
+                },
+                bench_log,
+            },
+        )
+}
+
+/// Rounded to three decimals, as typed.
+fn three_decimals(x: f64) -> f64 {
+    (x * 1000.0).round() / 1000.0
+}
+
+fn typed_num(lo: f64, hi: f64) -> BoxedStrategy<f64> {
+    typed(lo, hi, 3).boxed()
+}
+
+fn slider_num(lo: f64, hi: f64) -> BoxedStrategy<f64> {
+    any_in(lo, hi).boxed()
+}
+
+/// Parse a generated file; `None` when the model refuses its geometry (e.g. a former too
+/// small for the wire), which the generator does not try to avoid.
+fn open(file: &RecipeFile) -> Option<Recipe> {
+    let text = ron::to_string(file).unwrap();
+    match format::from_text(&text) {
+        Ok(r) => Some(r),
+        Err(e) => {
+            assert_eq!(e.kind, recipe::LoadErrorKind::Invalid, "{e}");
+            None
+        }
+    }
+}
+
+proptest! {
+    #![proptest_config(ProptestConfig { cases: 200, ..ProptestConfig::default() })]
+
+    #[test]
+    fn random_recipes_round_trip_exactly(file in file_strategy(slider_num, std::convert::identity)) {
+        let Some(r) = open(&file) else { return Err(TestCaseError::reject("refused geometry")) };
+        let again = format::from_text(&format::to_text(&r)).unwrap();
+        prop_assert_eq!(again, r);
+    }
+
+    #[test]
+    fn typed_values_are_written_back_as_typed(file in file_strategy(typed_num, three_decimals)) {
+        let Some(r) = open(&file) else { return Err(TestCaseError::reject("refused geometry")) };
+        let text = format::to_text(&r);
+        let written: RecipeFile = ron::from_str(&text).unwrap();
+        prop_assert_eq!(&written, &file);
+        // The digits in the file are the ones typed.
+        let typed_fixed = format!("fixed_pf: {:?},", file.tank.fixed_pf.file_units());
+        prop_assert!(text.contains(&typed_fixed), "{} not in {}", typed_fixed, text);
+    }
+}
+
+proptest! {
+    #![proptest_config(ProptestConfig { cases: 300, ..ProptestConfig::default() })]
+
+    /// Values straight from the sliders (any SI float, not typed digits) read back to the
+    /// same bits.
+    #[test]
+    fn slider_values_in_si_round_trip_to_the_same_bits(
+        length in 5e-3..30e-3f64,
+        fixed in 0.0..50e-12f64,
+        setting in 0.0..1.0f64,
+        stray in 0.0..10e-12f64,
+        channel in 88e6..108e6f64,
+        measured in 60e6..150e6f64,
+    ) {
+        let mut r = Recipe::demo();
+        r.winding.spacing = tankwright::model::SpacingSpec::Length(length);
+        r.tank.fixed = fixed;
+        r.tank.trimmer_setting = setting;
+        r.tank.stray = stray;
+        r.target.channel = channel;
+        r.bench_log.push(recipe::BenchEntry {
+            measured,
+            length,
+            trimmer_setting: setting,
+            instrument: String::new(),
+            error_ppm: None,
+            note: String::new(),
+        });
+        let back = format::from_text(&format::to_text(&r)).unwrap();
+        prop_assert_eq!(back, r);
+    }
+}
