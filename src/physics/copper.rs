@@ -48,14 +48,14 @@ const SERIES_LIMIT: f64 = 10.0;
 /// expansion gives Z/R_dc ≈ (1+j)·q/2 + 1/4 + (1−j)·3/(32q), whose next term is O(q⁻²).
 pub fn internal_impedance(radius_over_skin_depth: f64) -> InternalImpedance {
     let q = radius_over_skin_depth.max(0.0);
-    let (re, im, fraction) = if q <= SERIES_LIMIT {
+    let (re, fraction) = if q <= SERIES_LIMIT {
         let (re, im) = bessel_ratio(q);
-        (re, im, if q < 1e-3 { 1.0 } else { im / (0.25 * q * q) })
+        (re, if q < 1e-3 { 1.0 } else { im / (0.25 * q * q) })
     } else {
         let inv = 1.0 / q;
         let tail = 3.0 / 32.0 * inv;
         let im = 0.5 * q - tail;
-        (0.5 * q + 0.25 + tail, im, 4.0 * im * inv * inv)
+        (0.5 * q + 0.25 + tail, 4.0 * im * inv * inv)
     };
     InternalImpedance {
         resistance_ratio: re.max(1.0),
