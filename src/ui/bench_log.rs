@@ -1,0 +1,272 @@
+//! The bench log: readings taken at the bench, listed, and the correction the latest one
+//! implies (how far to stretch or squeeze to land on the target).
+
+use crate::model::{Coil, Conditions, Tank};
+use crate::recipe::{BenchEntry, Recipe};
+use crate::tuning::fit::{Correction, correct_from_measurement};
+use crate::tuning::solve::stretch_sensitivity;
+use crate::ui::units::LengthUnit;
+use eframe::egui;
+
+/// What the bench log asks the app to do (applied at the end of the frame).
+#[derive(Clone, Debug, PartialEq)]
+#[must_use]
+pub enum BenchLogAction {
+    /// Append a reading.
+    Record(BenchEntry),
+    /// Remove the reading at this index.
+    Remove(usize),
+    /// Set the coil length (metres) to the corrected one.
+    SetLength(f64),
+}
+
+/// Transient state: the reading being typed.
+#[derive(Clone, Debug)]
+pub struct BenchLogPanel {
+    measured_mhz: f64,
+    instrument: String,
+    error_ppm: f64,
+    error_known: bool,
+    note: String,
+}
+
+impl Default for BenchLogPanel {
+    fn default() -> Self {
+        Self {
+            measured_mhz: 0.0,
+            instrument: String::new(),
+            error_ppm: 10.0,
+            error_known: false,
+            note: String::new(),
+        }
+    }
+}
+
+/// The correction implied by one reading, with its uncertainty from the instrument.
+#[derive(Clone, Debug, PartialEq)]
+pub struct ReadingCorrection {
+    /// The fitted correction.
+    pub correction: Correction,
+    /// Length uncertainty from the instrument's error alone, metres (if its error is known).
+    pub length_uncertainty: Option<f64>,
+}
+
+/// The correction the reading implies for a coil like `coil` in `tank`, aimed at `target`.
+///
+/// The coil is taken at the reading's length and the tank at the reading's trimmer setting.
+pub fn correction_for(
+    entry: &BenchEntry,
+    coil: &Coil,
+    tank: &Tank,
+    conditions: &Conditions,
+    target: f64,
+) -> Option<ReadingCorrection> {
+    let at_reading = coil.with_length(entry.length);
+    let c_ext = tank.external_capacitance_at(entry.trimmer_setting.clamp(0.0, 1.0));
+    let correction =
+        correct_from_measurement(&at_reading, c_ext, conditions, entry.measured, target)?;
+    let length_uncertainty = entry.error_ppm.and_then(|ppm| {
+        let slope = stretch_sensitivity(
+            &at_reading,
+            c_ext + correction.extra_capacitance,
+            conditions,
+        );
+        (slope.abs() > 0.0).then(|| (ppm * 1e-6 * entry.measured / slope).abs())
+    });
+    Some(ReadingCorrection {
+        correction,
+        length_uncertainty,
+    })
+}
+
+impl BenchLogPanel {
+    /// Draw the log. `coil` is the present validated coil (None while the input is refused).
+    pub fn ui(
+        &mut self,
+        ui: &mut egui::Ui,
+        recipe: &Recipe,
+        coil: Option<&Coil>,
+        unit: LengthUnit,
+    ) -> Option<BenchLogAction> {
+        let mut action = None;
+        let log = &recipe.bench_log;
+        if log.is_empty() {
+            ui.weak("No readings yet. After winding, measure the tank and record it here.");
+        }
+        egui::Grid::new("bench_log_readings")
+            .striped(true)
+            .num_columns(5)
+            .show(ui, |ui| {
+                if !log.is_empty() {
+                    ui.strong("measured");
+                    ui.strong("length");
+                    ui.strong("trimmer");
+                    ui.strong("instrument, note");
+                    ui.label("");
+                    ui.end_row();
+                }
+                for (i, e) in log.iter().enumerate() {
+                    ui.label(format!("{:.4} MHz", e.measured * 1e-6));
+                    ui.label(unit.show(e.length));
+                    ui.label(format!("{:.0} %", e.trimmer_setting * 100.0));
+                    let ppm = e
+                        .error_ppm
+                        .map(|p| format!(" (±{p} ppm)"))
+                        .unwrap_or_default();
+                    let mut text = format!("{}{ppm}", e.instrument);
+                    if !e.note.is_empty() {
+                        text = format!("{text}; {}", e.note);
+                    }
+                    ui.label(text);
+                    if ui
+                        .small_button("✖")
+                        .on_hover_text(format!("remove reading {}", i + 1))
+                        .clicked()
+                    {
+                        action = Some(BenchLogAction::Remove(i));
+                    }
+                    ui.end_row();
+                }
+            });
+
+        if let (Some(latest), Some(coil)) = (log.last(), coil) {
+            action = action.or(self.correction_ui(ui, latest, coil, recipe, unit));
+        }
+
+        ui.separator();
+        action.or(self.record_ui(ui, recipe, coil, unit))
+    }
+
+    fn correction_ui(
+        &self,
+        ui: &mut egui::Ui,
+        latest: &BenchEntry,
+        coil: &Coil,
+        recipe: &Recipe,
+        unit: LengthUnit,
+    ) -> Option<BenchLogAction> {
+        let target = recipe.target.channel;
+        let Some(fit) = correction_for(latest, coil, &recipe.tank, &recipe.conditions, target)
+        else {
+            ui.colored_label(
+                ui.visuals().warn_fg_color,
+                "The latest reading is far from anything this coil and tank can do: check the \
+                 reading, the turns and the capacitors.",
+            );
+            return None;
+        };
+        let extra = fit.correction.extra_capacitance * 1e12;
+        ui.label(format!(
+            "The latest reading behaves as if the tank had {extra:+.2} pF beyond the model \
+             (stray, device and wiring)."
+        ))
+        .on_hover_text(
+            "Every difference between the build and the model is lumped into one capacitance \
+             that reproduces the reading; the correction below uses it.",
+        );
+        match &fit.correction.length_for_target {
+            Ok(length) => {
+                let change = length - latest.length;
+                let verb = if change >= 0.0 { "stretch" } else { "squeeze" };
+                let mut text = format!(
+                    "To land on {:.3} MHz at the same trimmer setting: {verb} by {} to {}.",
+                    target * 1e-6,
+                    unit.show(change.abs()),
+                    unit.show(*length)
+                );
+                if let Some(u) = fit.length_uncertainty {
+                    text.push_str(&format!(" (±{} from the instrument)", unit.show(u)));
+                }
+                ui.strong(text);
+                if ui
+                    .button("Set the coil to the corrected length")
+                    .on_hover_text("changes the coil length on screen; undo restores it")
+                    .clicked()
+                {
+                    return Some(BenchLogAction::SetLength(*length));
+                }
+            }
+            Err(why) => {
+                ui.colored_label(
+                    ui.visuals().warn_fg_color,
+                    format!("No length reaches the target: {why}"),
+                );
+            }
+        }
+        None
+    }
+
+    fn record_ui(
+        &mut self,
+        ui: &mut egui::Ui,
+        recipe: &Recipe,
+        coil: Option<&Coil>,
+        unit: LengthUnit,
+    ) -> Option<BenchLogAction> {
+        let mut action = None;
+        ui.label("New reading, at the present length and trimmer setting:");
+        egui::Grid::new("bench_log_new")
+            .num_columns(2)
+            .show(ui, |ui| {
+                ui.label("Measured frequency");
+                ui.add(
+                    egui::DragValue::new(&mut self.measured_mhz)
+                        .range(0.0..=3000.0)
+                        .speed(0.01)
+                        .fixed_decimals(4)
+                        .suffix(" MHz"),
+                )
+                .on_hover_text("Measured frequency, MHz");
+                ui.end_row();
+                ui.label("Instrument");
+                ui.add(
+                    egui::TextEdit::singleline(&mut self.instrument)
+                        .hint_text("counter, dip meter, receiver…"),
+                )
+                .on_hover_text("Instrument");
+                ui.end_row();
+                ui.checkbox(&mut self.error_known, "Instrument error known");
+                ui.add_enabled(
+                    self.error_known,
+                    egui::DragValue::new(&mut self.error_ppm)
+                        .range(0.0..=100_000.0)
+                        .suffix(" ppm"),
+                )
+                .on_hover_text("Instrument error, ppm");
+                ui.end_row();
+                ui.label("Note");
+                ui.add(egui::TextEdit::singleline(&mut self.note))
+                    .on_hover_text("Note");
+                ui.end_row();
+            });
+        let valid = self.measured_mhz > 0.0 && self.measured_mhz.is_finite();
+        let length = coil.map(|c| c.length);
+        let hint = match length {
+            Some(l) => format!(
+                "records {:.4} MHz at {} and trimmer {:.0} %",
+                self.measured_mhz,
+                unit.show(l),
+                recipe.tank.trimmer_setting * 100.0
+            ),
+            None => "the coil on screen is refused: fix it first".to_owned(),
+        };
+        let enabled = valid && length.is_some();
+        if ui
+            .add_enabled(enabled, egui::Button::new("Record reading"))
+            .on_hover_text(hint)
+            .clicked()
+            && let Some(length) = length
+        {
+            action = Some(BenchLogAction::Record(BenchEntry {
+                measured: self.measured_mhz * 1e6,
+                length,
+                trimmer_setting: recipe.tank.trimmer_setting,
+                instrument: self.instrument.trim().to_owned(),
+                error_ppm: self.error_known.then_some(self.error_ppm),
+                note: self.note.trim().to_owned(),
+            }));
+            self.note.clear();
+        }
+        action
+    }
+}

@@ -1,0 +1,106 @@
+//! Solvers and the correction from a bench measurement.
+
+use tankwright::model::evaluate::resonance_of;
+use tankwright::model::{
+    Coating, Coil, Conditions, DiameterSpec, Gauge, SpacingSpec, Tank, Winding, WireSpec,
+};
+use tankwright::tuning::fit::correct_from_measurement;
+use tankwright::tuning::solve::{
+    Unreachable, length_for_target, setting_for_target, stretch_sensitivity, trimmer_window,
+};
+
+fn demo_coil() -> Coil {
+    Coil::from_winding(&Winding {
+        diameter: DiameterSpec::Former(6e-3),
+        wire: WireSpec {
+            gauge: Gauge::Metric(1e-3),
+            coating: Coating::Bare,
+        },
+        turns: 5.0,
+        spacing: SpacingSpec::Length(8e-3),
+        lead_length: 5e-3,
+    })
+    .expect("valid")
+}
+
+/// Thomson's formula f = 1/(2π√(LC)): with L fixed, adding ΔC scales f by √(C/(C+ΔC)). The
+/// engine's L moves with frequency only through the wire's internal inductance (a few ppm
+/// here), so the scaling must hold to 1e-4.
+#[test]
+fn resonance_scales_as_thomson_with_capacitance() {
+    let coil = demo_coil();
+    let cond = Conditions::default();
+    let c_self = tankwright::physics::medhurst::self_capacitance(
+        coil.mean_diameter,
+        coil.length_over_diameter(),
+    );
+    let f1 = resonance_of(&coil, 20e-12, &cond);
+    let f2 = resonance_of(&coil, 30e-12, &cond);
+    let expected = ((20e-12 + c_self) / (30e-12 + c_self)).sqrt();
+    assert!(
+        (f2 / f1 - expected).abs() < 1e-4,
+        "{} vs {expected}",
+        f2 / f1
+    );
+}
+
+/// A reading made with a hidden extra capacitance is fitted back to that capacitance, and the
+/// corrected length lands the target when the extra capacitance is really there.
+#[test]
+fn a_measurement_is_corrected_to_the_target() {
+    let coil = demo_coil();
+    let cond = Conditions::default();
+    let c_ext = 26e-12;
+    let hidden = 2.2e-12;
+    let measured = resonance_of(&coil, c_ext + hidden, &cond);
+    let target = 98.7e6;
+    let fit = correct_from_measurement(&coil, c_ext, &cond, measured, target).expect("reachable");
+    assert!(
+        (fit.extra_capacitance - hidden).abs() < 1e-16,
+        "{}",
+        fit.extra_capacitance
+    );
+    let length = fit.length_for_target.clone().expect("a length exists");
+    let landed = resonance_of(&coil.with_length(length), c_ext + hidden, &cond);
+    assert!((landed - target).abs() < 1.0, "{landed}");
+    // More capacitance than assumed: the coil must be stretched (less L) to come back up.
+    assert!(fit.stretch.expect("some") > 0.0);
+}
+
+#[test]
+fn solvers_land_on_their_targets() {
+    let coil = demo_coil();
+    let cond = Conditions::default();
+    let tank = Tank {
+        fixed: 6.8e-12,
+        trimmer_min: 2e-12,
+        trimmer_max: 10e-12,
+        trimmer_setting: 0.5,
+        stray: 6e-12,
+        feedback: None,
+    };
+    let (low, high) = trimmer_window(&coil, &tank, &cond);
+    assert!(low < high);
+    let mid = 0.5 * (low + high);
+    let s = setting_for_target(&coil, &tank, &cond, mid).expect("inside the window");
+    let f = resonance_of(&coil, tank.external_capacitance_at(s), &cond);
+    assert!((f - mid).abs() < 1.0);
+    assert!(matches!(
+        setting_for_target(&coil, &tank, &cond, high * 1.1),
+        Err(Unreachable::OutsideTrimmer { .. })
+    ));
+    let l = length_for_target(&coil, 20e-12, &cond, 100e6).expect("reachable");
+    assert!((resonance_of(&coil.with_length(l), 20e-12, &cond) - 100e6).abs() < 1.0);
+    assert!(matches!(
+        length_for_target(&coil, 20e-12, &cond, 1e6),
+        Err(Unreachable::AboveEvenCloseWound { .. })
+    ));
+}
+
+/// Stretch moves a 5-turn FM coil by MHz per millimetre: "stretching a 4-turn coil by a couple
+/// of millimetres moves it by several MHz" (common practice, reference notes §9).
+#[test]
+fn stretch_sensitivity_is_megahertz_per_millimetre() {
+    let per_mm = stretch_sensitivity(&demo_coil(), 26e-12, &Conditions::default()) * 1e-3;
+    assert!(per_mm > 1e6 && per_mm < 10e6, "{per_mm} Hz/mm");
+}
