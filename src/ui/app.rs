@@ -1,0 +1,294 @@
+//! The application: the recipe being edited, what is shown of it, and the frame loop.
+
+use crate::model::Analysis;
+use crate::recipe::Recipe;
+use crate::ui::cautions;
+use crate::ui::charts::ChartCache;
+use crate::ui::evaluation::Evaluation;
+use crate::ui::panels::tank::TankPanel;
+use crate::ui::panels::target::TargetPanel;
+use crate::ui::panels::top_bar::{self, BarState};
+use crate::ui::panels::{Command, bench, readouts, winding};
+use crate::ui::preferences::{PREFERENCES_KEY, Preferences};
+use crate::ui::screenshot::ScreenshotJob;
+use crate::ui::theme::Theme;
+use crate::ui::undo::History;
+use crate::ui::widgets::LABEL_WIDTH;
+use eframe::egui::{self, Key, KeyboardShortcut, Modifiers};
+
+/// Seconds a change must rest before it becomes an undo step (the undoer's default), plus a
+/// little, so a frame runs then.
+const UNDO_SETTLE_SECONDS: f32 = 1.05;
+
+/// Left panel: usual width, narrowest, and largest share of the window (points, fraction).
+const LEFT_DEFAULT: f32 = 380.0;
+const LEFT_MIN: f32 = 340.0;
+const LEFT_SHARE: f32 = 0.3;
+/// Right panel: usual width, narrowest, and largest share of the window.
+const RIGHT_DEFAULT: f32 = 440.0;
+const RIGHT_MIN: f32 = 360.0;
+const RIGHT_SHARE: f32 = 0.34;
+
+const UNDO: KeyboardShortcut = KeyboardShortcut::new(Modifiers::COMMAND, Key::Z);
+const REDO: KeyboardShortcut =
+    KeyboardShortcut::new(Modifiers::COMMAND.plus(Modifiers::SHIFT), Key::Z);
+
+/// The workbench window.
+pub struct App {
+    /// The document being edited (the one thing saved to a recipe file).
+    recipe: Recipe,
+    preferences: Preferences,
+    evaluation: Evaluation,
+    charts: ChartCache,
+    history: History,
+    tank_panel: TankPanel,
+    target_panel: TargetPanel,
+    cautions_open: bool,
+    applied_theme: Option<Theme>,
+    shown_title: String,
+    screenshot: Option<ScreenshotJob>,
+}
+
+impl App {
+    /// The window as eframe creates it: the demo recipe, with the view preferences of the last
+    /// session if there are any.
+    pub fn new(cc: &eframe::CreationContext<'_>) -> Self {
+        let mut app = Self::with_recipe(Recipe::demo());
+        if let Some(storage) = cc.storage
+            && let Some(preferences) = eframe::get_value(storage, PREFERENCES_KEY)
+        {
+            app.preferences = preferences;
+        }
+        app
+    }
+
+    /// A window editing `recipe`, with default view preferences.
+    pub fn with_recipe(recipe: Recipe) -> Self {
+        Self {
+            evaluation: Evaluation::new(&recipe),
+            recipe,
+            preferences: Preferences::default(),
+            charts: ChartCache::default(),
+            history: History::default(),
+            tank_panel: TankPanel::default(),
+            target_panel: TargetPanel::default(),
+            cautions_open: false,
+            applied_theme: None,
+            shown_title: String::new(),
+            screenshot: None,
+        }
+    }
+
+    /// The same window editing `recipe` instead (a fresh history).
+    pub fn with_document(mut self, recipe: Recipe) -> Self {
+        self.set_document(recipe);
+        self
+    }
+
+    /// Replace the document (a recipe opened or made new): the history starts afresh and the
+    /// figures are those of the new recipe (nothing of the old one is shown as "last good").
+    pub fn set_document(&mut self, recipe: Recipe) {
+        self.evaluation = Evaluation::new(&recipe);
+        self.recipe = recipe;
+        self.history = History::default();
+    }
+
+    /// Show lengths in `unit` from now on.
+    pub fn set_unit(&mut self, unit: crate::ui::units::LengthUnit) {
+        self.preferences.unit = unit;
+    }
+
+    /// Use `theme` from now on.
+    pub fn set_theme(&mut self, theme: Theme) {
+        self.preferences.theme = theme;
+    }
+
+    /// Open the cautions window (as the "Cautions…" button does).
+    pub fn open_cautions(&mut self) {
+        self.cautions_open = true;
+    }
+
+    /// Capture the window to a PNG once it has settled, then close it.
+    pub(crate) fn capture_on_start(&mut self, job: ScreenshotJob) {
+        self.screenshot = Some(job);
+    }
+
+    /// The recipe being edited.
+    pub fn recipe(&self) -> &Recipe {
+        &self.recipe
+    }
+
+    /// The recipe, for changes from outside the window (file loading, benchmarks). Changes are
+    /// picked up on the next frame and become an undo step like any other.
+    pub fn recipe_mut(&mut self) -> &mut Recipe {
+        &mut self.recipe
+    }
+
+    /// The analysis of the recipe as last shown, or `None` if the input was refused.
+    pub fn analysis(&self) -> Option<&Analysis> {
+        self.evaluation.current().ok().map(|f| &f.analysis)
+    }
+
+    /// The view preferences.
+    pub fn preferences(&self) -> Preferences {
+        self.preferences
+    }
+
+    /// Draw one frame of the whole window into `ui` (the root ui of the viewport).
+    pub fn show(&mut self, ui: &mut egui::Ui) {
+        let ctx = ui.ctx().clone();
+        if self.applied_theme != Some(self.preferences.theme) {
+            self.preferences.theme.apply(&ctx);
+            self.applied_theme = Some(self.preferences.theme);
+        }
+        if self.shown_title != self.recipe.name {
+            self.shown_title.clone_from(&self.recipe.name);
+            ctx.send_viewport_cmd(egui::ViewportCommand::Title(format!(
+                "Tankwright — {}",
+                self.recipe.name
+            )));
+        }
+        self.evaluation.refresh(&self.recipe);
+
+        let mut commands = Vec::new();
+        self.panels(ui, &mut commands);
+
+        // Shortcuts after the widgets, so a text field being edited keeps its own Ctrl+Z.
+        ui.input_mut(|input| {
+            if input.consume_shortcut(&REDO) {
+                commands.push(Command::Redo);
+            } else if input.consume_shortcut(&UNDO) {
+                commands.push(Command::Undo);
+            }
+        });
+        for command in commands {
+            self.apply(command);
+        }
+        cautions::window(&ctx, &mut self.cautions_open);
+
+        let time = ctx.input(|i| i.time);
+        self.history.feed(time, &self.recipe);
+        if self.history.is_in_flux() {
+            ctx.request_repaint_after_secs(UNDO_SETTLE_SECONDS);
+        }
+        // A change made this frame is computed now and shown on the next.
+        if self.evaluation.refresh(&self.recipe) {
+            ctx.request_repaint();
+        }
+    }
+
+    fn panels(&mut self, ui: &mut egui::Ui, commands: &mut Vec<Command>) {
+        let Self {
+            recipe,
+            preferences,
+            evaluation,
+            charts,
+            history,
+            tank_panel,
+            target_panel,
+            ..
+        } = self;
+        let unit = preferences.unit;
+        let bar = BarState {
+            recipe_name: &recipe.name,
+            can_undo: history.can_undo(recipe),
+            can_redo: history.can_redo(recipe),
+            unit,
+            theme: preferences.theme,
+        };
+        egui::Panel::top("top_bar").show(ui, |ui| {
+            top_bar::show(ui, &bar, commands, |_ui| {
+                // Slot for the "Recipe" menu: the lead wires `files::FileDesk::menu_ui` in here
+                // (and carries out the `FileAction` it returns with `App::set_document`).
+            });
+        });
+        egui::Panel::bottom("caution_strip").show(ui, |ui| {
+            ui.add_space(2.0);
+            if cautions::strip(ui) {
+                commands.push(Command::OpenCautions);
+            }
+            ui.add_space(2.0);
+        });
+        // Side panels take a share of the window so the centre keeps room on small screens.
+        let width = ui.available_width();
+        let left_max = (width * LEFT_SHARE).max(LEFT_MIN);
+        let right_max = (width * RIGHT_SHARE).max(RIGHT_MIN);
+        egui::Panel::left("winding_and_tank")
+            .resizable(true)
+            .default_size(LEFT_DEFAULT.min(left_max))
+            .size_range(LEFT_MIN..=left_max)
+            .show(ui, |ui| {
+                egui::ScrollArea::both().show(ui, |ui| {
+                    // Label column, slider, number field: the slider takes what is left.
+                    ui.spacing_mut().slider_width =
+                        (ui.available_width() - LABEL_WIDTH - 92.0).clamp(80.0, 150.0);
+                    let coil = evaluation.latest().map(|f| f.coil);
+                    let refused = evaluation.current().err().map(|e| e.field);
+                    winding::show(ui, &mut recipe.winding, coil.as_ref(), unit, refused);
+                    ui.add_space(8.0);
+                    tank_panel.show(ui, &mut recipe.tank, &mut recipe.conditions, refused);
+                });
+            });
+        egui::Panel::right("readouts_and_target")
+            .resizable(true)
+            .default_size(RIGHT_DEFAULT.min(right_max))
+            .size_range(RIGHT_MIN..=right_max)
+            .show(ui, |ui| {
+                egui::ScrollArea::both().show(ui, |ui| {
+                    readouts::show(ui, evaluation, unit);
+                    ui.add_space(8.0);
+                    target_panel.show(ui, &mut recipe.target, evaluation, unit, commands);
+                });
+            });
+        egui::CentralPanel::default().show(ui, |ui| {
+            bench::show(
+                ui,
+                evaluation,
+                charts,
+                recipe.winding.spacing,
+                &recipe.conditions,
+                unit,
+                commands,
+            );
+        });
+    }
+
+    fn apply(&mut self, command: Command) {
+        match command {
+            Command::Undo => {
+                self.history.undo(&mut self.recipe);
+            }
+            Command::Redo => {
+                self.history.redo(&mut self.recipe);
+            }
+            Command::SetLength(length) => {
+                if let Some(coil) = self.evaluation.latest().map(|f| f.coil) {
+                    winding::set_length(&mut self.recipe.winding, &coil, length);
+                }
+            }
+            Command::SetTrimmer(setting) => {
+                if setting.is_finite() {
+                    self.recipe.tank.trimmer_setting = setting.clamp(0.0, 1.0);
+                }
+            }
+            Command::OpenCautions => self.cautions_open = true,
+            Command::ToggleTheme => self.preferences.theme = self.preferences.theme.toggled(),
+            Command::SetUnit(unit) => self.preferences.unit = unit,
+        }
+    }
+}
+
+impl eframe::App for App {
+    fn ui(&mut self, ui: &mut egui::Ui, _frame: &mut eframe::Frame) {
+        self.show(ui);
+        if let Some(job) = &mut self.screenshot {
+            job.step(ui.ctx());
+        }
+    }
+
+    fn save(&mut self, storage: &mut dyn eframe::Storage) {
+        eframe::set_value(storage, PREFERENCES_KEY, &self.preferences);
+        // Slot for the lead: persisting the open recipe (or its path) belongs here once the
+        // recipe file format exists.
+    }
+}

@@ -1,0 +1,103 @@
+//! The centre of the window: the coil drawn to scale on top, the live charts below.
+
+use super::Command;
+use crate::model::{Conditions, SpacingSpec};
+use crate::tuning::sweep::touching_length;
+use crate::ui::charts::{self, ChartCache, ChartView, SpacingAxis};
+use crate::ui::coil_view::coil_view;
+use crate::ui::evaluation::Evaluation;
+use crate::ui::theme;
+use crate::ui::units::LengthUnit;
+use eframe::egui::{self, RichText};
+
+/// Narrowest centre that still holds the two charts side by side, points.
+const SIDE_BY_SIDE_WIDTH: f32 = 560.0;
+/// Share of the centre's height given to the coil drawing.
+const DRAWING_SHARE: f32 = 0.36;
+
+/// Show the drawing and charts; what the user drags is returned as commands.
+pub fn show(
+    ui: &mut egui::Ui,
+    evaluation: &Evaluation,
+    cache: &mut ChartCache,
+    spacing: SpacingSpec,
+    conditions: &Conditions,
+    unit: LengthUnit,
+    commands: &mut Vec<Command>,
+) {
+    let Some(figures) = evaluation.latest() else {
+        ui.centered_and_justified(|ui| {
+            ui.label("No coil to draw yet: the input is refused (see the readouts).");
+        });
+        return;
+    };
+    if evaluation.current().is_err() {
+        ui.label(
+            RichText::new(
+                "Showing the last coil that could be built; the present input is refused.",
+            )
+            .color(theme::refusal(ui)),
+        );
+    }
+    cache.refresh(&figures.coil, &figures.tank, conditions);
+
+    let width = ui.available_width();
+    let drawing_height = (ui.available_height() * DRAWING_SHARE).max(160.0);
+    let drawn = ui
+        .allocate_ui(egui::vec2(width, drawing_height), |ui| {
+            coil_view(
+                ui,
+                &figures.analysis.geometry,
+                unit,
+                touching_length(&figures.coil),
+            )
+        })
+        .inner;
+    if let Some(length) = drawn {
+        commands.push(Command::SetLength(length));
+    }
+    ui.separator();
+
+    let view = ChartView {
+        cache,
+        coil: &figures.coil,
+        tank: &figures.tank,
+        target_hz: figures.target.channel,
+        channel_width_hz: figures.target.channel_width,
+        resonance_hz: figures.analysis.resonance,
+        axis: match spacing {
+            SpacingSpec::Length(_) => SpacingAxis::Length,
+            SpacingSpec::Gap(_) => SpacingAxis::Gap,
+        },
+        unit,
+    };
+    let chart_height = ui.available_height();
+    let (spacing_pick, trimmer_pick) = if ui.available_width() >= SIDE_BY_SIDE_WIDTH {
+        ui.columns(2, |columns| {
+            let size = egui::vec2(columns[0].available_width(), chart_height);
+            (
+                columns[0]
+                    .allocate_ui(size, |ui| charts::spacing_chart(ui, &view))
+                    .inner,
+                columns[1]
+                    .allocate_ui(size, |ui| charts::trimmer_chart(ui, &view))
+                    .inner,
+            )
+        })
+    } else {
+        // A narrow centre stacks the charts.
+        let size = egui::vec2(width, 0.5 * chart_height - ui.spacing().item_spacing.y);
+        (
+            ui.allocate_ui(size, |ui| charts::spacing_chart(ui, &view))
+                .inner,
+            ui.allocate_ui(size, |ui| charts::trimmer_chart(ui, &view))
+                .inner,
+        )
+    };
+    if let Some(length) = spacing_pick {
+        commands.push(Command::SetLength(length));
+    }
+    if let Some(setting) = trimmer_pick {
+        commands.push(Command::SetTrimmer(setting));
+    }
+}

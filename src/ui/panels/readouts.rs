@@ -1,0 +1,225 @@
+//! The readouts: every figure of the analysis with its unit, method and cautions, or the
+//! reason the input was refused.
+
+use super::heading;
+use crate::model::{Analysis, InductanceModel, InputError, WarningTopic};
+use crate::ui::evaluation::Evaluation;
+use crate::ui::theme;
+use crate::ui::units::{LengthUnit, mhz, nh, pf};
+use crate::ui::widgets::{Readout, caution_mark};
+use eframe::egui::{self, RichText};
+
+/// How each inductance model works, for the hover notes.
+fn model_method(model: InductanceModel) -> &'static str {
+    match model {
+        InductanceModel::RoundWire => {
+            "Rosa 1907/Grover 1946 round-wire correction of Nagaoka's current sheet, internal \
+             inductance at the resonance"
+        }
+        InductanceModel::FilamentSum => {
+            "Sum over circular rings: each turn's own inductance plus Maxwell's mutual \
+             inductance of every pair (elliptic integrals), at the resonance"
+        }
+        InductanceModel::CurrentSheet => {
+            "Nagaoka 1909 coefficient of a uniform current sheet, exact by complete elliptic \
+             integrals"
+        }
+        InductanceModel::Lundin1985 => {
+            "Lundin 1985 closed-form approximation of Nagaoka's coefficient"
+        }
+        InductanceModel::Wheeler1928 => {
+            "Wheeler 1928 closed form for a single-layer solenoid (about 1 % when the length \
+             exceeds 0.8 × radius)"
+        }
+    }
+}
+
+/// Inductance in nanohenries with its unit.
+fn show_nh(henries: f64) -> String {
+    format!("{:.1} nH", nh(henries))
+}
+
+/// Capacitance in picofarads with its unit.
+fn show_pf(farads: f64) -> String {
+    format!("{:.2} pF", pf(farads))
+}
+
+/// Frequency in megahertz with its unit.
+fn show_mhz(hertz: f64) -> String {
+    format!("{:.3} MHz", mhz(hertz))
+}
+
+/// Show the readouts for the present recipe, or why it was refused.
+pub fn show(ui: &mut egui::Ui, evaluation: &Evaluation, unit: LengthUnit) {
+    heading(ui, "Readouts");
+    match evaluation.current() {
+        Ok(figures) => figures_rows(ui, &figures.analysis, unit),
+        Err(error) => refusal(ui, error),
+    }
+}
+
+/// The reason the input was refused, in place of the readouts.
+fn refusal(ui: &mut egui::Ui, error: &InputError) {
+    egui::Frame::new()
+        .fill(theme::refusal_fill(ui))
+        .stroke(egui::Stroke::new(1.0, theme::refusal(ui)))
+        .corner_radius(4.0)
+        .inner_margin(10.0)
+        .show(ui, |ui| {
+            ui.set_width(ui.available_width());
+            ui.horizontal(|ui| {
+                caution_mark(ui);
+                ui.label(
+                    RichText::new(format!(
+                        "The {} cannot be built as given",
+                        error.field.label()
+                    ))
+                    .strong()
+                    .size(16.0)
+                    .color(theme::refusal(ui)),
+                );
+            });
+            ui.add(egui::Label::new(RichText::new(&error.reason).color(theme::refusal(ui))).wrap());
+            ui.add_space(4.0);
+            ui.label(
+                "Nothing you typed is lost: correct the value and the figures return. The \
+                 drawing and charts show the last coil that could be built.",
+            );
+        });
+}
+
+fn figures_rows(ui: &mut egui::Ui, a: &Analysis, unit: LengthUnit) {
+    Readout::new(
+        "Resonance",
+        show_mhz(a.resonance),
+        "1/(2π√(LC)) with the driving model's inductance plus the leads and the total \
+         capacitance, iterated until the frequency-dependent terms settle",
+    )
+    .emphasis(true)
+    .warnings(a.warnings_about(WarningTopic::Band))
+    .show(ui);
+
+    ui.add_space(4.0);
+    ui.label(RichText::new("Inductance of the coil (without leads)").strong());
+    for model in InductanceModel::ALL {
+        let value = match model {
+            InductanceModel::FilamentSum => a.inductance.filament_sum.map(show_nh),
+            other => Some(show_nh(a.inductance.by_model(other))),
+        };
+        let driving = model == a.model;
+        let name = if driving {
+            format!("» {}", model.label())
+        } else {
+            model.label().to_owned()
+        };
+        let mut row = Readout::new(
+            &name,
+            value.unwrap_or_else(|| "not computed".to_owned()),
+            model_method(model),
+        )
+        .emphasis(driving)
+        .indent(!driving);
+        if model == InductanceModel::Wheeler1928 {
+            row = row.warnings(a.warnings_about(WarningTopic::Inductance));
+        }
+        row.show(ui);
+    }
+    Readout::new(
+        "Rosa round wire, DC",
+        show_nh(a.inductance.round_wire_low_freq),
+        "Rosa's round-wire correction with the current spread evenly through the wire (low \
+         frequency), for comparison",
+    )
+    .indent(true)
+    .show(ui);
+    Readout::new(
+        "Spread of the models",
+        format!("{:.1} %", a.inductance.spread() * 100.0),
+        "Largest minus smallest of the models above, as a share of the round-wire value",
+    )
+    .show(ui);
+    Readout::new(
+        "Leads",
+        show_nh(a.inductance.leads),
+        "Both straight leads as round wires (Rosa 1908, Grover 1946), internal inductance at \
+         the resonance",
+    )
+    .warnings(a.warnings_about(WarningTopic::Leads))
+    .show(ui);
+    Readout::new(
+        "Total inductance",
+        show_nh(a.total_inductance),
+        "The driving model's coil inductance plus both leads",
+    )
+    .show(ui);
+    Readout::new(
+        "Apparent inductance",
+        show_nh(a.apparent_inductance),
+        "L/(1 − (f/f_self)²) with the lumped self-resonance: what a bridge would read across \
+         the coil at the resonance",
+    )
+    .show(ui);
+
+    ui.add_space(4.0);
+    Readout::new(
+        "Self-capacitance",
+        show_pf(a.self_capacitance),
+        "Medhurst 1947 table: H × diameter in cm (pF), coil standing on one end, about ±5 %",
+    )
+    .warnings(a.warnings_about(WarningTopic::SelfCapacitance))
+    .show(ui);
+    Readout::new(
+        "Total capacitance",
+        show_pf(a.total_capacitance),
+        "Fixed capacitor, trimmer at its setting, stray and the feedback divider in series, plus \
+         the coil's self-capacitance (counted once)",
+    )
+    .warnings(a.warnings_about(WarningTopic::Tank))
+    .show(ui);
+    Readout::new(
+        "Self-resonance, lumped",
+        show_mhz(a.self_resonance.lumped),
+        "1/(2π√(L·C_self)) with Medhurst's self-capacitance: the usual first estimate",
+    )
+    .show(ui);
+    Readout::new(
+        "Self-resonance, helical",
+        show_mhz(a.self_resonance.helical),
+        "Half-wave resonance of the helix as a slow-wave line with the Kandoian–Sichak \
+         velocity factor",
+    )
+    .warnings(a.warnings_about(WarningTopic::SelfResonance))
+    .show(ui);
+
+    ui.add_space(4.0);
+    Readout::new(
+        "Q, unloaded",
+        format!("{:.0}", a.q),
+        "ωL/R_ac: skin effect from the round wire's internal impedance, the proximity factor of \
+         an infinite row of turns (Rayleigh's multipole method) and copper resistivity at the \
+         wire temperature (IEC 60028)",
+    )
+    .emphasis(true)
+    .warnings(a.warnings_about(WarningTopic::Loss))
+    .show(ui);
+    Readout::new(
+        "AC resistance",
+        format!("{:.3} Ω", a.ac_resistance),
+        "Coil and leads at the resonance: DC resistance × skin-effect ratio, with the proximity \
+         factor on the coil's wire",
+    )
+    .show(ui);
+    Readout::new(
+        "Wire to cut",
+        unit.show(a.geometry.wire_length),
+        "Helix √((πD)² + p²) per turn times the turns, plus both leads",
+    )
+    .emphasis(true)
+    .show(ui);
+    Readout::new(
+        "Length ÷ diameter",
+        format!("{:.2}", a.geometry.length_over_diameter),
+        "Coil length (turns × pitch) over the mean diameter",
+    )
+    .show(ui);
+}

@@ -1,0 +1,209 @@
+//! The target: band plan and channel, and where the coil stands against it.
+
+use super::{Command, heading, target_figures};
+use crate::recipe::Target;
+use crate::tuning::BandPlan;
+use crate::tuning::bands::us_fm_channel_number;
+use crate::ui::evaluation::Evaluation;
+use crate::ui::theme;
+use crate::ui::units::{LengthUnit, mhz};
+use eframe::egui::{self, RichText};
+
+/// A frequency in MHz with as many decimals as it needs (one at least, four at most).
+pub fn show_mhz(hz: f64) -> String {
+    let text = format!("{:.4}", mhz(hz));
+    let trimmed = text.trim_end_matches('0');
+    let trimmed = if trimmed.ends_with('.') {
+        format!("{trimmed}0")
+    } else {
+        trimmed.to_owned()
+    };
+    format!("{trimmed} MHz")
+}
+
+/// A channel as listed: frequency, and its number on the US FM raster.
+fn channel_name(plan: &BandPlan, hz: f64) -> String {
+    match (plan, us_fm_channel_number(hz)) {
+        (BandPlan::UsFm, Some(n)) => format!("{} (channel {n})", show_mhz(hz)),
+        _ => show_mhz(hz),
+    }
+}
+
+/// Parse a list of MHz values separated by commas, semicolons or spaces, into hertz.
+fn parse_mhz_list(text: &str) -> Result<Vec<f64>, String> {
+    let mut out = Vec::new();
+    for token in text
+        .split(|c: char| c == ',' || c == ';' || c.is_whitespace())
+        .filter(|t| !t.is_empty())
+    {
+        match token.parse::<f64>() {
+            Ok(v) if v.is_finite() && v > 0.0 => out.push(v * 1e6),
+            _ => return Err(format!("“{token}” is not a frequency in MHz")),
+        }
+    }
+    if out.is_empty() {
+        return Err("the list is empty: type one or more frequencies in MHz".to_owned());
+    }
+    Ok(out)
+}
+
+/// The MHz list as typed back.
+fn format_mhz_list(list: &[f64]) -> String {
+    list.iter()
+        .map(|hz| show_mhz(*hz).trim_end_matches(" MHz").to_owned())
+        .collect::<Vec<_>>()
+        .join(", ")
+}
+
+/// The target panel's own state: the custom list as typed.
+#[derive(Default)]
+pub struct TargetPanel {
+    custom_text: String,
+    custom_problem: Option<String>,
+}
+
+impl TargetPanel {
+    /// Show the target controls and figures.
+    pub fn show(
+        &mut self,
+        ui: &mut egui::Ui,
+        target: &mut Target,
+        evaluation: &Evaluation,
+        unit: LengthUnit,
+        commands: &mut Vec<Command>,
+    ) {
+        heading(ui, "Target");
+        self.pickers(ui, target, evaluation);
+        ui.add_space(6.0);
+        match evaluation.current() {
+            Ok(figures) => target_figures::show(ui, target, figures, unit, commands),
+            Err(_) => {
+                ui.label("The target figures need a coil the engine accepts (see the readouts).");
+            }
+        }
+    }
+
+    fn pickers(&mut self, ui: &mut egui::Ui, target: &mut Target, evaluation: &Evaluation) {
+        // Keep the typed list in step with the recipe (after undo, say), unless it holds a
+        // problem the user is still fixing.
+        if let BandPlan::Custom(list) = &target.plan
+            && self.custom_problem.is_none()
+            && parse_mhz_list(&self.custom_text).ok().as_ref() != Some(list)
+        {
+            self.custom_text = format_mhz_list(list);
+        }
+        let wide = (ui.available_width() - 90.0).clamp(150.0, 250.0);
+        egui::Grid::new("target_grid")
+            .num_columns(2)
+            .spacing([8.0, 6.0])
+            .show(ui, |ui| {
+                let label = ui.label("Band plan");
+                let mut picked = None;
+                egui::ComboBox::from_id_salt("band_plan")
+                    .selected_text(target.plan.label())
+                    .width(wide)
+                    .show_ui(ui, |ui| {
+                        for plan in BandPlan::built_in() {
+                            let selected = plan == target.plan;
+                            if ui.selectable_label(selected, plan.label()).clicked() && !selected {
+                                picked = Some(plan);
+                            }
+                        }
+                        let custom = matches!(target.plan, BandPlan::Custom(_));
+                        if ui.selectable_label(custom, "Custom list").clicked() && !custom {
+                            let list = parse_mhz_list(&self.custom_text)
+                                .unwrap_or_else(|_| vec![target.channel]);
+                            picked = Some(BandPlan::Custom(list));
+                        }
+                    })
+                    .response
+                    .labelled_by(label.id);
+                ui.end_row();
+                if let Some(plan) = picked {
+                    if let Some(nearest) = plan.nearest(target.channel) {
+                        target.channel = nearest;
+                    }
+                    if let BandPlan::Custom(list) = &plan {
+                        self.custom_text = format_mhz_list(list);
+                        self.custom_problem = None;
+                    }
+                    target.plan = plan;
+                }
+
+                if matches!(target.plan, BandPlan::Custom(_)) {
+                    let label = ui.label("Channels (MHz)");
+                    let response = ui
+                        .add(
+                            egui::TextEdit::singleline(&mut self.custom_text)
+                                .hint_text("e.g. 98.7, 101.1, 145.5")
+                                .desired_width(wide),
+                        )
+                        .labelled_by(label.id);
+                    if response.changed() {
+                        match parse_mhz_list(&self.custom_text) {
+                            Ok(list) => {
+                                self.custom_problem = None;
+                                let plan = BandPlan::Custom(list);
+                                let channels = plan.channels();
+                                if !channels.contains(&target.channel)
+                                    && let Some(nearest) = plan.nearest(target.channel)
+                                {
+                                    target.channel = nearest;
+                                }
+                                target.plan = plan;
+                            }
+                            Err(problem) => self.custom_problem = Some(problem),
+                        }
+                    }
+                    ui.end_row();
+                }
+
+                let label = ui.label("Channel");
+                ui.horizontal(|ui| {
+                    let channels = evaluation.channels();
+                    let index = channels.iter().position(|c| *c == target.channel);
+                    let lower = index
+                        .and_then(|i| i.checked_sub(1))
+                        .and_then(|i| channels.get(i));
+                    let higher = index.map_or(channels.first(), |i| channels.get(i + 1));
+                    if ui
+                        .add_enabled(lower.is_some(), egui::Button::new("‹"))
+                        .on_hover_text("Next channel down")
+                        .accessible_name("Lower channel")
+                        .clicked()
+                        && let Some(c) = lower
+                    {
+                        target.channel = *c;
+                    }
+                    egui::ComboBox::from_id_salt("channel")
+                        .selected_text(channel_name(&target.plan, target.channel))
+                        .width(wide - 60.0)
+                        .height(320.0)
+                        .show_ui(ui, |ui| {
+                            for &c in channels {
+                                ui.selectable_value(
+                                    &mut target.channel,
+                                    c,
+                                    channel_name(&target.plan, c),
+                                );
+                            }
+                        })
+                        .response
+                        .labelled_by(label.id);
+                    if ui
+                        .add_enabled(higher.is_some(), egui::Button::new("›"))
+                        .on_hover_text("Next channel up")
+                        .accessible_name("Higher channel")
+                        .clicked()
+                        && let Some(c) = higher
+                    {
+                        target.channel = *c;
+                    }
+                });
+                ui.end_row();
+            });
+        if let Some(problem) = &self.custom_problem {
+            ui.label(RichText::new(problem).color(theme::refusal(ui)));
+        }
+    }
+}

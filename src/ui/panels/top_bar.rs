@@ -1,0 +1,104 @@
+//! The bar across the top: menus, undo and redo, units and theme.
+
+use super::Command;
+use crate::ui::theme::Theme;
+use crate::ui::units::LengthUnit;
+use eframe::egui;
+
+/// What the bar needs to know to draw itself.
+pub struct BarState<'a> {
+    /// The recipe's name, shown in the bar.
+    pub recipe_name: &'a str,
+    /// Is there a step to undo?
+    pub can_undo: bool,
+    /// Is there a step to redo?
+    pub can_redo: bool,
+    /// Lengths shown in.
+    pub unit: LengthUnit,
+    /// Present theme.
+    pub theme: Theme,
+}
+
+/// Shortcut text for undo.
+const UNDO_KEYS: &str = "Ctrl+Z";
+/// Shortcut text for redo.
+const REDO_KEYS: &str = "Ctrl+Shift+Z";
+
+/// Show the menu bar and the tool row beneath it. `recipe_menu` draws the first menu of the
+/// bar (the "Recipe" menu: new, open…, save, save as…), supplied by the app.
+pub fn show(
+    ui: &mut egui::Ui,
+    state: &BarState<'_>,
+    commands: &mut Vec<Command>,
+    recipe_menu: impl FnOnce(&mut egui::Ui),
+) {
+    egui::MenuBar::new().ui(ui, |ui| {
+        recipe_menu(ui);
+        ui.menu_button("Edit", |ui| {
+            if ui
+                .add_enabled(
+                    state.can_undo,
+                    egui::Button::new("Undo change").shortcut_text(UNDO_KEYS),
+                )
+                .clicked()
+            {
+                commands.push(Command::Undo);
+            }
+            if ui
+                .add_enabled(
+                    state.can_redo,
+                    egui::Button::new("Redo change").shortcut_text(REDO_KEYS),
+                )
+                .clicked()
+            {
+                commands.push(Command::Redo);
+            }
+        });
+        ui.menu_button("View", |ui| {
+            if ui.button(state.theme.switch_label()).clicked() {
+                commands.push(Command::ToggleTheme);
+            }
+            for unit in [LengthUnit::Millimetres, LengthUnit::Inches] {
+                let name = match unit {
+                    LengthUnit::Millimetres => "Lengths in millimetres",
+                    LengthUnit::Inches => "Lengths in inches",
+                };
+                if ui.radio(state.unit == unit, name).clicked() {
+                    commands.push(Command::SetUnit(unit));
+                }
+            }
+        });
+        ui.separator();
+        ui.label(egui::RichText::new(state.recipe_name).strong());
+    });
+    ui.horizontal(|ui| {
+        if ui
+            .add_enabled(state.can_undo, egui::Button::new("Undo"))
+            .on_hover_text(format!("Go back one change ({UNDO_KEYS})"))
+            .clicked()
+        {
+            commands.push(Command::Undo);
+        }
+        if ui
+            .add_enabled(state.can_redo, egui::Button::new("Redo"))
+            .on_hover_text(format!("Go forward one change ({REDO_KEYS})"))
+            .clicked()
+        {
+            commands.push(Command::Redo);
+        }
+        ui.separator();
+        ui.label("Lengths in");
+        for (unit, name) in [
+            (LengthUnit::Millimetres, "millimetres"),
+            (LengthUnit::Inches, "inches"),
+        ] {
+            if ui.selectable_label(state.unit == unit, name).clicked() && state.unit != unit {
+                commands.push(Command::SetUnit(unit));
+            }
+        }
+        ui.separator();
+        if ui.button(state.theme.switch_label()).clicked() {
+            commands.push(Command::ToggleTheme);
+        }
+    });
+}
