@@ -2,9 +2,11 @@
 
 use crate::model::Analysis;
 use crate::recipe::Recipe;
+use crate::ui::bench_log::{BenchLogAction, BenchLogPanel};
 use crate::ui::cautions;
 use crate::ui::charts::ChartCache;
 use crate::ui::evaluation::Evaluation;
+use crate::ui::files::{FileAction, FileDesk, FileDeskMemory, Notice};
 use crate::ui::panels::tank::TankPanel;
 use crate::ui::panels::target::TargetPanel;
 use crate::ui::panels::top_bar::{self, BarState};
@@ -14,6 +16,7 @@ use crate::ui::screenshot::ScreenshotJob;
 use crate::ui::theme::Theme;
 use crate::ui::undo::History;
 use crate::ui::widgets::LABEL_WIDTH;
+use crate::ui::working_copy::{WORKING_COPY_KEY, WorkingCopy};
 use eframe::egui::{self, Key, KeyboardShortcut, Modifiers};
 
 /// Seconds a change must rest before it becomes an undo step (the undoer's default), plus a
@@ -29,6 +32,9 @@ const RIGHT_DEFAULT: f32 = 440.0;
 const RIGHT_MIN: f32 = 360.0;
 const RIGHT_SHARE: f32 = 0.34;
 
+/// eframe storage key of the file desk's memory (recent files, recipe folder).
+const FILES_KEY: &str = "tankwright.files";
+
 const UNDO: KeyboardShortcut = KeyboardShortcut::new(Modifiers::COMMAND, Key::Z);
 const REDO: KeyboardShortcut =
     KeyboardShortcut::new(Modifiers::COMMAND.plus(Modifiers::SHIFT), Key::Z);
@@ -43,6 +49,8 @@ pub struct App {
     history: History,
     tank_panel: TankPanel,
     target_panel: TargetPanel,
+    bench_log: BenchLogPanel,
+    files: FileDesk,
     cautions_open: bool,
     applied_theme: Option<Theme>,
     shown_title: String,
@@ -50,20 +58,46 @@ pub struct App {
 }
 
 impl App {
-    /// The window as eframe creates it: the demo recipe, with the view preferences of the last
-    /// session if there are any.
+    /// The window as eframe creates it: the working copy of the last session if there is one
+    /// (so a crash or a forgotten save loses at most the last few seconds), else the demo
+    /// recipe; with the view preferences and recent files of the last session.
     pub fn new(cc: &eframe::CreationContext<'_>) -> Self {
         let mut app = Self::with_recipe(Recipe::demo());
-        if let Some(storage) = cc.storage
-            && let Some(preferences) = eframe::get_value(storage, PREFERENCES_KEY)
-        {
+        let Some(storage) = cc.storage else {
+            return app;
+        };
+        if let Some(preferences) = eframe::get_value(storage, PREFERENCES_KEY) {
             app.preferences = preferences;
+        }
+        if let Some(memory) = eframe::get_value::<FileDeskMemory>(storage, FILES_KEY) {
+            app.files.memory = memory;
+        }
+        if let Some(copy) = eframe::get_value::<WorkingCopy>(storage, WORKING_COPY_KEY) {
+            match copy.restore() {
+                Ok(restored) => {
+                    app.set_document(restored.saved.clone());
+                    app.files
+                        .mark_opened(restored.path.as_deref(), &restored.saved);
+                    app.recipe = restored.recipe;
+                    app.evaluation = Evaluation::new(&app.recipe);
+                }
+                Err(reason) => {
+                    app.files.notice = Some(Notice {
+                        text: format!(
+                            "The last session's working copy could not be restored ({reason}); \
+                             showing the demo recipe."
+                        ),
+                        is_error: true,
+                    });
+                }
+            }
         }
         app
     }
 
     /// A window editing `recipe`, with default view preferences.
     pub fn with_recipe(recipe: Recipe) -> Self {
+        let files = FileDesk::new(FileDeskMemory::default(), &recipe);
         Self {
             evaluation: Evaluation::new(&recipe),
             recipe,
@@ -72,6 +106,8 @@ impl App {
             history: History::default(),
             tank_panel: TankPanel::default(),
             target_panel: TargetPanel::default(),
+            bench_log: BenchLogPanel::default(),
+            files,
             cautions_open: false,
             applied_theme: None,
             shown_title: String::new(),
@@ -88,6 +124,7 @@ impl App {
     /// Replace the document (a recipe opened or made new): the history starts afresh and the
     /// figures are those of the new recipe (nothing of the old one is shown as "last good").
     pub fn set_document(&mut self, recipe: Recipe) {
+        self.files.mark_opened(None, &recipe);
         self.evaluation = Evaluation::new(&recipe);
         self.recipe = recipe;
         self.history = History::default();
@@ -141,17 +178,18 @@ impl App {
             self.preferences.theme.apply(&ctx);
             self.applied_theme = Some(self.preferences.theme);
         }
-        if self.shown_title != self.recipe.name {
-            self.shown_title.clone_from(&self.recipe.name);
-            ctx.send_viewport_cmd(egui::ViewportCommand::Title(format!(
-                "Tankwright — {}",
-                self.recipe.name
-            )));
+        let title = self.files.title(&self.recipe);
+        if self.shown_title != title {
+            ctx.send_viewport_cmd(egui::ViewportCommand::Title(title.clone()));
+            self.shown_title = title;
         }
         self.evaluation.refresh(&self.recipe);
 
         let mut commands = Vec::new();
-        self.panels(ui, &mut commands);
+        let mut file_actions = Vec::new();
+        file_actions.extend(self.panels(ui, &mut commands));
+        file_actions.extend(self.files.shortcuts(&ctx, &self.recipe));
+        file_actions.extend(self.files.windows_ui(&ctx, &self.recipe));
 
         // Shortcuts after the widgets, so a text field being edited keeps its own Ctrl+Z.
         ui.input_mut(|input| {
@@ -163,6 +201,13 @@ impl App {
         });
         for command in commands {
             self.apply(command);
+        }
+        for action in file_actions {
+            match action {
+                // The desk has already marked the new document as opened or saved.
+                FileAction::Replace(recipe) => self.replace_document(recipe),
+                FileAction::Quit => ctx.send_viewport_cmd(egui::ViewportCommand::Close),
+            }
         }
         cautions::window(&ctx, &mut self.cautions_open);
 
@@ -177,7 +222,15 @@ impl App {
         }
     }
 
-    fn panels(&mut self, ui: &mut egui::Ui, commands: &mut Vec<Command>) {
+    /// Replace the document with one the file desk opened or made (it keeps its own record of
+    /// the file): the history starts afresh.
+    fn replace_document(&mut self, recipe: Recipe) {
+        self.evaluation = Evaluation::new(&recipe);
+        self.recipe = recipe;
+        self.history = History::default();
+    }
+
+    fn panels(&mut self, ui: &mut egui::Ui, commands: &mut Vec<Command>) -> Option<FileAction> {
         let Self {
             recipe,
             preferences,
@@ -186,8 +239,11 @@ impl App {
             history,
             tank_panel,
             target_panel,
+            bench_log,
+            files,
             ..
         } = self;
+        let mut file_action = None;
         let unit = preferences.unit;
         let bar = BarState {
             recipe_name: &recipe.name,
@@ -197,11 +253,15 @@ impl App {
             theme: preferences.theme,
         };
         egui::Panel::top("top_bar").show(ui, |ui| {
-            top_bar::show(ui, &bar, commands, |_ui| {
-                // Slot for the "Recipe" menu: the lead wires `files::FileDesk::menu_ui` in here
-                // (and carries out the `FileAction` it returns with `App::set_document`).
+            top_bar::show(ui, &bar, commands, |ui| {
+                ui.menu_button("Recipe", |ui| {
+                    file_action = files.menu_ui(ui, recipe);
+                });
             });
         });
+        if files.notice.is_some() {
+            egui::Panel::bottom("file_notice").show(ui, |ui| files.notice_ui(ui));
+        }
         egui::Panel::bottom("caution_strip").show(ui, |ui| {
             ui.add_space(2.0);
             if cautions::strip(ui) {
@@ -224,6 +284,8 @@ impl App {
                         (ui.available_width() - LABEL_WIDTH - 92.0).clamp(80.0, 150.0);
                     let coil = evaluation.latest().map(|f| f.coil);
                     let refused = evaluation.current().err().map(|e| e.field);
+                    recipe_header(ui, recipe);
+                    ui.add_space(6.0);
                     winding::show(ui, &mut recipe.winding, coil.as_ref(), unit, refused);
                     ui.add_space(8.0);
                     tank_panel.show(ui, &mut recipe.tank, &mut recipe.conditions, refused);
@@ -238,6 +300,22 @@ impl App {
                     readouts::show(ui, evaluation, unit);
                     ui.add_space(8.0);
                     target_panel.show(ui, &mut recipe.target, evaluation, unit, commands);
+                    ui.add_space(8.0);
+                    egui::CollapsingHeader::new("Bench log")
+                        .default_open(true)
+                        .show(ui, |ui| {
+                            let coil = evaluation.current().ok().map(|f| f.coil);
+                            match bench_log.ui(ui, recipe, coil.as_ref(), unit) {
+                                Some(BenchLogAction::Record(entry)) => recipe.bench_log.push(entry),
+                                Some(BenchLogAction::Remove(i)) if i < recipe.bench_log.len() => {
+                                    recipe.bench_log.remove(i);
+                                }
+                                Some(BenchLogAction::SetLength(length)) => {
+                                    commands.push(Command::SetLength(length));
+                                }
+                                _ => {}
+                            }
+                        });
                 });
             });
         egui::CentralPanel::default().show(ui, |ui| {
@@ -251,6 +329,7 @@ impl App {
                 commands,
             );
         });
+        file_action
     }
 
     fn apply(&mut self, command: Command) {
@@ -288,7 +367,33 @@ impl eframe::App for App {
 
     fn save(&mut self, storage: &mut dyn eframe::Storage) {
         eframe::set_value(storage, PREFERENCES_KEY, &self.preferences);
-        // Slot for the lead: persisting the open recipe (or its path) belongs here once the
-        // recipe file format exists.
+        eframe::set_value(storage, FILES_KEY, &self.files.memory);
+        let saved = self.files.saved_snapshot();
+        let copy = WorkingCopy::of(&self.recipe, saved, self.files.path().map(Into::into));
+        eframe::set_value(storage, WORKING_COPY_KEY, &copy);
     }
+
+    /// Save the working copy every few seconds: a crash loses at most that much.
+    fn auto_save_interval(&self) -> std::time::Duration {
+        std::time::Duration::from_secs(5)
+    }
+}
+
+/// The recipe's name and notes, at the top of the left panel.
+fn recipe_header(ui: &mut egui::Ui, recipe: &mut Recipe) {
+    ui.horizontal(|ui| {
+        ui.label("Recipe name");
+        ui.add(egui::TextEdit::singleline(&mut recipe.name).desired_width(f32::INFINITY))
+            .on_hover_text("Recipe name");
+    });
+    egui::CollapsingHeader::new("Notes")
+        .default_open(false)
+        .show(ui, |ui| {
+            ui.add(
+                egui::TextEdit::multiline(&mut recipe.notes)
+                    .desired_rows(3)
+                    .desired_width(f32::INFINITY),
+            )
+            .on_hover_text("Notes");
+        });
 }

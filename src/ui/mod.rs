@@ -14,6 +14,7 @@ pub mod theme;
 pub mod undo;
 pub mod units;
 pub mod widgets;
+pub mod working_copy;
 
 pub use app::App;
 
@@ -59,14 +60,19 @@ fn parse_args(args: Vec<String>) -> Result<WindowArgs, String> {
     Ok(out)
 }
 
-/// Open the window with the demo recipe. With `--screenshot FILE.png`, draw a few frames,
-/// save one as a PNG and close; `--theme light|dark` picks the theme for this session.
+/// Open the window: on the last session's working copy if there is one, else on the demo
+/// recipe. With `--screenshot FILE.png`, draw a few frames of the demo, save one as a PNG and
+/// close; `--theme light|dark` picks the theme for this session.
 pub fn run(args: Vec<String>) -> Result<(), String> {
-    run_recipe(crate::recipe::Recipe::demo(), args)
+    open(None, args)
 }
 
 /// Open the window on `recipe`, with the same flags as [`run`].
 pub fn run_recipe(recipe: crate::recipe::Recipe, args: Vec<String>) -> Result<(), String> {
+    open(Some(recipe), args)
+}
+
+fn open(recipe: Option<crate::recipe::Recipe>, args: Vec<String>) -> Result<(), String> {
     let args = parse_args(args)?;
     let outcome: screenshot::Outcome = Arc::new(Mutex::new(None));
     let capture = args.screenshot.is_some();
@@ -90,10 +96,12 @@ pub fn run_recipe(recipe: crate::recipe::Recipe, args: Vec<String>) -> Result<()
         "Tankwright",
         options,
         Box::new(move |cc| {
-            let mut app = if capture {
-                App::with_recipe(recipe)
-            } else {
-                App::new(cc).with_document(recipe)
+            let mut app = match (capture, recipe) {
+                (true, recipe) => {
+                    App::with_recipe(recipe.unwrap_or_else(crate::recipe::Recipe::demo))
+                }
+                (false, Some(recipe)) => App::new(cc).with_document(recipe),
+                (false, None) => App::new(cc),
             };
             if let Some(theme) = args.theme {
                 app.set_theme(theme);

@@ -98,6 +98,11 @@ impl FileDesk {
         self.path.as_deref()
     }
 
+    /// The document as last saved or opened (what "unsaved changes" is measured against).
+    pub fn saved_snapshot(&self) -> &Recipe {
+        &self.snapshot
+    }
+
     /// Whether `doc` differs from what was last saved or opened.
     pub fn is_dirty(&self, doc: &Recipe) -> bool {
         *doc != self.snapshot
