@@ -166,6 +166,19 @@ impl App {
         self.evaluation.current().ok().map(|f| &f.analysis)
     }
 
+    /// The same window asking for file paths through `asker` (tests answer instead of a
+    /// system dialog).
+    pub fn with_path_asker(mut self, asker: Box<dyn crate::ui::files::PathAsker>) -> Self {
+        let placeholder = FileDesk::new(FileDeskMemory::default(), &self.recipe);
+        self.files = std::mem::replace(&mut self.files, placeholder).with_asker(asker);
+        self
+    }
+
+    /// The window title as shown: the recipe's name, marked while there are unsaved changes.
+    pub fn title(&self) -> String {
+        self.files.title(&self.recipe)
+    }
+
     /// The view preferences.
     pub fn preferences(&self) -> Preferences {
         self.preferences

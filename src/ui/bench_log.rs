@@ -119,7 +119,7 @@ impl BenchLogPanel {
                     }
                     ui.label(text);
                     if ui
-                        .small_button("✖")
+                        .small_button("Remove")
                         .on_hover_text(format!("remove reading {}", i + 1))
                         .clicked()
                     {
@@ -208,7 +208,7 @@ impl BenchLogPanel {
         egui::Grid::new("bench_log_new")
             .num_columns(2)
             .show(ui, |ui| {
-                ui.label("Measured frequency");
+                let label = ui.label("Measured frequency");
                 ui.add(
                     egui::DragValue::new(&mut self.measured_mhz)
                         .range(0.0..=3000.0)
@@ -216,14 +216,15 @@ impl BenchLogPanel {
                         .fixed_decimals(4)
                         .suffix(" MHz"),
                 )
-                .on_hover_text("Measured frequency, MHz");
+                .labelled_by(label.id)
+                .on_hover_text("measured frequency of the tank, MHz");
                 ui.end_row();
-                ui.label("Instrument");
+                let label = ui.label("Instrument");
                 ui.add(
                     egui::TextEdit::singleline(&mut self.instrument)
                         .hint_text("counter, dip meter, receiver…"),
                 )
-                .on_hover_text("Instrument");
+                .labelled_by(label.id);
                 ui.end_row();
                 ui.checkbox(&mut self.error_known, "Instrument error known");
                 ui.add_enabled(
@@ -232,11 +233,11 @@ impl BenchLogPanel {
                         .range(0.0..=100_000.0)
                         .suffix(" ppm"),
                 )
-                .on_hover_text("Instrument error, ppm");
+                .on_hover_text("instrument error, ppm");
                 ui.end_row();
-                ui.label("Note");
+                let label = ui.label("Note");
                 ui.add(egui::TextEdit::singleline(&mut self.note))
-                    .on_hover_text("Note");
+                    .labelled_by(label.id);
                 ui.end_row();
             });
         let valid = self.measured_mhz > 0.0 && self.measured_mhz.is_finite();
