@@ -162,3 +162,45 @@ pub(crate) fn padded(lo: f64, hi: f64) -> (f64, f64) {
     let m = 0.06 * (hi - lo);
     (lo - m, hi + m)
 }
+
+/// The present coil or setting: a filled point at the resonance and a dotted line through it.
+pub(crate) fn present_marker(
+    plot_ui: &mut egui_plot::PlotUi<'_>,
+    name: &str,
+    x: f64,
+    resonance_hz: f64,
+) {
+    if resonance_hz.is_finite() {
+        plot_ui.points(
+            egui_plot::Points::new(name, vec![[x, resonance_hz * 1e-6]])
+                .color(palette::PRESENT)
+                .filled(true)
+                .radius(5.0),
+        );
+    }
+    plot_ui.vline(
+        egui_plot::VLine::new(name, x)
+            .color(palette::PRESENT.gamma_multiply(0.6))
+            .width(1.0)
+            .style(egui_plot::LineStyle::dotted_dense()),
+    );
+}
+
+/// After a chart is drawn: name it for assistive tools, hold its axes during a drag, and
+/// return the plot x under the pointer when it was clicked or dragged.
+pub(crate) fn pointer_x<R>(
+    ui: &egui::Ui,
+    response: &egui_plot::PlotResponse<R>,
+    label: &'static str,
+    hold_id: egui::Id,
+    bounds: [f64; 4],
+) -> Option<f64> {
+    let r = &response.response;
+    r.widget_info(|| egui::WidgetInfo::labeled(egui::Role::Figure, ui.is_enabled(), label));
+    hold_bounds_while_dragging(ui, hold_id, r, bounds);
+    if !(r.clicked() || r.dragged()) {
+        return None;
+    }
+    let pos = r.interact_pointer_pos()?;
+    Some(response.transform.value_from_position(pos).x)
+}

@@ -1,11 +1,11 @@
 //! Resonance against spacing, one curve per trimmer setting.
 
-use super::{ChartView, held_bounds, hold_bounds_while_dragging, padded, palette};
+use super::{ChartView, held_bounds, padded, palette, pointer_x, present_marker};
 use crate::tuning::sweep::touching_length;
 use eframe::egui;
 use egui_plot::{
     Axis, ColorConflictHandling, Corner, HLine, HoverPosition, Legend, Line, LineStyle, Plot,
-    PlotPoints, Points, Span, VLine,
+    PlotPoints, Span, VLine,
 };
 
 /// Accessible name of the chart.
@@ -135,34 +135,15 @@ pub fn spacing_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
             );
         }
 
-        let x_now = view.x_of_length(view.coil.length);
-        if view.resonance_hz.is_finite() {
-            plot_ui.points(
-                Points::new("this coil", vec![[x_now, view.resonance_hz * 1e-6]])
-                    .color(palette::PRESENT)
-                    .filled(true)
-                    .radius(5.0),
-            );
-        }
-        plot_ui.vline(
-            VLine::new("this coil", x_now)
-                .color(palette::PRESENT.gamma_multiply(0.6))
-                .width(1.0)
-                .style(LineStyle::dotted_dense()),
+        present_marker(
+            plot_ui,
+            "this coil",
+            view.x_of_length(view.coil.length),
+            view.resonance_hz,
         );
     });
 
-    let r = &response.response;
-    r.widget_info(|| {
-        egui::WidgetInfo::labeled(egui::Role::Figure, ui.is_enabled(), SPACING_CHART_LABEL)
-    });
-    hold_bounds_while_dragging(ui, hold_id, r, bounds);
-
-    if !(r.clicked() || r.dragged()) {
-        return None;
-    }
-    let pos = r.interact_pointer_pos()?;
-    let x = response.transform.value_from_position(pos).x;
+    let x = pointer_x(ui, &response, SPACING_CHART_LABEL, hold_id, bounds)?;
     let length = view.length_of_x(x);
     let (lo, hi) = (
         view.length_of_x(bounds[0]).max(touching),

@@ -1,10 +1,9 @@
 //! Resonance against trimmer setting at the present spacing.
 
-use super::{ChartView, held_bounds, hold_bounds_while_dragging, padded, palette};
+use super::{ChartView, held_bounds, padded, palette, pointer_x, present_marker};
 use eframe::egui;
 use egui_plot::{
-    Axis, ColorConflictHandling, Corner, HLine, HoverPosition, Legend, Line, LineStyle, Plot,
-    PlotPoints, Points, Span, VLine,
+    Axis, ColorConflictHandling, Corner, HLine, HoverPosition, Legend, Line, Plot, PlotPoints, Span,
 };
 
 /// Accessible name of the chart.
@@ -90,32 +89,14 @@ pub fn trimmer_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
                     .border_width(0.0),
             );
         }
-        let x_now = view.tank.trimmer_setting * 100.0;
-        if view.resonance_hz.is_finite() {
-            plot_ui.points(
-                Points::new("this setting", vec![[x_now, view.resonance_hz * 1e-6]])
-                    .color(palette::PRESENT)
-                    .filled(true)
-                    .radius(5.0),
-            );
-        }
-        plot_ui.vline(
-            VLine::new("this setting", x_now)
-                .color(palette::PRESENT.gamma_multiply(0.6))
-                .width(1.0)
-                .style(LineStyle::dotted_dense()),
+        present_marker(
+            plot_ui,
+            "this setting",
+            view.tank.trimmer_setting * 100.0,
+            view.resonance_hz,
         );
     });
 
-    let r = &response.response;
-    r.widget_info(|| {
-        egui::WidgetInfo::labeled(egui::Role::Figure, ui.is_enabled(), TRIMMER_CHART_LABEL)
-    });
-    hold_bounds_while_dragging(ui, hold_id, r, bounds);
-    if !(r.clicked() || r.dragged()) {
-        return None;
-    }
-    let pos = r.interact_pointer_pos()?;
-    let x = response.transform.value_from_position(pos).x;
+    let x = pointer_x(ui, &response, TRIMMER_CHART_LABEL, hold_id, bounds)?;
     Some((x / 100.0).clamp(0.0, 1.0))
 }
