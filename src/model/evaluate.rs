@@ -233,12 +233,13 @@ fn at_frequency(
     coil: &Coil,
     fixed: &Fixed,
     c: &Conditions,
-    resistivity: f64,
+    skin_scale: f64,
     frequency: f64,
 ) -> AtFrequency {
     let radius = 0.5 * coil.wire_bare;
-    let skin_depth = copper::skin_depth(resistivity, frequency);
-    let skin = copper::internal_impedance(radius / skin_depth);
+    let radius_over_skin_depth = skin_scale * frequency.sqrt();
+    let skin_depth = radius / radius_over_skin_depth;
+    let skin = copper::internal_impedance(radius_over_skin_depth);
     let chi = skin.internal_inductance_fraction;
     let round_wire = blend(fixed.round_wire, chi);
     let filament = (c.filament_sum || c.model == InductanceModel::FilamentSum).then(|| {
@@ -288,14 +289,15 @@ fn solve(
     capacitance: f64,
 ) -> (f64, AtFrequency) {
     let mut f = lc_frequency(fixed.high_frequency_inductance(), capacitance);
-    let mut at = at_frequency(coil, fixed, c, resistivity, f);
+    let skin_scale = copper::radius_over_skin_depth_per_root_hz(resistivity, 0.5 * coil.wire_bare);
+    let mut at = at_frequency(coil, fixed, c, skin_scale, f);
     for _ in 0..12 {
         let next = lc_frequency(at.driving, capacitance);
         if (next - f).abs() <= RESONANCE_STEP_TOLERANCE * next {
             return (next, at);
         }
         f = next;
-        at = at_frequency(coil, fixed, c, resistivity, f);
+        at = at_frequency(coil, fixed, c, skin_scale, f);
     }
     (f, at)
 }
