@@ -35,8 +35,8 @@ pub fn axial_velocity_factor(mean_diameter: f64, pitch: f64, frequency: f64) -> 
 /// (s·u)⁻² of the root; Newton's quadratic convergence then needs one or two steps.
 pub fn helical_self_resonance(mean_diameter: f64, pitch: f64, length: f64) -> f64 {
     let ratio = mean_diameter / pitch;
-    let s = 20.0 * ratio * ratio * ratio.sqrt() * (mean_diameter / SPEED_OF_LIGHT).sqrt();
-    let h = SPEED_OF_LIGHT / (2.0 * length);
+    let s = 20.0 * ratio * ratio * ratio.sqrt() * (mean_diameter * (1.0 / SPEED_OF_LIGHT)).sqrt();
+    let h = 0.5 * SPEED_OF_LIGHT / length;
     let h2 = h * h;
     let leading = (h2 / s).powf(0.2);
     // Both (H²/s)^(1/5) and √H bound the root from above; the first-order correction for the

@@ -42,7 +42,7 @@ pub fn coefficient_lundin(diameter_over_length: f64) -> f64 {
     let f1 = |y: f64| (1.0 + 0.383901 * y + 0.017108 * y * y) / (1.0 + 0.258952 * y);
     let f2 = |y: f64| 0.093842 * y + 0.002029 * y * y - 0.000801 * y * y * y;
     if x <= 1.0 {
-        f1(x * x) - 4.0 * x / (3.0 * PI)
+        f1(x * x) - 4.0 / (3.0 * PI) * x
     } else {
         let y = 1.0 / (x * x);
         2.0 / (PI * x) * (((4.0 * x).ln() - 0.5) * f1(y) + f2(y))

@@ -38,8 +38,12 @@ pub fn k_m(turns: f64) -> f64 {
     let inv5 = inv3 * inv2;
     let inv7 = inv5 * inv2;
     let inv9 = inv7 * inv2;
-    (2.0 * std::f64::consts::PI).ln() - 1.5 - n.ln() * inv / 6.0 - 0.330_842_36 * inv - inv3 / 120.0
-        + inv5 / 504.0
+    (2.0 * std::f64::consts::PI).ln()
+        - 1.5
+        - n.ln() * inv * (1.0 / 6.0)
+        - 0.330_842_36 * inv
+        - inv3 * (1.0 / 120.0)
+        + inv5 * (1.0 / 504.0)
         - 0.001_192_3 * inv7
         + 0.000_506_8 * inv9
 }

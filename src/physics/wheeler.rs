@@ -13,9 +13,9 @@ pub const MIN_LENGTH_OVER_RADIUS: f64 = 0.8;
 /// L[µH] = a²N²/(9a + 10l), with the mean radius a and the length l in inches
 /// (Wheeler 1928, Proc. IRE 16, 1398). Here converted to SI: metres in, henries out.
 pub fn inductance(mean_diameter: f64, length: f64, turns: f64) -> f64 {
-    const METRES_PER_INCH: f64 = 0.0254;
-    let a = 0.5 * mean_diameter / METRES_PER_INCH;
-    let l = length / METRES_PER_INCH;
+    const INCHES_PER_METRE: f64 = 1.0 / 0.0254;
+    let a = 0.5 * mean_diameter * INCHES_PER_METRE;
+    let l = length * INCHES_PER_METRE;
     a * a * turns * turns / (9.0 * a + 10.0 * l) * 1e-6
 }
 
