@@ -18,13 +18,28 @@ fn main() -> ExitCode {
             print!("{}", tankwright::cli::USAGE);
             ExitCode::SUCCESS
         }
-        _ => match tankwright::ui::run(args) {
-            Ok(()) => ExitCode::SUCCESS,
-            Err(e) => {
-                eprintln!("tankwright: {e}");
-                ExitCode::FAILURE
+        Some(file) if file.ends_with(".ron") => {
+            let path = std::path::PathBuf::from(file);
+            args.remove(0);
+            match tankwright::recipe::store::load(&path) {
+                Ok(recipe) => window(tankwright::ui::run_recipe(recipe, path, args)),
+                Err(e) => {
+                    eprintln!("tankwright: {e}");
+                    ExitCode::FAILURE
+                }
             }
-        },
+        }
+        _ => window(tankwright::ui::run(args)),
+    }
+}
+
+fn window(result: Result<(), String>) -> ExitCode {
+    match result {
+        Ok(()) => ExitCode::SUCCESS,
+        Err(e) => {
+            eprintln!("tankwright: {e}");
+            ExitCode::FAILURE
+        }
     }
 }
 

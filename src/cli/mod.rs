@@ -20,7 +20,9 @@ pub const USAGE: &str = "\
 tankwright — workbench for hand-wound air-core VHF coils
 
 usage:
-  tankwright [--screenshot FILE.png]      open the window (with the demo recipe)
+  tankwright [--screenshot FILE.png] [--theme light|dark]
+                                          open the window (the last working copy, or the demo)
+  tankwright FILE.ron                     open the window on a saved recipe
   tankwright evaluate FLAGS [--json]      print every figure for one coil
   tankwright evaluate --recipe FILE [--json]   the same for a saved recipe
   tankwright report FILE                  a recipe as a build sheet, then every figure

@@ -115,6 +115,14 @@ impl App {
         }
     }
 
+    /// The same window editing `recipe`, opened from the file at `path` (a fresh history;
+    /// Save writes back to that file).
+    pub fn with_file(mut self, recipe: Recipe, path: &std::path::Path) -> Self {
+        self.set_document(recipe);
+        self.files.mark_opened(Some(path), &self.recipe);
+        self
+    }
+
     /// The same window editing `recipe` instead (a fresh history).
     pub fn with_document(mut self, recipe: Recipe) -> Self {
         self.set_document(recipe);

@@ -67,12 +67,19 @@ pub fn run(args: Vec<String>) -> Result<(), String> {
     open(None, args)
 }
 
-/// Open the window on `recipe`, with the same flags as [`run`].
-pub fn run_recipe(recipe: crate::recipe::Recipe, args: Vec<String>) -> Result<(), String> {
-    open(Some(recipe), args)
+/// Open the window on `recipe`, opened from the file `path`, with the same flags as [`run`].
+pub fn run_recipe(
+    recipe: crate::recipe::Recipe,
+    path: std::path::PathBuf,
+    args: Vec<String>,
+) -> Result<(), String> {
+    open(Some((recipe, path)), args)
 }
 
-fn open(recipe: Option<crate::recipe::Recipe>, args: Vec<String>) -> Result<(), String> {
+fn open(
+    document: Option<(crate::recipe::Recipe, std::path::PathBuf)>,
+    args: Vec<String>,
+) -> Result<(), String> {
     let args = parse_args(args)?;
     let outcome: screenshot::Outcome = Arc::new(Mutex::new(None));
     let capture = args.screenshot.is_some();
@@ -96,11 +103,11 @@ fn open(recipe: Option<crate::recipe::Recipe>, args: Vec<String>) -> Result<(), 
         "Tankwright",
         options,
         Box::new(move |cc| {
-            let mut app = match (capture, recipe) {
-                (true, recipe) => {
-                    App::with_recipe(recipe.unwrap_or_else(crate::recipe::Recipe::demo))
-                }
-                (false, Some(recipe)) => App::new(cc).with_document(recipe),
+            let mut app = match (capture, document) {
+                (true, document) => App::with_recipe(
+                    document.map_or_else(crate::recipe::Recipe::demo, |(recipe, _)| recipe),
+                ),
+                (false, Some((recipe, path))) => App::new(cc).with_file(recipe, &path),
                 (false, None) => App::new(cc),
             };
             if let Some(theme) = args.theme {
