@@ -1,8 +1,11 @@
 //! Recipes and the bench log through the whole window, driven by label and role.
 
+mod common;
+
+use common::screen_text;
 use egui::accesskit::Role;
 use egui_kittest::Harness;
-use egui_kittest::kittest::{NodeT, Queryable};
+use egui_kittest::kittest::Queryable;
 use std::cell::RefCell;
 use std::collections::VecDeque;
 use std::path::Path;
@@ -37,21 +40,6 @@ fn menu(harness: &mut Harness<'_, App>, item: &str) {
     harness.run();
     harness.get_by_label(item).click();
     harness.run();
-}
-
-fn screen_text(harness: &Harness<'_, App>) -> Vec<String> {
-    harness
-        .root()
-        .children_recursive()
-        .filter_map(|node| {
-            let n = node.accesskit_node();
-            if n.role() == Role::Label {
-                n.value()
-            } else {
-                n.label()
-            }
-        })
-        .collect()
 }
 
 #[test]

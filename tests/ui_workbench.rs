@@ -1,8 +1,11 @@
 //! The workbench window driven as a person would: by label and role, reading what is on screen.
 
+mod common;
+
+use common::screen_text;
 use egui::accesskit::Role;
 use egui_kittest::Harness;
-use egui_kittest::kittest::{NodeT, Queryable};
+use egui_kittest::kittest::Queryable;
 use tankwright::model::SpacingSpec;
 use tankwright::ui::App;
 
@@ -12,22 +15,6 @@ fn workbench() -> Harness<'static, App> {
         .build_eframe(|cc| App::new(cc));
     harness.run();
     harness
-}
-
-/// Every piece of text on screen, in the order it was laid out.
-fn screen_text(harness: &Harness<'_, App>) -> Vec<String> {
-    harness
-        .root()
-        .children_recursive()
-        .filter_map(|node| {
-            let n = node.accesskit_node();
-            if n.role() == Role::Label {
-                n.value()
-            } else {
-                n.label()
-            }
-        })
-        .collect()
 }
 
 /// The figure shown beside the readout named `name`.
