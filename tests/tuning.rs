@@ -104,3 +104,12 @@ fn stretch_sensitivity_is_megahertz_per_millimetre() {
     let per_mm = stretch_sensitivity(&demo_coil(), 26e-12, &Conditions::default()) * 1e-3;
     assert!(per_mm > 1e6 && per_mm < 10e6, "{per_mm} Hz/mm");
 }
+
+/// An instrument error of 10 ppm on 100 MHz is 1 kHz; at 1 MHz per mm of stretch that is
+/// 1 µm of length (arithmetic of the definition of ppm).
+#[test]
+fn instrument_error_as_length() {
+    let u = tankwright::tuning::fit::length_uncertainty(10.0, 100e6, 1e6 / 1e-3).expect("moves");
+    assert!((u - 1e-6).abs() < 1e-18, "{u}");
+    assert!(tankwright::tuning::fit::length_uncertainty(10.0, 100e6, 0.0).is_none());
+}

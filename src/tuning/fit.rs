@@ -55,3 +55,10 @@ pub fn correct_from_measurement(
         length_for_target: length,
     })
 }
+
+/// Length uncertainty (metres) that an instrument error of `error_ppm` on a reading of
+/// `measured` hertz carries, for a coil whose resonance moves `slope` Hz per metre of stretch:
+/// |ppm·10⁻⁶·f / slope|. `None` for a coil whose stretch does not move it.
+pub fn length_uncertainty(error_ppm: f64, measured: f64, slope: f64) -> Option<f64> {
+    (slope.abs() > 0.0).then(|| (error_ppm * 1e-6 * measured / slope).abs())
+}

@@ -3,7 +3,7 @@
 
 use crate::model::{Coil, Conditions, Tank};
 use crate::recipe::{BenchEntry, Recipe};
-use crate::tuning::fit::{Correction, correct_from_measurement};
+use crate::tuning::fit::{Correction, correct_from_measurement, length_uncertainty};
 use crate::tuning::solve::stretch_sensitivity;
 use crate::ui::units::LengthUnit;
 use eframe::egui;
@@ -20,9 +20,17 @@ pub enum BenchLogAction {
     SetLength(f64),
 }
 
-/// Transient state: the reading being typed.
+/// The inputs a correction was computed from, and the result (kept so an idle frame does not
+/// redo the fit).
+type CachedCorrection = (
+    (BenchEntry, Coil, Tank, Conditions, f64),
+    Option<ReadingCorrection>,
+);
+
+/// Transient state: the reading being typed, and the last correction computed.
 #[derive(Clone, Debug)]
 pub struct BenchLogPanel {
+    cached: Option<CachedCorrection>,
     measured_mhz: f64,
     instrument: String,
     error_ppm: f64,
@@ -33,6 +41,7 @@ pub struct BenchLogPanel {
 impl Default for BenchLogPanel {
     fn default() -> Self {
         Self {
+            cached: None,
             measured_mhz: 0.0,
             instrument: String::new(),
             error_ppm: 10.0,
@@ -71,7 +80,7 @@ pub fn correction_for(
             c_ext + correction.extra_capacitance,
             conditions,
         );
-        (slope.abs() > 0.0).then(|| (ppm * 1e-6 * entry.measured / slope).abs())
+        length_uncertainty(ppm, entry.measured, slope)
     });
     Some(ReadingCorrection {
         correction,
@@ -137,8 +146,38 @@ impl BenchLogPanel {
         action.or(self.record_ui(ui, recipe, coil, unit))
     }
 
+    /// The correction for `latest`, recomputed only when its inputs change.
+    fn correction(
+        &mut self,
+        latest: &BenchEntry,
+        coil: &Coil,
+        recipe: &Recipe,
+    ) -> Option<ReadingCorrection> {
+        let key = (
+            latest.clone(),
+            *coil,
+            recipe.tank,
+            recipe.conditions,
+            recipe.target.channel,
+        );
+        if let Some((k, result)) = &self.cached
+            && *k == key
+        {
+            return result.clone();
+        }
+        let result = correction_for(
+            latest,
+            coil,
+            &recipe.tank,
+            &recipe.conditions,
+            recipe.target.channel,
+        );
+        self.cached = Some((key, result.clone()));
+        result
+    }
+
     fn correction_ui(
-        &self,
+        &mut self,
         ui: &mut egui::Ui,
         latest: &BenchEntry,
         coil: &Coil,
@@ -146,8 +185,7 @@ impl BenchLogPanel {
         unit: LengthUnit,
     ) -> Option<BenchLogAction> {
         let target = recipe.target.channel;
-        let Some(fit) = correction_for(latest, coil, &recipe.tank, &recipe.conditions, target)
-        else {
+        let Some(fit) = self.correction(latest, coil, recipe) else {
             ui.colored_label(
                 ui.visuals().warn_fg_color,
                 "The latest reading is far from anything this coil and tank can do: check the \
