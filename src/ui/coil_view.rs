@@ -355,7 +355,10 @@ fn nudge(
 
 /// A dimension line at height `y` between `xs`, with extension lines up or down to `from_y`
 /// and `text` beside it.
-#[allow(clippy::too_many_arguments)]
+#[allow(
+    clippy::too_many_arguments,
+    reason = "a drawing primitive: painter, geometry, style and label are all it needs"
+)]
 fn dimension(
     painter: &egui::Painter,
     xs: (f32, f32),
