@@ -75,6 +75,25 @@ impl ChartView<'_> {
         }
     }
 
+    /// Whether a target channel is set.
+    pub(crate) fn has_target(&self) -> bool {
+        self.target_hz.is_finite() && self.target_hz > 0.0
+    }
+
+    /// The frequency axis, MHz: the range of `hertz`, widened to hold the target channel and
+    /// padded.
+    pub(crate) fn frequency_axis(&self, hertz: impl Iterator<Item = f64>) -> (f64, f64) {
+        let (mut lo, mut hi) = hertz.fold((f64::INFINITY, f64::NEG_INFINITY), |(lo, hi), f| {
+            (lo.min(f * 1e-6), hi.max(f * 1e-6))
+        });
+        if self.has_target() {
+            let (band_lo, band_hi) = self.channel_mhz();
+            lo = lo.min(band_lo);
+            hi = hi.max(band_hi);
+        }
+        padded(lo, hi)
+    }
+
     /// The target channel, MHz: (low edge, high edge).
     pub(crate) fn channel_mhz(&self) -> (f64, f64) {
         let half = 0.5 * self.channel_width_hz.abs();
@@ -151,7 +170,7 @@ pub(crate) fn hold_bounds_while_dragging(
 }
 
 /// Bounds of a y range with a margin, never empty.
-pub(crate) fn padded(lo: f64, hi: f64) -> (f64, f64) {
+fn padded(lo: f64, hi: f64) -> (f64, f64) {
     let (lo, hi) = if lo.is_finite() && hi.is_finite() && hi > lo {
         (lo, hi)
     } else if lo.is_finite() {
@@ -203,4 +222,73 @@ pub(crate) fn pointer_x<R>(
     }
     let pos = r.interact_pointer_pos()?;
     Some(response.transform.value_from_position(pos).x)
+}
+
+/// A chart that holds still: no pan, zoom or scroll (a drag sets a value instead), a crosshair,
+/// a small legend in `corner`, resonance in MHz up the side and `x_label` along the bottom.
+pub(crate) fn still_plot(
+    id: &str,
+    corner: egui_plot::Corner,
+    x_label: String,
+) -> egui_plot::Plot<'static> {
+    egui_plot::Plot::new(id)
+        .legend(
+            egui_plot::Legend::default()
+                .position(corner)
+                .text_style(egui::TextStyle::Small)
+                .follow_insertion_order(true)
+                .color_conflict_handling(egui_plot::ColorConflictHandling::PickFirst),
+        )
+        .x_axis_label(x_label)
+        .y_axis_label("resonance (MHz)")
+        .allow_drag(false)
+        .allow_zoom(false)
+        .allow_scroll(false)
+        .allow_boxed_zoom(false)
+        .allow_double_click_reset(false)
+        .allow_axis_zoom_drag(false)
+        .show_crosshair(true)
+        .min_size(egui::vec2(160.0, 120.0))
+}
+
+/// Hover text: the item's name (if the pointer is near one), the resonance, then `x_text`.
+pub(crate) fn hover_text(
+    pos: &egui_plot::HoverPosition<'_>,
+    x_text: impl Fn(f64) -> String,
+) -> String {
+    let (name, p) = match pos {
+        egui_plot::HoverPosition::NearDataPoint {
+            plot_name,
+            position,
+            ..
+        } => (*plot_name, *position),
+        egui_plot::HoverPosition::Elsewhere { position } => ("", *position),
+    };
+    let head = if name.is_empty() {
+        String::new()
+    } else {
+        format!("{name}\n")
+    };
+    format!("{head}{:.3} MHz\n{}", p.y, x_text(p.x))
+}
+
+/// The target channel: its band shaded and its centre drawn as a line (the band alone is too
+/// narrow to see beside a sweep of tens of MHz).
+pub(crate) fn target_channel(plot_ui: &mut egui_plot::PlotUi<'_>, view: &ChartView<'_>) {
+    if !view.has_target() {
+        return;
+    }
+    let (band_lo, band_hi) = view.channel_mhz();
+    plot_ui.hline(
+        egui_plot::HLine::new("target channel", view.target_hz * 1e-6)
+            .color(palette::TARGET)
+            .width(1.0),
+    );
+    plot_ui.span(
+        egui_plot::Span::new("target channel", band_lo..=band_hi)
+            .axis(egui_plot::Axis::Y)
+            .fill(palette::target_fill())
+            .border_color(palette::TARGET.gamma_multiply(0.6))
+            .border_width(1.0),
+    );
 }
