@@ -40,34 +40,61 @@ pub struct Coil {
     pub lead_length: f64,
 }
 
+/// `value` if finite, else the refusal naming `field`. The refusal is built out of line: the
+/// accepted case is the one every evaluation takes.
+#[inline]
 fn finite(field: Field, what: &str, value: f64) -> Result<f64, InputError> {
     if value.is_finite() {
         Ok(value)
     } else {
-        Err(InputError::new(field, format!("{what} is not a number")))
+        Err(not_a_number(field, what))
     }
 }
 
+#[cold]
+#[inline(never)]
+fn not_a_number(field: Field, what: &str) -> InputError {
+    InputError::new(field, format!("{what} is not a number"))
+}
+
+/// `value` if it lies in `lo..=hi`, else the refusal (not a number, or out of range).
+#[inline]
 fn within(
+    field: Field,
+    what: &str,
+    value: f64,
+    range: (f64, f64),
+    unit: Unit,
+) -> Result<f64, InputError> {
+    // NaN fails both comparisons and so takes the refusal path.
+    if value >= range.0 && value <= range.1 {
+        Ok(value)
+    } else {
+        Err(out_of_range(field, what, value, range, unit))
+    }
+}
+
+#[cold]
+#[inline(never)]
+fn out_of_range(
     field: Field,
     what: &str,
     value: f64,
     (lo, hi): (f64, f64),
     unit: Unit,
-) -> Result<f64, InputError> {
-    let v = finite(field, what, value)?;
-    if v < lo || v > hi {
-        return Err(InputError::new(
-            field,
-            format!(
-                "{what} {} is outside {}–{}",
-                unit.show(v),
-                unit.show(lo),
-                unit.show(hi)
-            ),
-        ));
+) -> InputError {
+    if !value.is_finite() {
+        return not_a_number(field, what);
     }
-    Ok(v)
+    InputError::new(
+        field,
+        format!(
+            "{what} {} is outside {}–{}",
+            unit.show(value),
+            unit.show(lo),
+            unit.show(hi)
+        ),
+    )
 }
 
 /// Display unit for error messages.

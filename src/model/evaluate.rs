@@ -5,6 +5,7 @@ use super::coil::Coil;
 use super::error::{Field, InputError};
 use super::tank::Tank;
 use super::winding::Winding;
+use crate::physics::constants::MU_0;
 use crate::physics::{
     copper, filament, helix, leads, medhurst, nagaoka, proximity, round_wire, wheeler,
 };
@@ -71,17 +72,26 @@ impl Default for Conditions {
 /// Largest capacitance accepted anywhere in the tank, farads (10 nF: far beyond any VHF tank).
 const CAPACITANCE_MAX: f64 = 10e-9;
 
+#[inline]
 fn check_capacitance(field: Field, what: &str, value: f64) -> Result<(), InputError> {
+    // NaN fails both comparisons and so takes the refusal path.
+    if (0.0..=CAPACITANCE_MAX).contains(&value) {
+        Ok(())
+    } else {
+        Err(capacitance_refusal(field, what, value))
+    }
+}
+
+#[cold]
+#[inline(never)]
+fn capacitance_refusal(field: Field, what: &str, value: f64) -> InputError {
     if !value.is_finite() {
-        return Err(InputError::new(field, format!("{what} is not a number")));
+        return InputError::new(field, format!("{what} is not a number"));
     }
-    if !(0.0..=CAPACITANCE_MAX).contains(&value) {
-        return Err(InputError::new(
-            field,
-            format!("{what} {:.3} pF is outside 0–10000 pF", value * 1e12),
-        ));
-    }
-    Ok(())
+    InputError::new(
+        field,
+        format!("{what} {:.3} pF is outside 0–10000 pF", value * 1e12),
+    )
 }
 
 /// Check a tank: every capacitance finite and within 0–10 nF, trimmer max ≥ min, setting 0–1.
@@ -154,218 +164,235 @@ pub fn evaluate(
 /// The frequency-independent part of a coil's figures, computed once per evaluation.
 ///
 /// Rosa's k_s, the ring self-inductance and the leads are linear in the wire's internal
-/// inductance fraction χ, so each is kept as its values at χ = 0 and χ = 1 and blended.
+/// inductance fraction χ, so each is kept as its values at χ = 0 and χ = 1 and blended; the
+/// driving inductance is therefore affine in χ too.
 #[derive(Clone, Copy, Debug)]
 struct Fixed {
-    nagaoka: f64,
-    current_sheet: f64,
+    /// 1/r (wire radius), which several formulas share.
+    inv_radius: f64,
+    sheet: nagaoka::Sheet,
     k_m: f64,
+    /// Rosa's k_s with surface current (χ = 0); it falls by χ/4.
+    k_s_surface: f64,
     /// Rosa round-wire inductance with surface current (χ = 0) and uniform current (χ = 1).
     round_wire: [f64; 2],
+    /// The filament sum at χ = 0 and χ = 1, when it is asked for or drives.
+    filament: Option<[f64; 2]>,
     /// Both leads at χ = 0 and χ = 1.
     leads: [f64; 2],
-    /// The driving model's inductance when it does not depend on frequency.
-    sheet_model: Option<f64>,
+    /// The driving inductance (coil by the model, plus leads) at χ = 0 and χ = 1.
+    driving: [f64; 2],
+    /// `driving[0]` with Lundin's closed form in place of the exact sheet: within a few ppm of
+    /// it, and ready before the elliptic integrals are (see [`solve`]).
+    driving_estimate: f64,
+    /// The current sheet by Lundin's closed form.
+    lundin: f64,
+    length_over_diameter: f64,
     medhurst_factor: f64,
     self_capacitance: f64,
 }
 
 impl Fixed {
-    fn new(coil: &Coil, model: InductanceModel) -> Self {
+    fn new(coil: &Coil, c: &Conditions) -> Self {
         let d = coil.mean_diameter;
-        let d_over_l = d / coil.length;
-        let nagaoka = nagaoka::coefficient(d_over_l);
-        let current_sheet = nagaoka::current_sheet_inductance(d, coil.length, coil.turns, nagaoka);
+        let l = coil.length;
+        let inv_length = 1.0 / l;
+        let inv_radius = 2.0 / coil.wire_bare;
+        let sheet = nagaoka::sheet(d, l, coil.turns);
         let k_m = round_wire::k_m(coil.turns);
         // k_s is 3/2 − ln(2p/d) − χ/4: one logarithm serves both limits.
-        let k_s_surface = round_wire::k_s(coil.pitch, coil.wire_bare, 0.0);
-        let rosa = |k_s: f64| current_sheet - round_wire::correction(d, coil.turns, k_s, k_m);
+        let k_s_surface = 1.5 - (coil.pitch * inv_radius).ln();
+        let correction = |k_s: f64| round_wire::correction(d, coil.turns, k_s, k_m);
+        let surface_correction = correction(k_s_surface);
+        let round_wire = [
+            sheet.inductance - surface_correction,
+            sheet.inductance - correction(k_s_surface - 0.25),
+        ];
+        let lundin = lundin_inductance(coil, inv_length);
         let lead = leads::straight_wire_inductance_limits(coil.lead_length, 0.5 * coil.wire_bare);
-        let sheet_model = match model {
-            InductanceModel::Wheeler1928 => Some(wheeler::inductance(d, coil.length, coil.turns)),
-            InductanceModel::CurrentSheet => Some(current_sheet),
-            InductanceModel::Lundin1985 => Some(nagaoka::current_sheet_inductance(
-                d,
-                coil.length,
-                coil.turns,
-                nagaoka::coefficient_lundin(d_over_l),
-            )),
-            InductanceModel::RoundWire | InductanceModel::FilamentSum => None,
+        let leads = [2.0 * lead[0], 2.0 * lead[1]];
+        let filament = (c.filament_sum || c.model == InductanceModel::FilamentSum).then(|| {
+            let at = |chi: f64| {
+                filament::filament_sum(coil.turns, 0.5 * d, coil.pitch, 0.5 * coil.wire_bare, chi)
+            };
+            [at(0.0), at(1.0)]
+        });
+        let coil_pair = match c.model {
+            InductanceModel::RoundWire => round_wire,
+            InductanceModel::FilamentSum => filament.unwrap_or(round_wire),
+            InductanceModel::Wheeler1928 => [wheeler::inductance(d, l, coil.turns); 2],
+            InductanceModel::CurrentSheet => [sheet.inductance; 2],
+            InductanceModel::Lundin1985 => [lundin; 2],
         };
-        let medhurst_factor = medhurst::factor(coil.length_over_diameter());
+        let driving = [coil_pair[0] + leads[0], coil_pair[1] + leads[1]];
+        let driving_estimate = match c.model {
+            InductanceModel::RoundWire => lundin - surface_correction + leads[0],
+            InductanceModel::CurrentSheet => lundin + leads[0],
+            _ => driving[0],
+        };
+        let length_over_diameter = l / d;
+        let medhurst_factor = medhurst::factor(length_over_diameter);
         Self {
-            nagaoka,
-            current_sheet,
+            inv_radius,
+            sheet,
             k_m,
-            round_wire: [rosa(k_s_surface), rosa(k_s_surface - 0.25)],
-            leads: [2.0 * lead[0], 2.0 * lead[1]],
-            sheet_model,
+            k_s_surface,
+            round_wire,
+            filament,
+            leads,
+            driving,
+            driving_estimate,
+            lundin,
+            length_over_diameter,
             medhurst_factor,
             // Medhurst: H pF per cm of diameter.
             self_capacitance: medhurst_factor * d * 1e-10,
         }
     }
+}
 
-    /// The driving inductance (coil by the model, plus leads) with surface current, the
-    /// high-frequency limit: the starting point of the resonance iteration.
-    fn high_frequency_inductance(&self) -> f64 {
-        self.sheet_model.unwrap_or(self.round_wire[0]) + self.leads[0]
-    }
+/// Lundin's closed form for Nagaoka's coefficient times the current sheet's µ0·π·a²·N²/l.
+fn lundin_inductance(coil: &Coil, inv_length: f64) -> f64 {
+    let d = coil.mean_diameter;
+    let n = coil.turns;
+    let a = 0.5 * d;
+    nagaoka::coefficient_lundin(d * inv_length) * (MU_0 * PI) * a * a * n * n * inv_length
 }
 
 fn blend(pair: [f64; 2], chi: f64) -> f64 {
     pair[0] + chi * (pair[1] - pair[0])
 }
 
-/// Inductances at one frequency.
+/// Bound on the relative error of the solved inductance at which the iteration stops:
+/// 2e-9, so the frequency (∝ L^(−1/2)) is within 1e-9 (0.1 Hz at 100 MHz).
+const RESONANCE_TOLERANCE: f64 = 2e-9;
+
+/// The self-consistent operating point.
 #[derive(Clone, Copy, Debug)]
-struct AtFrequency {
-    chi: f64,
-    skin: copper::InternalImpedance,
-    skin_depth: f64,
-    round_wire: f64,
-    filament: Option<f64>,
-    leads: f64,
-    driving: f64,
-}
-
-fn at_frequency(
-    coil: &Coil,
-    fixed: &Fixed,
-    c: &Conditions,
-    skin_scale: f64,
+struct Resonance {
     frequency: f64,
-) -> AtFrequency {
-    let radius = 0.5 * coil.wire_bare;
-    let radius_over_skin_depth = skin_scale * frequency.sqrt();
-    let skin_depth = radius / radius_over_skin_depth;
-    let skin = copper::internal_impedance(radius_over_skin_depth);
-    let chi = skin.internal_inductance_fraction;
-    let round_wire = blend(fixed.round_wire, chi);
-    let filament = (c.filament_sum || c.model == InductanceModel::FilamentSum).then(|| {
-        filament::filament_sum(
-            coil.turns,
-            0.5 * coil.mean_diameter,
-            coil.pitch,
-            radius,
-            chi,
-        )
-    });
-    let leads = blend(fixed.leads, chi);
-    let coil_l = match c.model {
-        InductanceModel::RoundWire => round_wire,
-        InductanceModel::FilamentSum => filament.unwrap_or(round_wire),
-        _ => fixed.sheet_model.unwrap_or(round_wire),
-    };
-    AtFrequency {
-        chi,
-        skin,
-        skin_depth,
-        round_wire,
-        filament,
-        leads,
-        driving: coil_l + leads,
-    }
+    /// Angular frequency, rad/s.
+    omega: f64,
+    /// Driving inductance (coil and leads), henries.
+    inductance: f64,
+    /// The wire's internal impedance at the last frequency tried.
+    skin: copper::InternalImpedance,
+    /// δ/r at the last frequency tried.
+    depth_over_radius: f64,
 }
 
-fn lc_frequency(inductance: f64, capacitance: f64) -> f64 {
-    1.0 / (2.0 * PI * (inductance * capacitance).sqrt())
-}
-
-/// Relative step of the iteration below which it stops. The map contracts by k ≈ ½·|d ln L /
-/// d ln f|, under 1e-3 at VHF (the internal inductance is a fraction of a per cent of L), so
-/// the error left after a step of 1e-6 is about k·1e-6 < 1e-9 (0.1 Hz at 100 MHz).
-const RESONANCE_STEP_TOLERANCE: f64 = 1e-6;
-
-/// Solve f = 1/(2π√(L(f)·C)) by fixed-point iteration. L depends on f only through the wire's
-/// internal inductance; starting from its surface-current limit, two rounds usually reach
-/// [`RESONANCE_STEP_TOLERANCE`]. The figures returned are those at the last frequency tried,
-/// which differ from those at the returned frequency by k times the last step.
-fn solve(
-    coil: &Coil,
-    fixed: &Fixed,
-    c: &Conditions,
-    resistivity: f64,
-    capacitance: f64,
-) -> (f64, AtFrequency) {
-    let mut f = lc_frequency(fixed.high_frequency_inductance(), capacitance);
-    let skin_scale = copper::radius_over_skin_depth_per_root_hz(resistivity, 0.5 * coil.wire_bare);
-    let mut at = at_frequency(coil, fixed, c, skin_scale, f);
+/// Solve f = 1/(2π√(L(f)·C)) by fixed-point iteration.
+///
+/// L depends on f only through the wire's internal inductance fraction χ, L = L₀ + χ·ΔL, and χ
+/// on f through the skin depth: δ = √(ρ/(πfµ0)) and f = 1/(2π√(LC)) give
+/// δ/r = G·L^(1/4) with G = √(2ρ√C/µ0)/r. So the iteration runs on L alone,
+/// L ← T(L) = L₀ + ΔL·χ(G·L^(1/4)), with two square roots a round and (above r/δ = 10) no
+/// division.
+///
+/// **Start.** The fixed point of the same map with L₀ taken from Lundin's closed form (a few
+/// ppm from the exact sheet), to first order: L_s = L̃₀ + ΔL·χ(G·L̃₀^(1/4)). It needs no
+/// elliptic integral, so the processor computes it while the exact sheet is still under way.
+///
+/// **Stop.** T contracts with k = ΔL·|dχ/dL| = ΔL·|d ln χ/d ln q|·χ/(4L) ≤ ΔL·χ/(4L), since
+/// |d ln χ/d ln q| ≤ 1 for round wire (q = r/δ; checked over 1e-3 ≤ q ≤ 1e4 in the tests).
+/// Taking twice that bound for margin, k_b = ΔL·χ/(2L) ≤ ½, the error after a step s is at most
+/// k_b/(1 − k_b)·|s| ≤ ΔL·χ·|s|/L, and the loop stops once that is below
+/// [`RESONANCE_TOLERANCE`]·L. At VHF k is about 1e-4, so the one round from the start is
+/// usually enough. The figures returned are those at the last inductance tried, whose
+/// frequency differs from the returned one by about half the last step, relatively.
+fn solve(fixed: &Fixed, resistivity: f64, capacitance: f64) -> Resonance {
+    let gain = (resistivity * (2.0 / MU_0) * capacitance.sqrt()).sqrt() * fixed.inv_radius;
+    let [l0, l1] = fixed.driving;
+    let slope = (l1 - l0).abs();
+    let depth_at = |inductance: f64| gain * inductance.sqrt().sqrt();
+    let chi_at = copper::internal_inductance_fraction_at_depth_ratio;
+    let estimate = fixed.driving_estimate;
+    let mut tried = estimate + slope * chi_at(depth_at(estimate));
+    let mut depth_over_radius = depth_at(tried);
+    let mut chi = chi_at(depth_over_radius);
+    let mut next = l0 + slope * chi;
     for _ in 0..12 {
-        let next = lc_frequency(at.driving, capacitance);
-        if (next - f).abs() <= RESONANCE_STEP_TOLERANCE * next {
-            return (next, at);
+        if slope * chi * (next - tried).abs() <= RESONANCE_TOLERANCE * next * next {
+            break;
         }
-        f = next;
-        at = at_frequency(coil, fixed, c, skin_scale, f);
+        tried = next;
+        depth_over_radius = depth_at(tried);
+        chi = chi_at(depth_over_radius);
+        next = l0 + slope * chi;
     }
-    (f, at)
+    // ω = 1/√(LC).
+    let omega = 1.0 / (next * capacitance).sqrt();
+    Resonance {
+        frequency: omega * (0.5 / PI),
+        omega,
+        inductance: next,
+        skin: copper::internal_impedance_at_depth_ratio(depth_over_radius),
+        depth_over_radius,
+    }
 }
 
 /// Resonant frequency only, hertz, for a validated coil and an external capacitance: the same
 /// solution as [`evaluate_coil`] without the other figures (for sweeps and solvers).
 pub fn resonance_of(coil: &Coil, external_capacitance: f64, conditions: &Conditions) -> f64 {
-    let fixed = Fixed::new(coil, conditions.model);
     let c = Conditions {
         filament_sum: false,
         ..*conditions
     };
+    let fixed = Fixed::new(coil, &c);
     let resistivity = copper::resistivity(conditions.temperature_c);
     solve(
-        coil,
         &fixed,
-        &c,
         resistivity,
         external_capacitance + fixed.self_capacitance,
     )
-    .0
+    .frequency
 }
 
 /// Every figure for a validated coil across `external_capacitance` farads.
 ///
 /// The self-capacitance is counted once: added to the tank capacitance beside the coil's
 /// inductance. The apparent inductance is reported separately and not used again.
+#[inline(never)]
 pub fn evaluate_coil(coil: &Coil, external_capacitance: f64, conditions: &Conditions) -> Analysis {
-    let fixed = Fixed::new(coil, conditions.model);
+    let fixed = Fixed::new(coil, conditions);
     let resistivity = copper::resistivity(conditions.temperature_c);
     let total_capacitance = external_capacitance + fixed.self_capacitance;
-    let (f, at) = solve(coil, &fixed, conditions, resistivity, total_capacitance);
+    let op = solve(&fixed, resistivity, total_capacitance);
+    let chi = op.skin.internal_inductance_fraction;
     let d = coil.mean_diameter;
     let l = coil.length;
-    let lod = coil.length_over_diameter();
 
     let inductance = Inductances {
         wheeler_1928: wheeler::inductance(d, l, coil.turns),
-        current_sheet: fixed.current_sheet,
-        lundin_1985: nagaoka::current_sheet_inductance(
-            d,
-            l,
-            coil.turns,
-            nagaoka::coefficient_lundin(d / l),
-        ),
+        current_sheet: fixed.sheet.inductance,
+        lundin_1985: fixed.lundin,
         round_wire_low_freq: fixed.round_wire[1],
-        round_wire: at.round_wire,
-        filament_sum: at.filament,
-        leads: at.leads,
-        k_s: round_wire::k_s(coil.pitch, coil.wire_bare, at.chi),
+        round_wire: blend(fixed.round_wire, chi),
+        filament_sum: fixed.filament.map(|pair| blend(pair, chi)),
+        leads: blend(fixed.leads, chi),
+        k_s: fixed.k_s_surface - 0.25 * chi,
         k_m: fixed.k_m,
-        internal_inductance_fraction: at.chi,
+        internal_inductance_fraction: chi,
     };
 
     let self_resonance = SelfResonance {
-        lumped: helix::lumped_self_resonance(at.driving, fixed.self_capacitance),
+        lumped: helix::lumped_self_resonance(op.inductance, fixed.self_capacitance),
         helical: helix::helical_self_resonance(d, coil.pitch, l),
     };
-    let ratio_to_self = f / self_resonance.lumped;
-    let apparent_inductance = at.driving / (1.0 - ratio_to_self * ratio_to_self).max(1e-9);
+    // (f/f_lumped)² = C_self/C: both come from the same inductance, so
+    // L/(1 − (f/f_lumped)²) = L·C/(C − C_self).
+    let apparent_inductance =
+        op.inductance * total_capacitance / (external_capacitance.max(1e-9 * total_capacitance));
 
     let wire_length = coil.wire_length();
     let coil_wire = wire_length - 2.0 * coil.lead_length;
-    let proximity_factor = proximity::wall_proximity_factor(coil.pitch / coil.wire_bare);
-    let r_dc_coil = copper::dc_resistance(resistivity, coil.wire_bare, coil_wire);
-    let r_dc_leads = copper::dc_resistance(resistivity, coil.wire_bare, 2.0 * coil.lead_length);
-    let ac_resistance = at.skin.resistance_ratio * (r_dc_coil * proximity_factor + r_dc_leads);
-    let q = 2.0 * PI * f * at.driving / ac_resistance;
+    let proximity_factor = proximity::wall_proximity_factor(coil.pitch * (0.5 * fixed.inv_radius));
+    // ρ/(π r²) per metre of wire.
+    let per_metre = resistivity * (1.0 / PI) * fixed.inv_radius * fixed.inv_radius;
+    let r_dc_coil = per_metre * coil_wire;
+    let r_dc_leads = per_metre * 2.0 * coil.lead_length;
+    let ac_resistance = op.skin.resistance_ratio * (r_dc_coil * proximity_factor + r_dc_leads);
+    let q = op.omega * op.inductance / ac_resistance;
 
     let geometry = Geometry {
         mean_diameter: d,
@@ -376,33 +403,42 @@ pub fn evaluate_coil(coil: &Coil, external_capacitance: f64, conditions: &Condit
         pitch: coil.pitch,
         gap: coil.gap(),
         length: l,
-        length_over_diameter: lod,
+        length_over_diameter: fixed.length_over_diameter,
         lead_length: coil.lead_length,
         wire_length,
     };
 
-    let mut analysis = Analysis {
+    let skin_depth = 0.5 * coil.wire_bare * op.depth_over_radius;
+    let warnings = super::warnings::collect(&super::warnings::Judged {
+        geometry: &geometry,
+        inductance: &inductance,
+        self_resonance: &self_resonance,
+        resonance: op.frequency,
+        total_inductance: op.inductance,
+        external_capacitance,
+        skin_depth,
+    });
+
+    Analysis {
         geometry,
-        nagaoka_coefficient: fixed.nagaoka,
+        nagaoka_coefficient: fixed.sheet.coefficient,
         inductance,
         model: conditions.model,
-        total_inductance: at.driving,
+        total_inductance: op.inductance,
         apparent_inductance,
         self_capacitance: fixed.self_capacitance,
         medhurst_factor: fixed.medhurst_factor,
         external_capacitance,
         total_capacitance,
-        resonance: f,
+        resonance: op.frequency,
         self_resonance,
         resistivity,
-        skin_depth: at.skin_depth,
-        skin_resistance_ratio: at.skin.resistance_ratio,
+        skin_depth,
+        skin_resistance_ratio: op.skin.resistance_ratio,
         proximity_factor,
         dc_resistance: r_dc_coil + r_dc_leads,
         ac_resistance,
         q,
-        warnings: Vec::new(),
-    };
-    analysis.warnings = super::warnings::collect(&analysis, coil);
-    analysis
+        warnings,
+    }
 }

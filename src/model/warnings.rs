@@ -1,7 +1,6 @@
 //! Cautions attached to an [`Analysis`]: figures outside a model's range.
 
-use super::analysis::{Analysis, Warning, WarningTopic};
-use super::coil::Coil;
+use super::analysis::{Geometry, Inductances, SelfResonance, Warning, WarningTopic};
 use crate::physics::{medhurst, wheeler};
 
 /// Operating frequency above this fraction of self-resonance raises the apparent inductance by
@@ -22,10 +21,22 @@ fn push(out: &mut Vec<Warning>, topic: WarningTopic, message: String) {
     out.push(Warning { topic, message });
 }
 
-/// All warnings for a finished analysis.
-pub(super) fn collect(a: &Analysis, coil: &Coil) -> Vec<Warning> {
+/// The figures the warnings judge, gathered before they go into an
+/// [`Analysis`](super::Analysis) (so that the analysis can be built in its final place).
+pub(super) struct Judged<'a> {
+    pub geometry: &'a Geometry,
+    pub inductance: &'a Inductances,
+    pub self_resonance: &'a SelfResonance,
+    pub resonance: f64,
+    pub total_inductance: f64,
+    pub external_capacitance: f64,
+    pub skin_depth: f64,
+}
+
+/// All warnings for an evaluation's figures.
+pub(super) fn collect(a: &Judged<'_>) -> Vec<Warning> {
     let mut out = Vec::new();
-    let g = &a.geometry;
+    let g = a.geometry;
     if !wheeler::in_range(g.mean_diameter, g.length) {
         let err = (a.inductance.wheeler_1928 / a.inductance.current_sheet - 1.0) * 100.0;
         push(
@@ -60,8 +71,8 @@ pub(super) fn collect(a: &Analysis, coil: &Coil) -> Vec<Warning> {
         );
     }
     let lower = a.self_resonance.lower();
-    let ratio = a.resonance / lower;
-    if ratio > SELF_RESONANCE_MARGIN {
+    if a.resonance > SELF_RESONANCE_MARGIN * lower {
+        let ratio = a.resonance / lower;
         push(
             &mut out,
             WarningTopic::SelfResonance,
@@ -73,7 +84,7 @@ pub(super) fn collect(a: &Analysis, coil: &Coil) -> Vec<Warning> {
             ),
         );
     }
-    if coil.turns < 5.0 {
+    if g.turns < 5.0 {
         push(
             &mut out,
             WarningTopic::SelfResonance,
@@ -82,7 +93,7 @@ pub(super) fn collect(a: &Analysis, coil: &Coil) -> Vec<Warning> {
                 .to_owned(),
         );
     }
-    if 0.5 * g.wire_bare / a.skin_depth < MIN_RADIUS_OVER_SKIN_DEPTH {
+    if 0.5 * g.wire_bare < MIN_RADIUS_OVER_SKIN_DEPTH * a.skin_depth {
         push(
             &mut out,
             WarningTopic::Loss,

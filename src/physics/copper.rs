@@ -54,18 +54,59 @@ const SERIES_LIMIT: f64 = 10.0;
 /// expansion gives Z/R_dc ≈ (1+j)·q/2 + 1/4 + (1−j)·3/(32q), whose next term is O(q⁻²).
 pub fn internal_impedance(radius_over_skin_depth: f64) -> InternalImpedance {
     let q = radius_over_skin_depth.max(0.0);
-    let (re, fraction) = if q <= SERIES_LIMIT {
-        let (re, im) = bessel_ratio(q);
-        (re, if q < 1e-3 { 1.0 } else { im / (0.25 * q * q) })
+    if q <= SERIES_LIMIT {
+        series_impedance(q)
     } else {
-        let inv = 1.0 / q;
-        let tail = 3.0 / 32.0 * inv;
-        let im = 0.5 * q - tail;
-        (0.5 * q + 0.25 + tail, 4.0 * im * inv * inv)
-    };
+        asymptotic_impedance(q, 1.0 / q)
+    }
+}
+
+/// [`internal_impedance`] taking the reciprocal, δ/r, for solvers that get δ/r without a
+/// division: above r/δ = 10 the internal inductance fraction is then a polynomial in δ/r and
+/// only the resistance ratio needs r/δ itself.
+pub fn internal_impedance_at_depth_ratio(skin_depth_over_radius: f64) -> InternalImpedance {
+    let v = skin_depth_over_radius;
+    if v.is_nan() || v * SERIES_LIMIT >= 1.0 {
+        series_impedance((1.0 / v).max(0.0))
+    } else {
+        asymptotic_impedance(1.0 / v.max(0.0), v.max(0.0))
+    }
+}
+
+/// The internal inductance fraction alone at δ/r (see [`internal_impedance_at_depth_ratio`]):
+/// above r/δ = 10 a polynomial in δ/r, with no division.
+pub fn internal_inductance_fraction_at_depth_ratio(skin_depth_over_radius: f64) -> f64 {
+    let v = skin_depth_over_radius;
+    if v.is_nan() || v * SERIES_LIMIT >= 1.0 {
+        internal_impedance_at_depth_ratio(v).internal_inductance_fraction
+    } else {
+        asymptotic_fraction(v.max(0.0))
+    }
+}
+
+/// 2v − 3v³/8 clamped to [0, 1]: the asymptotic internal inductance fraction at v = δ/r.
+fn asymptotic_fraction(v: f64) -> f64 {
+    (v * (2.0 - 0.375 * v * v)).clamp(0.0, 1.0)
+}
+
+/// Power-series branch of [`internal_impedance`], for q ≤ 10.
+fn series_impedance(q: f64) -> InternalImpedance {
+    let (re, im) = bessel_ratio(q);
+    let fraction = if q < 1e-3 { 1.0 } else { im / (0.25 * q * q) };
     InternalImpedance {
         resistance_ratio: re.max(1.0),
         internal_inductance_fraction: fraction.clamp(0.0, 1.0),
+    }
+}
+
+/// Asymptotic branch of [`internal_impedance`] for q = r/δ > 10, given q and v = 1/q:
+/// Z/R_dc ≈ (1+j)·q/2 + 1/4 + (1−j)·3v/32, so R_ac/R_dc = q/2 + 1/4 + 3v/32 and the fraction
+/// Im(Z/R_dc)/(q²/4) = 2v − 3v³/8 (written in v alone so that it needs no division).
+fn asymptotic_impedance(q: f64, v: f64) -> InternalImpedance {
+    let tail = 3.0 / 32.0 * v;
+    InternalImpedance {
+        resistance_ratio: (0.5 * q + 0.25 + tail).max(1.0),
+        internal_inductance_fraction: asymptotic_fraction(v),
     }
 }
 

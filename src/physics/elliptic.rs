@@ -9,9 +9,7 @@ use std::f64::consts::FRAC_PI_2;
 ///
 /// # Formula
 /// Arithmetic-geometric mean (DLMF 19.8.1 and 19.8.6): with a₀ = 1, b₀ = √(1−m), c₀ = √m,
-/// aₙ₊₁ = (aₙ+bₙ)/2, bₙ₊₁ = √(aₙbₙ), cₙ₊₁ = (aₙ−bₙ)/2,
-/// K = π/(2·AGM) and E = K·(1 − Σ 2ⁿ⁻¹ cₙ²).
-/// Converges quadratically: five or six rounds give double precision for m ≤ 0.999999.
+/// K = π/(2·AGM) and E = K·(1 − Σ 2ⁿ⁻¹ cₙ²), through [`agm_with_sum`].
 ///
 /// Returns `(f64::INFINITY, 1.0)` at m = 1 and NaN outside [0, 1]; callers validate first.
 pub fn complete_k_e(m: f64) -> (f64, f64) {
@@ -21,9 +19,23 @@ pub fn complete_k_e(m: f64) -> (f64, f64) {
     if m == 1.0 {
         return (f64::INFINITY, 1.0);
     }
-    let mut a = 1.0_f64;
-    let mut b = (1.0 - m).sqrt();
-    let mut sum = 0.5 * m; // 2⁻¹ c₀²
+    let (mean, sum) = agm_with_sum(1.0, (1.0 - m).sqrt(), m);
+    let k = FRAC_PI_2 / mean;
+    (k, k * (1.0 - sum))
+}
+
+/// The arithmetic-geometric mean M of a₀ ≥ b₀ > 0 and the sum S = Σₙ 2ⁿ⁻¹ cₙ² that gives E.
+///
+/// # Formula
+/// aₙ₊₁ = (aₙ+bₙ)/2, bₙ₊₁ = √(aₙbₙ), cₙ₊₁ = (aₙ−bₙ)/2, with c₀² = a₀² − b₀² passed in
+/// (`c0_squared`) so that the caller can supply it without cancellation (DLMF 19.8.1, 19.8.6).
+/// Both are homogeneous: for a₀ = h, b₀ = h·k′ the parameter is m = c₀²/h² and
+/// K(m) = π·h/(2M), E(m) = K(m)·(1 − S/h²). Converges quadratically: four or five rounds give
+/// double precision for m ≤ 0.999999.
+pub fn agm_with_sum(a0: f64, b0: f64, c0_squared: f64) -> (f64, f64) {
+    let mut a = a0;
+    let mut b = b0;
+    let mut sum = 0.5 * c0_squared; // 2⁻¹ c₀²
     let mut weight = 0.5_f64;
     for _ in 0..12 {
         let c = 0.5 * (a - b);
@@ -32,14 +44,13 @@ pub fn complete_k_e(m: f64) -> (f64, f64) {
         let next_a = 0.5 * (a + b);
         b = (a * b).sqrt();
         a = next_a;
-        // The next c is about c²/(4a): below 1e-9 here it is below 1e-18, so `a` already
+        // The next c is about c²/(4a): below 1e-9·a here it is below 1e-18·a, so `a` already
         // equals the mean to double precision and the sum has all its terms.
         if c <= 1e-9 * a {
             break;
         }
     }
-    let k = FRAC_PI_2 / a;
-    (k, k * (1.0 - sum))
+    (a, sum)
 }
 
 /// Complete elliptic integral of the first kind K(m), parameter m = k².

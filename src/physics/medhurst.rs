@@ -59,16 +59,25 @@ pub fn factor(length_over_diameter: f64) -> f64 {
         .clamp(1, TABLE.len() - 1);
     let (_, h0) = TABLE[i - 1];
     let (_, h1) = TABLE[i];
-    // ln(x/x0)/ln(x1/x0), with the table's logarithms taken once.
+    // ln(x/x0)/ln(x1/x0), with the table's logarithms and their spacings taken once.
     let logs = log_table();
-    let t = (x.ln() - logs[i - 1]) / (logs[i] - logs[i - 1]);
+    let t = (x.ln() - logs.ln_x[i - 1]) * logs.inv_step[i - 1];
     (h0 + t * (h1 - h0)).max(0.0)
 }
 
-/// ln(l/D) of each table entry, computed once.
-fn log_table() -> &'static [f64; 33] {
-    static LOGS: std::sync::OnceLock<[f64; 33]> = std::sync::OnceLock::new();
-    LOGS.get_or_init(|| TABLE.map(|(x, _)| x.ln()))
+/// ln(l/D) of each table entry and 1/(ln x₁ − ln x₀) of each interval, computed once.
+struct LogTable {
+    ln_x: [f64; 33],
+    inv_step: [f64; 32],
+}
+
+fn log_table() -> &'static LogTable {
+    static LOGS: std::sync::OnceLock<LogTable> = std::sync::OnceLock::new();
+    LOGS.get_or_init(|| {
+        let ln_x = TABLE.map(|(x, _)| x.ln());
+        let inv_step = std::array::from_fn(|i| 1.0 / (ln_x[i + 1] - ln_x[i]));
+        LogTable { ln_x, inv_step }
+    })
 }
 
 /// Whether `length_over_diameter` lies inside Medhurst's table.

@@ -6,7 +6,7 @@
 //! *Inductance Calculations*, 1946, Table 36).
 
 use super::constants::MU_0;
-use super::elliptic::complete_k_e;
+use super::elliptic::agm_with_sum;
 use std::f64::consts::PI;
 
 /// Nagaoka's coefficient K_N, exact, from complete elliptic integrals.
@@ -14,18 +14,47 @@ use std::f64::consts::PI;
 /// # Formula
 /// With the modulus k, k² = D²/(D²+l²) and k′ = l/√(D²+l²):
 /// K_N = 4/(3π k′)·[(k′²/k²)(K(k) − E(k)) + E(k) − k]
-/// (Grover 1946, eq. 76), evaluated with parameter m = k².
+/// (Grover 1946, eq. 76), evaluated with parameter m = k² as in [`sheet`].
 ///
 /// `diameter_over_length` = D/l must be positive and finite.
 pub fn coefficient(diameter_over_length: f64) -> f64 {
-    let x = diameter_over_length;
-    // k² = x²/(1+x²), k′² = 1/(1+x²).
-    let m = x * x / (1.0 + x * x);
-    let k = m.sqrt();
-    let kp2 = 1.0 - m;
-    let kp = kp2.sqrt();
-    let (big_k, big_e) = complete_k_e(m);
-    4.0 / (3.0 * PI * kp) * ((kp2 / m) * (big_k - big_e) + big_e - k)
+    sheet(diameter_over_length, 1.0, 1.0).coefficient
+}
+
+/// The exact current sheet: Nagaoka's coefficient and the inductance it gives.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct Sheet {
+    /// Nagaoka's coefficient K_N.
+    pub coefficient: f64,
+    /// µ0·π·a²·N²·K_N/l, henries.
+    pub inductance: f64,
+}
+
+/// Nagaoka's coefficient and the current-sheet inductance for mean diameter D, length l (metres)
+/// and `turns` N, exact.
+///
+/// # Formula
+/// Grover's eq. 76 (see [`coefficient`]) with K and E from the AGM of h = √(D²+l²) and l, whose
+/// parameter is m = D²/h² (see [`agm_with_sum`]: K = πh/(2M), E = K·(1 − S/h²)). Substituting
+/// k = D/h and k′ = l/h gives
+/// K_N = 2·(h² + S·(l² − D²)/D²)/(3·l·M) − 4D/(3πl)
+///     = [2π·(h²D² + S·(l² − D²)) − 4D³M]/(3π·l·D²·M)
+/// and L = µ0·N²·[…]/(12·l²·M), both from the one reciprocal 1/(l²·D²·M).
+///
+/// D and l must be positive and finite.
+pub fn sheet(mean_diameter: f64, length: f64, turns: f64) -> Sheet {
+    let d = mean_diameter;
+    let l = length;
+    let d2 = d * d;
+    let l2 = l * l;
+    let h2 = d2 + l2;
+    let (mean, sum) = agm_with_sum(h2.sqrt(), l, d2);
+    let bracket = 2.0 * PI * (h2 * d2 + sum * (l2 - d2)) - 4.0 * d2 * d * mean;
+    let reciprocal = 1.0 / (l2 * d2 * mean);
+    Sheet {
+        coefficient: bracket * l * reciprocal * (1.0 / (3.0 * PI)),
+        inductance: bracket * d2 * reciprocal * (MU_0 / 12.0) * turns * turns,
+    }
 }
 
 /// Nagaoka's coefficient by Lundin's closed form, accurate to a few ppm over all shapes.
@@ -54,5 +83,5 @@ pub fn coefficient_lundin(diameter_over_length: f64) -> f64 {
 /// `mean_diameter` and `length` in metres; `nagaoka` is K_N for D/l.
 pub fn current_sheet_inductance(mean_diameter: f64, length: f64, turns: f64, nagaoka: f64) -> f64 {
     let a = 0.5 * mean_diameter;
-    MU_0 * PI * a * a * turns * turns * nagaoka / length
+    nagaoka * (MU_0 * PI * a * a * turns * turns / length)
 }

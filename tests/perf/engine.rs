@@ -6,9 +6,10 @@
 use criterion::{Criterion, criterion_group, criterion_main};
 use std::hint::black_box;
 use tankwright::model::{
-    Coating, Conditions, DiameterSpec, Gauge, SpacingSpec, Tank, Winding, WireSpec, evaluate,
+    Coating, Coil, Conditions, DiameterSpec, Gauge, SpacingSpec, Tank, Winding, WireSpec, evaluate,
+    evaluate_coil,
 };
-use tankwright::physics::filament;
+use tankwright::physics::{filament, helix, medhurst, nagaoka, proximity, round_wire};
 
 fn demo_winding() -> Winding {
     Winding {
@@ -39,5 +40,53 @@ fn engine(c: &mut Criterion) {
     });
 }
 
-criterion_group!(benches, engine);
+/// The parts of `evaluate_point`, to see where its time goes (no budgets of their own).
+fn parts(c: &mut Criterion) {
+    let w = demo_winding();
+    let cond = Conditions {
+        filament_sum: false,
+        ..Conditions::default()
+    };
+    let coil = Coil::from_winding(&w).expect("demo winding is valid");
+    let mut g = c.benchmark_group("parts");
+    g.bench_function("latency", |b| {
+        let mut tank = Tank::fixed_only(20e-12, 6e-12);
+        b.iter(|| {
+            let a = evaluate(&w, &tank, &cond).expect("valid");
+            // Feed the result back (adding zero) so that each evaluation waits for the last.
+            tank.stray = 6e-12 + a.resonance * 0.0;
+            a.q
+        })
+    });
+    g.bench_function("evaluate_by_ref", |b| {
+        let t = Tank::fixed_only(20e-12, 6e-12);
+        b.iter(|| {
+            let a = evaluate(black_box(&w), black_box(&t), black_box(&cond));
+            black_box(&a);
+        })
+    });
+    g.bench_function("validate", |b| b.iter(|| Coil::from_winding(black_box(&w))));
+    g.bench_function("evaluate_coil", |b| {
+        b.iter(|| evaluate_coil(black_box(&coil), black_box(26e-12), black_box(&cond)))
+    });
+    g.bench_function("nagaoka_sheet", |b| {
+        b.iter(|| nagaoka::sheet(black_box(7e-3), black_box(8e-3), black_box(5.0)))
+    });
+    g.bench_function("lundin", |b| {
+        b.iter(|| nagaoka::coefficient_lundin(black_box(0.875)))
+    });
+    g.bench_function("helical_self_resonance", |b| {
+        b.iter(|| {
+            helix::helical_self_resonance(black_box(7e-3), black_box(1.6e-3), black_box(8e-3))
+        })
+    });
+    g.bench_function("medhurst", |b| b.iter(|| medhurst::factor(black_box(1.14))));
+    g.bench_function("k_m", |b| b.iter(|| round_wire::k_m(black_box(5.0))));
+    g.bench_function("proximity", |b| {
+        b.iter(|| proximity::wall_proximity_factor(black_box(1.6)))
+    });
+    g.finish();
+}
+
+criterion_group!(benches, engine, parts);
 criterion_main!(benches);
