@@ -168,8 +168,13 @@ impl Coil {
             limits::DIAMETER,
             Unit::Mm,
         )?;
-        let pitch = match w.spacing {
-            SpacingSpec::Length(l) => finite(Field::Spacing, "coil length", l)? / turns,
+        // The length as given (not recomputed from the pitch), so that every formula that takes
+        // it sees the builder's figure and need not wait for the division.
+        let (pitch, length) = match w.spacing {
+            SpacingSpec::Length(l) => {
+                let l = finite(Field::Spacing, "coil length", l)?;
+                (l / turns, l)
+            }
             SpacingSpec::Gap(g) => {
                 let g = finite(Field::Spacing, "gap", g)?;
                 if g < 0.0 {
@@ -178,7 +183,8 @@ impl Coil {
                         format!("gap {} is negative: turns would overlap", Unit::Mm.show(g)),
                     ));
                 }
-                overall + g
+                let pitch = overall + g;
+                (pitch, pitch * turns)
             }
         };
         if pitch < overall {
@@ -194,7 +200,6 @@ impl Coil {
                 ),
             ));
         }
-        let length = pitch * turns;
         if length > limits::LENGTH_MAX {
             return Err(InputError::new(
                 Field::Spacing,

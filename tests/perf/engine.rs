@@ -7,7 +7,7 @@ use criterion::{Criterion, criterion_group, criterion_main};
 use std::hint::black_box;
 use tankwright::model::{
     Coating, Coil, Conditions, DiameterSpec, Gauge, SpacingSpec, Tank, Winding, WireSpec, evaluate,
-    evaluate_coil,
+    evaluate::resonance_of, evaluate_coil,
 };
 use tankwright::physics::{filament, helix, medhurst, nagaoka, proximity, round_wire};
 
@@ -40,7 +40,10 @@ fn engine(c: &mut Criterion) {
     });
 }
 
-/// The parts of `evaluate_point`, to see where its time goes (no budgets of their own).
+/// The parts of `evaluate_point`, to see where its time goes (no budgets of their own):
+/// `latency` chains each evaluation on the last; `evaluate_by_ref` observes the result by
+/// reference instead of moving the ~340-byte value out (the move is the harness's cost);
+/// `resonance_of` is the frequency-only path the sweeps and charts call.
 fn parts(c: &mut Criterion) {
     let w = demo_winding();
     let cond = Conditions {
@@ -64,6 +67,9 @@ fn parts(c: &mut Criterion) {
             let a = evaluate(black_box(&w), black_box(&t), black_box(&cond));
             black_box(&a);
         })
+    });
+    g.bench_function("resonance_of", |b| {
+        b.iter(|| resonance_of(black_box(&coil), black_box(26e-12), black_box(&cond)))
     });
     g.bench_function("validate", |b| b.iter(|| Coil::from_winding(black_box(&w))));
     g.bench_function("evaluate_coil", |b| {
