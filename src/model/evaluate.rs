@@ -294,12 +294,13 @@ struct Resonance {
 /// elliptic integral, so the processor computes it while the exact sheet is still under way.
 ///
 /// **Stop.** T contracts with k = ΔL·|dχ/dL| = ΔL·|d ln χ/d ln q|·χ/(4L) ≤ ΔL·χ/(4L), since
-/// |d ln χ/d ln q| ≤ 1 for round wire (q = r/δ; checked over 1e-3 ≤ q ≤ 1e4 in the tests).
-/// Taking twice that bound for margin, k_b = ΔL·χ/(2L) ≤ ½, the error after a step s is at most
-/// k_b/(1 − k_b)·|s| ≤ ΔL·χ·|s|/L, and the loop stops once that is below
-/// [`RESONANCE_TOLERANCE`]·L. At VHF k is about 1e-4, so the one round from the start is
-/// usually enough. The figures returned are those at the last inductance tried, whose
-/// frequency differs from the returned one by about half the last step, relatively.
+/// |d ln χ/d ln q| ≤ 1 for round wire (q = r/δ ∝ L^(−1/4); checked over 1e-3 ≤ q ≤ 1e4 in the
+/// tests). χ moves by a fraction k between iterates, so k_b = 1.01·ΔL·χ/(4L) bounds k with
+/// margin, and the error after a step s is at most k_b/(1 − k_b)·|s|. The loop stops once
+/// that is below [`RESONANCE_TOLERANCE`]·L, i.e. 1.01·ΔL·χ·(|s| + tol·L) ≤ 4·tol·L². At VHF
+/// k is about 1e-4 and the start is within a few ppm, so one round usually suffices. The
+/// figures returned are those at the last inductance tried, whose frequency differs from
+/// the returned one by about half the last step, relatively.
 fn solve(fixed: &Fixed, resistivity: f64, capacitance: f64) -> Resonance {
     let gain = (resistivity * (2.0 / MU_0) * capacitance.sqrt()).sqrt() * fixed.inv_radius;
     let [l0, l1] = fixed.driving;
@@ -312,7 +313,8 @@ fn solve(fixed: &Fixed, resistivity: f64, capacitance: f64) -> Resonance {
     let mut chi = chi_at(depth_over_radius);
     let mut next = l0 + slope * chi;
     for _ in 0..12 {
-        if slope * chi * (next - tried).abs() <= RESONANCE_TOLERANCE * next * next {
+        let bound = 1.01 * slope * chi * ((next - tried).abs() + RESONANCE_TOLERANCE * next);
+        if bound <= 4.0 * RESONANCE_TOLERANCE * next * next {
             break;
         }
         tried = next;

@@ -50,8 +50,9 @@ const SERIES_LIMIT: f64 = 10.0;
 /// *Fields and Waves in Communication Electronics*, §5.12; also W. C. Johnson 1963).
 /// R_ac/R_dc is its real part; the internal inductance is its imaginary part over ω, and
 /// since ω·(µ0/8π)/R_dc = q²/4 the fraction is Im(Z/R_dc)/(q²/4).
-/// For q ≤ 10 the power series of J0 and J1 is summed; above, the Hankel asymptotic
-/// expansion gives Z/R_dc ≈ (1+j)·q/2 + 1/4 + (1−j)·3/(32q), whose next term is O(q⁻²).
+/// For q ≤ 10 the power series of J0 and J1 is summed; above, the asymptotic expansion in
+/// v = 1/q (see [`asymptotic_impedance`]) is used, which meets the series at q = 10 to
+/// about 1e-8.
 pub fn internal_impedance(radius_over_skin_depth: f64) -> InternalImpedance {
     let q = radius_over_skin_depth.max(0.0);
     if q <= SERIES_LIMIT {
@@ -84,9 +85,14 @@ pub fn internal_inductance_fraction_at_depth_ratio(skin_depth_over_radius: f64) 
     }
 }
 
-/// 2v − 3v³/8 clamped to [0, 1]: the asymptotic internal inductance fraction at v = δ/r.
+/// The asymptotic internal inductance fraction at v = δ/r (see [`asymptotic_impedance`]),
+/// clamped to [0, 1]: a polynomial in v, with no division.
 fn asymptotic_fraction(v: f64) -> f64 {
-    (v * (2.0 - 0.375 * v * v)).clamp(0.0, 1.0)
+    let v2 = v * v;
+    let v4 = v2 * v2;
+    let fraction = v * 2.0 - v2 * v * (0.375 + v * (0.375 + v * (63.0 / 256.0)))
+        + v4 * v2 * v * (1899.0 / 4096.0 + v * (81.0 / 64.0 + v * (543_483.0 / 262_144.0)));
+    fraction.clamp(0.0, 1.0)
 }
 
 /// Power-series branch of [`internal_impedance`], for q ≤ 10.
@@ -99,11 +105,25 @@ fn series_impedance(q: f64) -> InternalImpedance {
     }
 }
 
-/// Asymptotic branch of [`internal_impedance`] for q = r/δ > 10, given q and v = 1/q:
-/// Z/R_dc ≈ (1+j)·q/2 + 1/4 + (1−j)·3v/32, so R_ac/R_dc = q/2 + 1/4 + 3v/32 and the fraction
-/// Im(Z/R_dc)/(q²/4) = 2v − 3v³/8 (written in v alone so that it needs no division).
+/// Asymptotic branch of [`internal_impedance`] for q = r/δ > 10, given q and v = 1/q.
+///
+/// # Formula
+/// For large |z| with Im z < 0, J_n(z) is dominated by the Hankel function H_n⁽¹⁾(z), and the
+/// ratio y = H₁⁽¹⁾/H₀⁽¹⁾ satisfies y′ = 1 − y/z + y² (from DLMF 10.6.2–10.6.3). Its series
+/// y = −i + 1/(2z) − i/(8z²) − 1/(8z³) + … put into (z/2)·J0/J1 ≈ z/(2y) at z = (1 − j)q gives
+/// R_ac/R_dc = q/2 + 1/4 + 3v/32 − 63v³/1024 − 27v⁴/256 − 1899v⁵/16384 + 543483v⁷/1048576,
+/// χ = Im(Z/R_dc)/(q²/4) = 2v − 3v³/8 − 3v⁴/8 − 63v⁵/256 + 1899v⁷/4096 + 81v⁸/64
+///     + 543483v⁹/262144.
+/// The first three terms are the classical (1+j)q/2 + 1/4 + (1−j)·3/(32q). The coefficients
+/// were derived for this project (series solution of the Riccati equation, by sympy) and
+/// checked against mpmath's Bessel functions; the tests hold them to it and check the join
+/// with the series at q = 10.
 fn asymptotic_impedance(q: f64, v: f64) -> InternalImpedance {
-    let tail = 3.0 / 32.0 * v;
+    let v2 = v * v;
+    let v4 = v2 * v2;
+    let tail = v * (3.0 / 32.0)
+        - v2 * v * (63.0 / 1024.0 + v * (27.0 / 256.0 + v * (1899.0 / 16384.0)))
+        + v4 * v2 * v * (543_483.0 / 1_048_576.0);
     InternalImpedance {
         resistance_ratio: (0.5 * q + 0.25 + tail).max(1.0),
         internal_inductance_fraction: asymptotic_fraction(v),
