@@ -168,8 +168,8 @@ pub fn evaluate(
 /// driving inductance is therefore affine in χ too.
 #[derive(Clone, Copy, Debug)]
 struct Fixed {
-    /// 1/r (wire radius), which several formulas share.
-    inv_radius: f64,
+    /// Bare wire radius r.
+    wire_radius: f64,
     sheet: nagaoka::Sheet,
     k_m: f64,
     /// Rosa's k_s with surface current (χ = 0); it falls by χ/4.
@@ -196,19 +196,17 @@ impl Fixed {
     fn new(coil: &Coil, c: &Conditions) -> Self {
         let d = coil.mean_diameter;
         let l = coil.length;
-        let inv_length = 1.0 / l;
-        let inv_radius = 2.0 / coil.wire_bare;
         let sheet = nagaoka::sheet(d, l, coil.turns);
         let k_m = round_wire::k_m(coil.turns);
         // k_s is 3/2 − ln(2p/d) − χ/4: one logarithm serves both limits.
-        let k_s_surface = 1.5 - (coil.pitch * inv_radius).ln();
+        let k_s_surface = round_wire::k_s(coil.pitch, coil.wire_bare, 0.0);
         let correction = |k_s: f64| round_wire::correction(d, coil.turns, k_s, k_m);
         let surface_correction = correction(k_s_surface);
         let round_wire = [
             sheet.inductance - surface_correction,
             sheet.inductance - correction(k_s_surface - 0.25),
         ];
-        let lundin = lundin_inductance(coil, inv_length);
+        let lundin = lundin_inductance(coil);
         let lead = leads::straight_wire_inductance_limits(coil.lead_length, 0.5 * coil.wire_bare);
         let leads = [2.0 * lead[0], 2.0 * lead[1]];
         let filament = (c.filament_sum || c.model == InductanceModel::FilamentSum).then(|| {
@@ -233,7 +231,7 @@ impl Fixed {
         let length_over_diameter = l / d;
         let medhurst_factor = medhurst::factor(length_over_diameter);
         Self {
-            inv_radius,
+            wire_radius: 0.5 * coil.wire_bare,
             sheet,
             k_m,
             k_s_surface,
@@ -251,12 +249,10 @@ impl Fixed {
     }
 }
 
-/// Lundin's closed form for Nagaoka's coefficient times the current sheet's µ0·π·a²·N²/l.
-fn lundin_inductance(coil: &Coil, inv_length: f64) -> f64 {
-    let d = coil.mean_diameter;
-    let n = coil.turns;
-    let a = 0.5 * d;
-    nagaoka::coefficient_lundin(d * inv_length) * (MU_0 * PI) * a * a * n * n * inv_length
+/// The current sheet with Lundin's closed form for Nagaoka's coefficient.
+fn lundin_inductance(coil: &Coil) -> f64 {
+    let (d, l) = (coil.mean_diameter, coil.length);
+    nagaoka::current_sheet_inductance(d, l, coil.turns, nagaoka::coefficient_lundin(d / l))
 }
 
 fn blend(pair: [f64; 2], chi: f64) -> f64 {
@@ -302,7 +298,7 @@ struct Resonance {
 /// figures returned are those at the last inductance tried, whose frequency differs from
 /// the returned one by about half the last step, relatively.
 fn solve(fixed: &Fixed, resistivity: f64, capacitance: f64) -> Resonance {
-    let gain = (resistivity * (2.0 / MU_0) * capacitance.sqrt()).sqrt() * fixed.inv_radius;
+    let gain = (resistivity * (2.0 / MU_0) * capacitance.sqrt()).sqrt() / fixed.wire_radius;
     let [l0, l1] = fixed.driving;
     let slope = (l1 - l0).abs();
     let depth_at = |inductance: f64| gain * inductance.sqrt().sqrt();
@@ -388,11 +384,9 @@ pub fn evaluate_coil(coil: &Coil, external_capacitance: f64, conditions: &Condit
 
     let wire_length = coil.wire_length();
     let coil_wire = wire_length - 2.0 * coil.lead_length;
-    let proximity_factor = proximity::wall_proximity_factor(coil.pitch * (0.5 * fixed.inv_radius));
-    // ρ/(π r²) per metre of wire.
-    let per_metre = resistivity * (1.0 / PI) * fixed.inv_radius * fixed.inv_radius;
-    let r_dc_coil = per_metre * coil_wire;
-    let r_dc_leads = per_metre * 2.0 * coil.lead_length;
+    let proximity_factor = proximity::wall_proximity_factor(coil.pitch / coil.wire_bare);
+    let r_dc_coil = copper::dc_resistance(resistivity, coil.wire_bare, coil_wire);
+    let r_dc_leads = copper::dc_resistance(resistivity, coil.wire_bare, 2.0 * coil.lead_length);
     let ac_resistance = op.skin.resistance_ratio * (r_dc_coil * proximity_factor + r_dc_leads);
     let q = op.omega * op.inductance / ac_resistance;
 

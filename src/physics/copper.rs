@@ -25,12 +25,6 @@ pub fn skin_depth(resistivity: f64, frequency: f64) -> f64 {
     (resistivity / (PI * frequency * MU_0)).sqrt()
 }
 
-/// r/δ per √Hz for a wire of `radius` metres: r/δ = r·√(π f µ0/ρ) = this × √f. Lets a solver
-/// that revisits the frequency get r/δ with one square root.
-pub fn radius_over_skin_depth_per_root_hz(resistivity: f64, radius: f64) -> f64 {
-    radius * (PI * MU_0 / resistivity).sqrt()
-}
-
 /// Internal impedance of an isolated straight round wire relative to its DC resistance.
 #[derive(Clone, Copy, Debug, PartialEq)]
 pub struct InternalImpedance {
