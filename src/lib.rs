@@ -7,6 +7,10 @@
 //! - [`recipe`]: the saved document and its file format (the only layer that touches the disk);
 //! - [`cli`]: the headless commands;
 //! - [`ui`]: the eframe window (the only layer that imports egui).
+//!
+//! Bad input is refused with a message, never a panic: no `unwrap` or `expect` outside tests
+//! (enforced here; `clippy.toml` exempts `#[cfg(test)]` code).
+#![warn(clippy::unwrap_used, clippy::expect_used)]
 
 pub mod cli;
 pub mod model;

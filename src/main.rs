@@ -1,4 +1,10 @@
 //! Entry point: the window by default, headless subcommands for scripts.
+#![warn(clippy::unwrap_used, clippy::expect_used)]
+#![expect(
+    clippy::print_stdout,
+    clippy::print_stderr,
+    reason = "the entry point is the one place that prints: the commands return strings"
+)]
 
 use std::process::ExitCode;
 
@@ -14,8 +20,16 @@ fn main() -> ExitCode {
             args.remove(0);
             finish(tankwright::cli::run_report(args))
         }
+        Some("solve") => {
+            args.remove(0);
+            finish(tankwright::cli::run_solve(args))
+        }
+        Some("fit") => {
+            args.remove(0);
+            finish(tankwright::cli::run_fit(args))
+        }
         Some("help") | Some("--help") | Some("-h") => {
-            print!("{}", tankwright::cli::USAGE);
+            print!("{}", tankwright::cli::usage());
             ExitCode::SUCCESS
         }
         Some(file) if file.ends_with(".ron") => {

@@ -111,7 +111,8 @@ fn report_reads_as_a_build_sheet() {
         "Bench log",
         "1. 149.6200 MHz at 7.50 mm, trimmer 50 % (club dip meter, dial reading) — first try",
         "±5 ppm",
-        "from the latest reading",
+        "beyond the model",
+        "next step",
         "licence",
         // The analysis report follows.
         "Inductance (coil only)",

@@ -2,7 +2,7 @@
 
 use proptest::prelude::*;
 use std::path::Path;
-use tankwright::model::{Coating, Gauge, WireSpec, evaluate};
+use tankwright::model::{Coating, Gauge, InductanceModel, WireSpec, evaluate};
 use tankwright::recipe::schema::{
     AimSheet, CoatingName, CoilSheet, ConditionsSheet, DiameterMm, DividerSheet, ModelName,
     PlanName, ReadingSheet, RecipeFile, Scaled, SpacingMm, TankSheet, WireSize,
@@ -15,6 +15,7 @@ fn demo_with_log() -> Recipe {
         measured: 99.134e6,
         length: 8.0e-3,
         trimmer_setting: 0.5,
+        added_capacitance: 4.7e-12,
         instrument: "bench counter".to_owned(),
         error_ppm: Some(2.5),
         note: "first light, \"quoted\"# and r#\"raw\"##, a \\ backslash\nsecond line".to_owned(),
@@ -209,13 +210,7 @@ fn file_strategy(
             channels_mhz: list.into_iter().map(Scaled::from_file_units).collect(),
         }),
     ];
-    let model = prop_oneof![
-        Just(ModelName::RoundWire),
-        Just(ModelName::FilamentSum),
-        Just(ModelName::CurrentSheet),
-        Just(ModelName::Lundin1985),
-        Just(ModelName::Wheeler1928),
-    ];
+    let model = proptest::sample::select(InductanceModel::ALL.to_vec()).prop_map(ModelName);
     let reading = (
         num(30.0, 500.0),
         num(0.5, 100.0),
@@ -223,11 +218,13 @@ fn file_strategy(
         "[a-z ]{0,12}",
         proptest::option::of(num(0.0, 50.0)),
         "\\PC{0,20}",
+        prop_oneof![Just(0.0), num(0.1, 100.0)],
     )
-        .prop_map(|(f, l, s, instrument, ppm, note)| ReadingSheet {
+        .prop_map(|(f, l, s, instrument, ppm, note, added)| ReadingSheet {
             measured_mhz: Scaled::from_file_units(f),
             coil_length_mm: Scaled::from_file_units(l),
             trimmer_percent: Scaled::from_file_units(s),
+            added_pf: Scaled::from_file_units(added),
             instrument,
             error_ppm: ppm,
             note,
@@ -318,7 +315,8 @@ proptest! {
     /// same bits.
     #[test]
     fn slider_values_in_si_round_trip_to_the_same_bits(
-        length in 5e-3..30e-3f64,
+        // From 5.5 mm: the demo's five bare turns keep 0.1 mm apart.
+        length in 5.5e-3..30e-3f64,
         fixed in 0.0..50e-12f64,
         setting in 0.0..1.0f64,
         stray in 0.0..10e-12f64,
@@ -335,6 +333,7 @@ proptest! {
             measured,
             length,
             trimmer_setting: setting,
+            added_capacitance: 0.0,
             instrument: String::new(),
             error_ppm: None,
             note: String::new(),

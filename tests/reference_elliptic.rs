@@ -1,9 +1,4 @@
 //! Complete elliptic integrals against DLMF and an independent crate.
-#![allow(
-    clippy::excessive_precision,
-    reason = "reference values are quoted with every digit their source gives"
-)]
-
 use approx::assert_relative_eq;
 use tankwright::physics::elliptic::{complete_e, complete_k, complete_k_e};
 

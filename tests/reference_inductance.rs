@@ -1,9 +1,4 @@
 //! Inductance models against published tables and against each other.
-#![allow(
-    clippy::excessive_precision,
-    reason = "reference values are quoted with every digit their source gives"
-)]
-
 use approx::assert_relative_eq;
 use std::f64::consts::PI;
 use tankwright::physics::constants::MU_0;

@@ -1,5 +1,5 @@
 //! Copper, skin effect and wire sizes against standards and high-precision values.
-#![allow(
+#![expect(
     clippy::excessive_precision,
     reason = "reference values are quoted with every digit their source gives"
 )]

@@ -1,9 +1,4 @@
 //! Self-capacitance, self-resonance, resonance and band plans against their sources.
-#![allow(
-    clippy::excessive_precision,
-    reason = "reference values are quoted with every digit their source gives"
-)]
-
 use approx::assert_relative_eq;
 use std::f64::consts::PI;
 use tankwright::model::{

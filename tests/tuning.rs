@@ -4,7 +4,7 @@ use tankwright::model::evaluate::resonance_of;
 use tankwright::model::{
     Coating, Coil, Conditions, DiameterSpec, Gauge, SpacingSpec, Tank, Winding, WireSpec,
 };
-use tankwright::tuning::fit::correct_from_measurement;
+use tankwright::tuning::fit::{Reading, fit};
 use tankwright::tuning::solve::{
     Unreachable, length_for_target, setting_for_target, stretch_sensitivity, trimmer_window,
 };
@@ -31,7 +31,7 @@ fn resonance_scales_as_thomson_with_capacitance() {
     let coil = demo_coil();
     let cond = Conditions::default();
     let c_self = tankwright::physics::medhurst::self_capacitance(
-        coil.mean_diameter,
+        coil.mean_diameter(),
         coil.length_over_diameter(),
     );
     let f1 = resonance_of(&coil, 20e-12, &cond);
@@ -51,20 +51,31 @@ fn a_measurement_is_corrected_to_the_target() {
     let coil = demo_coil();
     let cond = Conditions::default();
     let c_ext = 26e-12;
+    let tank = Tank::fixed_only(c_ext, 0.0);
     let hidden = 2.2e-12;
     let measured = resonance_of(&coil, c_ext + hidden, &cond);
     let target = 98.7e6;
-    let fit = correct_from_measurement(&coil, c_ext, &cond, measured, target).expect("reachable");
-    assert!(
-        (fit.extra_capacitance - hidden).abs() < 1e-16,
-        "{}",
-        fit.extra_capacitance
+    let reading = Reading {
+        measured,
+        length: coil.length(),
+        trimmer_setting: 0.0,
+        added_capacitance: 0.0,
+        error_ppm: Some(1.0),
+    };
+    let fitted = fit(&coil, &tank, &cond, &[reading]).expect("reachable");
+    let extra = fitted.calibration.extra_capacitance;
+    assert!((extra - hidden).abs() < 1e-16, "{extra}");
+    assert_eq!(
+        fitted.inductance_scale_error, None,
+        "one reading cannot give the scale"
     );
-    let length = fit.length_for_target.clone().expect("a length exists");
-    let landed = resonance_of(&coil.with_length(length), c_ext + hidden, &cond);
+    let calibrated = fitted.calibration.tank(&tank);
+    let length = length_for_target(&coil, calibrated.external_capacitance(), &cond, target)
+        .expect("a length exists");
+    let landed = resonance_of(&coil.with_length(length).unwrap(), c_ext + hidden, &cond);
     assert!((landed - target).abs() < 1.0, "{landed}");
     // More capacitance than assumed: the coil must be stretched (less L) to come back up.
-    assert!(fit.stretch.expect("some") > 0.0);
+    assert!(length > coil.length());
 }
 
 #[test]
@@ -89,8 +100,9 @@ fn solvers_land_on_their_targets() {
         setting_for_target(&coil, &tank, &cond, high * 1.1),
         Err(Unreachable::OutsideTrimmer { .. })
     ));
-    let l = length_for_target(&coil, 20e-12, &cond, 100e6).expect("reachable");
-    assert!((resonance_of(&coil.with_length(l), 20e-12, &cond) - 100e6).abs() < 1.0);
+    // Bare turns stay 0.1 mm apart, so the closest this coil gets is 100.6 MHz across 20 pF.
+    let l = length_for_target(&coil, 20e-12, &cond, 105e6).expect("reachable");
+    assert!((resonance_of(&coil.with_length(l).unwrap(), 20e-12, &cond) - 105e6).abs() < 1.0);
     assert!(matches!(
         length_for_target(&coil, 20e-12, &cond, 1e6),
         Err(Unreachable::AboveEvenCloseWound { .. })
@@ -109,7 +121,16 @@ fn stretch_sensitivity_is_megahertz_per_millimetre() {
 /// 1 µm of length (arithmetic of the definition of ppm).
 #[test]
 fn instrument_error_as_length() {
-    let u = tankwright::tuning::fit::length_uncertainty(10.0, 100e6, 1e6 / 1e-3).expect("moves");
+    let reading = Reading {
+        measured: 100e6,
+        length: 8e-3,
+        trimmer_setting: 0.0,
+        added_capacitance: 0.0,
+        error_ppm: Some(10.0),
+    };
+    let sigma = reading.sigma();
+    assert!((sigma - 1e3).abs() < 1e-9, "{sigma}");
+    let u = tankwright::tuning::fit::length_uncertainty(sigma, 1e6 / 1e-3).expect("moves");
     assert!((u - 1e-6).abs() < 1e-18, "{u}");
-    assert!(tankwright::tuning::fit::length_uncertainty(10.0, 100e6, 0.0).is_none());
+    assert!(tankwright::tuning::fit::length_uncertainty(sigma, 0.0).is_none());
 }

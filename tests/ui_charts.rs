@@ -3,9 +3,8 @@
 
 use egui_kittest::Harness;
 use egui_kittest::kittest::Queryable;
-use tankwright::model::{Coil, Conditions, Geometry, Tank, evaluate_coil};
+use tankwright::model::{Coil, Conditions, Tank, evaluate_coil};
 use tankwright::recipe::Recipe;
-use tankwright::tuning::sweep::touching_length;
 use tankwright::ui::charts::{
     ChartCache, ChartView, SPACING_CHART_LABEL, SpacingAxis, TRIMMER_CHART_LABEL, spacing_chart,
     trimmer_chart,
@@ -31,7 +30,7 @@ fn refresh_recomputes_only_when_the_inputs_change() {
         !cache.refresh(&coil, &tank, &conditions),
         "identical call keeps"
     );
-    let longer = coil.with_length(coil.length * 1.1);
+    let longer = coil.with_length(coil.length() * 1.1).unwrap();
     assert!(
         cache.refresh(&longer, &tank, &conditions),
         "a new length recomputes"
@@ -53,8 +52,12 @@ fn sweep_covers_touching_to_past_the_present_length() {
     let mut cache = ChartCache::default();
     cache.refresh(&coil, &tank, &conditions);
     let (lo, hi) = cache.length_range_swept();
-    approx::assert_relative_eq!(lo, touching_length(&coil), max_relative = 1e-12);
-    assert!(hi >= 1.5 * coil.length - 1e-12, "{hi} vs {}", coil.length);
+    approx::assert_relative_eq!(lo, coil.shortest_length(), max_relative = 1e-12);
+    assert!(
+        hi >= 1.5 * coil.length() - 1e-12,
+        "{hi} vs {}",
+        coil.length()
+    );
     assert_eq!(cache.spacing_curves().len(), 5);
     for curve in cache.spacing_curves() {
         assert!(curve.points.len() >= 100);
@@ -99,19 +102,16 @@ fn curves_rise_with_stretch_and_fall_with_trimmer() {
 
 struct CoilState {
     coil: Coil,
-    geometry: Geometry,
     touching: f64,
     last: Option<f64>,
     calls: usize,
 }
 
 fn coil_harness() -> Harness<'static, CoilState> {
-    let (coil, tank, conditions) = demo();
-    let geometry = evaluate_coil(&coil, tank.external_capacitance(), &conditions).geometry;
+    let (coil, _, _) = demo();
     let state = CoilState {
         coil,
-        geometry,
-        touching: touching_length(&coil),
+        touching: coil.shortest_length(),
         last: None,
         calls: 0,
     };
@@ -119,12 +119,10 @@ fn coil_harness() -> Harness<'static, CoilState> {
         .with_size(egui::vec2(640.0, 360.0))
         .build_ui_state(
             move |ui, s: &mut CoilState| {
-                if let Some(l) = coil_view(ui, &s.geometry, LengthUnit::Millimetres, s.touching) {
+                if let Some(l) = coil_view(ui, &s.coil, LengthUnit::Millimetres) {
                     s.last = Some(l);
                     s.calls += 1;
-                    s.coil = s.coil.with_length(l);
-                    s.geometry =
-                        evaluate_coil(&s.coil, tank.external_capacitance(), &conditions).geometry;
+                    s.coil = s.coil.with_length(l).unwrap();
                 }
             },
             state,
@@ -152,7 +150,7 @@ fn drag_handle(harness: &mut Harness<'_, CoilState>, dx: f32) -> Option<f64> {
 fn dragging_the_free_end_right_stretches() {
     let mut harness = coil_harness();
     harness.run();
-    let before = harness.state().coil.length;
+    let before = harness.state().coil.length();
     let after = drag_handle(&mut harness, 60.0).expect("the drag reports a length");
     assert!(after > before, "{after} should exceed {before}");
     // To scale: 60 points of drag is some fraction of the coil, not orders of magnitude off.
@@ -164,7 +162,7 @@ fn dragging_the_free_end_left_stops_at_touching() {
     let mut harness = coil_harness();
     harness.run();
     let touching = harness.state().touching;
-    let before = harness.state().coil.length;
+    let before = harness.state().coil.length();
     let after = drag_handle(&mut harness, -600.0).expect("the drag reports a length");
     assert!(after < before);
     assert!(
@@ -213,6 +211,8 @@ fn chart_harness(axis: SpacingAxis) -> Harness<'static, ChartState> {
                 s.cache.refresh(&s.coil, &s.tank, &s.conditions);
                 let analysis = evaluate_coil(&s.coil, s.tank.external_capacitance(), &s.conditions);
                 let view = ChartView {
+                    uncalibrated: None,
+                    readings: &[],
                     cache: &s.cache,
                     coil: &s.coil,
                     tank: &s.tank,
@@ -240,7 +240,7 @@ fn chart_harness(axis: SpacingAxis) -> Harness<'static, ChartState> {
                 // Applied the way the window does, so that the next frame draws the new coil.
                 if let Some(l) = spacing {
                     s.spacing = Some(l);
-                    s.coil = s.coil.with_length(l);
+                    s.coil = s.coil.with_length(l).unwrap();
                 }
                 if let Some(t) = setting {
                     s.setting = Some(t);
@@ -316,6 +316,8 @@ fn charts_draw_before_the_first_refresh() {
         .with_size(egui::vec2(600.0, 400.0))
         .build_ui(move |ui| {
             let view = ChartView {
+                uncalibrated: None,
+                readings: &[],
                 cache: &cache,
                 coil: &coil,
                 tank: &tank,
@@ -375,7 +377,7 @@ fn dragging_the_spacing_chart_holds_the_axis_under_the_pointer() {
 fn the_free_end_steps_from_the_keyboard_and_a_screen_reader() {
     let mut harness = coil_harness();
     harness.run();
-    let before = harness.state().coil.length;
+    let before = harness.state().coil.length();
 
     harness.get_by_label(HANDLE_LABEL).increment_accesskit();
     harness.run();
@@ -384,17 +386,17 @@ fn the_free_end_steps_from_the_keyboard_and_a_screen_reader() {
 
     harness.get_by_label(HANDLE_LABEL).set_value_accesskit(6.5);
     harness.run();
-    approx::assert_relative_eq!(harness.state().coil.length, 6.5e-3, max_relative = 1e-9);
+    approx::assert_relative_eq!(harness.state().coil.length(), 6.5e-3, max_relative = 1e-9);
 
     harness.get_by_label(HANDLE_LABEL).focus();
     harness.run();
     harness.key_press(egui::Key::ArrowRight);
     harness.run();
-    approx::assert_relative_eq!(harness.state().coil.length, 6.6e-3, max_relative = 1e-9);
+    approx::assert_relative_eq!(harness.state().coil.length(), 6.6e-3, max_relative = 1e-9);
 
     // Squeezing by screen reader stops at the touching limit too.
     let touching = harness.state().touching;
     harness.get_by_label(HANDLE_LABEL).set_value_accesskit(0.0);
     harness.run();
-    approx::assert_relative_eq!(harness.state().coil.length, touching, max_relative = 1e-9);
+    approx::assert_relative_eq!(harness.state().coil.length(), touching, max_relative = 1e-9);
 }

@@ -102,11 +102,11 @@ fn a_bench_reading_gives_the_stretch_to_the_target() {
     assert_eq!(log.len(), 1);
     assert_eq!(log[0].measured, 97.5e6);
     let text = screen_text(&harness).join("\n");
-    assert!(text.contains("stretch by"), "{text}");
+    assert!(text.contains("stretch the coil by"), "{text}");
     assert!(text.contains("beyond the model"), "{text}");
 
     harness
-        .get_by_label("Set the coil to the corrected length")
+        .get_by_label(tankwright::ui::bench_log::APPLY_ADVICE_LABEL)
         .click();
     harness.run();
     let after = harness.state().recipe().winding.spacing;

@@ -38,17 +38,11 @@ fn one_of<T>(
 }
 
 fn model_named(name: &str) -> Result<InductanceModel, ArgError> {
-    Ok(match name {
-        "round-wire" => InductanceModel::RoundWire,
-        "filament-sum" => InductanceModel::FilamentSum,
-        "current-sheet" => InductanceModel::CurrentSheet,
-        "lundin" => InductanceModel::Lundin1985,
-        "wheeler" => InductanceModel::Wheeler1928,
-        other => {
-            return Err(ArgError(format!(
-                "--model '{other}' is not one of round-wire, filament-sum, current-sheet, lundin, wheeler"
-            )));
-        }
+    InductanceModel::from_cli_name(name).ok_or_else(|| {
+        ArgError(format!(
+            "--model '{name}' is not one of {}",
+            InductanceModel::cli_names(", ")
+        ))
     })
 }
 

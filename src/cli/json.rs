@@ -1,6 +1,6 @@
 //! The machine-readable form of an [`Analysis`], in display units named in the keys.
 
-use crate::model::Analysis;
+use crate::model::{Analysis, InductanceModel};
 use serde_json::{Value, json};
 
 const NH: f64 = 1e9;
@@ -11,20 +11,25 @@ const MM: f64 = 1e3;
 /// One JSON object with every figure; units in the key names (nh, pf, mhz, mm, ohm).
 pub fn analysis_json(a: &Analysis) -> Value {
     let i = &a.inductance;
-    let g = &a.geometry;
+    let g = &a.coil;
+    let mut inductance_nh = serde_json::Map::new();
+    for m in InductanceModel::ALL {
+        inductance_nh.insert(
+            m.json_key().to_owned(),
+            json!(i.by_model(m).map(|l| l * NH)),
+        );
+    }
+    for (key, henries) in [
+        ("round_wire_low_freq", i.round_wire_low_freq),
+        ("leads", i.leads),
+        ("total", a.total_inductance),
+        ("apparent", a.apparent_inductance),
+    ] {
+        inductance_nh.insert(key.to_owned(), json!(henries * NH));
+    }
     json!({
         "nagaoka_coefficient": a.nagaoka_coefficient,
-        "inductance_nh": {
-            "wheeler_1928": i.wheeler_1928 * NH,
-            "current_sheet": i.current_sheet * NH,
-            "lundin_1985": i.lundin_1985 * NH,
-            "round_wire_low_freq": i.round_wire_low_freq * NH,
-            "round_wire": i.round_wire * NH,
-            "filament_sum": i.filament_sum.map(|l| l * NH),
-            "leads": i.leads * NH,
-            "total": a.total_inductance * NH,
-            "apparent": a.apparent_inductance * NH,
-        },
+        "inductance_nh": inductance_nh,
         "model": a.model.label(),
         "rosa_k_s": i.k_s,
         "rosa_k_m": i.k_m,
@@ -44,19 +49,19 @@ pub fn analysis_json(a: &Analysis) -> Value {
         "dc_resistance_ohm": a.dc_resistance,
         "ac_resistance_ohm": a.ac_resistance,
         "q": a.q,
-        "wire_length_mm": g.wire_length * MM,
+        "wire_length_mm": g.wire_length() * MM,
         "geometry_mm": {
-            "mean_diameter": g.mean_diameter * MM,
-            "former_diameter": g.former_diameter * MM,
-            "wire_bare": g.wire_bare * MM,
-            "wire_overall": g.wire_overall * MM,
-            "pitch": g.pitch * MM,
-            "gap": g.gap * MM,
-            "length": g.length * MM,
-            "lead_length": g.lead_length * MM,
+            "mean_diameter": g.mean_diameter() * MM,
+            "former_diameter": g.former_diameter() * MM,
+            "wire_bare": g.wire_bare() * MM,
+            "wire_overall": g.wire_overall() * MM,
+            "pitch": g.pitch() * MM,
+            "gap": g.gap() * MM,
+            "length": g.length() * MM,
+            "lead_length": g.lead_length() * MM,
         },
-        "turns": g.turns,
-        "length_over_diameter": g.length_over_diameter,
+        "turns": g.turns(),
+        "length_over_diameter": g.length_over_diameter(),
         "warnings": a.warnings.iter().map(|w| w.message.clone()).collect::<Vec<_>>(),
     })
 }

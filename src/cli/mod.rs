@@ -3,6 +3,7 @@
 //! Everything here returns strings; `main.rs` prints them and sets the exit code.
 
 mod args;
+mod bench;
 mod evaluate;
 mod json;
 mod recipe_args;
@@ -10,13 +11,20 @@ mod report;
 mod text;
 
 pub use args::{ArgError, Args};
+pub use bench::{run_fit, run_solve};
 pub use evaluate::{EvaluateRequest, run_evaluate};
 pub use json::analysis_json;
 pub use report::{build_report, run_report};
 pub use text::analysis_report;
 
-/// Usage text for `--help`.
-pub const USAGE: &str = "\
+/// Usage text for `--help`, with the model names from [`InductanceModel::ALL`].
+///
+/// [`InductanceModel::ALL`]: crate::model::InductanceModel::ALL
+pub fn usage() -> String {
+    USAGE.replace("{models}", &crate::model::InductanceModel::cli_names(" | "))
+}
+
+const USAGE: &str = "\
 tankwright — workbench for hand-wound air-core VHF coils
 
 usage:
@@ -26,6 +34,9 @@ usage:
   tankwright evaluate FLAGS [--json]      print every figure for one coil
   tankwright evaluate --recipe FILE [--json]   the same for a saved recipe
   tankwright report FILE                  a recipe as a build sheet, then every figure
+  tankwright solve --recipe FILE [--target-mhz F] [--trimmer-pct P] [--json]
+                                          the coil and trimmer that land the target
+  tankwright fit --recipe FILE [--json]   the calibration the recipe's bench readings imply
   tankwright help                         this text
 
 evaluate flags (millimetres, picofarads, megahertz):
@@ -38,6 +49,6 @@ evaluate flags (millimetres, picofarads, megahertz):
   --capacitance-pf C     external tank capacitance, all of it but stray (default 0)
   --stray-pf S           stray capacitance (default 0)
   --temperature-c T      wire temperature (default 20)
-  --model NAME           round-wire | filament-sum | current-sheet | lundin | wheeler
+  --model NAME           {models}
   --json                 one JSON object instead of the report
 ";

@@ -1,13 +1,10 @@
 //! `tankwright report FILE`: a recipe as a build sheet, then every figure.
 
 use super::args::Args;
-use crate::model::{Analysis, Coating, Coil, DiameterSpec, Gauge, SpacingSpec, evaluate};
-use crate::recipe::{Recipe, store};
+use crate::model::{Analysis, Coating, DiameterSpec, Gauge, SpacingSpec};
+use crate::recipe::{Figures, Recipe, figures, store};
 use crate::tuning::BandPlan;
 use crate::tuning::bands::us_fm_channel_number;
-use crate::tuning::fit::correct_from_measurement;
-use crate::tuning::solve::{length_for_target, setting_for_target, stretch_sensitivity};
-use crate::tuning::sweep::touching_length;
 use std::path::Path;
 
 /// Run `report` on the words after the subcommand; Ok(stdout) or Err(one-line message).
@@ -26,9 +23,8 @@ pub fn run_report(words: Vec<String>) -> Result<String, String> {
 /// The readable build report of a recipe: name, notes, how to wind it, the tank, the target
 /// and how to reach it, the bench log, then the full analysis.
 pub fn build_report(r: &Recipe) -> Result<String, String> {
-    let coil = Coil::from_winding(&r.winding).map_err(|e| format!("invalid recipe: {e}"))?;
-    let a =
-        evaluate(&r.winding, &r.tank, &r.conditions).map_err(|e| format!("invalid recipe: {e}"))?;
+    let f = figures(r).map_err(|e| format!("invalid recipe: {e}"))?;
+    let a = f.analysis.clone();
     let mut out = Vec::new();
     out.push(format!("Recipe: {}", r.name));
     if !r.notes.trim().is_empty() {
@@ -37,8 +33,8 @@ pub fn build_report(r: &Recipe) -> Result<String, String> {
     out.push(String::new());
     winding_lines(r, &a, &mut out);
     tank_lines(r, &mut out);
-    target_lines(r, &coil, &a, &mut out);
-    bench_lines(r, &coil, &mut out);
+    target_lines(r, &f, &mut out);
+    bench_lines(r, &f, &mut out);
     out.push(String::new());
     out.push(
         "Caution: an oscillator on these frequencies can radiate. Keep it screened and into a \
@@ -54,51 +50,55 @@ pub fn build_report(r: &Recipe) -> Result<String, String> {
 
 fn winding_lines(r: &Recipe, a: &Analysis, out: &mut Vec<String>) {
     let w = &r.winding;
-    let g = &a.geometry;
+    let g = &a.coil;
     out.push("To wind".to_owned());
     out.push(match w.diameter {
         DiameterSpec::Former(d) => format!(
             "  former             {:>10.3} mm   (mean diameter {:.3} mm)",
             d * 1e3,
-            g.mean_diameter * 1e3
+            g.mean_diameter() * 1e3
         ),
         DiameterSpec::Mean(d) => format!(
             "  mean diameter      {:>10.3} mm   (former {:.3} mm)",
             d * 1e3,
-            g.former_diameter * 1e3
+            g.former_diameter() * 1e3
         ),
     });
     let size = match w.wire.gauge {
-        Gauge::Awg(n) => format!("AWG {n} ({:.3} mm)", g.wire_bare * 1e3),
-        Gauge::Swg(n) => format!("SWG {n} ({:.3} mm)", g.wire_bare * 1e3),
+        Gauge::Awg(n) => format!("AWG {n} ({:.3} mm)", g.wire_bare() * 1e3),
+        Gauge::Swg(n) => format!("SWG {n} ({:.3} mm)", g.wire_bare() * 1e3),
         Gauge::Metric(d) => format!("{:.3} mm", d * 1e3),
     };
     let coating = match w.wire.coating {
         Coating::Bare => "bare copper".to_owned(),
-        Coating::EnamelGrade1 => format!("enamel grade 1, {:.3} mm overall", g.wire_overall * 1e3),
-        Coating::EnamelGrade2 => format!("enamel grade 2, {:.3} mm overall", g.wire_overall * 1e3),
+        Coating::EnamelGrade1 => {
+            format!("enamel grade 1, {:.3} mm overall", g.wire_overall() * 1e3)
+        }
+        Coating::EnamelGrade2 => {
+            format!("enamel grade 2, {:.3} mm overall", g.wire_overall() * 1e3)
+        }
     };
     out.push(format!("  wire               {size}, {coating}"));
-    out.push(format!("  turns              {:>10.2}", g.turns));
+    out.push(format!("  turns              {:>10.2}", g.turns()));
     out.push(match w.spacing {
         SpacingSpec::Length(l) => format!(
             "  length (N x pitch) {:>10.3} mm   (gap {:.3} mm between turns)",
             l * 1e3,
-            g.gap * 1e3
+            g.gap() * 1e3
         ),
         SpacingSpec::Gap(gap) => format!(
             "  gap between turns  {:>10.3} mm   (length {:.3} mm)",
             gap * 1e3,
-            g.length * 1e3
+            g.length() * 1e3
         ),
     });
     out.push(format!(
         "  leads              {:>10.1} mm each",
-        g.lead_length * 1e3
+        g.lead_length() * 1e3
     ));
     out.push(format!(
         "  wire to cut        {:>10.1} mm   (helix plus both leads)",
-        g.wire_length * 1e3
+        g.wire_length() * 1e3
     ));
     out.push(String::new());
 }
@@ -132,9 +132,9 @@ fn tank_lines(r: &Recipe, out: &mut Vec<String>) {
     out.push(String::new());
 }
 
-fn target_lines(r: &Recipe, coil: &Coil, a: &Analysis, out: &mut Vec<String>) {
-    let target = r.target.channel;
-    let c_ext = r.tank.external_capacitance();
+fn target_lines(r: &Recipe, f: &Figures, out: &mut Vec<String>) {
+    let t = &f.target;
+    let target = t.channel;
     out.push("Target".to_owned());
     out.push(format!("  band plan          {}", r.target.plan.label()));
     // Channel numbers belong to the US plan (47 CFR §73.201).
@@ -147,25 +147,30 @@ fn target_lines(r: &Recipe, coil: &Coil, a: &Analysis, out: &mut Vec<String>) {
         "  channel            {:>10.4} MHz{number}",
         target * 1e-6
     ));
+    let model = if f.calibrated() {
+        format!("calibrated on {} reading(s)", f.readings_used())
+    } else {
+        "model, not yet calibrated on the bench".to_owned()
+    };
     out.push(format!(
-        "  resonance now      {:>10.4} MHz   offset {:+.1} kHz",
-        a.resonance * 1e-6,
-        (a.resonance - target) * 1e-3
+        "  resonance now      {:>10.4} MHz   offset {:+.1} kHz ({model})",
+        t.resonance * 1e-6,
+        t.offset * 1e-3
     ));
-    match length_for_target(coil, c_ext, &r.conditions, target) {
+    match &t.length_for_target {
         Ok(l) => out.push(format!(
             "  length for target  {:>10.3} mm   ({:+.3} mm from now)",
             l * 1e3,
-            (l - coil.length) * 1e3
+            (l - f.coil.length()) * 1e3
         )),
         Err(e) => out.push(format!("  length for target  not reachable: {e}")),
     }
     out.push(format!(
         "  stretch moves it   {:>10.1} kHz per mm",
-        stretch_sensitivity(coil, c_ext, &r.conditions) * 1e-6
+        t.stretch_sensitivity * 1e-6
     ));
     if r.tank.trimmer_max > r.tank.trimmer_min {
-        match setting_for_target(coil, &r.tank, &r.conditions, target) {
+        match &t.setting_for_target {
             Ok(s) => out.push(format!(
                 "  or trimmer at      {:>10.1} %    (at the present length)",
                 s * 100.0
@@ -173,10 +178,11 @@ fn target_lines(r: &Recipe, coil: &Coil, a: &Analysis, out: &mut Vec<String>) {
             Err(e) => out.push(format!("  trimmer alone      not enough: {e}")),
         }
     }
+    out.push(format!("  next step          {}", t.advice));
     out.push(String::new());
 }
 
-fn bench_lines(r: &Recipe, coil: &Coil, out: &mut Vec<String>) {
+fn bench_lines(r: &Recipe, f: &Figures, out: &mut Vec<String>) {
     out.push("Bench log".to_owned());
     if r.bench_log.is_empty() {
         out.push("  no measurements yet".to_owned());
@@ -205,42 +211,34 @@ fn bench_lines(r: &Recipe, coil: &Coil, out: &mut Vec<String>) {
             e.trimmer_setting * 100.0
         ));
     }
-    let Some(last) = r.bench_log.last() else {
-        return;
-    };
-    if last.length < touching_length(coil) {
-        out.push("  the latest reading's length is shorter than close-wound: no correction".into());
-        return;
-    }
-    let at_reading = coil.with_length(last.length);
-    let c_ext = r.tank.external_capacitance_at(last.trimmer_setting);
-    match correct_from_measurement(
-        &at_reading,
-        c_ext,
-        &r.conditions,
-        last.measured,
-        r.target.channel,
-    ) {
-        Some(c) => {
+    match &f.fit {
+        Some(Ok(fit)) => {
             out.push(format!(
-                "  from the latest reading the build has {:+.2} pF beyond the model",
-                c.extra_capacitance * 1e12
+                "  calibration: {:+.2} ± {:.2} pF beyond the model",
+                fit.calibration.extra_capacitance * 1e12,
+                fit.extra_capacitance_error * 1e12
             ));
-            match (c.length_for_target, c.stretch) {
-                (Ok(l), Some(s)) => out.push(format!(
-                    "  with that, the target needs {:.3} mm ({s:+.3} mm from the reading)",
-                    l * 1e3,
-                    s = s * 1e3
+            match fit.inductance_scale_error {
+                Some(e) => out.push(format!(
+                    "  inductance {:.3} ± {:.3} × the model's",
+                    fit.calibration.inductance_scale, e
                 )),
-                (Ok(l), None) => {
-                    out.push(format!("  with that, the target needs {:.3} mm", l * 1e3))
+                None => {
+                    out.push("  inductance as modelled (not separable from these readings)".into())
                 }
-                (Err(e), _) => out.push(format!("  with that, the target is out of reach: {e}")),
+            }
+            for (i, r) in fit.residuals.iter().enumerate() {
+                out.push(format!(
+                    "  reading {} is {:+.1} kHz off the fit",
+                    i + 1,
+                    r * 1e-3
+                ));
+            }
+            for w in &fit.warnings {
+                out.push(format!("  - {w}"));
             }
         }
-        None => out.push(
-            "  the latest reading is far from anything this coil can do: check the instrument"
-                .to_owned(),
-        ),
+        Some(Err(e)) => out.push(format!("  no calibration: {e}")),
+        None => {}
     }
 }

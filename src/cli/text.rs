@@ -1,14 +1,12 @@
 //! The readable report of an [`Analysis`].
 
 use crate::model::{Analysis, InductanceModel};
-use std::fmt::Write;
 
 /// A plain-text report with units, one figure a line.
 pub fn analysis_report(a: &Analysis) -> String {
-    let g = &a.geometry;
+    let g = &a.coil;
     let i = &a.inductance;
     let mut s = String::new();
-    // Writing to a String cannot fail.
     let mut line = |t: String| {
         s.push_str(&t);
         s.push('\n');
@@ -16,72 +14,53 @@ pub fn analysis_report(a: &Analysis) -> String {
     line("Coil".to_owned());
     line(format!(
         "  mean diameter      {:>10.3} mm   (former {:.3} mm)",
-        g.mean_diameter * 1e3,
-        g.former_diameter * 1e3
+        g.mean_diameter() * 1e3,
+        g.former_diameter() * 1e3
     ));
     line(format!(
         "  wire               {:>10.3} mm bare, {:.3} mm overall",
-        g.wire_bare * 1e3,
-        g.wire_overall * 1e3
+        g.wire_bare() * 1e3,
+        g.wire_overall() * 1e3
     ));
-    line(format!("  turns              {:>10.2}", g.turns));
+    line(format!("  turns              {:>10.2}", g.turns()));
     line(format!(
         "  length (N x pitch) {:>10.3} mm   pitch {:.3} mm, gap {:.3} mm",
-        g.length * 1e3,
-        g.pitch * 1e3,
-        g.gap * 1e3
+        g.length() * 1e3,
+        g.pitch() * 1e3,
+        g.gap() * 1e3
     ));
     line(format!(
         "  l/D                {:>10.3}",
-        g.length_over_diameter
+        g.length_over_diameter()
     ));
     line(format!(
         "  wire to cut        {:>10.1} mm   (helix plus two {:.1} mm leads)",
-        g.wire_length * 1e3,
-        g.lead_length * 1e3
+        g.wire_length() * 1e3,
+        g.lead_length() * 1e3
     ));
     line("Inductance (coil only)".to_owned());
     line(format!(
         "  Nagaoka K_N        {:>10.6}",
         a.nagaoka_coefficient
     ));
-    let mut model = |name: &str, value: Option<f64>, m: Option<InductanceModel>| {
-        let mark = if m == Some(a.model) {
+    for m in InductanceModel::ALL {
+        let mark = if m == a.model {
             "  <- drives the resonance"
         } else {
             ""
         };
-        match value {
-            Some(v) => line(format!("  {name:<18} {:>10.2} nH{mark}", v * 1e9)),
-            None => line(format!("  {name:<18} {:>10}", "not computed")),
+        match i.by_model(m) {
+            Some(v) => line(format!("  {:<18} {:>10.2} nH{mark}", m.label(), v * 1e9)),
+            None => line(format!("  {:<18} {:>10}", m.label(), "not computed")),
         }
-    };
-    model(
-        "Rosa round wire",
-        Some(i.round_wire),
-        Some(InductanceModel::RoundWire),
-    );
-    model("  (uniform current)", Some(i.round_wire_low_freq), None);
-    model(
-        "Maxwell filaments",
-        i.filament_sum,
-        Some(InductanceModel::FilamentSum),
-    );
-    model(
-        "current sheet",
-        Some(i.current_sheet),
-        Some(InductanceModel::CurrentSheet),
-    );
-    model(
-        "Lundin 1985",
-        Some(i.lundin_1985),
-        Some(InductanceModel::Lundin1985),
-    );
-    model(
-        "Wheeler 1928",
-        Some(i.wheeler_1928),
-        Some(InductanceModel::Wheeler1928),
-    );
+        if m == InductanceModel::RoundWire {
+            line(format!(
+                "  {:<18} {:>10.2} nH",
+                "  (uniform current)",
+                i.round_wire_low_freq * 1e9
+            ));
+        }
+    }
     line(format!("  leads (both)       {:>10.2} nH", i.leads * 1e9));
     line(format!(
         "  total              {:>10.2} nH   apparent at resonance {:.2} nH",
@@ -135,6 +114,5 @@ pub fn analysis_report(a: &Analysis) -> String {
             line(format!("  - {}", w.message));
         }
     }
-    let _ = s.write_str("");
     s
 }

@@ -1,33 +1,7 @@
 //! Every figure computed for one coil and tank, with its warnings. SI units throughout.
 
-use super::evaluate::InductanceModel;
-
-/// The coil's geometry as the formulas saw it, metres.
-#[derive(Clone, Copy, Debug, PartialEq)]
-pub struct Geometry {
-    /// Mean (wire-centre) diameter D.
-    pub mean_diameter: f64,
-    /// Former diameter (inside of the winding).
-    pub former_diameter: f64,
-    /// Bare copper diameter.
-    pub wire_bare: f64,
-    /// Diameter over the insulation.
-    pub wire_overall: f64,
-    /// Turns.
-    pub turns: f64,
-    /// Pitch, centre to centre.
-    pub pitch: f64,
-    /// Clear gap between turns' insulation.
-    pub gap: f64,
-    /// Current-sheet length N·p.
-    pub length: f64,
-    /// l/D.
-    pub length_over_diameter: f64,
-    /// Each lead.
-    pub lead_length: f64,
-    /// Wire to cut: helix plus both leads.
-    pub wire_length: f64,
-}
+use super::coil::Coil;
+use super::inductance_model::InductanceModel;
 
 /// Inductance of the coil (without leads) by every model, henries.
 #[derive(Clone, Copy, Debug, PartialEq)]
@@ -55,15 +29,17 @@ pub struct Inductances {
 }
 
 impl Inductances {
-    /// The coil's inductance by `model` (without leads). The filament sum falls back to the
-    /// round-wire value when it was not computed.
-    pub fn by_model(&self, model: InductanceModel) -> f64 {
+    /// The coil's inductance by `model` (without leads); `None` for the filament sum when the
+    /// conditions did not ask for it (see [`Conditions::computes_filament_sum`]).
+    ///
+    /// [`Conditions::computes_filament_sum`]: super::Conditions::computes_filament_sum
+    pub fn by_model(&self, model: InductanceModel) -> Option<f64> {
         match model {
-            InductanceModel::Wheeler1928 => self.wheeler_1928,
-            InductanceModel::CurrentSheet => self.current_sheet,
-            InductanceModel::Lundin1985 => self.lundin_1985,
-            InductanceModel::RoundWire => self.round_wire,
-            InductanceModel::FilamentSum => self.filament_sum.unwrap_or(self.round_wire),
+            InductanceModel::Wheeler1928 => Some(self.wheeler_1928),
+            InductanceModel::CurrentSheet => Some(self.current_sheet),
+            InductanceModel::Lundin1985 => Some(self.lundin_1985),
+            InductanceModel::RoundWire => Some(self.round_wire),
+            InductanceModel::FilamentSum => self.filament_sum,
         }
     }
 
@@ -131,8 +107,9 @@ pub struct Warning {
 /// Every figure for one coil and tank at its own resonance. SI units.
 #[derive(Clone, Debug, PartialEq)]
 pub struct Analysis {
-    /// Geometry as the formulas saw it.
-    pub geometry: Geometry,
+    /// The validated coil the formulas saw (its geometry: diameters, pitch, gap, length, l/D,
+    /// wire to cut).
+    pub coil: Coil,
     /// Nagaoka's coefficient K_N for D/l.
     pub nagaoka_coefficient: f64,
     /// Coil inductance by every model.

@@ -4,7 +4,7 @@ use super::error::{Field, InputError};
 use super::winding::{DiameterSpec, SpacingSpec, Winding};
 
 /// Limits that separate a hand-wound air coil from nonsense (common practice, generous).
-mod limits {
+pub mod limits {
     /// Mean diameter, metres.
     pub const DIAMETER: (f64, f64) = (0.5e-3, 0.3);
     /// Bare wire diameter, metres.
@@ -15,29 +15,26 @@ mod limits {
     pub const LENGTH_MAX: f64 = 2.0;
     /// Lead length, metres.
     pub const LEAD_MAX: f64 = 0.5;
+    /// Smallest clear gap between bare (or tinned) turns, metres: closer than a hand can set
+    /// them apart (about 0.1 mm, common practice) they touch, and touching bare turns short
+    /// each other.
+    pub const BARE_GAP_MIN: f64 = 0.1e-3;
 }
 
 /// A coil whose geometry has been checked: every figure is finite, positive and physical.
 ///
-/// All lengths in metres. Built only by [`Coil::from_winding`].
+/// All lengths in metres. The fields are private: [`Coil::from_winding`] and
+/// [`Coil::with_length`] are the only ways to make one, and both check.
 #[derive(Clone, Copy, Debug, PartialEq)]
 pub struct Coil {
-    /// Mean (wire-centre) diameter D.
-    pub mean_diameter: f64,
-    /// Former diameter (inside of the winding) = D − overall wire diameter.
-    pub former_diameter: f64,
-    /// Bare copper diameter d.
-    pub wire_bare: f64,
-    /// Diameter over the insulation.
-    pub wire_overall: f64,
-    /// Turns N.
-    pub turns: f64,
-    /// Pitch p, centre to centre of neighbouring turns.
-    pub pitch: f64,
-    /// Current-sheet length l = N·p.
-    pub length: f64,
-    /// Each of the two leads.
-    pub lead_length: f64,
+    mean_diameter: f64,
+    former_diameter: f64,
+    wire_bare: f64,
+    wire_overall: f64,
+    turns: f64,
+    pitch: f64,
+    length: f64,
+    lead_length: f64,
 }
 
 /// `value` if finite, else the refusal naming `field`. The refusal is built out of line: the
@@ -183,33 +180,10 @@ impl Coil {
                         format!("gap {} is negative: turns would overlap", Unit::Mm.show(g)),
                     ));
                 }
-                let pitch = overall + g;
-                (pitch, pitch * turns)
+                (overall + g, length_from_gap(overall, turns, g))
             }
         };
-        if pitch < overall {
-            return Err(InputError::new(
-                Field::Spacing,
-                format!(
-                    "pitch {} is below the insulated wire diameter {}: turns would overlap \
-                     (coil length must be at least {} for {} turns)",
-                    Unit::Mm.show(pitch),
-                    Unit::Mm.show(overall),
-                    Unit::Mm.show(overall * turns),
-                    turns
-                ),
-            ));
-        }
-        if length > limits::LENGTH_MAX {
-            return Err(InputError::new(
-                Field::Spacing,
-                format!(
-                    "coil length {} is beyond {}",
-                    Unit::Mm.show(length),
-                    Unit::Mm.show(limits::LENGTH_MAX)
-                ),
-            ));
-        }
+        check_length(turns, overall, overall <= bare, pitch, length)?;
         let lead = within(
             Field::LeadLength,
             "lead length",
@@ -229,6 +203,51 @@ impl Coil {
         })
     }
 
+    /// Mean (wire-centre) diameter D.
+    pub fn mean_diameter(&self) -> f64 {
+        self.mean_diameter
+    }
+
+    /// Former diameter (inside of the winding) = D − overall wire diameter.
+    pub fn former_diameter(&self) -> f64 {
+        self.former_diameter
+    }
+
+    /// Bare copper diameter d.
+    pub fn wire_bare(&self) -> f64 {
+        self.wire_bare
+    }
+
+    /// Diameter over the insulation (the bare diameter for bare wire).
+    pub fn wire_overall(&self) -> f64 {
+        self.wire_overall
+    }
+
+    /// Turns N.
+    pub fn turns(&self) -> f64 {
+        self.turns
+    }
+
+    /// Pitch p, centre to centre of neighbouring turns.
+    pub fn pitch(&self) -> f64 {
+        self.pitch
+    }
+
+    /// Current-sheet length l = N·p.
+    pub fn length(&self) -> f64 {
+        self.length
+    }
+
+    /// Each of the two leads.
+    pub fn lead_length(&self) -> f64 {
+        self.lead_length
+    }
+
+    /// Whether the wire has no insulation (bare or tinned copper).
+    pub fn is_bare(&self) -> bool {
+        self.wire_overall <= self.wire_bare
+    }
+
     /// Gap between the insulation of neighbouring turns, metres (zero when close-wound).
     pub fn gap(&self) -> f64 {
         (self.pitch - self.wire_overall).max(0.0)
@@ -246,13 +265,114 @@ impl Coil {
         per_turn * self.turns + 2.0 * self.lead_length
     }
 
-    /// The same coil with another current-sheet length (same turns and wire), for sweeps.
-    /// Not validated: callers keep the length at or above turns × overall diameter.
-    pub fn with_length(&self, length: f64) -> Self {
-        Self {
-            pitch: length / self.turns,
+    /// Shortest length this coil can be wound to: close-wound (turns × overall wire diameter)
+    /// for insulated wire; for bare wire, with [`limits::BARE_GAP_MIN`] between the turns.
+    pub fn shortest_length(&self) -> f64 {
+        self.turns * shortest_pitch(self.wire_overall, self.is_bare())
+    }
+
+    /// Longest length a solver proposes or a chart sweeps to: four diameters or three times the
+    /// close-wound length, whichever is longer (common practice: beyond that a self-supporting
+    /// coil sags), never beyond [`limits::LENGTH_MAX`].
+    pub fn longest_proposed_length(&self) -> f64 {
+        (4.0 * self.mean_diameter)
+            .max(3.0 * self.shortest_length())
+            .min(limits::LENGTH_MAX)
+    }
+
+    /// Coil length (turns × pitch) for a clear gap between the turns' insulation.
+    pub fn length_for_gap(&self, gap: f64) -> f64 {
+        length_from_gap(self.wire_overall, self.turns, gap)
+    }
+
+    /// Clear gap between the turns' insulation for a coil length (zero when close-wound).
+    pub fn gap_for_length(&self, length: f64) -> f64 {
+        (length / self.turns - self.wire_overall).max(0.0)
+    }
+
+    /// The same wire, diameter and leads wound with `turns` turns to `length`, checked as
+    /// [`Coil::from_winding`] checks it.
+    pub fn with_turns(&self, turns: f64, length: f64) -> Result<Self, InputError> {
+        let turns = within(Field::Turns, "turns", turns, limits::TURNS, Unit::Count)?;
+        Self { turns, ..*self }.with_length(length)
+    }
+
+    /// The same coil (turns, wire, diameter, leads) at another current-sheet length, checked
+    /// as [`Coil::from_winding`] checks it.
+    pub fn with_length(&self, length: f64) -> Result<Self, InputError> {
+        let length = finite(Field::Spacing, "coil length", length)?;
+        let pitch = length / self.turns;
+        check_length(self.turns, self.wire_overall, self.is_bare(), pitch, length)?;
+        Ok(Self {
+            pitch,
             length,
             ..*self
-        }
+        })
     }
+}
+
+/// Coil length (turns × pitch) with a clear gap between the turns' insulation.
+fn length_from_gap(overall: f64, turns: f64, gap: f64) -> f64 {
+    (overall + gap) * turns
+}
+
+/// Shortest pitch: the overall wire diameter, plus [`limits::BARE_GAP_MIN`] for bare wire.
+fn shortest_pitch(overall: f64, bare: bool) -> f64 {
+    if bare {
+        overall + limits::BARE_GAP_MIN
+    } else {
+        overall
+    }
+}
+
+/// Refuse a pitch below the insulated wire diameter (turns would overlap; a relative 1e-12 is
+/// allowed for the rounding of length/turns), bare turns closer than
+/// [`limits::BARE_GAP_MIN`], and a length beyond [`limits::LENGTH_MAX`].
+fn check_length(
+    turns: f64,
+    overall: f64,
+    bare: bool,
+    pitch: f64,
+    length: f64,
+) -> Result<(), InputError> {
+    if bare
+        && pitch >= overall * (1.0 - 1e-12)
+        && pitch < shortest_pitch(overall, true) * (1.0 - 1e-12)
+    {
+        return Err(InputError::new(
+            Field::Spacing,
+            format!(
+                "bare turns {} apart would touch and short each other: leave at least {} \
+                 between bare turns (coil length at least {} for {} turns)",
+                Unit::Mm.show((pitch - overall).max(0.0)),
+                Unit::Mm.show(limits::BARE_GAP_MIN),
+                Unit::Mm.show(shortest_pitch(overall, true) * turns),
+                turns
+            ),
+        ));
+    }
+    if pitch < overall * (1.0 - 1e-12) {
+        return Err(InputError::new(
+            Field::Spacing,
+            format!(
+                "pitch {} is below the insulated wire diameter {}: turns would overlap \
+                 (coil length must be at least {} for {} turns)",
+                Unit::Mm.show(pitch),
+                Unit::Mm.show(overall),
+                Unit::Mm.show(overall * turns),
+                turns
+            ),
+        ));
+    }
+    if length > limits::LENGTH_MAX {
+        return Err(InputError::new(
+            Field::Spacing,
+            format!(
+                "coil length {} is beyond {}",
+                Unit::Mm.show(length),
+                Unit::Mm.show(limits::LENGTH_MAX)
+            ),
+        ));
+    }
+    Ok(())
 }

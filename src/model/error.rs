@@ -27,6 +27,8 @@ pub enum Field {
     Feedback,
     /// Wire temperature.
     Temperature,
+    /// The bench calibration (inductance scale).
+    Calibration,
 }
 
 impl Field {
@@ -44,6 +46,7 @@ impl Field {
             Field::StrayCapacitance => "stray capacitance",
             Field::Feedback => "feedback divider",
             Field::Temperature => "temperature",
+            Field::Calibration => "bench calibration",
         }
     }
 }

@@ -1,8 +1,9 @@
 //! From a winding and tank to every figure: the engine's one entry point.
 
-use super::analysis::{Analysis, Geometry, Inductances, SelfResonance};
+use super::analysis::{Analysis, Inductances, SelfResonance};
 use super::coil::Coil;
 use super::error::{Field, InputError};
+use super::inductance_model::{Conditions, InductanceModel};
 use super::tank::Tank;
 use super::winding::Winding;
 use crate::physics::constants::MU_0;
@@ -11,127 +12,6 @@ use crate::physics::{
 };
 use std::f64::consts::PI;
 
-/// Which inductance model drives the resonance (the others are reported beside it).
-#[derive(Clone, Copy, Debug, PartialEq, Eq, Hash)]
-pub enum InductanceModel {
-    /// Wheeler 1928 closed form.
-    Wheeler1928,
-    /// Nagaoka's current sheet, exact.
-    CurrentSheet,
-    /// Lundin 1985 closed form.
-    Lundin1985,
-    /// Rosa's round-wire correction, frequency-aware (the default).
-    RoundWire,
-    /// Sum over rings (Maxwell's mutual inductance).
-    FilamentSum,
-}
-
-impl InductanceModel {
-    /// Every model, in the order shown.
-    pub const ALL: [InductanceModel; 5] = [
-        InductanceModel::RoundWire,
-        InductanceModel::FilamentSum,
-        InductanceModel::CurrentSheet,
-        InductanceModel::Lundin1985,
-        InductanceModel::Wheeler1928,
-    ];
-
-    /// Short name with the method's author.
-    pub fn label(self) -> &'static str {
-        match self {
-            InductanceModel::Wheeler1928 => "Wheeler 1928",
-            InductanceModel::CurrentSheet => "Nagaoka current sheet",
-            InductanceModel::Lundin1985 => "Lundin 1985",
-            InductanceModel::RoundWire => "Rosa round wire",
-            InductanceModel::FilamentSum => "Maxwell filament sum",
-        }
-    }
-}
-
-/// Conditions of the evaluation that are not part of the coil or tank.
-#[derive(Clone, Copy, Debug, PartialEq)]
-pub struct Conditions {
-    /// Wire temperature, °C.
-    pub temperature_c: f64,
-    /// The model that drives the resonance.
-    pub model: InductanceModel,
-    /// Also compute the filament sum when another model drives (it costs N Maxwell terms).
-    pub filament_sum: bool,
-}
-
-impl Default for Conditions {
-    fn default() -> Self {
-        Self {
-            temperature_c: 20.0,
-            model: InductanceModel::RoundWire,
-            filament_sum: true,
-        }
-    }
-}
-
-/// Largest capacitance accepted anywhere in the tank, farads (10 nF: far beyond any VHF tank).
-const CAPACITANCE_MAX: f64 = 10e-9;
-
-#[inline]
-fn check_capacitance(field: Field, what: &str, value: f64) -> Result<(), InputError> {
-    // NaN fails both comparisons and so takes the refusal path.
-    if (0.0..=CAPACITANCE_MAX).contains(&value) {
-        Ok(())
-    } else {
-        Err(capacitance_refusal(field, what, value))
-    }
-}
-
-#[cold]
-#[inline(never)]
-fn capacitance_refusal(field: Field, what: &str, value: f64) -> InputError {
-    if !value.is_finite() {
-        return InputError::new(field, format!("{what} is not a number"));
-    }
-    InputError::new(
-        field,
-        format!("{what} {:.3} pF is outside 0–10000 pF", value * 1e12),
-    )
-}
-
-/// Check a tank: every capacitance finite and within 0–10 nF, trimmer max ≥ min, setting 0–1.
-pub(crate) fn validate_tank(t: &Tank) -> Result<(), InputError> {
-    check_capacitance(Field::FixedCapacitance, "fixed capacitance", t.fixed)?;
-    check_capacitance(Field::Trimmer, "trimmer minimum", t.trimmer_min)?;
-    check_capacitance(Field::Trimmer, "trimmer maximum", t.trimmer_max)?;
-    if t.trimmer_max < t.trimmer_min {
-        return Err(InputError::new(
-            Field::Trimmer,
-            format!(
-                "trimmer maximum {:.2} pF is below its minimum {:.2} pF",
-                t.trimmer_max * 1e12,
-                t.trimmer_min * 1e12
-            ),
-        ));
-    }
-    if !t.trimmer_setting.is_finite() || !(0.0..=1.0).contains(&t.trimmer_setting) {
-        return Err(InputError::new(
-            Field::TrimmerSetting,
-            format!(
-                "trimmer setting {} % is outside 0–100 %",
-                t.trimmer_setting * 100.0
-            ),
-        ));
-    }
-    check_capacitance(Field::StrayCapacitance, "stray capacitance", t.stray)?;
-    if let Some(fb) = t.feedback {
-        check_capacitance(Field::Feedback, "upper feedback capacitor", fb.upper)?;
-        check_capacitance(Field::Feedback, "lower feedback capacitor", fb.lower)?;
-        if fb.upper <= 0.0 || fb.lower <= 0.0 {
-            return Err(InputError::new(
-                Field::Feedback,
-                "both feedback capacitors must be above 0 pF",
-            ));
-        }
-    }
-    Ok(())
-}
-
 fn validate_conditions(c: &Conditions) -> Result<(), InputError> {
     if !c.temperature_c.is_finite() || !(-60.0..=200.0).contains(&c.temperature_c) {
         return Err(InputError::new(
@@ -139,6 +19,16 @@ fn validate_conditions(c: &Conditions) -> Result<(), InputError> {
             format!(
                 "wire temperature {} °C is outside −60–200 °C",
                 c.temperature_c
+            ),
+        ));
+    }
+    if !(0.5..=2.0).contains(&c.inductance_scale) {
+        return Err(InputError::new(
+            Field::Calibration,
+            format!(
+                "inductance scale {} is outside 0.5–2 (a build that far from the model is \
+                 another coil)",
+                c.inductance_scale
             ),
         ));
     }
@@ -152,7 +42,7 @@ pub fn evaluate(
     conditions: &Conditions,
 ) -> Result<Analysis, InputError> {
     let coil = Coil::from_winding(winding)?;
-    validate_tank(tank)?;
+    tank.validate()?;
     validate_conditions(conditions)?;
     Ok(evaluate_coil(
         &coil,
@@ -187,51 +77,61 @@ struct Fixed {
     driving_estimate: f64,
     /// The current sheet by Lundin's closed form.
     lundin: f64,
-    length_over_diameter: f64,
     medhurst_factor: f64,
     self_capacitance: f64,
 }
 
 impl Fixed {
     fn new(coil: &Coil, c: &Conditions) -> Self {
-        let d = coil.mean_diameter;
-        let l = coil.length;
-        let sheet = nagaoka::sheet(d, l, coil.turns);
-        let k_m = round_wire::k_m(coil.turns);
+        let d = coil.mean_diameter();
+        let l = coil.length();
+        let sheet = nagaoka::sheet(d, l, coil.turns());
+        let k_m = round_wire::k_m(coil.turns());
         // k_s is 3/2 − ln(2p/d) − χ/4: one logarithm serves both limits.
-        let k_s_surface = round_wire::k_s(coil.pitch, coil.wire_bare, 0.0);
-        let correction = |k_s: f64| round_wire::correction(d, coil.turns, k_s, k_m);
+        let k_s_surface = round_wire::k_s(coil.pitch(), coil.wire_bare(), 0.0);
+        let correction = |k_s: f64| round_wire::correction(d, coil.turns(), k_s, k_m);
         let surface_correction = correction(k_s_surface);
         let round_wire = [
             sheet.inductance - surface_correction,
             sheet.inductance - correction(k_s_surface - 0.25),
         ];
         let lundin = lundin_inductance(coil);
-        let lead = leads::straight_wire_inductance_limits(coil.lead_length, 0.5 * coil.wire_bare);
+        let lead =
+            leads::straight_wire_inductance_limits(coil.lead_length(), 0.5 * coil.wire_bare());
         let leads = [2.0 * lead[0], 2.0 * lead[1]];
-        let filament = (c.filament_sum || c.model == InductanceModel::FilamentSum).then(|| {
+        let filament = c.computes_filament_sum().then(|| {
             let at = |chi: f64| {
-                filament::filament_sum(coil.turns, 0.5 * d, coil.pitch, 0.5 * coil.wire_bare, chi)
+                filament::filament_sum(
+                    coil.turns(),
+                    0.5 * d,
+                    coil.pitch(),
+                    0.5 * coil.wire_bare(),
+                    chi,
+                )
             };
             [at(0.0), at(1.0)]
         });
         let coil_pair = match c.model {
             InductanceModel::RoundWire => round_wire,
             InductanceModel::FilamentSum => filament.unwrap_or(round_wire),
-            InductanceModel::Wheeler1928 => [wheeler::inductance(d, l, coil.turns); 2],
+            InductanceModel::Wheeler1928 => [wheeler::inductance(d, l, coil.turns()); 2],
             InductanceModel::CurrentSheet => [sheet.inductance; 2],
             InductanceModel::Lundin1985 => [lundin; 2],
         };
-        let driving = [coil_pair[0] + leads[0], coil_pair[1] + leads[1]];
+        let scale = c.inductance_scale;
+        let driving = [
+            scale * (coil_pair[0] + leads[0]),
+            scale * (coil_pair[1] + leads[1]),
+        ];
         let driving_estimate = match c.model {
-            InductanceModel::RoundWire => lundin - surface_correction + leads[0],
-            InductanceModel::CurrentSheet => lundin + leads[0],
+            InductanceModel::RoundWire => scale * (lundin - surface_correction + leads[0]),
+            InductanceModel::CurrentSheet => scale * (lundin + leads[0]),
             _ => driving[0],
         };
         let length_over_diameter = l / d;
         let medhurst_factor = medhurst::factor(length_over_diameter);
         Self {
-            wire_radius: 0.5 * coil.wire_bare,
+            wire_radius: 0.5 * coil.wire_bare(),
             sheet,
             k_m,
             k_s_surface,
@@ -241,7 +141,6 @@ impl Fixed {
             driving,
             driving_estimate,
             lundin,
-            length_over_diameter,
             medhurst_factor,
             // Medhurst: H pF per cm of diameter.
             self_capacitance: medhurst_factor * d * 1e-10,
@@ -251,8 +150,8 @@ impl Fixed {
 
 /// The current sheet with Lundin's closed form for Nagaoka's coefficient.
 fn lundin_inductance(coil: &Coil) -> f64 {
-    let (d, l) = (coil.mean_diameter, coil.length);
-    nagaoka::current_sheet_inductance(d, l, coil.turns, nagaoka::coefficient_lundin(d / l))
+    let (d, l) = (coil.mean_diameter(), coil.length());
+    nagaoka::current_sheet_inductance(d, l, coil.turns(), nagaoka::coefficient_lundin(d / l))
 }
 
 fn blend(pair: [f64; 2], chi: f64) -> f64 {
@@ -357,11 +256,11 @@ pub fn evaluate_coil(coil: &Coil, external_capacitance: f64, conditions: &Condit
     let total_capacitance = external_capacitance + fixed.self_capacitance;
     let op = solve(&fixed, resistivity, total_capacitance);
     let chi = op.skin.internal_inductance_fraction;
-    let d = coil.mean_diameter;
-    let l = coil.length;
+    let d = coil.mean_diameter();
+    let l = coil.length();
 
     let inductance = Inductances {
-        wheeler_1928: wheeler::inductance(d, l, coil.turns),
+        wheeler_1928: wheeler::inductance(d, l, coil.turns()),
         current_sheet: fixed.sheet.inductance,
         lundin_1985: fixed.lundin,
         round_wire_low_freq: fixed.round_wire[1],
@@ -375,7 +274,7 @@ pub fn evaluate_coil(coil: &Coil, external_capacitance: f64, conditions: &Condit
 
     let self_resonance = SelfResonance {
         lumped: helix::lumped_self_resonance(op.inductance, fixed.self_capacitance),
-        helical: helix::helical_self_resonance(d, coil.pitch, l),
+        helical: helix::helical_self_resonance(d, coil.pitch(), l),
     };
     // (f/f_lumped)² = C_self/C: both come from the same inductance, so
     // L/(1 − (f/f_lumped)²) = L·C/(C − C_self).
@@ -383,30 +282,16 @@ pub fn evaluate_coil(coil: &Coil, external_capacitance: f64, conditions: &Condit
         op.inductance * total_capacitance / (external_capacitance.max(1e-9 * total_capacitance));
 
     let wire_length = coil.wire_length();
-    let coil_wire = wire_length - 2.0 * coil.lead_length;
-    let proximity_factor = proximity::wall_proximity_factor(coil.pitch / coil.wire_bare);
-    let r_dc_coil = copper::dc_resistance(resistivity, coil.wire_bare, coil_wire);
-    let r_dc_leads = copper::dc_resistance(resistivity, coil.wire_bare, 2.0 * coil.lead_length);
+    let coil_wire = wire_length - 2.0 * coil.lead_length();
+    let proximity_factor = proximity::wall_proximity_factor(coil.pitch() / coil.wire_bare());
+    let r_dc_coil = copper::dc_resistance(resistivity, coil.wire_bare(), coil_wire);
+    let r_dc_leads = copper::dc_resistance(resistivity, coil.wire_bare(), 2.0 * coil.lead_length());
     let ac_resistance = op.skin.resistance_ratio * (r_dc_coil * proximity_factor + r_dc_leads);
     let q = op.omega * op.inductance / ac_resistance;
 
-    let geometry = Geometry {
-        mean_diameter: d,
-        former_diameter: coil.former_diameter,
-        wire_bare: coil.wire_bare,
-        wire_overall: coil.wire_overall,
-        turns: coil.turns,
-        pitch: coil.pitch,
-        gap: coil.gap(),
-        length: l,
-        length_over_diameter: fixed.length_over_diameter,
-        lead_length: coil.lead_length,
-        wire_length,
-    };
-
-    let skin_depth = 0.5 * coil.wire_bare * op.depth_over_radius;
+    let skin_depth = 0.5 * coil.wire_bare() * op.depth_over_radius;
     let warnings = super::warnings::collect(&super::warnings::Judged {
-        geometry: &geometry,
+        coil,
         inductance: &inductance,
         self_resonance: &self_resonance,
         resonance: op.frequency,
@@ -416,7 +301,7 @@ pub fn evaluate_coil(coil: &Coil, external_capacitance: f64, conditions: &Condit
     });
 
     Analysis {
-        geometry,
+        coil: *coil,
         nagaoka_coefficient: fixed.sheet.coefficient,
         inductance,
         model: conditions.model,

@@ -1,5 +1,7 @@
 //! The capacitive side of the tank.
 
+use super::error::{Field, InputError};
+
 /// Two capacitors in series across the tank (the feedback divider of a Colpitts oscillator).
 #[derive(Clone, Copy, Debug, PartialEq)]
 pub struct FeedbackDivider {
@@ -67,5 +69,75 @@ impl Tank {
             stray,
             feedback: None,
         }
+    }
+}
+
+/// Largest capacitance accepted anywhere in the tank, farads (10 nF: far beyond any VHF tank).
+pub const CAPACITANCE_MAX: f64 = 10e-9;
+
+#[inline]
+fn check_capacitance(field: Field, what: &str, value: f64) -> Result<(), InputError> {
+    // NaN fails both comparisons and so takes the refusal path.
+    if (0.0..=CAPACITANCE_MAX).contains(&value) {
+        Ok(())
+    } else {
+        Err(capacitance_refusal(field, what, value))
+    }
+}
+
+#[cold]
+#[inline(never)]
+fn capacitance_refusal(field: Field, what: &str, value: f64) -> InputError {
+    if !value.is_finite() {
+        return InputError::new(field, format!("{what} is not a number"));
+    }
+    InputError::new(
+        field,
+        format!(
+            "{what} {:.3} pF is outside 0–{:.0} pF",
+            value * 1e12,
+            CAPACITANCE_MAX * 1e12
+        ),
+    )
+}
+
+impl Tank {
+    /// Check the tank: every capacitance finite and within 0–[`CAPACITANCE_MAX`], trimmer
+    /// maximum ≥ minimum, setting 0–1, both feedback capacitors above zero.
+    pub fn validate(&self) -> Result<(), InputError> {
+        check_capacitance(Field::FixedCapacitance, "fixed capacitance", self.fixed)?;
+        check_capacitance(Field::Trimmer, "trimmer minimum", self.trimmer_min)?;
+        check_capacitance(Field::Trimmer, "trimmer maximum", self.trimmer_max)?;
+        if self.trimmer_max < self.trimmer_min {
+            return Err(InputError::new(
+                Field::Trimmer,
+                format!(
+                    "trimmer maximum {:.2} pF is below its minimum {:.2} pF",
+                    self.trimmer_max * 1e12,
+                    self.trimmer_min * 1e12
+                ),
+            ));
+        }
+        if !self.trimmer_setting.is_finite() || !(0.0..=1.0).contains(&self.trimmer_setting) {
+            return Err(InputError::new(
+                Field::TrimmerSetting,
+                format!(
+                    "trimmer setting {} % is outside 0–100 %",
+                    self.trimmer_setting * 100.0
+                ),
+            ));
+        }
+        check_capacitance(Field::StrayCapacitance, "stray capacitance", self.stray)?;
+        if let Some(fb) = self.feedback {
+            check_capacitance(Field::Feedback, "upper feedback capacitor", fb.upper)?;
+            check_capacitance(Field::Feedback, "lower feedback capacitor", fb.lower)?;
+            if fb.upper <= 0.0 || fb.lower <= 0.0 {
+                return Err(InputError::new(
+                    Field::Feedback,
+                    "both feedback capacitors must be above 0 pF",
+                ));
+            }
+        }
+        Ok(())
     }
 }

@@ -1,6 +1,7 @@
 //! Cautions attached to an [`Analysis`]: figures outside a model's range.
 
-use super::analysis::{Geometry, Inductances, SelfResonance, Warning, WarningTopic};
+use super::analysis::{Inductances, SelfResonance, Warning, WarningTopic};
+use super::coil::Coil;
 use crate::physics::{medhurst, wheeler};
 
 /// Operating frequency above this fraction of self-resonance raises the apparent inductance by
@@ -24,7 +25,7 @@ fn push(out: &mut Vec<Warning>, topic: WarningTopic, message: String) {
 /// The figures the warnings judge, gathered before they go into an
 /// [`Analysis`](super::Analysis) (so that the analysis can be built in its final place).
 pub(super) struct Judged<'a> {
-    pub geometry: &'a Geometry,
+    pub coil: &'a Coil,
     pub inductance: &'a Inductances,
     pub self_resonance: &'a SelfResonance,
     pub resonance: f64,
@@ -36,8 +37,8 @@ pub(super) struct Judged<'a> {
 /// All warnings for an evaluation's figures.
 pub(super) fn collect(a: &Judged<'_>) -> Vec<Warning> {
     let mut out = Vec::new();
-    let g = a.geometry;
-    if !wheeler::in_range(g.mean_diameter, g.length) {
+    let g = a.coil;
+    if !wheeler::in_range(g.mean_diameter(), g.length()) {
         let err = (a.inductance.wheeler_1928 / a.inductance.current_sheet - 1.0) * 100.0;
         push(
             &mut out,
@@ -45,28 +46,28 @@ pub(super) fn collect(a: &Judged<'_>) -> Vec<Warning> {
             format!(
                 "Wheeler 1928 is outside its range (length {:.2} mm < 0.8 × radius); it differs \
                  from the exact current sheet by {err:+.1} %",
-                g.length * 1e3
+                g.length() * 1e3
             ),
         );
     }
-    if g.pitch > ROSA_MAX_PITCH_OVER_DIAMETER * g.mean_diameter {
+    if g.pitch() > ROSA_MAX_PITCH_OVER_DIAMETER * g.mean_diameter() {
         push(
             &mut out,
             WarningTopic::Inductance,
             format!(
                 "pitch {:.2} mm exceeds half the diameter: Rosa's round-wire correction assumes \
                  a pitch small against the diameter; trust the filament sum here",
-                g.pitch * 1e3
+                g.pitch() * 1e3
             ),
         );
     }
-    if !medhurst::in_table(g.length_over_diameter) {
+    if !medhurst::in_table(g.length_over_diameter()) {
         push(
             &mut out,
             WarningTopic::SelfCapacitance,
             format!(
                 "l/D = {:.3} is outside Medhurst's table (0.1–50): self-capacitance extrapolated",
-                g.length_over_diameter
+                g.length_over_diameter()
             ),
         );
     }
@@ -84,7 +85,7 @@ pub(super) fn collect(a: &Judged<'_>) -> Vec<Warning> {
             ),
         );
     }
-    if g.turns < 5.0 {
+    if g.turns() < 5.0 {
         push(
             &mut out,
             WarningTopic::SelfResonance,
@@ -93,7 +94,7 @@ pub(super) fn collect(a: &Judged<'_>) -> Vec<Warning> {
                 .to_owned(),
         );
     }
-    if 0.5 * g.wire_bare < MIN_RADIUS_OVER_SKIN_DEPTH * a.skin_depth {
+    if 0.5 * g.wire_bare() < MIN_RADIUS_OVER_SKIN_DEPTH * a.skin_depth {
         push(
             &mut out,
             WarningTopic::Loss,
@@ -104,7 +105,7 @@ pub(super) fn collect(a: &Judged<'_>) -> Vec<Warning> {
             ),
         );
     }
-    if g.length_over_diameter < 1.0 {
+    if g.length_over_diameter() < 1.0 {
         push(
             &mut out,
             WarningTopic::Loss,

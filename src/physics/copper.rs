@@ -45,7 +45,7 @@ const SERIES_LIMIT: f64 = 10.0;
 /// R_ac/R_dc is its real part; the internal inductance is its imaginary part over ω, and
 /// since ω·(µ0/8π)/R_dc = q²/4 the fraction is Im(Z/R_dc)/(q²/4).
 /// For q ≤ 10 the power series of J0 and J1 is summed; above, the asymptotic expansion in
-/// v = 1/q (see [`asymptotic_impedance`]) is used, which meets the series at q = 10 to
+/// v = 1/q (see `asymptotic_impedance`) is used, which meets the series at q = 10 to
 /// about 1e-8.
 pub fn internal_impedance(radius_over_skin_depth: f64) -> InternalImpedance {
     let q = radius_over_skin_depth.max(0.0);
@@ -79,7 +79,7 @@ pub fn internal_inductance_fraction_at_depth_ratio(skin_depth_over_radius: f64) 
     }
 }
 
-/// The asymptotic internal inductance fraction at v = δ/r (see [`asymptotic_impedance`]),
+/// The asymptotic internal inductance fraction at v = δ/r (see `asymptotic_impedance`),
 /// clamped to [0, 1]: a polynomial in v, with no division.
 fn asymptotic_fraction(v: f64) -> f64 {
     let v2 = v * v;

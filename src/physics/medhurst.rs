@@ -85,7 +85,7 @@ pub fn in_table(length_over_diameter: f64) -> bool {
     (MIN_LENGTH_OVER_DIAMETER..=MAX_LENGTH_OVER_DIAMETER).contains(&length_over_diameter)
 }
 
-/// Self-capacitance in farads: H·D with D in cm gives pF, so C = H·D[m]·1e-10 F.
+/// Self-capacitance in farads: H·D with D in cm gives pF, so C = H·D\[m\]·1e-10 F.
 pub fn self_capacitance(mean_diameter: f64, length_over_diameter: f64) -> f64 {
     factor(length_over_diameter) * mean_diameter * 1e-10
 }

@@ -10,7 +10,7 @@ pub const MIN_LENGTH_OVER_RADIUS: f64 = 0.8;
 /// Inductance by Wheeler 1928, henries.
 ///
 /// # Formula
-/// L[µH] = a²N²/(9a + 10l), with the mean radius a and the length l in inches
+/// L\[µH\] = a²N²/(9a + 10l), with the mean radius a and the length l in inches
 /// (Wheeler 1928, Proc. IRE 16, 1398). Here converted to SI: metres in, henries out.
 pub fn inductance(mean_diameter: f64, length: f64, turns: f64) -> f64 {
     const INCHES_PER_METRE: f64 = 1.0 / 0.0254;

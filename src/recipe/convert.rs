@@ -8,8 +8,8 @@ use super::schema::{
     PlanName, ReadingSheet, RecipeFile, SCHEMA, Scaled, SpacingMm, TankSheet, WireSize,
 };
 use crate::model::{
-    Coating, Conditions, DiameterSpec, FeedbackDivider, Field, Gauge, InductanceModel, SpacingSpec,
-    Tank, Winding, WireSpec,
+    Coating, Conditions, DiameterSpec, FeedbackDivider, Field, Gauge, SpacingSpec, Tank, Winding,
+    WireSpec,
 };
 use crate::tuning::BandPlan;
 
@@ -20,7 +20,7 @@ const NAME_MAX: usize = 200;
 /// Largest instrument error accepted, ppm.
 const PPM_MAX: f64 = 1e6;
 /// Longest coil length a bench reading may record, mm (as the model's limit).
-const BENCH_LENGTH_MAX_MM: f64 = 2000.0;
+const BENCH_LENGTH_MAX_MM: f64 = crate::model::limits::LENGTH_MAX * 1e3;
 
 /// The file form of a recipe.
 pub(crate) fn to_file_form(r: &Recipe) -> RecipeFile {
@@ -65,13 +65,7 @@ pub(crate) fn to_file_form(r: &Recipe) -> RecipeFile {
         },
         conditions: ConditionsSheet {
             wire_temperature_c: r.conditions.temperature_c,
-            drives_resonance: match r.conditions.model {
-                InductanceModel::RoundWire => ModelName::RoundWire,
-                InductanceModel::FilamentSum => ModelName::FilamentSum,
-                InductanceModel::CurrentSheet => ModelName::CurrentSheet,
-                InductanceModel::Lundin1985 => ModelName::Lundin1985,
-                InductanceModel::Wheeler1928 => ModelName::Wheeler1928,
-            },
+            drives_resonance: ModelName(r.conditions.model),
             filament_sum: r.conditions.filament_sum,
         },
         aim: AimSheet {
@@ -93,6 +87,7 @@ pub(crate) fn to_file_form(r: &Recipe) -> RecipeFile {
                 measured_mhz: Scaled::from_si(e.measured),
                 coil_length_mm: Scaled::from_si(e.length),
                 trimmer_percent: Scaled::from_si(e.trimmer_setting),
+                added_pf: Scaled::from_si(e.added_capacitance),
                 instrument: e.instrument.clone(),
                 error_ppm: e.error_ppm,
                 note: e.note.clone(),
@@ -111,7 +106,7 @@ fn file_field(field: Field, sheet: &RecipeFile) -> (&'static str, &'static str) 
         Field::LeadLength => ("coil.each_lead_mm", "each_lead_mm"),
         Field::FixedCapacitance => ("tank.fixed_pf", "fixed_pf"),
         Field::Trimmer => {
-            if (0.0..=1e4).contains(&sheet.tank.trimmer_min_pf.file_units()) {
+            if (0.0..=crate::model::CAPACITANCE_MAX).contains(&sheet.tank.trimmer_min_pf.si()) {
                 ("tank.trimmer_max_pf", "trimmer_max_pf")
             } else {
                 ("tank.trimmer_min_pf", "trimmer_min_pf")
@@ -121,6 +116,7 @@ fn file_field(field: Field, sheet: &RecipeFile) -> (&'static str, &'static str) 
         Field::StrayCapacitance => ("tank.stray_pf", "stray_pf"),
         Field::Feedback => ("tank.feedback", "feedback"),
         Field::Temperature => ("conditions.wire_temperature_c", "wire_temperature_c"),
+        Field::Calibration => ("bench_log", "bench_log"),
     }
 }
 
@@ -194,14 +190,9 @@ pub(crate) fn from_file_form(sheet: RecipeFile, text: &str) -> Result<Recipe, Lo
     let k = &sheet.conditions;
     let conditions = Conditions {
         temperature_c: k.wire_temperature_c,
-        model: match k.drives_resonance {
-            ModelName::RoundWire => InductanceModel::RoundWire,
-            ModelName::FilamentSum => InductanceModel::FilamentSum,
-            ModelName::CurrentSheet => InductanceModel::CurrentSheet,
-            ModelName::Lundin1985 => InductanceModel::Lundin1985,
-            ModelName::Wheeler1928 => InductanceModel::Wheeler1928,
-        },
+        model: k.drives_resonance.0,
         filament_sum: k.filament_sum,
+        inductance_scale: 1.0,
     };
     // The same rules as the sliders: the engine refuses, naming its field.
     if let Err(e) = crate::model::evaluate(&winding, &tank, &conditions) {
@@ -287,10 +278,25 @@ fn reading_from_file(r: &ReadingSheet, i: usize, text: &str) -> Result<BenchEntr
             format!("instrument error {ppm} ppm is outside 0–{PPM_MAX} ppm"),
         ));
     }
+    let added = r.added_pf.si();
+    if !(0.0..=crate::model::CAPACITANCE_MAX).contains(&added) {
+        return Err(refuse(
+            text,
+            &field("added_pf"),
+            "added_pf",
+            i,
+            format!(
+                "added capacitance {} pF is outside 0–{:.0} pF",
+                r.added_pf.text(),
+                crate::model::CAPACITANCE_MAX * 1e12
+            ),
+        ));
+    }
     Ok(BenchEntry {
         measured: r.measured_mhz.si(),
         length: r.coil_length_mm.si(),
         trimmer_setting: r.trimmer_percent.si(),
+        added_capacitance: added,
         instrument: r.instrument.clone(),
         error_ppm: r.error_ppm,
         note: r.note.clone(),

@@ -5,6 +5,7 @@ use crate::model::{
     Winding, WireSpec,
 };
 use crate::tuning::BandPlan;
+use crate::tuning::fit::Reading;
 
 /// The channel a recipe aims at.
 #[derive(Clone, Debug, PartialEq)]
@@ -24,6 +25,8 @@ pub struct BenchEntry {
     pub length: f64,
     /// Trimmer setting at the time, 0–1.
     pub trimmer_setting: f64,
+    /// A known capacitor clipped across the tank for this reading, farads (0 for none).
+    pub added_capacitance: f64,
     /// What it was measured with (free text).
     pub instrument: String,
     /// The instrument's frequency error in ppm, if known.
@@ -51,7 +54,25 @@ pub struct Recipe {
     pub bench_log: Vec<BenchEntry>,
 }
 
+impl BenchEntry {
+    /// The reading in the engine's terms.
+    pub fn reading(&self) -> Reading {
+        Reading {
+            measured: self.measured,
+            length: self.length,
+            trimmer_setting: self.trimmer_setting,
+            added_capacitance: self.added_capacitance,
+            error_ppm: self.error_ppm,
+        }
+    }
+}
+
 impl Recipe {
+    /// Every bench reading in the engine's terms, oldest first.
+    pub fn readings(&self) -> Vec<Reading> {
+        self.bench_log.iter().map(BenchEntry::reading).collect()
+    }
+
     /// The demo coil: an invented scenario (see assets/recipes). A 5-turn coil of 1.0 mm bare
     /// copper on a 6 mm former for a bench oscillator aimed at 98.7 MHz, with a 2–10 pF trimmer.
     pub fn demo() -> Self {
@@ -85,6 +106,7 @@ impl Recipe {
                 temperature_c: 25.0,
                 model: InductanceModel::RoundWire,
                 filament_sum: true,
+                inductance_scale: 1.0,
             },
             target: Target {
                 plan: BandPlan::UsFm,

@@ -5,6 +5,7 @@
 //! model types; `convert` is the one place that translates between them.
 
 use super::decimal::{si_from_text, text_from_si};
+use crate::model::InductanceModel;
 use ron::value::RawValue;
 use serde::{Deserialize, Deserializer, Serialize, Serializer, de::Error as _};
 
@@ -236,6 +237,10 @@ pub struct ConditionsSheet {
     pub filament_sum: bool,
 }
 
+fn is_zero_pf(c: &Picofarads) -> bool {
+    c.si() == 0.0
+}
+
 fn room_temperature() -> f64 {
     20.0
 }
@@ -254,20 +259,69 @@ impl Default for ConditionsSheet {
     }
 }
 
-/// Inductance models by the method's name.
-#[derive(Clone, Copy, Debug, Default, PartialEq, Serialize, Deserialize)]
-pub enum ModelName {
-    /// Rosa's round-wire correction.
-    #[default]
-    RoundWire,
-    /// Maxwell's filament sum.
-    FilamentSum,
-    /// Nagaoka's current sheet.
-    CurrentSheet,
-    /// Lundin 1985.
-    Lundin1985,
-    /// Wheeler 1928.
-    Wheeler1928,
+/// An inductance model written by its [`InductanceModel::file_name`] (`RoundWire`, …): the
+/// names come from [`InductanceModel::ALL`], so a new model needs nothing here.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct ModelName(pub InductanceModel);
+
+impl Default for ModelName {
+    fn default() -> Self {
+        Self(InductanceModel::RoundWire)
+    }
+}
+
+impl Serialize for ModelName {
+    fn serialize<S: Serializer>(&self, serializer: S) -> Result<S::Ok, S::Error> {
+        let index = InductanceModel::ALL
+            .iter()
+            .position(|m| *m == self.0)
+            .and_then(|i| u32::try_from(i).ok())
+            .unwrap_or(0);
+        serializer.serialize_unit_variant("ModelName", index, self.0.file_name())
+    }
+}
+
+/// A variant's name read as an identifier (RON writes `RoundWire`, not `"RoundWire"`).
+struct Identifier(String);
+
+impl<'de> Deserialize<'de> for Identifier {
+    fn deserialize<D: Deserializer<'de>>(deserializer: D) -> Result<Self, D::Error> {
+        struct Name;
+        impl serde::de::Visitor<'_> for Name {
+            type Value = Identifier;
+            fn expecting(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+                f.write_str("a model's name")
+            }
+            fn visit_str<E: serde::de::Error>(self, v: &str) -> Result<Identifier, E> {
+                Ok(Identifier(v.to_owned()))
+            }
+        }
+        deserializer.deserialize_identifier(Name)
+    }
+}
+
+impl<'de> Deserialize<'de> for ModelName {
+    fn deserialize<D: Deserializer<'de>>(deserializer: D) -> Result<Self, D::Error> {
+        struct Named;
+        impl<'de> serde::de::Visitor<'de> for Named {
+            type Value = ModelName;
+            fn expecting(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+                write!(f, "one of {}", InductanceModel::FILE_NAMES.join(", "))
+            }
+            fn visit_enum<A: serde::de::EnumAccess<'de>>(
+                self,
+                data: A,
+            ) -> Result<Self::Value, A::Error> {
+                use serde::de::VariantAccess;
+                let (Identifier(name), variant) = data.variant()?;
+                variant.unit_variant()?;
+                InductanceModel::from_file_name(&name)
+                    .map(ModelName)
+                    .ok_or_else(|| A::Error::unknown_variant(&name, &InductanceModel::FILE_NAMES))
+            }
+        }
+        deserializer.deserialize_enum("ModelName", &InductanceModel::FILE_NAMES, Named)
+    }
 }
 
 /// The channel aimed at.
@@ -309,6 +363,9 @@ pub struct ReadingSheet {
     pub coil_length_mm: Millimetres,
     /// Trimmer setting at the time, percent.
     pub trimmer_percent: Percent,
+    /// A known capacitor clipped across the tank for this reading, pF (0 or absent: none).
+    #[serde(default, skip_serializing_if = "is_zero_pf")]
+    pub added_pf: Picofarads,
     /// What it was measured with.
     #[serde(default)]
     pub instrument: String,

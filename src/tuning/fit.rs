@@ -1,64 +1,584 @@
-//! Correcting from a bench measurement: what the build really has, and how far to move.
+//! Calibrating the model from bench readings: what the build really has.
+//!
+//! # Method
+//! Each reading i gives a measured frequency fᵢ with the coil at length lᵢ, the trimmer at its
+//! setting and any known capacitor clipped on, so the model's external capacitance Cᵢ is known.
+//! Two numbers describe how the build departs from the model:
+//! - ΔC, capacitance the build has beyond the model's (stray, device, layout), farads;
+//! - s, the build's inductance over the model's (former slip, lead dress, turns miscounted).
+//!
+//! They are found by weighted least squares on the model itself,
+//! min Σ ((fᵢ − f(lᵢ, Cᵢ + ΔC; s·L)) / σᵢ)², by Gauss–Newton with a finite-difference Jacobian
+//! (Press et al., *Numerical Recipes*, 3rd ed., 2007, §15.5), σᵢ being the instrument's error
+//! (ppm × fᵢ; [`ASSUMED_ERROR_PPM`] when not given). The standard errors are the square roots of
+//! the diagonal of (JᵀWJ)⁻¹, scaled by the reduced χ² when it exceeds 1 (§15.4).
+//!
+//! One reading, or readings that do not tell capacitance from inductance (all at one
+//! capacitance and length), determine ΔC alone; s is then held at 1 and the fit says so.
+//! Readings at different total capacitance (trimmer settings, or the classic bench trick of
+//! clipping on a known capacitor) separate the two, because f⁻² = 4π²·s·L·(Cᵢ + ΔC + C_self)
+//! is a line in Cᵢ whose slope is the inductance and whose intercept is the hidden capacitance
+//! ([`inverse_square_line`]); readings at different lengths constrain s through the model's
+//! length dependence.
 
-use super::solve::{Unreachable, length_for_target};
-use crate::model::{Coil, Conditions, evaluate::resonance_of};
+use super::solve::resonance_at_length;
+use crate::model::{Coil, Conditions, Tank, evaluate::resonance_of};
+use std::f64::consts::PI;
+use std::fmt;
 
-/// What a measurement says about the build.
-#[derive(Clone, Debug, PartialEq)]
-pub struct Correction {
-    /// Capacitance the build has beyond the model's, farads (negative: less than assumed).
-    /// It lumps every error (stray, device capacitance, former-diameter slip) into one number
-    /// that reproduces the measurement.
-    pub extra_capacitance: f64,
-    /// Coil length that lands the target with that extra capacitance, metres.
-    pub length_for_target: Result<f64, Unreachable>,
-    /// Length change from the coil as measured, metres (positive: stretch).
-    pub stretch: Option<f64>,
+/// Error assumed for a reading whose instrument's error is not given, ppm (common practice: a
+/// counter on an uncompensated crystal time base is good to some 10 ppm).
+pub const ASSUMED_ERROR_PPM: f64 = 10.0;
+
+/// A scale factor further than this from 1 suggests another coil than the one modelled
+/// (common practice: a turn miscounted changes L by 2/N, 40 % at five turns; a former a
+/// millimetre off changes it by some 15–30 % on 5–8 mm coils).
+pub const SCALE_PLAUSIBLE: f64 = 0.15;
+
+/// A reading within this fraction of 2×, 3×, ½× or ⅓× the prediction is suspected of being a
+/// harmonic or the wrong tank (common practice).
+pub const HARMONIC_WINDOW: f64 = 0.04;
+
+/// Residuals beyond this many instrument errors are flagged.
+pub const RESIDUAL_LIMIT: f64 = 3.0;
+
+/// Largest standard error of the scale factor at which it is reported as determined: beyond
+/// it the readings do not separate inductance from capacitance and the stray alone is fitted.
+const SCALE_ERROR_MAX: f64 = 0.25;
+
+/// One bench reading in the engine's terms. SI units.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct Reading {
+    /// Measured frequency, hertz.
+    pub measured: f64,
+    /// Coil length (turns × pitch) as measured at the time, metres.
+    pub length: f64,
+    /// Trimmer setting at the time, 0–1.
+    pub trimmer_setting: f64,
+    /// A known capacitance clipped across the tank for this reading, farads (0 for none).
+    pub added_capacitance: f64,
+    /// The instrument's frequency error, ppm, if known.
+    pub error_ppm: Option<f64>,
 }
 
-/// Find the extra capacitance that makes the model reproduce `measured` hertz for `coil`
-/// across `external_capacitance`, then the length that hits `target`.
-///
-/// Returns `None` when no capacitance between −(external) and +1 nF reproduces the
-/// measurement (a reading far from anything this coil can do).
-pub fn correct_from_measurement(
-    coil: &Coil,
-    external_capacitance: f64,
-    conditions: &Conditions,
+impl Reading {
+    /// Everything across the coil for this reading but the build's unknowns, farads.
+    pub fn external_capacitance(&self, tank: &Tank) -> f64 {
+        tank.external_capacitance_at(self.trimmer_setting.clamp(0.0, 1.0)) + self.added_capacitance
+    }
+
+    /// The reading's standard error, hertz.
+    pub fn sigma(&self) -> f64 {
+        self.error_ppm.unwrap_or(ASSUMED_ERROR_PPM).abs().max(1e-3) * 1e-6 * self.measured
+    }
+}
+
+/// How the build departs from the model: applied, it makes the model reproduce the readings.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct Calibration {
+    /// Capacitance beyond the model's, farads (negative: less than assumed).
+    pub extra_capacitance: f64,
+    /// The build's inductance over the model's.
+    pub inductance_scale: f64,
+}
+
+impl Calibration {
+    /// The model as it stands.
+    pub const NONE: Calibration = Calibration {
+        extra_capacitance: 0.0,
+        inductance_scale: 1.0,
+    };
+
+    /// The tank with the extra capacitance added to its stray term.
+    pub fn tank(&self, tank: &Tank) -> Tank {
+        Tank {
+            stray: tank.stray + self.extra_capacitance,
+            ..*tank
+        }
+    }
+
+    /// The conditions with the inductance scale applied.
+    pub fn conditions(&self, conditions: &Conditions) -> Conditions {
+        Conditions {
+            inductance_scale: conditions.inductance_scale * self.inductance_scale,
+            ..*conditions
+        }
+    }
+}
+
+/// Something about a fit worth a builder's attention.
+#[derive(Clone, Debug, PartialEq)]
+pub enum FitWarning {
+    /// The stray term came out negative: the tank holds less capacitance than its parts.
+    NegativeStray {
+        /// The tank's stray plus the fitted extra, farads.
+        total: f64,
+    },
+    /// The readings cannot tell inductance from capacitance; the stray alone was fitted.
+    ScaleUndetermined {
+        /// Why, in words.
+        reason: &'static str,
+    },
+    /// A reading's residual is far beyond its instrument's error.
+    Inconsistent {
+        /// Index of the reading (0 = oldest).
+        reading: usize,
+        /// Measured minus fitted, hertz.
+        residual: f64,
+        /// The reading's standard error, hertz.
+        sigma: f64,
+    },
+    /// The fitted scale factor is far from 1.
+    ScaleImplausible {
+        /// The fitted scale factor.
+        scale: f64,
+    },
+    /// A reading sits near a multiple or fraction of the prediction.
+    Harmonic {
+        /// Index of the reading.
+        reading: usize,
+        /// "2×", "3×", "½×" or "⅓×".
+        ratio: &'static str,
+        /// The model's prediction for that reading, hertz.
+        predicted: f64,
+    },
+    /// Some readings carry no instrument error; [`ASSUMED_ERROR_PPM`] was used.
+    AssumedError {
+        /// How many readings.
+        readings: usize,
+    },
+}
+
+impl fmt::Display for FitWarning {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        match self {
+            FitWarning::NegativeStray { total } => write!(
+                f,
+                "the fit needs {:.2} pF of stray, below zero: check the fixed capacitor's value \
+                 and the trimmer's range",
+                total * 1e12
+            ),
+            FitWarning::ScaleUndetermined { reason } => write!(
+                f,
+                "{reason}: only the stray was fitted. Add a reading at another trimmer setting \
+                 or with a known capacitor clipped on to separate the inductance"
+            ),
+            FitWarning::Inconsistent {
+                reading,
+                residual,
+                sigma,
+            } => write!(
+                f,
+                "reading {} is {:+.1} kHz from the fit, {:.0} times its instrument error: a \
+                 misread or a coil that moved",
+                reading + 1,
+                residual * 1e-3,
+                (residual / sigma).abs()
+            ),
+            FitWarning::ScaleImplausible { scale } => write!(
+                f,
+                "the build's inductance is {:+.0} % from the model: check the turns count and \
+                 the former diameter",
+                (scale - 1.0) * 100.0
+            ),
+            FitWarning::Harmonic {
+                reading,
+                ratio,
+                predicted,
+            } => write!(
+                f,
+                "reading {} is about {ratio} the predicted {:.3} MHz: is this a harmonic, or the \
+                 wrong tank?",
+                reading + 1,
+                predicted * 1e-6
+            ),
+            FitWarning::AssumedError { readings } => write!(
+                f,
+                "{readings} reading(s) give no instrument error: {ASSUMED_ERROR_PPM} ppm assumed"
+            ),
+        }
+    }
+}
+
+/// Why no fit was made.
+#[derive(Clone, Debug, PartialEq)]
+pub enum FitError {
+    /// There are no readings.
+    NoReadings,
+    /// A reading's length or frequency is not one the model can take.
+    BadReading {
+        /// Index of the reading.
+        reading: usize,
+        /// Why, in words.
+        reason: String,
+    },
+    /// No capacitance reproduces the readings (a reading far from anything this coil can do).
+    NoSolution,
+}
+
+impl fmt::Display for FitError {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        match self {
+            FitError::NoReadings => f.write_str("no readings to fit"),
+            FitError::BadReading { reading, reason } => {
+                write!(f, "reading {}: {reason}", reading + 1)
+            }
+            FitError::NoSolution => f.write_str(
+                "no capacitance makes this coil reproduce the readings: check the instrument, \
+                 the turns and the tank",
+            ),
+        }
+    }
+}
+
+/// The result of calibrating the model on the readings.
+#[derive(Clone, Debug, PartialEq)]
+pub struct Fit {
+    /// The calibration found.
+    pub calibration: Calibration,
+    /// Standard error of the extra capacitance, farads.
+    pub extra_capacitance_error: f64,
+    /// Standard error of the scale factor; `None` when the scale was held at 1.
+    pub inductance_scale_error: Option<f64>,
+    /// Measured minus calibrated model for each reading, hertz (oldest first).
+    pub residuals: Vec<f64>,
+    /// Each reading's standard error, hertz.
+    pub sigmas: Vec<f64>,
+    /// How many readings the fit used.
+    pub readings_used: usize,
+    /// What to look at.
+    pub warnings: Vec<FitWarning>,
+}
+
+/// A reading prepared for fitting: its coil, external capacitance and standard error.
+struct Prepared {
+    coil: Coil,
+    external: f64,
     measured: f64,
-    target: f64,
-) -> Option<Correction> {
-    if !(measured.is_finite() && measured > 0.0) {
-        return None;
+    sigma: f64,
+}
+
+impl Prepared {
+    fn model(&self, conditions: &Conditions, p: [f64; 2]) -> f64 {
+        let c = self.external + p[0];
+        if c.is_nan() || c <= 0.0 {
+            return f64::NAN;
+        }
+        let cond = Conditions {
+            inductance_scale: conditions.inductance_scale * p[1],
+            ..*conditions
+        };
+        resonance_of(&self.coil, c, &cond)
     }
-    let f_at = |dc: f64| resonance_of(coil, external_capacitance + dc, conditions);
-    let lo = -external_capacitance;
-    let hi = 1e-9;
+}
+
+/// Calibrate the model of `coil` in `tank` on `readings` (see the module's method).
+pub fn fit(
+    coil: &Coil,
+    tank: &Tank,
+    conditions: &Conditions,
+    readings: &[Reading],
+) -> Result<Fit, FitError> {
+    if readings.is_empty() {
+        return Err(FitError::NoReadings);
+    }
+    let mut prepared = Vec::with_capacity(readings.len());
+    for (i, r) in readings.iter().enumerate() {
+        if !(r.measured.is_finite() && r.measured > 0.0) {
+            return Err(FitError::BadReading {
+                reading: i,
+                reason: "the frequency is not a positive number".to_owned(),
+            });
+        }
+        let coil = coil
+            .with_length(r.length)
+            .map_err(|e| FitError::BadReading {
+                reading: i,
+                reason: e.reason,
+            })?;
+        prepared.push(Prepared {
+            coil,
+            external: r.external_capacitance(tank),
+            measured: r.measured,
+            sigma: r.sigma(),
+        });
+    }
+    let mut warnings = harmonics(&prepared, conditions);
+    let assumed = readings.iter().filter(|r| r.error_ppm.is_none()).count();
+    if assumed > 0 {
+        warnings.push(FitWarning::AssumedError { readings: assumed });
+    }
+
+    let start = [
+        stray_alone(&prepared[0], conditions).ok_or(FitError::NoSolution)?,
+        1.0,
+    ];
+    let one_point = prepared.iter().all(|p| {
+        (p.external - prepared[0].external).abs() <= 1e-9 * p.external.abs().max(1e-15)
+            && p.coil.length() == prepared[0].coil.length()
+    });
+    let two = if one_point {
+        if prepared.len() > 1 {
+            warnings.push(FitWarning::ScaleUndetermined {
+                reason: "all readings are at one capacitance and length",
+            });
+        }
+        None
+    } else {
+        gauss_newton(&prepared, conditions, start, true)
+            .filter(|s| s.errors[1].is_some_and(|e| e <= SCALE_ERROR_MAX))
+            .or_else(|| {
+                warnings.push(FitWarning::ScaleUndetermined {
+                    reason: "the readings differ too little in capacitance or length to tell \
+                             inductance from capacitance",
+                });
+                None
+            })
+    };
+    let solution = match two {
+        Some(s) => s,
+        None => gauss_newton(&prepared, conditions, start, false).ok_or(FitError::NoSolution)?,
+    };
+
+    let [extra, scale] = solution.params;
+    let residuals: Vec<f64> = prepared
+        .iter()
+        .map(|p| p.measured - p.model(conditions, solution.params))
+        .collect();
+    let sigmas: Vec<f64> = prepared.iter().map(|p| p.sigma).collect();
+    for (i, (r, s)) in residuals.iter().zip(&sigmas).enumerate() {
+        if r.abs() > RESIDUAL_LIMIT * s {
+            warnings.push(FitWarning::Inconsistent {
+                reading: i,
+                residual: *r,
+                sigma: *s,
+            });
+        }
+    }
+    if (scale - 1.0).abs() > SCALE_PLAUSIBLE {
+        warnings.push(FitWarning::ScaleImplausible { scale });
+    }
+    if tank.stray + extra < 0.0 {
+        warnings.push(FitWarning::NegativeStray {
+            total: tank.stray + extra,
+        });
+    }
+    Ok(Fit {
+        calibration: Calibration {
+            extra_capacitance: extra,
+            inductance_scale: scale,
+        },
+        extra_capacitance_error: solution.errors[0].unwrap_or(f64::NAN),
+        inductance_scale_error: solution.errors[1],
+        residuals,
+        sigmas,
+        readings_used: prepared.len(),
+        warnings,
+    })
+}
+
+/// Readings near 2×, 3×, ½× or ⅓× the uncalibrated prediction.
+fn harmonics(prepared: &[Prepared], conditions: &Conditions) -> Vec<FitWarning> {
+    const RATIOS: [(f64, &str); 4] = [(2.0, "2×"), (3.0, "3×"), (0.5, "½×"), (1.0 / 3.0, "⅓×")];
+    let mut out = Vec::new();
+    for (i, p) in prepared.iter().enumerate() {
+        let predicted = p.model(conditions, [0.0, 1.0]);
+        let ratio = p.measured / predicted;
+        if let Some((_, name)) = RATIOS
+            .iter()
+            .find(|(k, _)| (ratio / k - 1.0).abs() <= HARMONIC_WINDOW)
+        {
+            out.push(FitWarning::Harmonic {
+                reading: i,
+                ratio: name,
+                predicted,
+            });
+        }
+    }
+    out
+}
+
+/// The extra capacitance that makes the model reproduce one reading (scale 1), by bisection
+/// between −(external) and +1 nF; `None` when none does.
+fn stray_alone(p: &Prepared, conditions: &Conditions) -> Option<f64> {
+    let f_at = |dc: f64| p.model(conditions, [dc, 1.0]);
+    let (mut a, mut b) = (-p.external * (1.0 - 1e-9), 1e-9);
     // Frequency falls as capacitance rises.
-    if f_at(lo) < measured || f_at(hi) > measured {
+    if !(f_at(a) >= p.measured && f_at(b) <= p.measured) {
         return None;
     }
-    let (mut a, mut b) = (lo, hi);
     for _ in 0..80 {
         let mid = 0.5 * (a + b);
-        if f_at(mid) > measured {
+        if f_at(mid) > p.measured {
             a = mid;
         } else {
             b = mid;
         }
     }
-    let extra = 0.5 * (a + b);
-    let length = length_for_target(coil, external_capacitance + extra, conditions, target);
-    Some(Correction {
-        extra_capacitance: extra,
-        stretch: length.as_ref().ok().map(|l| l - coil.length),
-        length_for_target: length,
+    Some(0.5 * (a + b))
+}
+
+/// A least-squares solution: the parameters and their standard errors (`None` for one held).
+struct Solution {
+    params: [f64; 2],
+    errors: [Option<f64>; 2],
+}
+
+/// Gauss–Newton on (ΔC, s), or on ΔC alone with s = 1 when `with_scale` is false.
+fn gauss_newton(
+    prepared: &[Prepared],
+    conditions: &Conditions,
+    start: [f64; 2],
+    with_scale: bool,
+) -> Option<Solution> {
+    // Steps of the finite differences: 0.01 pF and 1e-6 in the scale.
+    const STEP: [f64; 2] = [1e-14, 1e-6];
+    let mut p = start;
+    let mut normal = [[0.0; 2]; 2];
+    let mut chi2 = 0.0;
+    for round in 0..30 {
+        normal = [[0.0; 2]; 2];
+        let mut gradient = [0.0; 2];
+        chi2 = 0.0;
+        for q in prepared {
+            let r = (q.measured - q.model(conditions, p)) / q.sigma;
+            let mut row = [0.0; 2];
+            for (k, step) in STEP.iter().enumerate() {
+                let (mut up, mut down) = (p, p);
+                up[k] += step;
+                down[k] -= step;
+                row[k] =
+                    (q.model(conditions, up) - q.model(conditions, down)) / (2.0 * step * q.sigma);
+            }
+            if !with_scale {
+                row[1] = 0.0;
+            }
+            for a in 0..2 {
+                gradient[a] += row[a] * r;
+                for b in 0..2 {
+                    normal[a][b] += row[a] * row[b];
+                }
+            }
+            chi2 += r * r;
+        }
+        if !chi2.is_finite() {
+            return None;
+        }
+        let delta = if with_scale {
+            let det = normal[0][0] * normal[1][1] - normal[0][1] * normal[1][0];
+            if det.is_nan() || det == 0.0 {
+                return None;
+            }
+            [
+                (normal[1][1] * gradient[0] - normal[0][1] * gradient[1]) / det,
+                (normal[0][0] * gradient[1] - normal[1][0] * gradient[0]) / det,
+            ]
+        } else {
+            if normal[0][0].is_nan() || normal[0][0] <= 0.0 {
+                return None;
+            }
+            [gradient[0] / normal[0][0], 0.0]
+        };
+        p = [p[0] + delta[0], p[1] + delta[1]];
+        if p[1].is_nan() || p[1] <= 0.0 {
+            return None;
+        }
+        if delta[0].abs() < 1e-19 && delta[1].abs() < 1e-13 && round > 0 {
+            break;
+        }
+    }
+    let n = prepared.len() as f64;
+    let free = if with_scale { 2.0 } else { 1.0 };
+    let inflate = if n > free {
+        (chi2 / (n - free)).max(1.0)
+    } else {
+        1.0
+    };
+    let errors = if with_scale {
+        let det = normal[0][0] * normal[1][1] - normal[0][1] * normal[1][0];
+        [
+            Some((inflate * normal[1][1] / det).sqrt()),
+            Some((inflate * normal[0][0] / det).sqrt()),
+        ]
+    } else {
+        [Some((inflate / normal[0][0]).sqrt()), None]
+    };
+    Some(Solution { params: p, errors })
+}
+
+/// The bench builder's straight line: 1/f² against the external capacitance of the readings
+/// taken at one coil length. f⁻² = 4π²·L·(C + C_hidden), so the slope gives L and the
+/// intercept over the slope the capacitance the model does not see plus the self-capacitance.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct InverseSquareLine {
+    /// Slope of 1/f² against capacitance, s²/F.
+    pub slope: f64,
+    /// Intercept at zero external capacitance, s².
+    pub intercept: f64,
+    /// The inductance the slope implies, henries: slope/(4π²).
+    pub inductance: f64,
+    /// The capacitance hidden from the model plus the coil's self-capacitance, farads:
+    /// intercept/slope.
+    pub hidden_capacitance: f64,
+    /// The points used: (external capacitance in farads, 1/f² in s²).
+    pub points: usize,
+}
+
+/// The weighted straight-line fit of 1/f² against external capacitance over the readings at
+/// the latest reading's length (weights from each reading's error; Press et al. 2007, §15.2).
+/// `None` with fewer than two readings at that length or no spread in capacitance.
+pub fn inverse_square_line(tank: &Tank, readings: &[Reading]) -> Option<InverseSquareLine> {
+    let length = readings.last()?.length;
+    let pts: Vec<(f64, f64, f64)> = readings
+        .iter()
+        .filter(|r| (r.length - length).abs() <= 1e-9)
+        .map(|r| {
+            let y = 1.0 / (r.measured * r.measured);
+            // σ(1/f²) = 2σ_f/f³.
+            let sigma = 2.0 * r.sigma() / (r.measured * r.measured * r.measured);
+            (r.external_capacitance(tank), y, 1.0 / (sigma * sigma))
+        })
+        .collect();
+    if pts.len() < 2 {
+        return None;
+    }
+    let (mut s, mut sx, mut sy, mut sxx, mut sxy) = (0.0, 0.0, 0.0, 0.0, 0.0);
+    for &(x, y, w) in &pts {
+        s += w;
+        sx += w * x;
+        sy += w * y;
+        sxx += w * x * x;
+        sxy += w * x * y;
+    }
+    let det = s * sxx - sx * sx;
+    if det.is_nan() || det.abs() <= 1e-12 * s * sxx {
+        return None;
+    }
+    let slope = (s * sxy - sx * sy) / det;
+    let intercept = (sxx * sy - sx * sxy) / det;
+    Some(InverseSquareLine {
+        slope,
+        intercept,
+        inductance: slope / (4.0 * PI * PI),
+        hidden_capacitance: intercept / slope,
+        points: pts.len(),
     })
 }
 
-/// Length uncertainty (metres) that an instrument error of `error_ppm` on a reading of
-/// `measured` hertz carries, for a coil whose resonance moves `slope` Hz per metre of stretch:
-/// |ppm·10⁻⁶·f / slope|. `None` for a coil whose stretch does not move it.
-pub fn length_uncertainty(error_ppm: f64, measured: f64, slope: f64) -> Option<f64> {
-    (slope.abs() > 0.0).then(|| (error_ppm * 1e-6 * measured / slope).abs())
+/// Length uncertainty (metres) that a reading's standard error `sigma` hertz carries, for a
+/// coil whose resonance moves `slope` Hz per metre of stretch: |σ / slope|. `None` for a coil
+/// whose stretch does not move it.
+pub fn length_uncertainty(sigma: f64, slope: f64) -> Option<f64> {
+    (slope.abs() > 0.0).then(|| (sigma / slope).abs())
+}
+
+/// The resonance the (calibrated) model predicts for a reading's coil length and capacitance,
+/// hertz: what the readings are drawn against on the charts.
+pub fn predicted_for(coil: &Coil, tank: &Tank, conditions: &Conditions, reading: &Reading) -> f64 {
+    resonance_at_length(
+        coil,
+        reading.length,
+        reading.external_capacitance(tank),
+        conditions,
+    )
 }

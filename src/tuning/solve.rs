@@ -1,20 +1,26 @@
-//! Solving for the spacing or trimmer setting that lands the tank on a target.
+//! Solving for the length, trimmer setting or turns that land the tank on a target.
+//!
+//! Resonance against coil length is not monotonic everywhere: near self-resonance, and with
+//! long leads whose inductance does not shrink as the coil stretches while Medhurst's
+//! self-capacitance does change, the curve can turn over. So the length solver never assumes a
+//! direction: it scans the whole buildable range for sign changes of f(l) − target, brackets
+//! every root and bisects each, and proposes the root nearest the present length.
 
-use super::sweep::touching_length;
 use crate::model::{Coil, Conditions, Tank, evaluate::resonance_of};
 use std::fmt;
 
 /// Why no spacing or setting reaches the target.
 #[derive(Clone, Debug, PartialEq)]
 pub enum Unreachable {
-    /// Even close-wound the tank resonates above the target (needs more L or C).
+    /// Over the whole buildable range of lengths the tank resonates above the target
+    /// (needs more L or C).
     AboveEvenCloseWound {
-        /// Resonance with the turns touching, hertz.
+        /// Lowest resonance over the range of lengths, hertz.
         close_wound: f64,
     },
-    /// Even stretched to the longest length the tank resonates below the target.
+    /// Over the whole range of lengths the tank resonates below the target.
     BelowEvenStretched {
-        /// Resonance at the longest length tried, hertz.
+        /// Highest resonance over the range of lengths, hertz.
         stretched: f64,
     },
     /// The target is outside what the trimmer can reach.
@@ -31,12 +37,12 @@ impl fmt::Display for Unreachable {
         match self {
             Unreachable::AboveEvenCloseWound { close_wound } => write!(
                 f,
-                "even close-wound the tank resonates at {:.3} MHz, above the target: add a turn or capacitance",
+                "even at its lowest ({:.3} MHz) the tank resonates above the target: add a turn or capacitance",
                 close_wound * 1e-6
             ),
             Unreachable::BelowEvenStretched { stretched } => write!(
                 f,
-                "even stretched the tank resonates at {:.3} MHz, below the target: remove a turn or capacitance",
+                "even at its highest ({:.3} MHz) the tank resonates below the target: remove a turn or capacitance",
                 stretched * 1e-6
             ),
             Unreachable::OutsideTrimmer { low, high } => write!(
@@ -49,11 +55,9 @@ impl fmt::Display for Unreachable {
     }
 }
 
-/// Longest coil a stretch solver will propose: four diameters or 30 pitches of the wire,
-/// whichever is longer (common practice: beyond that a self-supporting coil sags).
-pub fn longest_length(coil: &Coil) -> f64 {
-    (4.0 * coil.mean_diameter).max(touching_length(coil) * 3.0)
-}
+/// Points of the scan that brackets the roots in length: fine enough that a turnover (a
+/// maximum of f over l) is never stepped over between two points in practice.
+const SCAN_POINTS: usize = 96;
 
 fn bisect(mut lo: f64, mut hi: f64, mut above: impl FnMut(f64) -> bool) -> f64 {
     // `above(x)` is false at lo and true at hi; 60 halvings reach f64 resolution.
@@ -68,28 +72,85 @@ fn bisect(mut lo: f64, mut hi: f64, mut above: impl FnMut(f64) -> bool) -> f64 {
     0.5 * (lo + hi)
 }
 
-/// Coil length (metres) that lands the tank on `target` hertz across `external_capacitance`.
-///
-/// Resonance rises monotonically as the coil is stretched (less inductance), so bisection on
-/// length between close-wound and [`longest_length`] finds it.
+/// Resonance (hertz) of `coil` stretched or squeezed to `length` across `external_capacitance`;
+/// NaN for a length the model refuses.
+pub fn resonance_at_length(
+    coil: &Coil,
+    length: f64,
+    external_capacitance: f64,
+    conditions: &Conditions,
+) -> f64 {
+    coil.with_length(length).map_or(f64::NAN, |c| {
+        resonance_of(&c, external_capacitance, conditions)
+    })
+}
+
+/// Every coil length (metres, ascending) between [`Coil::shortest_length`] and
+/// [`Coil::longest_proposed_length`] that lands the tank on `target` hertz, or why none does.
+pub fn lengths_for_target(
+    coil: &Coil,
+    external_capacitance: f64,
+    conditions: &Conditions,
+    target: f64,
+) -> Result<Vec<f64>, Unreachable> {
+    let f_at = |l: f64| resonance_at_length(coil, l, external_capacitance, conditions);
+    let lo = coil.shortest_length();
+    let hi = coil.longest_proposed_length().max(lo);
+    let step = (hi - lo) / (SCAN_POINTS - 1) as f64;
+    let scan: Vec<[f64; 2]> = (0..SCAN_POINTS)
+        .map(|i| {
+            let l = if i + 1 == SCAN_POINTS {
+                hi
+            } else {
+                lo + step * i as f64
+            };
+            [l, f_at(l)]
+        })
+        .filter(|p| p[1].is_finite())
+        .collect();
+    let mut roots = Vec::new();
+    for w in scan.windows(2) {
+        let ([a, fa], [b, fb]) = (w[0], w[1]);
+        if fa == target {
+            roots.push(a);
+        } else if (fa < target) != (fb < target) {
+            let rising = fb > fa;
+            roots.push(bisect(a, b, |l| (f_at(l) >= target) == rising));
+        }
+    }
+    if let Some(&[l, f]) = scan.last()
+        && f == target
+    {
+        roots.push(l);
+    }
+    if !roots.is_empty() {
+        return Ok(roots);
+    }
+    let lowest = scan.iter().map(|p| p[1]).fold(f64::INFINITY, f64::min);
+    let highest = scan.iter().map(|p| p[1]).fold(f64::NEG_INFINITY, f64::max);
+    if lowest > target {
+        Err(Unreachable::AboveEvenCloseWound {
+            close_wound: lowest,
+        })
+    } else {
+        Err(Unreachable::BelowEvenStretched { stretched: highest })
+    }
+}
+
+/// The coil length (metres) that lands the tank on `target` hertz nearest the coil's present
+/// length (see [`lengths_for_target`] for all of them).
 pub fn length_for_target(
     coil: &Coil,
     external_capacitance: f64,
     conditions: &Conditions,
     target: f64,
 ) -> Result<f64, Unreachable> {
-    let f_at = |l: f64| resonance_of(&coil.with_length(l), external_capacitance, conditions);
-    let lo = touching_length(coil);
-    let hi = longest_length(coil);
-    let f_lo = f_at(lo);
-    if f_lo > target {
-        return Err(Unreachable::AboveEvenCloseWound { close_wound: f_lo });
-    }
-    let f_hi = f_at(hi);
-    if f_hi < target {
-        return Err(Unreachable::BelowEvenStretched { stretched: f_hi });
-    }
-    Ok(bisect(lo, hi, |l| f_at(l) >= target))
+    let roots = lengths_for_target(coil, external_capacitance, conditions, target)?;
+    let present = coil.length();
+    Ok(roots
+        .into_iter()
+        .min_by(|a, b| (a - present).abs().total_cmp(&(b - present).abs()))
+        .unwrap_or(present))
 }
 
 /// Trimmer setting (0–1) that lands the tank on `target` at the coil's present length.
@@ -118,21 +179,50 @@ pub fn trimmer_window(coil: &Coil, tank: &Tank, conditions: &Conditions) -> (f64
 }
 
 /// How far the resonance moves per metre of stretch, Hz/m (positive: stretching raises it),
-/// by a central difference of ±1 % of the length (one-sided when close-wound).
+/// by a central difference of ±1 % of the length (one-sided at the ends of the range).
 pub fn stretch_sensitivity(coil: &Coil, external_capacitance: f64, conditions: &Conditions) -> f64 {
-    let h = 0.01 * coil.length;
-    let lo = (coil.length - h).max(touching_length(coil));
-    let hi = coil.length + h;
-    let f = |l: f64| resonance_of(&coil.with_length(l), external_capacitance, conditions);
+    let h = 0.01 * coil.length();
+    let lo = (coil.length() - h).max(coil.shortest_length());
+    let hi = (coil.length() + h).min(crate::model::limits::LENGTH_MAX);
+    let f = |l: f64| resonance_at_length(coil, l, external_capacitance, conditions);
     (f(hi) - f(lo)) / (hi - lo)
 }
 
-/// How far the resonance moves per unit of trimmer setting (Hz per 100 %), at the present
-/// setting, by a central difference of ±1 %.
-pub fn trimmer_sensitivity(coil: &Coil, tank: &Tank, conditions: &Conditions) -> f64 {
-    let s = tank.trimmer_setting;
-    let lo = (s - 0.01).max(0.0);
-    let hi = (s + 0.01).min(1.0);
-    let f = |x: f64| resonance_of(coil, tank.external_capacitance_at(x), conditions);
-    (f(hi) - f(lo)) / (hi - lo)
+/// A coil with another number of turns that lands the target.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct TurnsChange {
+    /// The new number of turns (a whole number of quarter turns).
+    pub turns: f64,
+    /// The coil length (turns × pitch) that then lands the target, metres.
+    pub length: f64,
+}
+
+/// Most quarter turns added or removed when looking for a coil that reaches the target.
+const MAX_QUARTER_STEPS: u32 = 80;
+
+/// The smallest change in quarter turns (same wire, diameter and leads) after which some
+/// buildable length lands `target`; the length proposed keeps the pitch nearest the present
+/// one. `None` when no change of up to 20 turns does.
+pub fn turns_for_target(
+    coil: &Coil,
+    external_capacitance: f64,
+    conditions: &Conditions,
+    target: f64,
+) -> Option<TurnsChange> {
+    let pitch = coil.pitch();
+    for k in 1..=MAX_QUARTER_STEPS {
+        for sign in [1.0, -1.0] {
+            let turns = coil.turns() + sign * 0.25 * f64::from(k);
+            let Ok(candidate) = coil.with_turns(turns, turns * pitch) else {
+                continue;
+            };
+            let Ok(length) =
+                length_for_target(&candidate, external_capacitance, conditions, target)
+            else {
+                continue;
+            };
+            return Some(TurnsChange { turns, length });
+        }
+    }
+    None
 }

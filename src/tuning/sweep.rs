@@ -11,15 +11,11 @@ pub struct SpacingCurve {
     pub points: Vec<[f64; 2]>,
 }
 
-/// Shortest coil length possible: close-wound, turns × overall wire diameter.
-pub fn touching_length(coil: &Coil) -> f64 {
-    coil.turns * coil.wire_overall
-}
-
 /// Resonance against coil length for each trimmer setting.
 ///
-/// `lengths` is the (shortest, longest) coil length in metres; the shortest is raised to the
-/// touching limit. `samples` points per curve, evenly spaced in length.
+/// `lengths` is the (shortest, longest) coil length in metres, kept within what the coil can be
+/// wound to ([`Coil::shortest_length`] to the model's longest). `samples` points per curve,
+/// evenly spaced in length; a length the model refuses gives NaN (none does inside that range).
 pub fn spacing_sweep(
     coil: &Coil,
     tank: &Tank,
@@ -28,8 +24,11 @@ pub fn spacing_sweep(
     lengths: (f64, f64),
     samples: usize,
 ) -> Vec<SpacingCurve> {
-    let lo = lengths.0.max(touching_length(coil));
-    let hi = lengths.1.max(lo * 1.001);
+    let lo = lengths.0.max(coil.shortest_length());
+    let hi = lengths
+        .1
+        .max(lo * 1.001)
+        .min(crate::model::limits::LENGTH_MAX);
     let n = samples.max(2);
     settings
         .iter()
@@ -38,7 +37,10 @@ pub fn spacing_sweep(
             let points = (0..n)
                 .map(|i| {
                     let l = lo + (hi - lo) * i as f64 / (n - 1) as f64;
-                    [l, resonance_of(&coil.with_length(l), c_ext, conditions)]
+                    let f = coil
+                        .with_length(l)
+                        .map_or(f64::NAN, |c| resonance_of(&c, c_ext, conditions));
+                    [l, f]
                 })
                 .collect();
             SpacingCurve { setting, points }

@@ -4,7 +4,6 @@ use crate::model::Analysis;
 use crate::recipe::Recipe;
 use crate::ui::bench_log::{BenchLogAction, BenchLogPanel};
 use crate::ui::cautions;
-use crate::ui::charts::ChartCache;
 use crate::ui::evaluation::Evaluation;
 use crate::ui::files::{FileAction, FileDesk, FileDeskMemory, Notice};
 use crate::ui::panels::tank::TankPanel;
@@ -45,7 +44,6 @@ pub struct App {
     recipe: Recipe,
     preferences: Preferences,
     evaluation: Evaluation,
-    charts: ChartCache,
     history: History,
     tank_panel: TankPanel,
     target_panel: TargetPanel,
@@ -102,7 +100,6 @@ impl App {
             evaluation: Evaluation::new(&recipe),
             recipe,
             preferences: Preferences::default(),
-            charts: ChartCache::default(),
             history: History::default(),
             tank_panel: TankPanel::default(),
             target_panel: TargetPanel::default(),
@@ -123,12 +120,6 @@ impl App {
         self
     }
 
-    /// The same window editing `recipe` instead (a fresh history).
-    pub fn with_document(mut self, recipe: Recipe) -> Self {
-        self.set_document(recipe);
-        self
-    }
-
     /// Replace the document (a recipe opened or made new): the history starts afresh and the
     /// figures are those of the new recipe (nothing of the old one is shown as "last good").
     pub fn set_document(&mut self, recipe: Recipe) {
@@ -136,21 +127,12 @@ impl App {
         self.evaluation = Evaluation::new(&recipe);
         self.recipe = recipe;
         self.history = History::default();
-    }
-
-    /// Show lengths in `unit` from now on.
-    pub fn set_unit(&mut self, unit: crate::ui::units::LengthUnit) {
-        self.preferences.unit = unit;
+        self.bench_log.reset();
     }
 
     /// Use `theme` from now on.
     pub fn set_theme(&mut self, theme: Theme) {
         self.preferences.theme = theme;
-    }
-
-    /// Open the cautions window (as the "Cautions…" button does).
-    pub fn open_cautions(&mut self) {
-        self.cautions_open = true;
     }
 
     /// Capture the window to a PNG once it has settled, then close it.
@@ -172,6 +154,12 @@ impl App {
     /// The analysis of the recipe as last shown, or `None` if the input was refused.
     pub fn analysis(&self) -> Option<&Analysis> {
         self.evaluation.current().ok().map(|f| &f.analysis)
+    }
+
+    /// Every figure of the recipe on screen (calibrated once there are bench readings), if it
+    /// is valid.
+    pub fn figures(&self) -> Option<&crate::recipe::Figures> {
+        self.evaluation.current().ok()
     }
 
     /// The same window asking for file paths through `asker` (tests answer instead of a
@@ -249,6 +237,7 @@ impl App {
         self.evaluation = Evaluation::new(&recipe);
         self.recipe = recipe;
         self.history = History::default();
+        self.bench_log.reset();
     }
 
     fn panels(&mut self, ui: &mut egui::Ui, commands: &mut Vec<Command>) -> Option<FileAction> {
@@ -256,7 +245,6 @@ impl App {
             recipe,
             preferences,
             evaluation,
-            charts,
             history,
             tank_panel,
             target_panel,
@@ -325,14 +313,25 @@ impl App {
                     egui::CollapsingHeader::new("Bench log")
                         .default_open(true)
                         .show(ui, |ui| {
-                            let coil = evaluation.current().ok().map(|f| f.coil);
-                            match bench_log.ui(ui, recipe, coil.as_ref(), unit) {
+                            let figures = evaluation.current().ok();
+                            match bench_log.ui(ui, recipe, figures, unit) {
                                 Some(BenchLogAction::Record(entry)) => recipe.bench_log.push(entry),
+                                Some(BenchLogAction::Replace(i, entry)) => {
+                                    if let Some(slot) = recipe.bench_log.get_mut(i) {
+                                        *slot = entry;
+                                    }
+                                }
                                 Some(BenchLogAction::Remove(i)) if i < recipe.bench_log.len() => {
                                     recipe.bench_log.remove(i);
                                 }
                                 Some(BenchLogAction::SetLength(length)) => {
                                     commands.push(Command::SetLength(length));
+                                }
+                                Some(BenchLogAction::SetTrimmer(setting)) => {
+                                    commands.push(Command::SetTrimmer(setting));
+                                }
+                                Some(BenchLogAction::SetTurns(turns, length)) => {
+                                    commands.push(Command::SetTurns(turns, length));
                                 }
                                 _ => {}
                             }
@@ -343,9 +342,8 @@ impl App {
             bench::show(
                 ui,
                 evaluation,
-                charts,
+                &recipe.bench_log,
                 recipe.winding.spacing,
-                &recipe.conditions,
                 unit,
                 commands,
             );
@@ -364,6 +362,14 @@ impl App {
             Command::SetLength(length) => {
                 if let Some(coil) = self.evaluation.latest().map(|f| f.coil) {
                     winding::set_length(&mut self.recipe.winding, &coil, length);
+                }
+            }
+            Command::SetTurns(turns, length) => {
+                if let Some(coil) = self.evaluation.latest().map(|f| f.coil)
+                    && let Ok(rewound) = coil.with_turns(turns, length)
+                {
+                    self.recipe.winding.turns = turns;
+                    winding::set_length(&mut self.recipe.winding, &rewound, length);
                 }
             }
             Command::SetTrimmer(setting) => {

@@ -1,10 +1,14 @@
-//! The bench log: readings taken at the bench, listed, and the correction the latest one
-//! implies (how far to stretch or squeeze to land on the target).
+//! The bench log: readings taken at the bench, listed with their residuals against the
+//! calibrated model; the fit they imply (extra capacitance and inductance scale with their
+//! standard errors, warnings); the one instruction that lands the target; and the form that
+//! records, edits or removes a reading (every change is a recipe change, so undo covers it).
+//!
+//! Nothing here computes physics: the fit and the advice come from the recipe's figures
+//! ([`crate::recipe::figures()`]), the same ones the build sheet and the commands print.
 
-use crate::model::{Coil, Conditions, Tank};
-use crate::recipe::{BenchEntry, Recipe};
-use crate::tuning::fit::{Correction, correct_from_measurement, length_uncertainty};
-use crate::tuning::solve::stretch_sensitivity;
+use crate::recipe::{BenchEntry, Figures, Recipe};
+use crate::tuning::advice::Advice;
+use crate::tuning::fit::{Fit, length_uncertainty};
 use crate::ui::units::LengthUnit;
 use eframe::egui;
 
@@ -14,110 +18,154 @@ use eframe::egui;
 pub enum BenchLogAction {
     /// Append a reading.
     Record(BenchEntry),
+    /// Replace the reading at this index.
+    Replace(usize, BenchEntry),
     /// Remove the reading at this index.
     Remove(usize),
-    /// Set the coil length (metres) to the corrected one.
+    /// Set the coil length (metres).
     SetLength(f64),
+    /// Set the trimmer (0–1).
+    SetTrimmer(f64),
+    /// Wind another number of turns to a length (metres).
+    SetTurns(f64, f64),
 }
 
-/// The inputs a correction was computed from, and the result (kept so an idle frame does not
-/// redo the fit).
-type CachedCorrection = (
-    (BenchEntry, Coil, Tank, Conditions, f64),
-    Option<ReadingCorrection>,
-);
+/// Accessible name of the button that carries out the advice.
+pub const APPLY_ADVICE_LABEL: &str = "Apply the advice";
 
-/// Transient state: the reading being typed, and the last correction computed.
-#[derive(Clone, Debug)]
+/// Transient state: the reading being typed (cleared after recording and when another
+/// document is opened), and which reading is being edited.
+#[derive(Clone, Debug, Default)]
 pub struct BenchLogPanel {
-    cached: Option<CachedCorrection>,
+    form: Form,
+    /// Index of the reading whose values the form holds, while editing one.
+    editing: Option<usize>,
+}
+
+/// The entry form, in display units.
+#[derive(Clone, Debug)]
+struct Form {
     measured_mhz: f64,
+    /// Coil length as measured; `None` takes the present length.
+    length: Option<f64>,
+    /// Trimmer setting, percent; `None` takes the present setting.
+    trimmer_pct: Option<f64>,
+    added_pf: f64,
     instrument: String,
-    error_ppm: f64,
     error_known: bool,
+    error_ppm: f64,
     note: String,
 }
 
-impl Default for BenchLogPanel {
+impl Default for Form {
     fn default() -> Self {
         Self {
-            cached: None,
             measured_mhz: 0.0,
+            length: None,
+            trimmer_pct: None,
+            added_pf: 0.0,
             instrument: String::new(),
-            error_ppm: 10.0,
             error_known: false,
+            error_ppm: 10.0,
             note: String::new(),
         }
     }
 }
 
-/// The correction implied by one reading, with its uncertainty from the instrument.
-#[derive(Clone, Debug, PartialEq)]
-pub struct ReadingCorrection {
-    /// The fitted correction.
-    pub correction: Correction,
-    /// Length uncertainty from the instrument's error alone, metres (if its error is known).
-    pub length_uncertainty: Option<f64>,
-}
-
-/// The correction the reading implies for a coil like `coil` in `tank`, aimed at `target`.
-///
-/// The coil is taken at the reading's length and the tank at the reading's trimmer setting.
-pub fn correction_for(
-    entry: &BenchEntry,
-    coil: &Coil,
-    tank: &Tank,
-    conditions: &Conditions,
-    target: f64,
-) -> Option<ReadingCorrection> {
-    let at_reading = coil.with_length(entry.length);
-    let c_ext = tank.external_capacitance_at(entry.trimmer_setting.clamp(0.0, 1.0));
-    let correction =
-        correct_from_measurement(&at_reading, c_ext, conditions, entry.measured, target)?;
-    let length_uncertainty = entry.error_ppm.and_then(|ppm| {
-        let slope = stretch_sensitivity(
-            &at_reading,
-            c_ext + correction.extra_capacitance,
-            conditions,
-        );
-        length_uncertainty(ppm, entry.measured, slope)
-    });
-    Some(ReadingCorrection {
-        correction,
-        length_uncertainty,
-    })
+impl Form {
+    fn of(e: &BenchEntry) -> Self {
+        Self {
+            measured_mhz: e.measured * 1e-6,
+            length: Some(e.length),
+            trimmer_pct: Some(e.trimmer_setting * 100.0),
+            added_pf: e.added_capacitance * 1e12,
+            instrument: e.instrument.clone(),
+            error_known: e.error_ppm.is_some(),
+            error_ppm: e.error_ppm.unwrap_or(10.0),
+            note: e.note.clone(),
+        }
+    }
 }
 
 impl BenchLogPanel {
-    /// Draw the log. `coil` is the present validated coil (None while the input is refused).
+    /// Forget the form and any edit in progress (another document was opened).
+    pub fn reset(&mut self) {
+        *self = Self::default();
+    }
+
+    /// Draw the log. `figures` are the recipe's (None while the input is refused).
     pub fn ui(
         &mut self,
         ui: &mut egui::Ui,
         recipe: &Recipe,
-        coil: Option<&Coil>,
+        figures: Option<&Figures>,
         unit: LengthUnit,
     ) -> Option<BenchLogAction> {
         let mut action = None;
         let log = &recipe.bench_log;
+        if self.editing.is_some_and(|i| i >= log.len()) {
+            self.editing = None;
+        }
+        let fit = figures
+            .and_then(|f| f.fit.as_ref())
+            .and_then(|r| r.as_ref().ok());
         if log.is_empty() {
             ui.weak("No readings yet. After winding, measure the tank and record it here.");
+        } else {
+            action = self.readings_table(ui, log, fit, unit);
         }
+        if let Some(f) = figures {
+            action = action.or(fit_ui(ui, f, unit));
+        }
+        ui.separator();
+        action.or(self.form_ui(ui, recipe, figures, unit))
+    }
+
+    fn readings_table(
+        &mut self,
+        ui: &mut egui::Ui,
+        log: &[BenchEntry],
+        fit: Option<&Fit>,
+        unit: LengthUnit,
+    ) -> Option<BenchLogAction> {
+        let mut action = None;
         egui::Grid::new("bench_log_readings")
             .striped(true)
-            .num_columns(5)
+            .num_columns(6)
             .show(ui, |ui| {
-                if !log.is_empty() {
-                    ui.strong("measured");
-                    ui.strong("length");
-                    ui.strong("trimmer");
-                    ui.strong("instrument, note");
-                    ui.label("");
-                    ui.end_row();
-                }
+                ui.strong("measured");
+                ui.strong("length");
+                ui.strong("trimmer");
+                ui.strong("off the fit");
+                ui.strong("instrument, note");
+                ui.label("");
+                ui.end_row();
                 for (i, e) in log.iter().enumerate() {
                     ui.label(format!("{:.4} MHz", e.measured * 1e-6));
                     ui.label(unit.show(e.length));
-                    ui.label(format!("{:.0} %", e.trimmer_setting * 100.0));
+                    let mut trimmer = format!("{:.0} %", e.trimmer_setting * 100.0);
+                    if e.added_capacitance > 0.0 {
+                        trimmer.push_str(&format!(" +{:.1} pF", e.added_capacitance * 1e12));
+                    }
+                    ui.label(trimmer);
+                    match fit.and_then(|f| Some((f.residuals.get(i)?, f.sigmas.get(i)?))) {
+                        Some((r, s)) => {
+                            let text = format!("{:+.1} kHz", r * 1e-3);
+                            if r.abs() > crate::tuning::fit::RESIDUAL_LIMIT * s {
+                                ui.colored_label(ui.visuals().warn_fg_color, text)
+                            } else {
+                                ui.label(text)
+                            }
+                            .on_hover_text(format!(
+                                "measured minus the calibrated model; the instrument's error is \
+                                 ±{:.1} kHz",
+                                s * 1e-3
+                            ));
+                        }
+                        None => {
+                            ui.label("–");
+                        }
+                    }
                     let ppm = e
                         .error_ppm
                         .map(|p| format!(" (±{p} ppm)"))
@@ -127,128 +175,53 @@ impl BenchLogPanel {
                         text = format!("{text}; {}", e.note);
                     }
                     ui.label(text);
-                    if ui
-                        .small_button("Remove")
-                        .on_hover_text(format!("remove reading {}", i + 1))
-                        .clicked()
-                    {
-                        action = Some(BenchLogAction::Remove(i));
-                    }
+                    ui.horizontal(|ui| {
+                        if ui
+                            .small_button("Change")
+                            .on_hover_text(format!("change reading {}", i + 1))
+                            .clicked()
+                        {
+                            self.form = Form::of(e);
+                            self.editing = Some(i);
+                        }
+                        if ui
+                            .small_button("Remove")
+                            .on_hover_text(format!("remove reading {}", i + 1))
+                            .clicked()
+                        {
+                            action = Some(BenchLogAction::Remove(i));
+                            if self.editing == Some(i) {
+                                self.editing = None;
+                                self.form = Form::default();
+                            }
+                        }
+                    });
                     ui.end_row();
                 }
             });
-
-        if let (Some(latest), Some(coil)) = (log.last(), coil) {
-            action = action.or(self.correction_ui(ui, latest, coil, recipe, unit));
-        }
-
-        ui.separator();
-        action.or(self.record_ui(ui, recipe, coil, unit))
+        action
     }
 
-    /// The correction for `latest`, recomputed only when its inputs change.
-    fn correction(
-        &mut self,
-        latest: &BenchEntry,
-        coil: &Coil,
-        recipe: &Recipe,
-    ) -> Option<ReadingCorrection> {
-        let key = (
-            latest.clone(),
-            *coil,
-            recipe.tank,
-            recipe.conditions,
-            recipe.target.channel,
-        );
-        if let Some((k, result)) = &self.cached
-            && *k == key
-        {
-            return result.clone();
-        }
-        let result = correction_for(
-            latest,
-            coil,
-            &recipe.tank,
-            &recipe.conditions,
-            recipe.target.channel,
-        );
-        self.cached = Some((key, result.clone()));
-        result
-    }
-
-    fn correction_ui(
+    fn form_ui(
         &mut self,
         ui: &mut egui::Ui,
-        latest: &BenchEntry,
-        coil: &Coil,
         recipe: &Recipe,
+        figures: Option<&Figures>,
         unit: LengthUnit,
     ) -> Option<BenchLogAction> {
-        let target = recipe.target.channel;
-        let Some(fit) = self.correction(latest, coil, recipe) else {
-            ui.colored_label(
-                ui.visuals().warn_fg_color,
-                "The latest reading is far from anything this coil and tank can do: check the \
-                 reading, the turns and the capacitors.",
-            );
-            return None;
+        let present_length = figures.map(|f| f.coil.length());
+        let present_trimmer = recipe.tank.trimmer_setting * 100.0;
+        match self.editing {
+            Some(i) => ui.label(format!("Editing reading {}:", i + 1)),
+            None => ui.label("New reading:"),
         };
-        let extra = fit.correction.extra_capacitance * 1e12;
-        ui.label(format!(
-            "The latest reading behaves as if the tank had {extra:+.2} pF beyond the model \
-             (stray, device and wiring)."
-        ))
-        .on_hover_text(
-            "Every difference between the build and the model is lumped into one capacitance \
-             that reproduces the reading; the correction below uses it.",
-        );
-        match &fit.correction.length_for_target {
-            Ok(length) => {
-                let change = length - latest.length;
-                let verb = if change >= 0.0 { "stretch" } else { "squeeze" };
-                let mut text = format!(
-                    "To land on {:.3} MHz at the same trimmer setting: {verb} by {} to {}.",
-                    target * 1e-6,
-                    unit.show(change.abs()),
-                    unit.show(*length)
-                );
-                if let Some(u) = fit.length_uncertainty {
-                    text.push_str(&format!(" (±{} from the instrument)", unit.show(u)));
-                }
-                ui.strong(text);
-                if ui
-                    .button("Set the coil to the corrected length")
-                    .on_hover_text("changes the coil length on screen; undo restores it")
-                    .clicked()
-                {
-                    return Some(BenchLogAction::SetLength(*length));
-                }
-            }
-            Err(why) => {
-                ui.colored_label(
-                    ui.visuals().warn_fg_color,
-                    format!("No length reaches the target: {why}"),
-                );
-            }
-        }
-        None
-    }
-
-    fn record_ui(
-        &mut self,
-        ui: &mut egui::Ui,
-        recipe: &Recipe,
-        coil: Option<&Coil>,
-        unit: LengthUnit,
-    ) -> Option<BenchLogAction> {
-        let mut action = None;
-        ui.label("New reading, at the present length and trimmer setting:");
+        let form = &mut self.form;
         egui::Grid::new("bench_log_new")
             .num_columns(2)
             .show(ui, |ui| {
                 let label = ui.label("Measured frequency");
                 ui.add(
-                    egui::DragValue::new(&mut self.measured_mhz)
+                    egui::DragValue::new(&mut form.measured_mhz)
                         .range(0.0..=3000.0)
                         .speed(0.01)
                         .fixed_decimals(4)
@@ -257,55 +230,198 @@ impl BenchLogPanel {
                 .labelled_by(label.id)
                 .on_hover_text("measured frequency of the tank, MHz");
                 ui.end_row();
+
+                let label = ui.label("Coil length as measured");
+                let mut length = form.length.or(present_length).unwrap_or(0.0);
+                let per_unit = unit.metres_per_unit();
+                let mut shown = length / per_unit;
+                let changed = ui
+                    .add(
+                        egui::DragValue::new(&mut shown)
+                            .range(0.0..=2000.0 * 1e-3 / per_unit)
+                            .speed(0.01)
+                            .fixed_decimals(unit.decimals())
+                            .suffix(format!(" {}", unit.suffix())),
+                    )
+                    .labelled_by(label.id)
+                    .on_hover_text("the coil's length when you read the frequency; defaults to the present length")
+                    .changed();
+                if changed {
+                    length = shown * per_unit;
+                    form.length = Some(length);
+                }
+                ui.end_row();
+
+                let label = ui.label("Trimmer setting then");
+                let mut trimmer = form.trimmer_pct.unwrap_or(present_trimmer);
+                if ui
+                    .add(
+                        egui::DragValue::new(&mut trimmer)
+                            .range(0.0..=100.0)
+                            .speed(0.5)
+                            .fixed_decimals(0)
+                            .suffix(" %"),
+                    )
+                    .labelled_by(label.id)
+                    .changed()
+                {
+                    form.trimmer_pct = Some(trimmer);
+                }
+                ui.end_row();
+
+                let label = ui.label("Known capacitor clipped on");
+                ui.add(
+                    egui::DragValue::new(&mut form.added_pf)
+                        .range(0.0..=1000.0)
+                        .speed(0.1)
+                        .fixed_decimals(1)
+                        .suffix(" pF"),
+                )
+                .labelled_by(label.id)
+                .on_hover_text(
+                    "a capacitor of known value clipped across the tank for this reading (0 for \
+                     none): a second reading with one separates the coil's inductance from the \
+                     stray capacitance",
+                );
+                ui.end_row();
+
                 let label = ui.label("Instrument");
                 ui.add(
-                    egui::TextEdit::singleline(&mut self.instrument)
+                    egui::TextEdit::singleline(&mut form.instrument)
                         .hint_text("counter, dip meter, receiver…"),
                 )
                 .labelled_by(label.id);
                 ui.end_row();
-                ui.checkbox(&mut self.error_known, "Instrument error known");
+                ui.checkbox(&mut form.error_known, "Instrument error known");
                 ui.add_enabled(
-                    self.error_known,
-                    egui::DragValue::new(&mut self.error_ppm)
+                    form.error_known,
+                    egui::DragValue::new(&mut form.error_ppm)
                         .range(0.0..=100_000.0)
                         .suffix(" ppm"),
                 )
                 .on_hover_text("instrument error, ppm");
                 ui.end_row();
                 let label = ui.label("Note");
-                ui.add(egui::TextEdit::singleline(&mut self.note))
+                ui.add(egui::TextEdit::singleline(&mut form.note))
                     .labelled_by(label.id);
                 ui.end_row();
             });
-        let valid = self.measured_mhz > 0.0 && self.measured_mhz.is_finite();
-        let length = coil.map(|c| c.length);
-        let hint = match length {
-            Some(l) => format!(
+        let length = self.form.length.or(present_length);
+        let valid = self.form.measured_mhz > 0.0 && self.form.measured_mhz.is_finite();
+        let entry = length.map(|length| BenchEntry {
+            measured: self.form.measured_mhz * 1e6,
+            length,
+            trimmer_setting: (self.form.trimmer_pct.unwrap_or(present_trimmer) / 100.0)
+                .clamp(0.0, 1.0),
+            added_capacitance: self.form.added_pf.max(0.0) * 1e-12,
+            instrument: self.form.instrument.trim().to_owned(),
+            error_ppm: self.form.error_known.then_some(self.form.error_ppm),
+            note: self.form.note.trim().to_owned(),
+        });
+        let hint = match &entry {
+            Some(e) => format!(
                 "records {:.4} MHz at {} and trimmer {:.0} %",
-                self.measured_mhz,
-                unit.show(l),
-                recipe.tank.trimmer_setting * 100.0
+                self.form.measured_mhz,
+                unit.show(e.length),
+                e.trimmer_setting * 100.0
             ),
             None => "the coil on screen is refused: fix it first".to_owned(),
         };
-        let enabled = valid && length.is_some();
-        if ui
-            .add_enabled(enabled, egui::Button::new("Record reading"))
-            .on_hover_text(hint)
-            .clicked()
-            && let Some(length) = length
-        {
-            action = Some(BenchLogAction::Record(BenchEntry {
-                measured: self.measured_mhz * 1e6,
-                length,
-                trimmer_setting: recipe.tank.trimmer_setting,
-                instrument: self.instrument.trim().to_owned(),
-                error_ppm: self.error_known.then_some(self.error_ppm),
-                note: self.note.trim().to_owned(),
-            }));
-            self.note.clear();
-        }
+        let mut action = None;
+        ui.horizontal(|ui| {
+            let button = match self.editing {
+                Some(_) => "Save changes to the reading",
+                None => "Record reading",
+            };
+            if ui
+                .add_enabled(valid && entry.is_some(), egui::Button::new(button))
+                .on_hover_text(hint)
+                .clicked()
+                && let Some(e) = entry
+            {
+                action = Some(match self.editing {
+                    Some(i) => BenchLogAction::Replace(i, e),
+                    None => BenchLogAction::Record(e),
+                });
+                // The instrument is usually the same for the next reading; the rest is not.
+                let instrument = std::mem::take(&mut self.form.instrument);
+                let (known, ppm) = (self.form.error_known, self.form.error_ppm);
+                self.form = Form {
+                    instrument,
+                    error_known: known,
+                    error_ppm: ppm,
+                    ..Form::default()
+                };
+                self.editing = None;
+            }
+            if self.editing.is_some() && ui.button("Cancel edit").clicked() {
+                self.editing = None;
+                self.form = Form::default();
+            }
+        });
         action
     }
+}
+
+/// The fit and the advice, from the recipe's figures.
+fn fit_ui(ui: &mut egui::Ui, figures: &Figures, unit: LengthUnit) -> Option<BenchLogAction> {
+    match &figures.fit {
+        None => {}
+        Some(Err(e)) => {
+            ui.colored_label(ui.visuals().warn_fg_color, format!("No calibration: {e}."));
+        }
+        Some(Ok(fit)) => {
+            let scale = match fit.inductance_scale_error {
+                Some(err) => format!(
+                    "inductance {:.3} ± {:.3} × the model's",
+                    fit.calibration.inductance_scale, err
+                ),
+                None => "inductance as modelled (not separable from these readings)".to_owned(),
+            };
+            ui.label(format!(
+                "Calibrated on {} reading{}: {:+.2} ± {:.2} pF beyond the model; {scale}.",
+                fit.readings_used,
+                if fit.readings_used == 1 { "" } else { "s" },
+                fit.calibration.extra_capacitance * 1e12,
+                fit.extra_capacitance_error * 1e12,
+            ))
+            .on_hover_text(
+                "Weighted least squares on the model: the extra capacitance (stray, device, \
+                 wiring) and, when readings differ in capacitance or length, the build's \
+                 inductance over the model's. Every figure on screen now uses them.",
+            );
+            for w in &fit.warnings {
+                ui.colored_label(ui.visuals().warn_fg_color, w.to_string());
+            }
+        }
+    }
+    let t = &figures.target;
+    let show = |m: f64| unit.show(m);
+    let mut text = format!(
+        "To land on {:.3} MHz: {}.",
+        t.channel * 1e-6,
+        t.advice.text(show)
+    );
+    if let (Advice::Stretch { .. }, Some(Ok(fit))) = (&t.advice, &figures.fit)
+        && let Some(sigma) = fit.sigmas.last()
+        && let Some(u) = length_uncertainty(*sigma, t.stretch_sensitivity)
+    {
+        text.push_str(&format!(" (±{} from the instrument)", unit.show(u)));
+    }
+    ui.strong(text);
+    let action = match &t.advice {
+        Advice::Stretch { length, .. } => Some(BenchLogAction::SetLength(*length)),
+        Advice::SetTrimmer { setting, .. } => Some(BenchLogAction::SetTrimmer(*setting)),
+        Advice::ChangeTurns { to, length, .. } => Some(BenchLogAction::SetTurns(*to, *length)),
+        Advice::OnChannel { .. } | Advice::OutOfReach(_) => None,
+    };
+    if action.is_some()
+        && ui
+            .button(APPLY_ADVICE_LABEL)
+            .on_hover_text("changes the coil or trimmer on screen; undo restores it")
+            .clicked()
+    {
+        return action;
+    }
+    None
 }

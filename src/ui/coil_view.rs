@@ -4,7 +4,7 @@
 //! (drawn lighter, behind) rising from the bottom to the top and a front half descending, both
 //! stroked with the wire's real overall diameter (and the bare copper inside it when insulated).
 
-use crate::model::Geometry;
+use crate::model::{Coil, limits};
 use crate::ui::units::LengthUnit;
 use eframe::egui::{
     self, Align2, Color32, CursorIcon, FontId, Pos2, Rect, Sense, Stroke, pos2, vec2,
@@ -16,9 +16,6 @@ pub const HANDLE_LABEL: &str = "drag to stretch or squeeze";
 
 /// Accessible name of the drawing.
 pub const COIL_VIEW_LABEL: &str = "coil drawing";
-
-/// Longest coil the handle will propose, metres (the model refuses anything longer).
-pub(crate) const LONGEST: f64 = 2.0;
 
 /// Screen margin around the drawing, points.
 const MARGIN: f32 = 14.0;
@@ -46,20 +43,16 @@ struct Layout {
 /// Side view of the coil to scale: turns as the wire crossing above and below the axis with the
 /// wire's real thickness, both leads, dimension lines with the length and gap in `unit`. The free
 /// (right-hand) end can be dragged to stretch or squeeze: returns the new length (metres) while
-/// dragging, never below `touching_length`.
-pub fn coil_view(
-    ui: &mut egui::Ui,
-    geometry: &Geometry,
-    unit: LengthUnit,
-    touching_length: f64,
-) -> Option<f64> {
-    let g = geometry;
+/// dragging, never below the coil's shortest length nor beyond the longest the model accepts.
+pub fn coil_view(ui: &mut egui::Ui, coil: &Coil, unit: LengthUnit) -> Option<f64> {
+    let g = coil;
+    let touching_length = coil.shortest_length();
     let width = ui.available_width().max(120.0);
-    let wire = g.wire_overall.max(g.wire_bare).max(0.0);
-    let outer = g.mean_diameter + wire;
-    let lead = g.lead_length.max(0.0);
+    let wire = g.wire_overall().max(g.wire_bare()).max(0.0);
+    let outer = g.mean_diameter() + wire;
+    let lead = g.lead_length().max(0.0);
     // Fit the coil (with room to stretch), both leads and the wire's own thickness.
-    let span = g.length * (1.0 + STRETCH_ROOM) + 2.0 * lead + wire;
+    let span = g.length() * (1.0 + STRETCH_ROOM) + 2.0 * lead + wire;
     let fit_w = (width - 2.0 * MARGIN).max(40.0) / span.max(1e-6) as f32;
     // Within the height given (the dimension lines need their room), up to a sensible size.
     let budget =
@@ -87,7 +80,7 @@ pub fn coil_view(
     let x_at = |m: f64| layout.origin_x + m as f32 * s;
     let axis_y = rect.top() + MARGIN + DIMENSION_ROOM + 0.5 * coil_h;
     let y_at = |m: f64| axis_y - m as f32 * s;
-    let radius = 0.5 * g.mean_diameter;
+    let radius = 0.5 * g.mean_diameter();
 
     let visuals = ui.visuals();
     let ink = visuals.text_color();
@@ -96,21 +89,21 @@ pub fn coil_view(
     let back_copper = blend(COPPER, background, 0.55);
     let back_enamel = blend(ENAMEL, background, 0.55);
     let wire_px = (wire as f32 * s).max(1.0);
-    let bare_px = (g.wire_bare as f32 * s).max(1.0);
-    let insulated = g.wire_overall > g.wire_bare * 1.001 && wire_px - bare_px >= 0.5;
+    let bare_px = (g.wire_bare() as f32 * s).max(1.0);
+    let insulated = g.wire_overall() > g.wire_bare() * 1.001 && wire_px - bare_px >= 0.5;
 
     // The axis, faint.
     painter.line_segment(
         [
             pos2(x_at(-lead), axis_y),
-            pos2(x_at(g.length + lead), axis_y),
+            pos2(x_at(g.length() + lead), axis_y),
         ],
         Stroke::new(1.0, faint.gamma_multiply(0.5)),
     );
 
     // Helix: starts at the bottom (θ = π) so that both leads leave along the bottom tangent.
-    let turns = g.turns.max(0.0);
-    let pitch = if turns > 0.0 { g.length / turns } else { 0.0 };
+    let turns = g.turns().max(0.0);
+    let pitch = if turns > 0.0 { g.length() / turns } else { 0.0 };
     let theta_end = PI + TAU * turns;
     let point = |theta: f64| -> Pos2 {
         let m = pitch * (theta - PI) / TAU;
@@ -190,11 +183,11 @@ pub fn coil_view(
     let dim_y = top - 10.0;
     dimension(
         &painter,
-        (x_at(0.0), x_at(g.length)),
+        (x_at(0.0), x_at(g.length())),
         dim_y,
         top,
         ink,
-        &format!("length {}", unit.show(g.length)),
+        &format!("length {}", unit.show(g.length())),
         Align2::CENTER_BOTTOM,
         &font,
     );
@@ -211,7 +204,7 @@ pub fn coil_view(
             gap_y,
             bottom,
             ink,
-            &format!("gap {}", unit.show(g.gap)),
+            &format!("gap {}", unit.show(g.gap())),
             Align2::LEFT_TOP,
             &font,
         );
@@ -219,7 +212,7 @@ pub fn coil_view(
         painter.text(
             pos2(x_at(0.0), gap_y),
             Align2::LEFT_TOP,
-            format!("gap {}", unit.show(g.gap)),
+            format!("gap {}", unit.show(g.gap())),
             font.clone(),
             ink,
         );
@@ -227,7 +220,7 @@ pub fn coil_view(
 
     // The handle on the free end.
     let handle_rect = Rect::from_center_size(
-        pos2(x_at(g.length), axis_y),
+        pos2(x_at(g.length()), axis_y),
         vec2((wire_px + 10.0).max(16.0), coil_h + 8.0),
     );
     let handle = ui
@@ -236,12 +229,12 @@ pub fn coil_view(
         .on_hover_text(HANDLE_LABEL);
     let step = keyboard_step(unit);
     let floor = touching_length.max(0.0);
-    let ceiling = LONGEST.max(floor);
-    let nudged = nudge(ui, &handle, unit, step, g.length, (floor, ceiling));
+    let ceiling = limits::LENGTH_MAX.max(floor);
+    let nudged = nudge(ui, &handle, unit, step, g.length(), (floor, ceiling));
     handle.widget_info(|| {
         egui::WidgetInfo::slider(
             true,
-            unit.from_metres(nudged.unwrap_or(g.length)),
+            unit.from_metres(nudged.unwrap_or(g.length())),
             HANDLE_LABEL,
         )
     });
@@ -355,7 +348,7 @@ fn nudge(
 
 /// A dimension line at height `y` between `xs`, with extension lines up or down to `from_y`
 /// and `text` beside it.
-#[allow(
+#[expect(
     clippy::too_many_arguments,
     reason = "a drawing primitive: painter, geometry, style and label are all it needs"
 )]

@@ -1,57 +1,24 @@
 //! What the window shows, computed from the recipe only when the recipe changes.
 //!
-//! The engine does the work (`model::evaluate`, `tuning::solve`); this keeps its answers
-//! between frames so an idle frame computes nothing.
+//! The engine does the work ([`crate::recipe::figures()`], `tuning::sweep`); this is the one place
+//! that keeps its answers between frames — the figures (calibrated once there are bench
+//! readings), the target figures, the advice and the charts' sweeps — so an idle frame computes
+//! nothing, and the sweeps are always those of the figures shown (the same coil, tank and
+//! conditions).
 
-use crate::model::{Analysis, Coil, Conditions, InputError, Tank, Winding, evaluate};
-use crate::recipe::{Recipe, Target};
+use crate::model::InputError;
+use crate::recipe::{BenchEntry, Figures, Recipe, Target, figures};
 use crate::tuning::BandPlan;
-use crate::tuning::solve::{self, Unreachable};
-
-/// Channel width assumed for a custom list with fewer than two channels, hertz.
-const CUSTOM_CHANNEL_WIDTH: f64 = 100e3;
-
-/// Where the coil stands against its target channel.
-#[derive(Clone, Debug, PartialEq)]
-pub struct TargetFigures {
-    /// The target channel centre, hertz.
-    pub channel: f64,
-    /// Resonance minus target, hertz.
-    pub offset: f64,
-    /// Width of one channel of the plan, hertz.
-    pub channel_width: f64,
-    /// Lowest and highest resonance the trimmer reaches at this spacing, hertz.
-    pub window: (f64, f64),
-    /// Channels of the plan inside that window, hertz.
-    pub in_reach: Vec<f64>,
-    /// Coil length that lands on the target at the present trimmer setting, metres.
-    pub length_for_target: Result<f64, Unreachable>,
-    /// Trimmer setting that lands on the target at the present length, 0–1.
-    pub setting_for_target: Result<f64, Unreachable>,
-    /// How far the resonance moves per metre of stretch, hertz per metre.
-    pub stretch_sensitivity: f64,
-}
-
-/// Everything computed for a valid recipe.
-#[derive(Clone, Debug, PartialEq)]
-pub struct Figures {
-    /// The validated coil.
-    pub coil: Coil,
-    /// The tank it was evaluated in.
-    pub tank: Tank,
-    /// Every figure of the engine.
-    pub analysis: Analysis,
-    /// Against the target.
-    pub target: TargetFigures,
-}
+use crate::ui::charts::ChartCache;
 
 /// Inputs the figures were computed from.
 #[derive(Clone, PartialEq)]
 struct Inputs {
-    winding: Winding,
-    tank: Tank,
-    conditions: Conditions,
+    winding: crate::model::Winding,
+    tank: crate::model::Tank,
+    conditions: crate::model::Conditions,
     target: Target,
+    bench_log: Vec<BenchEntry>,
 }
 
 impl Inputs {
@@ -61,6 +28,7 @@ impl Inputs {
             tank: recipe.tank,
             conditions: recipe.conditions,
             target: recipe.target.clone(),
+            bench_log: recipe.bench_log.clone(),
         }
     }
 
@@ -70,6 +38,7 @@ impl Inputs {
             && self.tank == recipe.tank
             && self.conditions == recipe.conditions
             && self.target == recipe.target
+            && self.bench_log == recipe.bench_log
     }
 }
 
@@ -80,22 +49,43 @@ pub struct Evaluation {
     last_good: Option<Figures>,
     plan: BandPlan,
     channels: Vec<f64>,
+    sweeps: ChartCache,
+    uncalibrated_sweeps: ChartCache,
 }
 
 impl Evaluation {
     /// The evaluation of `recipe`.
     pub fn new(recipe: &Recipe) -> Self {
         let inputs = Inputs::of(recipe);
-        Self {
-            current: compute(&inputs),
+        let mut evaluation = Self {
+            current: figures(recipe),
             inputs,
             last_good: None,
             plan: recipe.target.plan.clone(),
             channels: recipe.target.plan.channels(),
+            sweeps: ChartCache::default(),
+            uncalibrated_sweeps: ChartCache::default(),
+        };
+        evaluation.refresh_sweeps();
+        evaluation
+    }
+
+    /// Bring the sweeps up to the figures shown (a no-op when they already match).
+    fn refresh_sweeps(&mut self) {
+        if let Some(f) = self.current.as_ref().ok().or(self.last_good.as_ref()) {
+            self.sweeps.refresh(&f.coil, &f.tank, &f.conditions);
+            if f.calibrated() {
+                self.uncalibrated_sweeps.refresh(
+                    &f.coil,
+                    &self.inputs.tank,
+                    &self.inputs.conditions,
+                );
+            }
         }
     }
 
-    /// Recompute if the recipe's coil, tank, conditions or target changed; true if it did.
+    /// Recompute if the recipe's coil, tank, conditions, target or readings changed; true if
+    /// it did.
     pub fn refresh(&mut self, recipe: &Recipe) -> bool {
         if self.plan != recipe.target.plan {
             self.channels = recipe.target.plan.channels();
@@ -105,7 +95,7 @@ impl Evaluation {
             return false;
         }
         let inputs = Inputs::of(recipe);
-        let next = compute(&inputs);
+        let next = figures(recipe);
         let previous = std::mem::replace(&mut self.current, next);
         match (&self.current, previous) {
             (Ok(_), _) => self.last_good = None,
@@ -113,7 +103,21 @@ impl Evaluation {
             (Err(_), Err(_)) => {}
         }
         self.inputs = inputs;
+        self.refresh_sweeps();
         true
+    }
+
+    /// The charts' sweeps for the figures [`latest`](Self::latest) returns (calibrated once
+    /// there are readings).
+    pub fn sweeps(&self) -> &ChartCache {
+        &self.sweeps
+    }
+
+    /// The uncalibrated model's sweeps, when the figures shown are calibrated.
+    pub fn uncalibrated_sweeps(&self) -> Option<&ChartCache> {
+        self.latest()
+            .filter(|f| f.calibrated())
+            .map(|_| &self.uncalibrated_sweeps)
     }
 
     /// The figures for the recipe as it stands, or the reason it was refused.
@@ -135,42 +139,4 @@ impl Evaluation {
     pub fn channels(&self) -> &[f64] {
         &self.channels
     }
-}
-
-/// Width of one channel of `channels` (the smallest spacing), hertz.
-pub fn channel_width(channels: &[f64]) -> f64 {
-    channels
-        .windows(2)
-        .map(|w| w[1] - w[0])
-        .filter(|d| *d > 0.0)
-        .fold(None, |acc: Option<f64>, d| {
-            Some(acc.map_or(d, |a| a.min(d)))
-        })
-        .unwrap_or(CUSTOM_CHANNEL_WIDTH)
-}
-
-fn compute(inputs: &Inputs) -> Result<Figures, InputError> {
-    let analysis = evaluate(&inputs.winding, &inputs.tank, &inputs.conditions)?;
-    let coil = Coil::from_winding(&inputs.winding)?;
-    let tank = inputs.tank;
-    let conditions = &inputs.conditions;
-    let external = tank.external_capacitance();
-    let window = solve::trimmer_window(&coil, &tank, conditions);
-    let channel = inputs.target.channel;
-    let target = TargetFigures {
-        channel,
-        offset: analysis.resonance - channel,
-        channel_width: channel_width(&inputs.target.plan.channels()),
-        window,
-        in_reach: inputs.target.plan.within(window.0, window.1),
-        length_for_target: solve::length_for_target(&coil, external, conditions, channel),
-        setting_for_target: solve::setting_for_target(&coil, &tank, conditions, channel),
-        stretch_sensitivity: solve::stretch_sensitivity(&coil, external, conditions),
-    };
-    Ok(Figures {
-        coil,
-        tank,
-        analysis,
-        target,
-    })
 }

@@ -1,11 +1,10 @@
 //! Sweep results kept between frames, recomputed only when the coil, tank or conditions change.
 
 use crate::model::{Coil, Conditions, Tank};
-use crate::tuning::solve::longest_length;
-use crate::tuning::sweep::{SpacingCurve, spacing_sweep, touching_length, trimmer_sweep};
+use crate::tuning::sweep::{SpacingCurve, spacing_sweep, trimmer_sweep};
 
 /// Trimmer settings the spacing chart draws a curve for.
-pub(crate) const SETTINGS: [f64; 5] = [0.0, 0.25, 0.5, 0.75, 1.0];
+pub const SETTINGS: [f64; 5] = [0.0, 0.25, 0.5, 0.75, 1.0];
 
 /// Points per curve: about one or two per horizontal pixel of a panel-sized chart.
 pub(crate) const SAMPLES: usize = 240;
@@ -44,13 +43,13 @@ impl ChartCache {
     /// The upper end is kept while only the length changes and it still leaves room both ways,
     /// so that dragging the spacing does not rescale the axis under the pointer every frame.
     fn length_range(&self, coil: &Coil) -> (f64, f64) {
-        let lo = touching_length(coil);
-        let wanted = longest_length(coil).max(1.5 * coil.length);
+        let lo = coil.shortest_length();
+        let wanted = coil.longest_proposed_length().max(1.5 * coil.length());
         let same_winding = self
             .inputs
             .is_some_and(|(old, _, _)| same_winding(&old, coil));
         let kept = self.range.1;
-        let hi = if same_winding && kept >= 1.2 * coil.length && kept <= 2.0 * wanted {
+        let hi = if same_winding && kept >= 1.2 * coil.length() && kept <= 2.0 * wanted {
             kept
         } else {
             wanted
@@ -76,10 +75,5 @@ impl ChartCache {
 
 /// Everything but the spacing is the same.
 fn same_winding(a: &Coil, b: &Coil) -> bool {
-    a.mean_diameter == b.mean_diameter
-        && a.former_diameter == b.former_diameter
-        && a.wire_bare == b.wire_bare
-        && a.wire_overall == b.wire_overall
-        && a.turns == b.turns
-        && a.lead_length == b.lead_length
+    a.with_length(b.length()).is_ok_and(|a| a == *b)
 }

@@ -12,7 +12,7 @@ use crate::model::{Coil, Tank};
 use crate::ui::units::LengthUnit;
 use eframe::egui::{self, Color32};
 
-pub use cache::ChartCache;
+pub use cache::{ChartCache, SETTINGS};
 pub use spacing::{SPACING_CHART_LABEL, spacing_chart};
 pub use trimmer::{TRIMMER_CHART_LABEL, trimmer_chart};
 
@@ -36,10 +36,25 @@ impl SpacingAxis {
     }
 }
 
+/// A bench reading as the charts draw it.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct ReadingMark {
+    /// Coil length at the reading, metres.
+    pub length: f64,
+    /// Trimmer setting at the reading, 0–1.
+    pub setting: f64,
+    /// Measured frequency, hertz.
+    pub measured: f64,
+}
+
 /// Everything the charts draw from (borrowed; drawing never changes the model).
 pub struct ChartView<'a> {
     /// Sweeps computed for `coil` and `tank` by [`ChartCache::refresh`].
     pub cache: &'a ChartCache,
+    /// The uncalibrated model's sweeps, when the figures are calibrated on bench readings.
+    pub uncalibrated: Option<&'a ChartCache>,
+    /// The bench readings, drawn as points.
+    pub readings: &'a [ReadingMark],
     /// The present coil.
     pub coil: &'a Coil,
     /// The present tank.
@@ -61,9 +76,7 @@ impl ChartView<'_> {
     pub(crate) fn x_of_length(&self, length: f64) -> f64 {
         match self.axis {
             SpacingAxis::Length => self.unit.from_metres(length),
-            SpacingAxis::Gap => self
-                .unit
-                .from_metres(length / self.coil.turns - self.coil.wire_overall),
+            SpacingAxis::Gap => self.unit.from_metres(self.coil.gap_for_length(length)),
         }
     }
 
@@ -71,7 +84,7 @@ impl ChartView<'_> {
     pub(crate) fn length_of_x(&self, x: f64) -> f64 {
         match self.axis {
             SpacingAxis::Length => self.unit.to_metres(x),
-            SpacingAxis::Gap => self.coil.turns * (self.unit.to_metres(x) + self.coil.wire_overall),
+            SpacingAxis::Gap => self.coil.length_for_gap(self.unit.to_metres(x)),
         }
     }
 
@@ -114,6 +127,10 @@ pub(crate) mod palette {
     const RAMP_END: Color32 = Color32::from_rgb(0xd9, 0x74, 0x1c);
     /// The present coil or setting.
     pub const PRESENT: Color32 = Color32::from_rgb(0x2f, 0x86, 0xd6);
+    /// Bench readings.
+    pub const READING: Color32 = Color32::from_rgb(0xb8, 0x3f, 0xa8);
+    /// The model before calibration.
+    pub const UNCALIBRATED: Color32 = Color32::from_rgb(0x8c, 0x8c, 0x8c);
     /// The target channel.
     pub const TARGET: Color32 = Color32::from_rgb(0x3a, 0xa8, 0x5c);
 
@@ -270,6 +287,29 @@ pub(crate) fn hover_text(
         format!("{name}\n")
     };
     format!("{head}{:.3} MHz\n{}", p.y, x_text(p.x))
+}
+
+/// Bench readings as points at (`x_of(reading)`, measured MHz).
+pub(crate) fn reading_points(
+    plot_ui: &mut egui_plot::PlotUi<'_>,
+    view: &ChartView<'_>,
+    x_of: impl Fn(&ReadingMark) -> f64,
+) {
+    if view.readings.is_empty() {
+        return;
+    }
+    let points: Vec<[f64; 2]> = view
+        .readings
+        .iter()
+        .map(|r| [x_of(r), r.measured * 1e-6])
+        .collect();
+    plot_ui.points(
+        egui_plot::Points::new("bench readings", points)
+            .color(palette::READING)
+            .shape(egui_plot::MarkerShape::Diamond)
+            .filled(true)
+            .radius(5.0),
+    );
 }
 
 /// The target channel: its band shaded and its centre drawn as a line (the band alone is too

@@ -1,10 +1,9 @@
 //! Resonance against spacing, one curve per trimmer setting.
 
 use super::{
-    ChartView, held_bounds, hover_text, palette, pointer_x, present_marker, still_plot,
-    target_channel,
+    ChartView, held_bounds, hover_text, palette, pointer_x, present_marker, reading_points,
+    still_plot, target_channel,
 };
-use crate::tuning::sweep::touching_length;
 use eframe::egui;
 use egui_plot::{Corner, Line, LineStyle, PlotPoints, Span, VLine};
 
@@ -16,9 +15,9 @@ pub const SPACING_CHART_LABEL: &str = "spacing chart";
 /// when the user clicks or drags on the chart.
 pub fn spacing_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
     let visuals = ui.visuals().clone();
-    let touching = touching_length(view.coil);
+    let touching = view.coil.shortest_length();
     let (_, longest) = view.cache.length_range_swept();
-    let longest = longest.max(touching * 1.001).max(view.coil.length);
+    let longest = longest.max(touching * 1.001).max(view.coil.length());
     let x_touch = view.x_of_length(touching);
     let x_long = view.x_of_length(longest);
     // A little room left of the limit, so that it reads as a line and not the frame.
@@ -86,10 +85,35 @@ pub fn spacing_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
             );
         }
 
+        if let Some(before) = view.uncalibrated {
+            let present = view.tank.trimmer_setting;
+            if let Some(curve) = before.spacing_curves().iter().min_by(|a, b| {
+                (a.setting - present)
+                    .abs()
+                    .total_cmp(&(b.setting - present).abs())
+            }) {
+                let points: PlotPoints<'_> = curve
+                    .points
+                    .iter()
+                    .map(|p| [view.x_of_length(p[0]), p[1] * 1e-6])
+                    .collect();
+                plot_ui.line(
+                    Line::new(
+                        format!("before calibration, {:.0} %", curve.setting * 100.0),
+                        points,
+                    )
+                    .color(palette::UNCALIBRATED)
+                    .style(LineStyle::dashed_dense())
+                    .width(1.4),
+                );
+            }
+        }
+        reading_points(plot_ui, view, |r| view.x_of_length(r.length));
+
         present_marker(
             plot_ui,
             "this coil",
-            view.x_of_length(view.coil.length),
+            view.x_of_length(view.coil.length()),
             view.resonance_hz,
         );
     });
@@ -100,6 +124,6 @@ pub fn spacing_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
         view.length_of_x(bounds[0]).max(touching),
         view.length_of_x(bounds[1]),
     );
-    let hi = hi.min(crate::ui::coil_view::LONGEST);
+    let hi = hi.min(crate::model::limits::LENGTH_MAX);
     Some(length.clamp(lo, hi.max(lo)))
 }

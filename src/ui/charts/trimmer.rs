@@ -1,8 +1,8 @@
 //! Resonance against trimmer setting at the present spacing.
 
 use super::{
-    ChartView, held_bounds, hover_text, palette, pointer_x, present_marker, still_plot,
-    target_channel,
+    ChartView, held_bounds, hover_text, palette, pointer_x, present_marker, reading_points,
+    still_plot, target_channel,
 };
 use eframe::egui;
 use egui_plot::{Corner, Line, PlotPoints};
@@ -38,6 +38,19 @@ pub fn trimmer_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
                 .width(1.8),
         );
         target_channel(plot_ui, view);
+        // Readings at the present length only: at another length they lie on another curve.
+        let here = view.coil.length();
+        let same_length: Vec<_> = view
+            .readings
+            .iter()
+            .copied()
+            .filter(|r| (r.length - here).abs() <= 1e-6)
+            .collect();
+        let at_length = ChartView {
+            readings: &same_length,
+            ..*view
+        };
+        reading_points(plot_ui, &at_length, |r| r.setting * 100.0);
         present_marker(
             plot_ui,
             "this setting",

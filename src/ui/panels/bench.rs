@@ -1,9 +1,9 @@
 //! The centre of the window: the coil drawn to scale on top, the live charts below.
 
 use super::Command;
-use crate::model::{Conditions, SpacingSpec};
-use crate::tuning::sweep::touching_length;
-use crate::ui::charts::{self, ChartCache, ChartView, SpacingAxis};
+use crate::model::SpacingSpec;
+use crate::recipe::BenchEntry;
+use crate::ui::charts::{self, ChartView, ReadingMark, SpacingAxis};
 use crate::ui::coil_view::coil_view;
 use crate::ui::evaluation::Evaluation;
 use crate::ui::theme;
@@ -19,9 +19,8 @@ const DRAWING_SHARE: f32 = 0.36;
 pub fn show(
     ui: &mut egui::Ui,
     evaluation: &Evaluation,
-    cache: &mut ChartCache,
+    readings: &[BenchEntry],
     spacing: SpacingSpec,
-    conditions: &Conditions,
     unit: LengthUnit,
     commands: &mut Vec<Command>,
 ) {
@@ -39,18 +38,11 @@ pub fn show(
             .color(theme::refusal(ui)),
         );
     }
-    cache.refresh(&figures.coil, &figures.tank, conditions);
-
     let width = ui.available_width();
     let drawing_height = (ui.available_height() * DRAWING_SHARE).max(160.0);
     let drawn = ui
         .allocate_ui(egui::vec2(width, drawing_height), |ui| {
-            coil_view(
-                ui,
-                &figures.analysis.geometry,
-                unit,
-                touching_length(&figures.coil),
-            )
+            coil_view(ui, &figures.coil, unit)
         })
         .inner;
     if let Some(length) = drawn {
@@ -58,8 +50,18 @@ pub fn show(
     }
     ui.separator();
 
+    let readings: Vec<ReadingMark> = readings
+        .iter()
+        .map(|e| ReadingMark {
+            length: e.length,
+            setting: e.trimmer_setting,
+            measured: e.measured,
+        })
+        .collect();
     let view = ChartView {
-        cache,
+        cache: evaluation.sweeps(),
+        uncalibrated: evaluation.uncalibrated_sweeps(),
+        readings: &readings,
         coil: &figures.coil,
         tank: &figures.tank,
         target_hz: figures.target.channel,

@@ -24,6 +24,8 @@ pub enum Command {
     SetLength(f64),
     /// Set the trimmer, 0–1.
     SetTrimmer(f64),
+    /// Wind another number of turns to a coil length (metres).
+    SetTurns(f64, f64),
     /// Open the cautions window.
     OpenCautions,
     /// Switch between light and dark.

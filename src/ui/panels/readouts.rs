@@ -9,31 +9,6 @@ use crate::ui::units::{LengthUnit, mhz, nh, pf};
 use crate::ui::widgets::{Readout, caution_mark};
 use eframe::egui::{self, RichText};
 
-/// How each inductance model works, for the hover notes.
-fn model_method(model: InductanceModel) -> &'static str {
-    match model {
-        InductanceModel::RoundWire => {
-            "Rosa 1907/Grover 1946 round-wire correction of Nagaoka's current sheet, internal \
-             inductance at the resonance"
-        }
-        InductanceModel::FilamentSum => {
-            "Sum over circular rings: each turn's own inductance plus Maxwell's mutual \
-             inductance of every pair (elliptic integrals), at the resonance"
-        }
-        InductanceModel::CurrentSheet => {
-            "Nagaoka 1909 coefficient of a uniform current sheet, exact by complete elliptic \
-             integrals"
-        }
-        InductanceModel::Lundin1985 => {
-            "Lundin 1985 closed-form approximation of Nagaoka's coefficient"
-        }
-        InductanceModel::Wheeler1928 => {
-            "Wheeler 1928 closed form for a single-layer solenoid (about 1 % when the length \
-             exceeds 0.8 × radius)"
-        }
-    }
-}
-
 /// Inductance in nanohenries with its unit.
 fn show_nh(henries: f64) -> String {
     format!("{:.1} nH", nh(henries))
@@ -102,10 +77,7 @@ fn figures_rows(ui: &mut egui::Ui, a: &Analysis, unit: LengthUnit) {
     ui.add_space(4.0);
     ui.label(RichText::new("Inductance of the coil (without leads)").strong());
     for model in InductanceModel::ALL {
-        let value = match model {
-            InductanceModel::FilamentSum => a.inductance.filament_sum.map(show_nh),
-            other => Some(show_nh(a.inductance.by_model(other))),
-        };
+        let value = a.inductance.by_model(model).map(show_nh);
         let driving = model == a.model;
         let name = if driving {
             format!("» {}", model.label())
@@ -115,7 +87,7 @@ fn figures_rows(ui: &mut egui::Ui, a: &Analysis, unit: LengthUnit) {
         let mut row = Readout::new(
             &name,
             value.unwrap_or_else(|| "not computed".to_owned()),
-            model_method(model),
+            model.method(),
         )
         .emphasis(driving)
         .indent(!driving);
@@ -211,14 +183,14 @@ fn figures_rows(ui: &mut egui::Ui, a: &Analysis, unit: LengthUnit) {
     .show(ui);
     Readout::new(
         "Wire to cut",
-        unit.show(a.geometry.wire_length),
+        unit.show(a.coil.wire_length()),
         "Helix √((πD)² + p²) per turn times the turns, plus both leads",
     )
     .emphasis(true)
     .show(ui);
     Readout::new(
         "Length ÷ diameter",
-        format!("{:.2}", a.geometry.length_over_diameter),
+        format!("{:.2}", a.coil.length_over_diameter()),
         "Coil length (turns × pitch) over the mean diameter",
     )
     .show(ui);

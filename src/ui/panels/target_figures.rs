@@ -3,8 +3,8 @@
 
 use super::Command;
 use super::target::show_mhz;
+use crate::recipe::Figures;
 use crate::recipe::Target;
-use crate::ui::evaluation::Figures;
 use crate::ui::theme;
 use crate::ui::units::{LengthUnit, mhz};
 use crate::ui::widgets::{Readout, cautions_line};
@@ -23,7 +23,7 @@ pub fn show(
 ) {
     let t = &figures.target;
     let offset_khz = t.offset * 1e-3;
-    let on_channel = t.offset.abs() <= 0.5 * t.channel_width;
+    let on_channel = t.on_channel;
     let colour = if on_channel {
         theme::on_target(ui)
     } else {
@@ -37,11 +37,20 @@ pub fn show(
     } else {
         "below"
     };
+    let note = format!(
+        "Resonance minus the channel centre, by the {} model; within the channel means within \
+         ±{:.1} kHz of it",
+        if figures.calibrated() {
+            "calibrated"
+        } else {
+            "uncalibrated"
+        },
+        t.tolerance * 1e-3
+    );
     Readout::new(
         "Offset from target",
         format!("{offset_khz:+.decimals$} kHz, {side}"),
-        "Resonance minus the channel centre; within the channel means less than half a channel \
-         width away",
+        &note,
     )
     .emphasis(true)
     .colour(colour)
@@ -131,7 +140,7 @@ pub fn show(
 
     match &t.length_for_target {
         Ok(length) => {
-            let change = length - figures.coil.length;
+            let change = length - figures.coil.length();
             Readout::new(
                 "Length for target",
                 format!(

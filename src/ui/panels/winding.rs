@@ -80,10 +80,10 @@ pub fn show(
     if let Some(coil) = coil.filter(|_| refused.is_none()) {
         ui.label(format!(
             "Former {} · mean {} · pitch {} · wire over insulation {}",
-            unit.show(coil.former_diameter),
-            unit.show(coil.mean_diameter),
-            unit.show(coil.pitch),
-            unit.show(coil.wire_overall),
+            unit.show(coil.former_diameter()),
+            unit.show(coil.mean_diameter()),
+            unit.show(coil.pitch()),
+            unit.show(coil.wire_overall()),
         ));
     }
 }
@@ -103,8 +103,8 @@ fn diameter_rows(
         &[(true, "former"), (false, "mean")],
     ) {
         w.diameter = match (w.diameter, coil) {
-            (DiameterSpec::Mean(_), Some(c)) if former => DiameterSpec::Former(c.former_diameter),
-            (DiameterSpec::Former(_), Some(c)) if !former => DiameterSpec::Mean(c.mean_diameter),
+            (DiameterSpec::Mean(_), Some(c)) if former => DiameterSpec::Former(c.former_diameter()),
+            (DiameterSpec::Former(_), Some(c)) if !former => DiameterSpec::Mean(c.mean_diameter()),
             (DiameterSpec::Mean(d) | DiameterSpec::Former(d), _) if former => {
                 DiameterSpec::Former(d)
             }
@@ -224,7 +224,7 @@ fn spacing_rows(
         &[(true, "coil length"), (false, "gap")],
     ) {
         w.spacing = match (w.spacing, coil) {
-            (_, Some(c)) if length => SpacingSpec::Length(c.length),
+            (_, Some(c)) if length => SpacingSpec::Length(c.length()),
             (_, Some(c)) => SpacingSpec::Gap(c.gap()),
             (SpacingSpec::Length(x) | SpacingSpec::Gap(x), None) if length => {
                 SpacingSpec::Length(x)
@@ -256,6 +256,6 @@ pub fn set_length(winding: &mut Winding, coil: &Coil, length: f64) {
     }
     winding.spacing = match winding.spacing {
         SpacingSpec::Length(_) => SpacingSpec::Length(length),
-        SpacingSpec::Gap(_) => SpacingSpec::Gap((length / coil.turns - coil.wire_overall).max(0.0)),
+        SpacingSpec::Gap(_) => SpacingSpec::Gap(coil.gap_for_length(length)),
     };
 }

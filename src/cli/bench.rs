@@ -1,0 +1,161 @@
+//! `tankwright solve` and `tankwright fit`: the bench loop for scripts, from a saved recipe.
+//!
+//! Both compute through [`crate::recipe::figures()`], the same function the window and `report`
+//! use, so the three cannot disagree.
+
+use super::args::Args;
+use crate::recipe::{Figures, Recipe, figures, store};
+use crate::tuning::fit::inverse_square_line;
+use serde_json::json;
+use std::path::Path;
+
+/// The recipe named by `--recipe`, with `--target-mhz` and `--trimmer-pct` applied if given.
+fn recipe_from(args: &Args, command: &str) -> Result<Recipe, String> {
+    let file = args
+        .text("recipe")
+        .ok_or_else(|| format!("{command} needs --recipe FILE.ron"))?
+        .to_owned();
+    let target = args.number("target-mhz").map_err(|e| e.to_string())?;
+    let trimmer = args.number("trimmer-pct").map_err(|e| e.to_string())?;
+    args.reject_unknown().map_err(|e| e.to_string())?;
+    if let Some(word) = args.positional.first() {
+        return Err(format!("unexpected word '{word}' (see 'tankwright help')"));
+    }
+    let mut recipe = store::load(Path::new(&file)).map_err(|e| e.to_string())?;
+    if let Some(mhz) = target {
+        if !(1.0..=3000.0).contains(&mhz) {
+            return Err(format!("--target-mhz {mhz} is outside 1–3000 MHz"));
+        }
+        recipe.target.channel = mhz * 1e6;
+    }
+    if let Some(pct) = trimmer {
+        if !(0.0..=100.0).contains(&pct) {
+            return Err(format!("--trimmer-pct {pct} is outside 0–100 %"));
+        }
+        recipe.tank.trimmer_setting = pct / 100.0;
+    }
+    Ok(recipe)
+}
+
+fn figures_of(recipe: &Recipe) -> Result<Figures, String> {
+    figures(recipe).map_err(|e| format!("invalid recipe: {e}"))
+}
+
+/// Run `solve`: the coil that lands the target, in the builder's terms.
+pub fn run_solve(words: Vec<String>) -> Result<String, String> {
+    let args = Args::parse(words, &["json"]).map_err(|e| e.to_string())?;
+    let recipe = recipe_from(&args, "solve")?;
+    let f = figures_of(&recipe)?;
+    let advice = &f.target.advice;
+    let Some(p) = advice.proposal(&f.coil, f.tank.trimmer_setting) else {
+        return Err(format!("no coil within reach lands the target: {advice}"));
+    };
+    let predicted = advice
+        .predicted(&f.coil, &f.tank, &f.conditions)
+        .ok_or_else(|| "the proposed coil is refused by the model".to_owned())?;
+    if args.switch("json") {
+        let mut s = json!({
+            "target_mhz": f.target.channel * 1e-6,
+            "length_mm": p.length * 1e3,
+            "turns": p.turns,
+            "trimmer_pct": p.trimmer_setting * 100.0,
+            "resonance_mhz": predicted * 1e-6,
+            "calibrated": f.calibrated(),
+            "readings_used": f.readings_used(),
+            "advice": advice.to_string(),
+        })
+        .to_string();
+        s.push('\n');
+        return Ok(s);
+    }
+    let model = if f.calibrated() {
+        format!("the model calibrated on {} reading(s)", f.readings_used())
+    } else {
+        "the model (no bench readings yet)".to_owned()
+    };
+    Ok(format!(
+        "To land {:.3} MHz, by {model}:\n  {advice}\n  coil: {} turns, {:.3} mm long; trimmer at {:.0} %\n  predicted: {:.4} MHz\n",
+        f.target.channel * 1e-6,
+        p.turns,
+        p.length * 1e3,
+        p.trimmer_setting * 100.0,
+        predicted * 1e-6
+    ))
+}
+
+/// Run `fit`: the calibration the recipe's bench readings imply.
+pub fn run_fit(words: Vec<String>) -> Result<String, String> {
+    let args = Args::parse(words, &["json"]).map_err(|e| e.to_string())?;
+    let recipe = recipe_from(&args, "fit")?;
+    let f = figures_of(&recipe)?;
+    let fit = match &f.fit {
+        None => return Err("the recipe has no bench readings to fit".to_owned()),
+        Some(Err(e)) => return Err(format!("no fit: {e}")),
+        Some(Ok(fit)) => fit,
+    };
+    let stray = recipe.tank.stray + fit.calibration.extra_capacitance;
+    let line = inverse_square_line(&recipe.tank, &recipe.readings());
+    if args.switch("json") {
+        let mut s = json!({
+            "stray_pf": stray * 1e12,
+            "stray_pf_error": fit.extra_capacitance_error * 1e12,
+            "extra_pf": fit.calibration.extra_capacitance * 1e12,
+            "inductance_scale": fit.calibration.inductance_scale,
+            "inductance_scale_error": fit.inductance_scale_error,
+            "residuals_khz": fit.residuals.iter().map(|r| r * 1e-3).collect::<Vec<_>>(),
+            "instrument_errors_khz": fit.sigmas.iter().map(|s| s * 1e-3).collect::<Vec<_>>(),
+            "readings_used": fit.readings_used,
+            "stretch_khz_per_mm": f.target.stretch_sensitivity * 1e-6,
+            "inverse_square_line": line.map(|l| json!({
+                "inductance_nh": l.inductance * 1e9,
+                "hidden_pf": l.hidden_capacitance * 1e12,
+                "points": l.points,
+            })),
+            "warnings": fit.warnings.iter().map(ToString::to_string).collect::<Vec<_>>(),
+        })
+        .to_string();
+        s.push('\n');
+        return Ok(s);
+    }
+    let mut out = vec![format!("Calibrated on {} reading(s):", fit.readings_used)];
+    out.push(format!(
+        "  stray              {:>8.2} ± {:.2} pF   ({:+.2} pF beyond the recipe's {:.2} pF)",
+        stray * 1e12,
+        fit.extra_capacitance_error * 1e12,
+        fit.calibration.extra_capacitance * 1e12,
+        recipe.tank.stray * 1e12
+    ));
+    out.push(match fit.inductance_scale_error {
+        Some(e) => format!(
+            "  inductance scale   {:>8.4} ± {e:.4}",
+            fit.calibration.inductance_scale
+        ),
+        None => "  inductance scale   not separable from these readings (held at 1)".to_owned(),
+    });
+    for (i, (r, s)) in fit.residuals.iter().zip(&fit.sigmas).enumerate() {
+        out.push(format!(
+            "  reading {:<2}         {:>+8.2} kHz off the fit (instrument ±{:.2} kHz)",
+            i + 1,
+            r * 1e-3,
+            s * 1e-3
+        ));
+    }
+    out.push(format!(
+        "  stretch moves it   {:>8.1} kHz per mm (calibrated)",
+        f.target.stretch_sensitivity * 1e-6
+    ));
+    if let Some(l) = line {
+        out.push(format!(
+            "  1/f² line          {:>8.1} nH, {:.2} pF hidden ({} readings at one length)",
+            l.inductance * 1e9,
+            l.hidden_capacitance * 1e12,
+            l.points
+        ));
+    }
+    for w in &fit.warnings {
+        out.push(format!("  - {w}"));
+    }
+    let mut text = out.join("\n");
+    text.push('\n');
+    Ok(text)
+}

@@ -1,0 +1,192 @@
+//! What to do next at the bench, at the resolution of a hand.
+//!
+//! The advice is one instruction: stretch or squeeze to a length; or, when that change is
+//! smaller than a builder can set, leave the coil and set the trimmer; or, when no length
+//! reaches the channel, change the turns by quarter turns and wind to a length.
+
+use super::solve::{length_for_target, setting_for_target, turns_for_target};
+use crate::model::{Coil, Conditions, Tank};
+use std::fmt;
+
+/// The smallest change in coil length a builder can set by hand, metres (about 0.1 mm: common
+/// practice for a coil stretched with fingers or a plastic tool).
+pub const HAND_RESOLUTION: f64 = 0.1e-3;
+
+/// One instruction that lands the target.
+#[derive(Clone, Debug, PartialEq)]
+pub enum Advice {
+    /// The tank is already within the on-channel tolerance: leave it.
+    OnChannel {
+        /// Resonance minus target, hertz.
+        offset: f64,
+    },
+    /// Stretch (positive change) or squeeze the coil to `length`.
+    Stretch {
+        /// The length that lands the target, metres.
+        length: f64,
+        /// From the present length, metres (positive: stretch).
+        change: f64,
+        /// How many lengths land the target (more than one where the curve turns over; the
+        /// one nearest the present length is proposed).
+        roots: usize,
+    },
+    /// The change in length is below [`HAND_RESOLUTION`]: leave the coil, set the trimmer.
+    SetTrimmer {
+        /// The setting that lands the target, 0–1.
+        setting: f64,
+        /// The length change it replaces, metres.
+        instead_of: f64,
+    },
+    /// No length reaches the target with the present turns.
+    ChangeTurns {
+        /// The present turns.
+        from: f64,
+        /// The turns that reach it.
+        to: f64,
+        /// The length that then lands the target, metres.
+        length: f64,
+    },
+    /// Nothing within reach lands the target.
+    OutOfReach(String),
+}
+
+/// The coil and trimmer the advice lands on.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct Proposal {
+    /// Coil length (turns × pitch), metres.
+    pub length: f64,
+    /// Turns.
+    pub turns: f64,
+    /// Trimmer setting, 0–1.
+    pub trimmer_setting: f64,
+}
+
+impl Advice {
+    /// The coil and trimmer setting after following the advice, starting from `coil` with the
+    /// trimmer at `setting`; `None` when nothing lands the target.
+    pub fn proposal(&self, coil: &Coil, setting: f64) -> Option<Proposal> {
+        let (length, turns, trimmer_setting) = match *self {
+            Advice::Stretch { length, .. } => (length, coil.turns(), setting),
+            Advice::SetTrimmer { setting, .. } => (coil.length(), coil.turns(), setting),
+            Advice::ChangeTurns { to, length, .. } => (length, to, setting),
+            Advice::OnChannel { .. } => (coil.length(), coil.turns(), setting),
+            Advice::OutOfReach(_) => return None,
+        };
+        Some(Proposal {
+            length,
+            turns,
+            trimmer_setting,
+        })
+    }
+
+    /// The resonance (hertz) the proposal gives in `tank` under `conditions`.
+    pub fn predicted(&self, coil: &Coil, tank: &Tank, conditions: &Conditions) -> Option<f64> {
+        let p = self.proposal(coil, tank.trimmer_setting)?;
+        let proposed = coil.with_turns(p.turns, p.length).ok()?;
+        Some(crate::model::evaluate::resonance_of(
+            &proposed,
+            tank.external_capacitance_at(p.trimmer_setting),
+            conditions,
+        ))
+    }
+
+    /// The instruction in a builder's words, lengths shown by `show` (display units).
+    pub fn text(&self, show: impl Fn(f64) -> String) -> String {
+        match self {
+            Advice::Stretch {
+                length,
+                change,
+                roots,
+            } => {
+                let verb = if *change >= 0.0 { "stretch" } else { "squeeze" };
+                let mut s = format!(
+                    "{verb} the coil by {} to {}",
+                    show(change.abs()),
+                    show(*length)
+                );
+                if *roots > 1 {
+                    s.push_str(&format!(
+                        " (the nearest of {roots} lengths that land the channel)"
+                    ));
+                }
+                s
+            }
+            Advice::SetTrimmer {
+                setting,
+                instead_of,
+            } => format!(
+                "leave the coil (the stretch needed, {}, is below what a hand can set) and set \
+                 the trimmer to {:.0} %",
+                show(instead_of.abs()),
+                setting * 100.0
+            ),
+            Advice::ChangeTurns { from, to, length } => {
+                let quarters = ((to - from) * 4.0).round();
+                let verb = if quarters > 0.0 { "add" } else { "remove" };
+                format!(
+                    "no length reaches the channel with {from} turns: {verb} {} quarter turn{} \
+                     ({to} turns) and wind to {}",
+                    quarters.abs(),
+                    if quarters.abs() == 1.0 { "" } else { "s" },
+                    show(*length)
+                )
+            }
+            Advice::OutOfReach(why) => why.clone(),
+            Advice::OnChannel { offset } => format!(
+                "on channel ({:+.1} kHz): leave the coil and the trimmer as they are",
+                offset * 1e-3
+            ),
+        }
+    }
+}
+
+impl fmt::Display for Advice {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        f.write_str(&self.text(|m| format!("{:.2} mm", m * 1e3)))
+    }
+}
+
+/// The one instruction that lands `coil` in `tank` on `target` hertz, or leaves it when it is
+/// within `tolerance` hertz of it (pass the calibrated tank and conditions once there are
+/// readings).
+pub fn advise(
+    coil: &Coil,
+    tank: &Tank,
+    conditions: &Conditions,
+    target: f64,
+    tolerance: f64,
+) -> Advice {
+    let external = tank.external_capacitance();
+    let offset = crate::model::evaluate::resonance_of(coil, external, conditions) - target;
+    if offset.abs() <= tolerance {
+        return Advice::OnChannel { offset };
+    }
+    match super::solve::lengths_for_target(coil, external, conditions, target) {
+        Ok(roots) => {
+            let length =
+                length_for_target(coil, external, conditions, target).unwrap_or(coil.length());
+            let change = length - coil.length();
+            if change.abs() < HAND_RESOLUTION
+                && let Ok(setting) = setting_for_target(coil, tank, conditions, target)
+            {
+                return Advice::SetTrimmer {
+                    setting,
+                    instead_of: change,
+                };
+            }
+            Advice::Stretch {
+                length,
+                change,
+                roots: roots.len(),
+            }
+        }
+        Err(why) => match turns_for_target(coil, external, conditions, target) {
+            Some(t) => Advice::ChangeTurns {
+                from: coil.turns(),
+                to: t.turns,
+                length: t.length,
+            },
+            None => Advice::OutOfReach(why.to_string()),
+        },
+    }
+}
