@@ -2,9 +2,11 @@
 use approx::assert_relative_eq;
 use tankwright::physics::elliptic::{complete_e, complete_k, complete_k_e};
 
-/// DLMF 19.20.2: R_F(0,1,2) = 1.31102877714605990523, and K(m = ½) = √2·R_F(0,1,2)
-/// = 1.8540746773013719184; E(½) = 1.3506438810476755025 by Legendre's relation
-/// (values computed with mpmath at 25 digits, project reference notes §8).
+/// NIST Digital Library of Mathematical Functions (DLMF), eq. 19.20.2:
+/// R_F(0,1,2) = 1.31102877714605990523, and K(m = ½) = √2·R_F(0,1,2) = 1.8540746773013719184;
+/// E(½) = 1.3506438810476755025 by Legendre's relation. K(½) and E(½) computed with
+/// mpmath 1.3.0 (`ellipk`, `ellipe`) at 25 digits for this test; mpmath's `elliprf(0, 1, 2)`
+/// reproduces DLMF's R_F to all 21 digits given.
 #[test]
 fn k_and_e_at_one_half_match_dlmf() {
     assert_relative_eq!(
@@ -24,7 +26,8 @@ fn k_and_e_at_one_half_match_dlmf() {
     );
 }
 
-/// K(0.9) = 2.5780921133481731882, E(0.9) = 1.1047747327040733261 (mpmath, reference notes §8).
+/// K(0.9) = 2.5780921133481731882, E(0.9) = 1.1047747327040733261 (parameter m = 0.9; computed
+/// with mpmath 1.3.0 `ellipk`/`ellipe` at 25 digits for this test).
 #[test]
 fn k_and_e_at_nine_tenths() {
     assert_relative_eq!(

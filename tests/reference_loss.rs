@@ -25,7 +25,7 @@ fn iacs_copper() {
 }
 
 /// Skin depth of IACS copper at 100 MHz: 6.608549 µm (mpmath 1.3.0 at 25 digits from
-/// δ = √(ρ/(π f µ0)); project reference notes §6 give 6.609 µm). W. C. Johnson, *Transmission
+/// δ = √(ρ/(π f µ0)) with IEC 60028's ρ20 = 1/58 Ω·mm²/m). W. C. Johnson, *Transmission
 /// Lines and Networks* (1963), gives 6.64/√f cm, within 0.5 % (his resistivity differs).
 #[test]
 fn skin_depth_at_100_mhz() {
@@ -114,9 +114,11 @@ fn round_wire_low_frequency_limit() {
     assert_eq!(internal_impedance(0.0).internal_inductance_fraction, 1.0);
 }
 
-/// At VHF (r/δ of 40–150) r/(2δ) + 1/4 is exact to about 1e-4 (project reference notes §10).
-/// The neglected term is 3/(32q), so "about" means 1.2e-4 at r/δ = 40 and under 1e-4 from
-/// r/δ = 44 on; the check runs where the note's figure holds as written.
+/// At VHF (r/δ of 40–150) r/(2δ) + 1/4 is exact to about 1e-4: it is the start of the
+/// large-argument expansion of the Bessel form above (Ramo, Whinnery & Van Duzer, §5.12). The
+/// neglected term is 3/(32q), so "about" means 1.2e-4 at r/δ = 40 and under 1e-4 from
+/// r/δ = 44 on (the Bessel form with mpmath 1.3.0 at 25 digits for this test: 1.16e-4 at
+/// r/δ = 40, 9.6e-5 at 44); the check runs where 1e-4 holds as written.
 #[test]
 fn round_wire_vhf_approximation() {
     for q in [45.0, 75.0, 150.0] {
@@ -139,8 +141,9 @@ fn awg_diameters() {
     assert!((wire_gauge::awg_diameter(22) * 1e3 - 0.6438).abs() < 5e-5);
 }
 
-/// BS 3737 Standard Wire Gauge (from memory, as in the reference notes §6): 16 = 1.626 mm,
-/// 18 = 1.219 mm, 20 = 0.914 mm, 22 = 0.711 mm, 24 = 0.559 mm (to the 1 µm quoted).
+/// BS 3737 Standard Wire Gauge, values from memory (not checked against the standard):
+/// 16 = 1.626 mm, 18 = 1.219 mm, 20 = 0.914 mm, 22 = 0.711 mm, 24 = 0.559 mm (to the 1 µm
+/// quoted).
 #[test]
 fn swg_diameters() {
     for (n, mm) in [
@@ -156,8 +159,10 @@ fn swg_diameters() {
     assert!(wire_gauge::swg_diameter(7).is_none());
 }
 
-/// IEC 60317-0-1 maximum overall diameters (reference notes §12): the tabulated sizes are
-/// reproduced exactly and sizes between them fall between their neighbours.
+/// IEC 60317-0-1 maximum overall diameters, grade 1 and grade 2 (values as reproduced in a wire
+/// maker's table and in a national adoption of the standard, which agree where they overlap;
+/// not read from the IEC text itself): the tabulated sizes are reproduced exactly and sizes
+/// between them fall between their neighbours.
 #[test]
 fn enamel_overall_diameters() {
     for (bare, g1, g2) in [

@@ -110,7 +110,7 @@ fn solvers_land_on_their_targets() {
 }
 
 /// Stretch moves a 5-turn FM coil by MHz per millimetre: "stretching a 4-turn coil by a couple
-/// of millimetres moves it by several MHz" (common practice, reference notes §9).
+/// of millimetres moves it by several MHz" (common practice).
 #[test]
 fn stretch_sensitivity_is_megahertz_per_millimetre() {
     let per_mm = stretch_sensitivity(&demo_coil(), 26e-12, &Conditions::default()) * 1e-3;

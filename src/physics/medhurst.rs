@@ -4,7 +4,8 @@
 //! Wireless Engineer 24 (1947) pp. 35–43 and 80–92: C_self = H·D pF with D the diameter in cm,
 //! measured on coils standing on one end; about ±5 % claimed.
 
-/// Medhurst's table: (l/D, H). As transcribed in the project's reference notes.
+/// Medhurst's table: (l/D, H), Medhurst 1947 (above). A second-hand transcription, not re-read
+/// against the paper.
 const TABLE: [(f64, f64); 33] = [
     (0.1, 0.96),
     (0.15, 0.79),

@@ -12,7 +12,7 @@ pub fn awg_diameter(n: i32) -> f64 {
 pub const AWG_RANGE: (i32, i32) = (8, 40);
 
 /// Imperial Standard Wire Gauge, bare diameter in inches, gauges 8 to 40 (BS 3737; values from
-/// memory, the five checked in the project's reference notes agree).
+/// memory, not checked against the standard).
 const SWG_INCHES: [(i32, f64); 33] = [
     (8, 0.160),
     (9, 0.144),
@@ -69,8 +69,9 @@ pub enum EnamelGrade {
     Grade2,
 }
 
-/// IEC 60317-0-1 maximum overall diameter, mm: (bare, grade 1, grade 2), as published by a
-/// manufacturer and by a national adoption of the standard (project reference notes §12).
+/// IEC 60317-0-1 maximum overall diameter, mm: (bare, grade 1, grade 2), as reproduced in a wire
+/// maker's table and in a national adoption of the standard, which agree where they overlap
+/// (not read from the IEC text itself).
 const IEC_60317: [(f64, f64, f64); 6] = [
     (0.250, 0.281, 0.297),
     (0.500, 0.544, 0.566),

@@ -1,4 +1,4 @@
-//! Helpers shared by the window tests.
+//! Helpers used by all the window tests.
 
 use egui::accesskit::Role;
 use egui_kittest::Harness;
