@@ -8,12 +8,14 @@ mod json;
 mod recipe_args;
 mod report;
 mod text;
+mod verdict;
 
 pub use args::{ArgError, Args};
 pub use evaluate::{EvaluateRequest, run_evaluate};
 pub use json::analysis_json;
 pub use report::{build_report, run_report};
 pub use text::analysis_report;
+pub use verdict::{add_verdict_json, verdict_lines};
 
 /// Usage text for `--help`.
 pub const USAGE: &str = "\
@@ -39,5 +41,10 @@ evaluate flags (millimetres, picofarads, megahertz):
   --stray-pf S           stray capacitance (default 0)
   --temperature-c T      wire temperature (default 20)
   --model NAME           round-wire | filament-sum | current-sheet | lundin | wheeler
+  --trimmer-min-pf C     trimmer at its minimum (with --trimmer-max-pf; default no trimmer)
+  --trimmer-max-pf C     trimmer at its maximum
+  --trimmer-pct P        trimmer setting, 0 = minimum capacitance (default 50)
+  --target-mhz F         the frequency aimed at: offset, on channel, band of its service
+  --tolerance-khz T      on channel within +/-T (default: the service's practice)
   --json                 one JSON object instead of the report
 ";

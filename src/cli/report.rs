@@ -5,9 +5,12 @@ use crate::model::{Analysis, Coating, Coil, DiameterSpec, Gauge, SpacingSpec, ev
 use crate::recipe::{Recipe, store};
 use crate::tuning::BandPlan;
 use crate::tuning::bands::us_fm_channel_number;
+use crate::tuning::buildable::{buildable_length_for_target, former_drills};
+use crate::tuning::digits;
 use crate::tuning::fit::correct_from_measurement;
-use crate::tuning::solve::{length_for_target, setting_for_target, stretch_sensitivity};
+use crate::tuning::solve::{setting_for_target, stretch_sensitivity};
 use crate::tuning::sweep::touching_length;
+use crate::tuning::verdict::{Aim, judge};
 use std::path::Path;
 
 /// Run `report` on the words after the subcommand; Ok(stdout) or Err(one-line message).
@@ -31,11 +34,21 @@ pub fn build_report(r: &Recipe) -> Result<String, String> {
         evaluate(&r.winding, &r.tank, &r.conditions).map_err(|e| format!("invalid recipe: {e}"))?;
     let mut out = Vec::new();
     out.push(format!("Recipe: {}", r.name));
+    out.push(String::new());
+    // The verdict first: what the builder acts on.
+    let aim = Aim::new(r.target.plan.clone(), Some(r.target.channel));
+    out.extend(super::verdict::verdict_lines(&judge(
+        &coil,
+        &r.tank,
+        &r.conditions,
+        &aim,
+    )));
+    out.push(String::new());
     if !r.notes.trim().is_empty() {
         out.push(format!("Notes: {}", r.notes.trim()));
+        out.push(String::new());
     }
-    out.push(String::new());
-    winding_lines(r, &a, &mut out);
+    winding_lines(r, &coil, &a, &mut out);
     tank_lines(r, &mut out);
     target_lines(r, &coil, &a, &mut out);
     bench_lines(r, &coil, &mut out);
@@ -52,7 +65,7 @@ pub fn build_report(r: &Recipe) -> Result<String, String> {
     Ok(text)
 }
 
-fn winding_lines(r: &Recipe, a: &Analysis, out: &mut Vec<String>) {
+fn winding_lines(r: &Recipe, coil: &Coil, a: &Analysis, out: &mut Vec<String>) {
     let w = &r.winding;
     let g = &a.geometry;
     out.push("To wind".to_owned());
@@ -68,6 +81,18 @@ fn winding_lines(r: &Recipe, a: &Analysis, out: &mut Vec<String>) {
             g.former_diameter * 1e3
         ),
     });
+    let drills = former_drills(coil);
+    let drill = [drills.metric, drills.inch]
+        .into_iter()
+        .flatten()
+        .map(|d| format!("{} ({})", d.label, digits::mm(d.difference, 2)))
+        .collect::<Vec<_>>();
+    if !drill.is_empty() {
+        out.push(format!(
+            "  nearest drill/rod  {}   (size minus former)",
+            drill.join(" or ")
+        ));
+    }
     let size = match w.wire.gauge {
         Gauge::Awg(n) => format!("AWG {n} ({:.3} mm)", g.wire_bare * 1e3),
         Gauge::Swg(n) => format!("SWG {n} ({:.3} mm)", g.wire_bare * 1e3),
@@ -148,17 +173,17 @@ fn target_lines(r: &Recipe, coil: &Coil, a: &Analysis, out: &mut Vec<String>) {
         target * 1e-6
     ));
     out.push(format!(
-        "  resonance now      {:>10.4} MHz   offset {:+.1} kHz",
+        "  resonance now      {:>10.3} MHz   offset {}",
         a.resonance * 1e-6,
-        (a.resonance - target) * 1e-3
+        digits::offset(a.resonance - target)
     ));
-    match length_for_target(coil, c_ext, &r.conditions, target) {
+    match buildable_length_for_target(coil, c_ext, &r.conditions, target) {
         Ok(l) => out.push(format!(
-            "  length for target  {:>10.3} mm   ({:+.3} mm from now)",
+            "  length for target  {:>10.3} mm   ({} mm from now)",
             l * 1e3,
-            (l - coil.length) * 1e3
+            digits::signed((l - coil.length) * 1e3, 3)
         )),
-        Err(e) => out.push(format!("  length for target  not reachable: {e}")),
+        Err(e) => out.push(format!("  length for target  not proposed: {e}")),
     }
     out.push(format!(
         "  stretch moves it   {:>10.1} kHz per mm",
