@@ -229,3 +229,16 @@ fn typed_targets() {
     assert!(parse_target_mhz("").is_err());
     assert!(parse_target_mhz("ninety").is_err());
 }
+
+/// Files saved with the old "2 m, Regions 2 and 3" plan (a 12.5 kHz grid from 144 MHz that
+/// left out 146.52 MHz) open on the Region 2 plan, and save under its new name.
+#[test]
+fn old_region_2_and_3_files_open_as_region_2() {
+    let (_, text) = tankwright::recipe::demos::SOURCES[1];
+    let old = text.replace("plan: TwoMetreRegion1,", "plan: TwoMetreRegion2And3,");
+    assert_ne!(old, text);
+    let r = tankwright::recipe::format::from_text(&old).expect("opens");
+    assert_eq!(r.target.plan, BandPlan::TwoMetreRegion2);
+    let saved = tankwright::recipe::format::to_text(&r);
+    assert!(saved.contains("plan: TwoMetreRegion2,"), "{saved}");
+}

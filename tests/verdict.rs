@@ -346,3 +346,47 @@ fn digits_are_sensible() {
     assert_eq!(digits::signed(0.3, 1), "+0.3");
     assert_eq!(digits::fixed(f64::NAN, 1), "—");
 }
+
+/// The next step follows the most pressing flag, then the channel.
+#[test]
+fn next_step_follows_the_most_pressing_problem() {
+    let cond = Conditions::default();
+    // 30 pF: about 91 MHz, inside the FM band with no flag (20 pF would reach 108 MHz).
+    let tank = Tank::fixed_only(30e-12, 0.0);
+    let touching = coil(&winding(1.0, Coating::Bare, 5.0, SpacingSpec::Gap(0.0)));
+    let v = judge(&touching, &tank, &cond, &Aim::new(BandPlan::Fm100k, None));
+    assert!(v.next_step().starts_with("Space the bare turns"));
+    let good = coil(&winding(1.0, Coating::Bare, 5.0, SpacingSpec::Length(8e-3)));
+    let f = judge(&good, &tank, &cond, &Aim::new(BandPlan::Fm100k, None)).resonance;
+    let aim = |t: f64| Aim::new(BandPlan::Custom(vec![t]), Some(t));
+    let on = judge(&good, &tank, &cond, &aim(f + 1e3));
+    assert_eq!(on.on_channel, Some(true));
+    assert!(on.next_step().starts_with("On channel"));
+    assert!(
+        judge(&good, &tank, &cond, &aim(f - 100e3))
+            .next_step()
+            .starts_with("Lower")
+    );
+    assert!(
+        judge(&good, &tank, &cond, &aim(f + 100e3))
+            .next_step()
+            .starts_with("Raise")
+    );
+}
+
+/// The receiver image is for broadcast bands only (a 2 m tank is not heard on an FM radio).
+#[test]
+fn receiver_image_only_for_broadcast_bands() {
+    let c = coil(&winding(1.0, Coating::Bare, 5.0, SpacingSpec::Length(8e-3)));
+    let cond = Conditions::default();
+    let tank = Tank::fixed_only(20e-12, 0.0);
+    let fm = judge(&c, &tank, &cond, &Aim::new(BandPlan::UsFm, Some(98.7e6)));
+    assert!(fm.image.is_some());
+    let two = judge(
+        &c,
+        &tank,
+        &cond,
+        &Aim::new(BandPlan::TwoMetreRegion2, Some(146.52e6)),
+    );
+    assert!(two.image.is_none());
+}

@@ -17,6 +17,7 @@ pub fn verdict_lines(v: &Verdict) -> Vec<String> {
     } else {
         "  Not buildable as drawn (see below)".to_owned()
     });
+    out.push(format!("  Next: {}", v.next_step()));
     for f in &v.flags {
         out.push(format!("  ! {}", f.text));
     }
@@ -80,6 +81,7 @@ pub fn add_verdict_json(object: &mut Value, v: &Verdict, a: &Analysis) {
     map.insert("offset_khz".to_owned(), json!(v.offset.map(|o| o * 1e-3)));
     map.insert("tolerance_khz".to_owned(), json!(v.tolerance * 1e-3));
     map.insert("on_channel".to_owned(), json!(v.on_channel));
+    map.insert("next_step".to_owned(), json!(v.next_step()));
     map.insert(
         "flags".to_owned(),
         json!(

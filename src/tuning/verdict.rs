@@ -217,6 +217,50 @@ impl Verdict {
         }
     }
 
+    /// What to do next, the most pressing first: touching bare turns, the aeronautical band,
+    /// leaving the band, a narrow gap, the band's edge, then the channel.
+    pub fn next_step(&self) -> String {
+        let band = self.band.map_or("band", |b| b.name);
+        if self.has(FlagKind::BareTurns) {
+            return "Space the bare turns apart before anything else: touching turns short each \
+                    other"
+                .to_owned();
+        }
+        if self.has(FlagKind::Aeronautical) {
+            return "Keep this tank off the air: change the fixed capacitance or fit a smaller \
+                    trimmer so its whole travel stays out of 108–137 MHz"
+                .to_owned();
+        }
+        if self.has(FlagKind::OutsideBand) {
+            return format!(
+                "Narrow or re-centre the trimmer's travel (fixed capacitance, trimmer size) so it \
+                 stays inside the {band}"
+            );
+        }
+        if self.has(FlagKind::NarrowGap) {
+            return "Open the gap between the bare turns to the minimum or more".to_owned();
+        }
+        if self.has(FlagKind::BandEdge) {
+            return format!(
+                "Move the trimmer's travel away from the edge of the {band}: a warming \
+                 oscillator drifts"
+            );
+        }
+        match (self.on_channel, self.offset) {
+            (Some(true), _) => {
+                "On channel: fix the turns in place (wax or glue) and log a bench reading"
+                    .to_owned()
+            }
+            (Some(false), Some(o)) if o > 0.0 => {
+                "Lower the frequency: squeeze the turns together or turn the trimmer up".to_owned()
+            }
+            (Some(false), _) => {
+                "Raise the frequency: stretch the turns apart or turn the trimmer down".to_owned()
+            }
+            (None, _) => "Pick a target channel or type a frequency".to_owned(),
+        }
+    }
+
     /// The safety line: "Safe over the trimmer's travel (…)" or how many flags.
     pub fn safety_text(&self) -> String {
         let reach = mhz_range(self.reach.low, self.reach.high);
