@@ -96,6 +96,16 @@ fn region_1_two_metre_fm_channels() {
         Some("V15, repeater input")
     );
     assert_eq!(plan.channel_note(145.2063e6), None, "between channels");
+    assert_eq!(
+        plan.channel_label(145.2125e6),
+        "145.2125 MHz (V17, simplex)"
+    );
+    let labels: std::collections::BTreeSet<String> = plan
+        .channels()
+        .iter()
+        .map(|&f| plan.channel_label(f))
+        .collect();
+    assert_eq!(labels.len(), 64, "every channel's label is distinct");
     let b = plan.band().expect("a band");
     assert_eq!((b.low, b.high), (144e6, 146e6));
 }

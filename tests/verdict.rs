@@ -333,7 +333,13 @@ fn digits_are_sensible() {
     assert_eq!(digits::offset(135e3), "+135.0 kHz");
     assert_eq!(digits::offset(999e3), "+999.0 kHz");
     assert_eq!(digits::offset(-999.04e3), "-999.0 kHz");
+    assert_eq!(digits::offset(999.94e3), "+999.9 kHz");
     assert_eq!(digits::offset(999.96e3), "+1.000 MHz");
+    assert_eq!(digits::offset(-1.5e6), "-1.500 MHz");
+    assert_eq!(digits::channel_mhz(98.7e6), "98.7");
+    assert_eq!(digits::channel_mhz(146.52e6), "146.52");
+    assert_eq!(digits::channel_mhz(145.2125e6), "145.2125");
+    assert_eq!(digits::channel_mhz(108e6), "108.0");
     assert_eq!(digits::offset(0.0), "0.0 kHz");
     assert_eq!(digits::offset(-0.01), "0.0 kHz");
     assert_eq!(digits::mhz(98.7e6), "98.700 MHz");

@@ -263,9 +263,10 @@ impl BandPlan {
         }
     }
 
-    /// The channel as listed in a picker: frequency to the plan's resolution, then its note.
+    /// The channel as listed in a picker: frequency with the decimals it needs
+    /// ("145.2125"), then its note: "145.5 MHz (V40, simplex, mobile calling)".
     pub fn channel_label(&self, frequency: f64) -> String {
-        let mhz = super::digits::mhz_plain(frequency);
+        let mhz = super::digits::channel_mhz(frequency);
         match self.channel_note(frequency) {
             Some(note) => format!("{mhz} MHz ({note})"),
             None => format!("{mhz} MHz"),

@@ -48,15 +48,29 @@ pub fn self_resonance(hz: f64) -> String {
     format!("{} MHz", fixed(hz * 1e-6, 0))
 }
 
-/// Largest offset shown in kHz; beyond it, MHz.
-const OFFSET_KHZ_LIMIT: f64 = 999.0;
+/// A channel or typed target in MHz with the decimals it needs, one to four: "98.7",
+/// "146.52", "145.2125" (channels are exact; a 12.5 kHz raster needs the fourth decimal,
+/// which [`mhz`]'s 1 kHz would round away).
+pub fn channel_mhz(hz: f64) -> String {
+    let s = fixed(hz * 1e-6, 4);
+    if !s.contains('.') {
+        return s;
+    }
+    let t = s.trim_end_matches('0');
+    if t.ends_with('.') {
+        format!("{t}0")
+    } else {
+        t.to_owned()
+    }
+}
 
-/// An offset from the target with its sign: to 0.1 kHz up to ±999 kHz ("+12.3 kHz"), and
-/// in MHz to 1 kHz beyond ("-9.336 MHz"). Zero reads "0.0 kHz".
+/// An offset from the target with its sign: to 0.1 kHz while that reads below 1000 kHz
+/// ("+12.3 kHz", "+999.9 kHz"), in MHz to 1 kHz beyond ("-9.336 MHz"). Zero reads
+/// "0.0 kHz".
 pub fn offset(hz: f64) -> String {
     let khz = hz * 1e-3;
     // Decide on the figure as shown, so 999.96 kHz does not read "+1000.0 kHz".
-    if fixed(khz.abs(), 1).parse::<f64>().unwrap_or(f64::INFINITY) <= OFFSET_KHZ_LIMIT {
+    if fixed(khz.abs(), 1).parse::<f64>().unwrap_or(f64::INFINITY) < 1000.0 {
         format!("{} kHz", signed(khz, 1))
     } else {
         format!("{} MHz", signed(hz * 1e-6, 3))

@@ -6,7 +6,7 @@
 
 use super::bands::BandPlan;
 use super::buildable::gap_flags;
-use super::digits::{mhz, mhz_range, offset};
+use super::digits::{channel_mhz, mhz, mhz_range, offset};
 use super::service::{
     AERONAUTICAL, AERONAUTICAL_EMERGENCY, BROADCAST_IF, Band, Service, allocations_touched,
 };
@@ -110,6 +110,15 @@ impl Aim {
         }
         self
     }
+
+    /// The same aim with the user's edge margin, hertz (negative or non-finite: the
+    /// default).
+    pub fn with_edge_margin(mut self, margin: f64) -> Self {
+        if margin.is_finite() && margin >= 0.0 {
+            self.edge_margin = margin;
+        }
+        self
+    }
 }
 
 /// The frequencies the trimmer reaches at the present spacing, hertz.
@@ -193,20 +202,24 @@ impl Verdict {
         self.flags.iter().any(|f| f.kind == kind)
     }
 
-    /// The channel line: "On channel: +3.2 kHz from 98.700 MHz (within ±15.0 kHz)" or
-    /// "Off channel: -9.336 MHz from 98.700 MHz (tolerance ±15.0 kHz)", or the resonance
+    /// The channel line: "On channel: +3.2 kHz from 98.7 MHz (within ±15.0 kHz)" or
+    /// "Off channel: -9.336 MHz from 98.7 MHz (tolerance ±15.0 kHz): …", or the resonance
     /// alone without a target.
     pub fn channel_text(&self) -> String {
         let tol = offset(self.tolerance);
         let tol = tol.trim_start_matches('+');
         match (self.target, self.offset, self.on_channel) {
             (Some(t), Some(o), Some(true)) => {
-                format!("On channel: {} from {} (within ±{tol})", offset(o), mhz(t))
+                format!(
+                    "On channel: {} from {} MHz (within ±{tol})",
+                    offset(o),
+                    channel_mhz(t)
+                )
             }
             (Some(t), Some(o), _) => format!(
-                "Off channel: {} from {} (tolerance ±{tol}): {}",
+                "Off channel: {} from {} MHz (tolerance ±{tol}): {}",
                 offset(o),
-                mhz(t),
+                channel_mhz(t),
                 if o > 0.0 {
                     "lower it (squeeze the turns or add capacitance)"
                 } else {
