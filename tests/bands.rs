@@ -252,3 +252,17 @@ fn old_region_2_and_3_files_open_as_region_2() {
     let saved = tankwright::recipe::format::to_text(&r);
     assert!(saved.contains("plan: TwoMetreRegion2,"), "{saved}");
 }
+
+/// A picker opens at the present channel and can be typed into.
+#[test]
+fn picker_helpers_find_the_present_and_typed_channels() {
+    let plan = BandPlan::TwoMetreRegion2;
+    let i = plan.nearest_index(146.523e6).expect("a channel");
+    assert_eq!(plan.channels()[i], 146.52e6);
+    assert_eq!(plan.matching("calling"), vec![146.52e6]);
+    assert_eq!(plan.matching("146.5"), plan.within(146.5e6, 146.599e6));
+    assert_eq!(BandPlan::TwoMetreRegion1.matching("v40"), vec![145.5e6]);
+    assert_eq!(plan.matching("").len(), plan.channels().len());
+    assert!(plan.matching("999").is_empty());
+    assert_eq!(BandPlan::Custom(Vec::new()).nearest_index(1e8), None);
+}

@@ -176,6 +176,27 @@ impl BandPlan {
             .collect()
     }
 
+    /// Index in [`channels`](Self::channels) of the channel nearest `frequency`, so that a
+    /// picker opens at the present channel. `None` for an empty plan.
+    pub fn nearest_index(&self, frequency: f64) -> Option<usize> {
+        self.channels()
+            .iter()
+            .enumerate()
+            .min_by(|a, b| (a.1 - frequency).abs().total_cmp(&(b.1 - frequency).abs()))
+            .map(|(i, _)| i)
+    }
+
+    /// The channels whose picker label ([`channel_label`](Self::channel_label)) contains
+    /// `typed` (case-insensitive, spaces trimmed): "146.5" finds 146.505, 146.52, …; "V40"
+    /// or "calling" finds the calling channels. Empty text: every channel.
+    pub fn matching(&self, typed: &str) -> Vec<f64> {
+        let t = typed.trim().to_lowercase();
+        self.channels()
+            .into_iter()
+            .filter(|&f| t.is_empty() || self.channel_label(f).to_lowercase().contains(&t))
+            .collect()
+    }
+
     /// Whether `frequency` (hertz) is one of the plan's channels (within 1 Hz).
     pub fn has_channel(&self, frequency: f64) -> bool {
         self.channels().iter().any(|&c| same(c, frequency))
