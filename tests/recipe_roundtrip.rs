@@ -205,7 +205,11 @@ fn file_strategy(
         Just(PlanName::UsFm),
         Just(PlanName::Fm100kHz),
         Just(PlanName::TwoMetreRegion1),
-        Just(PlanName::TwoMetreRegion2And3),
+        Just(PlanName::JapanFmWide),
+        Just(PlanName::JapanFm),
+        Just(PlanName::TwoMetreRegion2),
+        Just(PlanName::TwoMetreRegion2Step20kHz),
+        Just(PlanName::TwoMetreRegion3),
         proptest::collection::vec(num(30.0, 500.0), 1..5).prop_map(|list| PlanName::OwnList {
             channels_mhz: list.into_iter().map(Scaled::from_file_units).collect(),
         }),

@@ -178,13 +178,15 @@ fn us_fm_band_plan() {
     assert_eq!(us_fm_channel_number(98.75e6), None);
 }
 
-/// 47 CFR §97.301: 2 m is 144–146 MHz in Region 1 and 144–148 MHz in Regions 2 and 3.
+/// 47 CFR §97.301 and ITU RR Art. 5: 2 m is 144–146 MHz in Region 1 and 144–148 MHz in
+/// Regions 2 and 3; the FM channels of the band plans lie inside (tests/bands.rs checks them
+/// against the IARU Region 1 and ARRL plans).
 #[test]
 fn two_metre_band_plans() {
-    let r1 = BandPlan::TwoMetreRegion1.channels();
-    let r2 = BandPlan::TwoMetreRegion23.channels();
-    assert_eq!((r1[0], *r1.last().expect("nonempty")), (144e6, 146e6));
-    assert_eq!((r2[0], *r2.last().expect("nonempty")), (144e6, 148e6));
+    let r1 = BandPlan::TwoMetreRegion1.band().expect("a band");
+    let r2 = BandPlan::TwoMetreRegion2.band().expect("a band");
+    assert_eq!((r1.low, r1.high), (144e6, 146e6));
+    assert_eq!((r2.low, r2.high), (144e6, 148e6));
     assert_eq!(BandPlan::Fm100k.channels().len(), 206);
     assert_eq!(BandPlan::UsFm.nearest(98.77e6), Some(98.7e6));
 }

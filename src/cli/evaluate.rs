@@ -4,6 +4,7 @@ use super::args::{ArgError, Args};
 use crate::model::{
     Coating, Conditions, DiameterSpec, Gauge, InductanceModel, SpacingSpec, Tank, Winding, WireSpec,
 };
+use crate::tuning::verdict::{Aim, judge};
 
 /// A coil, tank and conditions read from the command line.
 #[derive(Clone, Debug, PartialEq)]
@@ -16,6 +17,9 @@ pub struct EvaluateRequest {
     pub conditions: Conditions,
     /// Print JSON instead of the report.
     pub json: bool,
+    /// What the verdict judges against: the target (`--target-mhz`, or the recipe's
+    /// channel) and the tolerance.
+    pub aim: Aim,
 }
 
 const MM: f64 = 1e-3;
@@ -94,6 +98,8 @@ impl EvaluateRequest {
             Some(g) => return Err(ArgError(format!("--enamel {g}: the grade is 1 or 2"))),
         };
         let lead = args.number("lead-mm")?.unwrap_or(0.0) * MM;
+        let trimmer = trimmer_from_args(args)?;
+        let aim = aim_from_args(args)?;
         let capacitance = args.number("capacitance-pf")?.unwrap_or(0.0) * PF;
         let stray = args.number("stray-pf")?.unwrap_or(0.0) * PF;
         let mut conditions = Conditions::default();
@@ -112,10 +118,82 @@ impl EvaluateRequest {
                 spacing,
                 lead_length: lead,
             },
-            tank: Tank::fixed_only(capacitance, stray),
+            tank: Tank {
+                trimmer_min: trimmer.0,
+                trimmer_max: trimmer.1,
+                trimmer_setting: trimmer.2,
+                ..Tank::fixed_only(capacitance, stray)
+            },
             conditions,
             json: args.switch("json"),
+            aim,
         })
+    }
+}
+
+/// `--trimmer-min-pf`, `--trimmer-max-pf`, `--trimmer-pct`: (min F, max F, setting 0–1).
+/// Without them, no trimmer; the range needs both ends, and the setting a range.
+fn trimmer_from_args(args: &Args) -> Result<(f64, f64, f64), ArgError> {
+    let min = args.number("trimmer-min-pf")?;
+    let max = args.number("trimmer-max-pf")?;
+    let pct = args.number("trimmer-pct")?;
+    let (min, max) = match (min, max) {
+        (None, None) => {
+            if pct.is_some() {
+                return Err(ArgError(
+                    "--trimmer-pct needs the trimmer's range: give --trimmer-min-pf and \
+                     --trimmer-max-pf"
+                        .to_owned(),
+                ));
+            }
+            return Ok((0.0, 0.0, 0.0));
+        }
+        (Some(a), Some(b)) => (a, b),
+        _ => {
+            return Err(ArgError(
+                "give both --trimmer-min-pf and --trimmer-max-pf".to_owned(),
+            ));
+        }
+    };
+    if min < 0.0 || max < min {
+        return Err(ArgError(format!(
+            "the trimmer range {min}–{max} pF is not a range: need 0 <= --trimmer-min-pf <= \
+             --trimmer-max-pf"
+        )));
+    }
+    let pct = pct.unwrap_or(50.0);
+    if !(0.0..=100.0).contains(&pct) {
+        return Err(ArgError(format!(
+            "--trimmer-pct {pct} is outside 0–100 (0 = minimum capacitance)"
+        )));
+    }
+    Ok((min * PF, max * PF, pct / 100.0))
+}
+
+/// `--target-mhz` (any frequency in 1–3000 MHz) and `--tolerance-khz` (default: the
+/// practice of the service whose band holds the target).
+fn aim_from_args(args: &Args) -> Result<Aim, ArgError> {
+    let target = args.text("target-mhz");
+    let tolerance = args.number("tolerance-khz")?;
+    let aim = match target {
+        Some(t) => {
+            let hz = crate::tuning::channel_list::parse_target_mhz(t)
+                .map_err(|e| ArgError(format!("--target-mhz: {e}")))?;
+            Aim::typed(hz)
+        }
+        None => {
+            if tolerance.is_some() {
+                return Err(ArgError("--tolerance-khz needs --target-mhz".to_owned()));
+            }
+            Aim::new(crate::tuning::BandPlan::Custom(Vec::new()), None)
+        }
+    };
+    match tolerance {
+        Some(k) if k < 0.0 => Err(ArgError(format!(
+            "--tolerance-khz {k} must be zero or more"
+        ))),
+        Some(k) => Ok(aim.with_tolerance(k * 1e3)),
+        None => Ok(aim),
     }
 }
 
@@ -128,11 +206,19 @@ pub fn run_evaluate(words: Vec<String>) -> Result<String, String> {
     };
     let analysis = crate::model::evaluate(&req.winding, &req.tank, &req.conditions)
         .map_err(|e| format!("invalid input: {e}"))?;
+    let coil = crate::model::Coil::from_winding(&req.winding)
+        .map_err(|e| format!("invalid input: {e}"))?;
+    let verdict = judge(&coil, &req.tank, &req.conditions, &req.aim);
     Ok(if req.json {
-        let mut s = super::json::analysis_json(&analysis).to_string();
+        let mut object = super::json::analysis_json(&analysis);
+        super::verdict::add_verdict_json(&mut object, &verdict, &analysis);
+        let mut s = object.to_string();
         s.push('\n');
         s
     } else {
-        super::text::analysis_report(&analysis)
+        let mut s = super::verdict::verdict_lines(&verdict).join("\n");
+        s.push_str("\n\n");
+        s.push_str(&super::text::analysis_report(&analysis));
+        s
     })
 }

@@ -9,6 +9,7 @@ mod json;
 mod recipe_args;
 mod report;
 mod text;
+mod verdict;
 
 pub use args::{ArgError, Args};
 pub use bench::{run_fit, run_solve};
@@ -16,6 +17,7 @@ pub use evaluate::{EvaluateRequest, run_evaluate};
 pub use json::analysis_json;
 pub use report::{build_report, run_report};
 pub use text::analysis_report;
+pub use verdict::{add_verdict_json, verdict_lines};
 
 /// Usage text for `--help`, with the model names from [`InductanceModel::ALL`].
 ///
@@ -50,5 +52,10 @@ evaluate flags (millimetres, picofarads, megahertz):
   --stray-pf S           stray capacitance (default 0)
   --temperature-c T      wire temperature (default 20)
   --model NAME           {models}
+  --trimmer-min-pf C     trimmer at its minimum (with --trimmer-max-pf; default no trimmer)
+  --trimmer-max-pf C     trimmer at its maximum
+  --trimmer-pct P        trimmer setting, 0 = minimum capacitance (default 50)
+  --target-mhz F         the frequency aimed at: offset, on channel, band of its service
+  --tolerance-khz T      on channel within +/-T (default: the service's practice)
   --json                 one JSON object instead of the report
 ";

@@ -14,6 +14,10 @@ pub(crate) fn request_from_recipe(args: &Args, file: &str) -> Result<EvaluateReq
     }
     let recipe = store::load(Path::new(file)).map_err(|e| e.to_string())?;
     Ok(EvaluateRequest {
+        aim: crate::tuning::verdict::Aim::new(
+            recipe.target.plan.clone(),
+            Some(recipe.target.channel),
+        ),
         winding: recipe.winding,
         tank: recipe.tank,
         conditions: recipe.conditions,

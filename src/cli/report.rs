@@ -1,10 +1,13 @@
 //! `tankwright report FILE`: a recipe as a build sheet, then every figure.
 
 use super::args::Args;
-use crate::model::{Analysis, Coating, DiameterSpec, Gauge, SpacingSpec};
+use crate::model::{Analysis, Coating, Coil, DiameterSpec, Gauge, SpacingSpec};
 use crate::recipe::{Figures, Recipe, figures, store};
 use crate::tuning::BandPlan;
 use crate::tuning::bands::us_fm_channel_number;
+use crate::tuning::buildable::former_drills;
+use crate::tuning::digits;
+use crate::tuning::verdict::{Aim, judge};
 use std::path::Path;
 
 /// Run `report` on the words after the subcommand; Ok(stdout) or Err(one-line message).
@@ -27,11 +30,21 @@ pub fn build_report(r: &Recipe) -> Result<String, String> {
     let a = f.analysis.clone();
     let mut out = Vec::new();
     out.push(format!("Recipe: {}", r.name));
+    out.push(String::new());
+    // The verdict first: what the builder acts on.
+    let aim = Aim::new(r.target.plan.clone(), Some(r.target.channel));
+    out.extend(super::verdict::verdict_lines(&judge(
+        &f.coil,
+        &f.tank,
+        &f.conditions,
+        &aim,
+    )));
+    out.push(String::new());
     if !r.notes.trim().is_empty() {
         out.push(format!("Notes: {}", r.notes.trim()));
+        out.push(String::new());
     }
-    out.push(String::new());
-    winding_lines(r, &a, &mut out);
+    winding_lines(r, &f.coil, &a, &mut out);
     tank_lines(r, &mut out);
     target_lines(r, &f, &mut out);
     bench_lines(r, &f, &mut out);
@@ -48,7 +61,7 @@ pub fn build_report(r: &Recipe) -> Result<String, String> {
     Ok(text)
 }
 
-fn winding_lines(r: &Recipe, a: &Analysis, out: &mut Vec<String>) {
+fn winding_lines(r: &Recipe, coil: &Coil, a: &Analysis, out: &mut Vec<String>) {
     let w = &r.winding;
     let g = &a.coil;
     out.push("To wind".to_owned());
@@ -64,6 +77,18 @@ fn winding_lines(r: &Recipe, a: &Analysis, out: &mut Vec<String>) {
             g.former_diameter() * 1e3
         ),
     });
+    let drills = former_drills(coil);
+    let drill = [drills.metric, drills.inch]
+        .into_iter()
+        .flatten()
+        .map(|d| format!("{} ({})", d.label, digits::mm(d.difference, 2)))
+        .collect::<Vec<_>>();
+    if !drill.is_empty() {
+        out.push(format!(
+            "  nearest drill/rod  {}   (size minus former)",
+            drill.join(" or ")
+        ));
+    }
     let size = match w.wire.gauge {
         Gauge::Awg(n) => format!("AWG {n} ({:.3} mm)", g.wire_bare() * 1e3),
         Gauge::Swg(n) => format!("SWG {n} ({:.3} mm)", g.wire_bare() * 1e3),
@@ -153,17 +178,17 @@ fn target_lines(r: &Recipe, f: &Figures, out: &mut Vec<String>) {
         "model, not yet calibrated on the bench".to_owned()
     };
     out.push(format!(
-        "  resonance now      {:>10.4} MHz   offset {:+.1} kHz ({model})",
+        "  resonance now      {:>10.3} MHz   offset {} ({model})",
         t.resonance * 1e-6,
-        t.offset * 1e-3
+        digits::offset(t.offset)
     ));
     match &t.length_for_target {
         Ok(l) => out.push(format!(
-            "  length for target  {:>10.3} mm   ({:+.3} mm from now)",
+            "  length for target  {:>10.3} mm   ({} mm from now)",
             l * 1e3,
-            (l - f.coil.length()) * 1e3
+            digits::signed((l - f.coil.length()) * 1e3, 3)
         )),
-        Err(e) => out.push(format!("  length for target  not reachable: {e}")),
+        Err(e) => out.push(format!("  length for target  not proposed: {e}")),
     }
     out.push(format!(
         "  stretch moves it   {:>10.1} kHz per mm",

@@ -72,8 +72,12 @@ pub(crate) fn to_file_form(r: &Recipe) -> RecipeFile {
             plan: match &r.target.plan {
                 BandPlan::UsFm => PlanName::UsFm,
                 BandPlan::Fm100k => PlanName::Fm100kHz,
+                BandPlan::JapanFmWide => PlanName::JapanFmWide,
+                BandPlan::JapanFm => PlanName::JapanFm,
                 BandPlan::TwoMetreRegion1 => PlanName::TwoMetreRegion1,
-                BandPlan::TwoMetreRegion23 => PlanName::TwoMetreRegion2And3,
+                BandPlan::TwoMetreRegion2 => PlanName::TwoMetreRegion2,
+                BandPlan::TwoMetreRegion2Step20k => PlanName::TwoMetreRegion2Step20kHz,
+                BandPlan::TwoMetreRegion3 => PlanName::TwoMetreRegion3,
                 BandPlan::Custom(list) => PlanName::OwnList {
                     channels_mhz: list.iter().map(|&f| Scaled::from_si(f)).collect(),
                 },
@@ -202,8 +206,12 @@ pub(crate) fn from_file_form(sheet: RecipeFile, text: &str) -> Result<Recipe, Lo
     let plan = match &sheet.aim.plan {
         PlanName::UsFm => BandPlan::UsFm,
         PlanName::Fm100kHz => BandPlan::Fm100k,
+        PlanName::JapanFmWide => BandPlan::JapanFmWide,
+        PlanName::JapanFm => BandPlan::JapanFm,
         PlanName::TwoMetreRegion1 => BandPlan::TwoMetreRegion1,
-        PlanName::TwoMetreRegion2And3 => BandPlan::TwoMetreRegion23,
+        PlanName::TwoMetreRegion2 | PlanName::TwoMetreRegion2And3 => BandPlan::TwoMetreRegion2,
+        PlanName::TwoMetreRegion2Step20kHz => BandPlan::TwoMetreRegion2Step20k,
+        PlanName::TwoMetreRegion3 => BandPlan::TwoMetreRegion3,
         PlanName::OwnList { channels_mhz } => {
             if channels_mhz.is_empty() {
                 return Err(refuse(

@@ -8,7 +8,7 @@
 use super::document::Recipe;
 use crate::model::{Analysis, Coil, Conditions, InputError, Tank, evaluate, evaluate_coil};
 use crate::tuning::fit::{Fit, FitError, fit};
-use crate::tuning::target::{TargetFigures, default_tolerance, target_figures};
+use crate::tuning::target::{TargetFigures, target_figures};
 
 /// Everything computed for a valid recipe.
 #[derive(Clone, Debug, PartialEq)]
@@ -66,7 +66,7 @@ pub fn figures(recipe: &Recipe) -> Result<Figures, InputError> {
         &conditions,
         &recipe.target.plan,
         recipe.target.channel,
-        default_tolerance(&recipe.target.plan),
+        recipe.target.plan.default_tolerance(),
     );
     Ok(Figures {
         coil,

@@ -42,7 +42,7 @@ fn doc_comments() -> Field {
         });
         top.field("aim").build_fields(|aim| {
             aim.field("plan").with_doc(
-                "UsFm, Fm100kHz, TwoMetreRegion1, TwoMetreRegion2And3 or OwnList(channels_mhz: [..]).",
+                "UsFm, Fm100kHz, JapanFmWide, JapanFm, TwoMetreRegion1, TwoMetreRegion2, TwoMetreRegion2Step20kHz, TwoMetreRegion3 or OwnList(channels_mhz: [..]).",
             );
         });
         top.field("bench_log")

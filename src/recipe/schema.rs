@@ -342,9 +342,20 @@ pub enum PlanName {
     UsFm,
     /// FM broadcast on 100 kHz.
     Fm100kHz,
+    /// FM broadcast, Japan with the 2014 wide-FM extension (76–95 MHz).
+    JapanFmWide,
+    /// FM broadcast, Japan traditional (76–90 MHz).
+    JapanFm,
     /// 2 m amateur, ITU Region 1.
     TwoMetreRegion1,
-    /// 2 m amateur, ITU Regions 2 and 3.
+    /// 2 m amateur, ITU Region 2 (ARRL plan, 15 kHz FM channels).
+    TwoMetreRegion2,
+    /// 2 m amateur, ITU Region 2, 20 kHz FM channels.
+    TwoMetreRegion2Step20kHz,
+    /// 2 m amateur, ITU Region 3.
+    TwoMetreRegion3,
+    /// Older files' "2 m, Regions 2 and 3" (a 12.5 kHz grid from 144 MHz that left out
+    /// 146.52 MHz): read as the Region 2 plan, never written.
     TwoMetreRegion2And3,
     /// The builder's own channels, MHz.
     OwnList {

@@ -1,15 +1,21 @@
 //! Tuning a coil to a channel: band plans, sweeps for the charts, sensitivities, solving for
-//! the spacing, trimmer or turns that hit a target, calibrating from bench readings, and the
-//! advice a builder acts on.
+//! the spacing, trimmer or turns that hit a target, calibrating from bench readings, the
+//! advice a builder acts on, and the verdict (on channel, in band, safe, buildable).
 //!
 //! Uses the model only; still pure (no egui, no I/O). The window and the headless commands call
 //! these functions and have no copies of their own.
 
 pub mod advice;
 pub mod bands;
+pub mod buildable;
+pub mod channel_list;
+pub mod digits;
 pub mod fit;
+pub mod service;
 pub mod solve;
 pub mod sweep;
 pub mod target;
+pub mod verdict;
 
 pub use bands::BandPlan;
+pub use verdict::{Aim, Flag, FlagKind, Verdict, judge};

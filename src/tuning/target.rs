@@ -36,19 +36,6 @@ pub struct TargetFigures {
     pub advice: Advice,
 }
 
-/// The on-channel tolerance a plan starts with, hertz (the user may set another):
-/// - FM broadcast: ±20 kHz, a tenth of the 200 kHz channel, inside which a broadcast receiver
-///   tunes cleanly (common practice);
-/// - 2 m amateur FM: ±2.5 kHz, a fifth of a 12.5 kHz channel (common practice);
-/// - the user's own list: ±10 kHz (common practice).
-pub fn default_tolerance(plan: &BandPlan) -> f64 {
-    match plan {
-        BandPlan::UsFm | BandPlan::Fm100k => 20e3,
-        BandPlan::TwoMetreRegion1 | BandPlan::TwoMetreRegion23 => 2.5e3,
-        BandPlan::Custom(_) => 10e3,
-    }
-}
-
 /// Channel width assumed for a custom list with fewer than two channels, hertz.
 const CUSTOM_CHANNEL_WIDTH: f64 = 100e3;
 

@@ -1,0 +1,214 @@
+//! Radio services and their bands: what a tank's frequencies (and their harmonics) fall in.
+//!
+//! Allocations follow the ITU Radio Regulations, Article 5 (Table of Frequency Allocations,
+//! edition of 2020), where a service's band is named; the tolerance and margin defaults are
+//! the trade's practice and marked so.
+
+/// The service a band plan belongs to: it sets how close counts as "on channel" and how
+/// much room to leave at the band's edges.
+#[derive(Clone, Copy, Debug, PartialEq, Eq, Hash)]
+pub enum Service {
+    /// FM sound broadcasting (wideband FM, ±75 kHz peak deviation).
+    FmBroadcast,
+    /// The 2 m amateur band (narrowband FM, ±5 kHz or ±2.5 kHz peak deviation).
+    TwoMetreAmateur,
+}
+
+impl Service {
+    /// Default "on channel" tolerance, hertz. Never derived from channel spacing.
+    ///
+    /// - FM broadcast: ±15 kHz. A broadcast receiver's 10.7 MHz IF filter is commonly about
+    ///   180 kHz wide (from memory: the usual ceramic filters come in 110–280 kHz widths)
+    ///   and the signal swings ±75 kHz (47 CFR §73.310: 100 % modulation is ±75 kHz); half
+    ///   the filter less the swing leaves about 15 kHz before the peaks reach the filter's
+    ///   skirt (common practice).
+    /// - 2 m amateur FM: ±2.5 kHz: the frequency error commonly held by land-mobile and
+    ///   amateur FM equipment (ETSI EN 300 086 allows about that for 25 kHz channels, from
+    ///   memory), and what a 15 kHz IF filter leaves beside ±5 kHz deviation with margin
+    ///   (common practice).
+    pub fn default_tolerance(self) -> f64 {
+        match self {
+            Service::FmBroadcast => 15e3,
+            Service::TwoMetreAmateur => 2.5e3,
+        }
+    }
+
+    /// Default drift margin at the band's edges, hertz: the room a free-running LC
+    /// oscillator needs so that its signal stays inside the band as it warms up.
+    ///
+    /// About 0.1 % warm-up drift (common practice for a hand-built LC oscillator with NP0
+    /// capacitors) plus the peak deviation: FM broadcast 100 kHz + 75 kHz → 200 kHz;
+    /// 2 m 146 kHz + 5 kHz → 150 kHz (rounded up; common practice).
+    pub fn default_edge_margin(self) -> f64 {
+        match self {
+            Service::FmBroadcast => 200e3,
+            Service::TwoMetreAmateur => 150e3,
+        }
+    }
+
+    /// Name as shown.
+    pub fn label(self) -> &'static str {
+        match self {
+            Service::FmBroadcast => "FM broadcast",
+            Service::TwoMetreAmateur => "2 m amateur",
+        }
+    }
+}
+
+/// A service's band: edges in hertz and its name.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct Band {
+    /// Lower edge, hertz.
+    pub low: f64,
+    /// Upper edge, hertz.
+    pub high: f64,
+    /// Name as shown, with its edges.
+    pub name: &'static str,
+    /// The service.
+    pub service: Service,
+}
+
+impl Band {
+    /// US FM broadcast band, 88–108 MHz (47 CFR §73.201).
+    pub const US_FM: Band = Band::new(88e6, 108e6, "FM broadcast band (88–108 MHz)", FM);
+    /// FM broadcast, ITU Region 1: 87.5–108 MHz (RR Article 5).
+    pub const FM_REGION_1: Band = Band::new(87.5e6, 108e6, "FM broadcast band (87.5–108 MHz)", FM);
+    /// Japan's FM band with the 2014 wide-FM extension, 76–95 MHz (from memory).
+    pub const JAPAN_FM_WIDE: Band = Band::new(76e6, 95e6, "Japan FM band (76–95 MHz)", FM);
+    /// Japan's traditional FM band, 76–90 MHz (from memory).
+    pub const JAPAN_FM: Band = Band::new(76e6, 90e6, "Japan FM band (76–90 MHz)", FM);
+    /// 2 m amateur, Region 1: 144–146 MHz (RR Article 5).
+    pub const TWO_METRE_REGION_1: Band = Band::new(144e6, 146e6, "2 m band (144–146 MHz)", AM2);
+    /// 2 m amateur, Region 2: 144–148 MHz (RR Article 5; 47 CFR §97.301).
+    pub const TWO_METRE_REGION_2: Band = Band::new(144e6, 148e6, "2 m band (144–148 MHz)", AM2);
+    /// 2 m amateur, Region 3: 144–148 MHz (RR Article 5).
+    pub const TWO_METRE_REGION_3: Band = Band::new(144e6, 148e6, "2 m band (144–148 MHz)", AM2);
+
+    const fn new(low: f64, high: f64, name: &'static str, service: Service) -> Band {
+        Band {
+            low,
+            high,
+            name,
+            service,
+        }
+    }
+
+    /// Whether `frequency` (hertz) lies inside the band, edges included.
+    pub fn contains(&self, frequency: f64) -> bool {
+        (self.low..=self.high).contains(&frequency)
+    }
+
+    /// The first band that holds every one of `channels` (hertz), tried in the order: FM
+    /// broadcast 87.5–108 MHz, Japan 76–95 MHz, 2 m 144–148 MHz. `None` for an empty list or
+    /// one that straddles services.
+    pub fn holding(channels: &[f64]) -> Option<Band> {
+        if channels.is_empty() {
+            return None;
+        }
+        [
+            Band::FM_REGION_1,
+            Band::JAPAN_FM_WIDE,
+            Band::TWO_METRE_REGION_2,
+        ]
+        .into_iter()
+        .find(|b| channels.iter().all(|&f| b.contains(f)))
+    }
+}
+
+const FM: Service = Service::FmBroadcast;
+const AM2: Service = Service::TwoMetreAmateur;
+
+/// The aeronautical band a tank must not reach, hertz: 108–117.975 MHz aeronautical
+/// radionavigation (VOR, ILS localizer) and 117.975–137 MHz aeronautical mobile (R), air
+/// traffic voice (ITU Radio Regulations, Article 5).
+pub const AERONAUTICAL: (f64, f64) = (108e6, 137e6);
+
+/// The aeronautical emergency frequency, 121.5 MHz (ITU Radio Regulations Appendix 15).
+pub const AERONAUTICAL_EMERGENCY: f64 = 121.5e6;
+
+/// Intermediate frequency of broadcast FM receivers, 10.7 MHz (common practice).
+pub const BROADCAST_IF: f64 = 10.7e6;
+
+/// One allocation a harmonic can land in.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct Allocation {
+    /// Lower edge, hertz.
+    pub low: f64,
+    /// Upper edge, hertz.
+    pub high: f64,
+    /// What it is, with its source.
+    pub name: &'static str,
+}
+
+/// Allocations worth naming for a VHF tank's harmonics (ITU Radio Regulations Article 5
+/// unless marked; edges rounded to what matters for a caution).
+pub const ALLOCATIONS: [Allocation; 13] = [
+    alloc(76e6, 95e6, "FM broadcast, Japan (76–95 MHz)"),
+    alloc(87.5e6, 108e6, "FM broadcast (87.5–108 MHz, RR Art. 5)"),
+    alloc(
+        108e6,
+        137e6,
+        "aeronautical band (108–137 MHz: navigation and air-traffic voice, RR Art. 5)",
+    ),
+    alloc(
+        137e6,
+        138e6,
+        "weather and space-operation satellites (137–138 MHz, RR Art. 5)",
+    ),
+    alloc(
+        144e6,
+        148e6,
+        "2 m amateur band (144–146/148 MHz, RR Art. 5)",
+    ),
+    alloc(
+        156e6,
+        162.05e6,
+        "maritime VHF (156–162.05 MHz, RR Appendix 18; channel 16 at 156.8 MHz)",
+    ),
+    alloc(
+        174e6,
+        230e6,
+        "broadcasting Band III: TV and DAB (174–230 MHz, RR Art. 5; US TV channels 7–13 at \
+         174–216 MHz)",
+    ),
+    alloc(
+        225e6,
+        400e6,
+        "military aeronautical UHF (225–400 MHz, common practice)",
+    ),
+    alloc(
+        406e6,
+        406.1e6,
+        "distress beacons (406–406.1 MHz, RR Art. 5: COSPAS-SARSAT)",
+    ),
+    alloc(430e6, 440e6, "70 cm amateur band (430–440 MHz, RR Art. 5)"),
+    alloc(
+        440e6,
+        470e6,
+        "land mobile UHF (about 440–470 MHz, common practice)",
+    ),
+    alloc(
+        470e6,
+        694e6,
+        "UHF television (470–694 MHz in Region 1, RR Art. 5)",
+    ),
+    alloc(
+        52.5e6,
+        76e6,
+        "VHF low band: TV Band I and land mobile (common practice)",
+    ),
+];
+
+const fn alloc(low: f64, high: f64, name: &'static str) -> Allocation {
+    Allocation { low, high, name }
+}
+
+/// The allocations that [low, high] hertz touches, in ascending order of their lower edge.
+pub fn allocations_touched(low: f64, high: f64) -> Vec<&'static Allocation> {
+    let mut out: Vec<&'static Allocation> = ALLOCATIONS
+        .iter()
+        .filter(|a| a.low <= high && a.high >= low)
+        .collect();
+    out.sort_by(|a, b| a.low.total_cmp(&b.low));
+    out
+}

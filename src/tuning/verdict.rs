@@ -1,0 +1,478 @@
+//! The verdict a builder acts on: on channel or by how much, inside the band over the whole
+//! trimmer travel, clear of the aeronautical band, where the harmonics land, and whether the
+//! coil can be built.
+//!
+//! Pure: the window and the headless commands call [`judge`] and show what it returns.
+
+use super::bands::BandPlan;
+use super::buildable::gap_flags;
+use super::digits::{channel_mhz, mhz, mhz_range, offset};
+use super::service::{
+    AERONAUTICAL, AERONAUTICAL_EMERGENCY, BROADCAST_IF, Band, Service, allocations_touched,
+};
+use super::solve::trimmer_window;
+use crate::model::{Coil, Conditions, Tank, evaluate::resonance_of};
+
+/// What a flag is about.
+#[derive(Clone, Copy, Debug, PartialEq, Eq, Hash)]
+pub enum FlagKind {
+    /// Some frequency the trimmer reaches lies in 108–137 MHz.
+    Aeronautical,
+    /// The trimmer reaches within the drift margin of the band's edge.
+    BandEdge,
+    /// The trimmer reaches outside the chosen band.
+    OutsideBand,
+    /// Bare turns touch: the coil cannot work as drawn.
+    BareTurns,
+    /// Bare turns closer than the minimum gap.
+    NarrowGap,
+    /// A 2nd or 3rd harmonic of a reachable frequency lies in 108–137 MHz.
+    HarmonicAeronautical,
+}
+
+impl FlagKind {
+    /// The machine name, as in the JSON: "aeronautical", "band_edge", "outside_band",
+    /// "bare_turns", "narrow_gap", "harmonic_aeronautical".
+    pub fn key(self) -> &'static str {
+        match self {
+            FlagKind::Aeronautical => "aeronautical",
+            FlagKind::BandEdge => "band_edge",
+            FlagKind::OutsideBand => "outside_band",
+            FlagKind::BareTurns => "bare_turns",
+            FlagKind::NarrowGap => "narrow_gap",
+            FlagKind::HarmonicAeronautical => "harmonic_aeronautical",
+        }
+    }
+
+    /// Whether the flag is about safety or the law (as against buildability).
+    pub fn is_safety(self) -> bool {
+        matches!(
+            self,
+            FlagKind::Aeronautical
+                | FlagKind::OutsideBand
+                | FlagKind::BandEdge
+                | FlagKind::HarmonicAeronautical
+        )
+    }
+}
+
+/// One thing the builder must know before going on, in words with numbers.
+#[derive(Clone, Debug, PartialEq)]
+pub struct Flag {
+    /// What it is about.
+    pub kind: FlagKind,
+    /// In words, with the numbers and what to do.
+    pub text: String,
+}
+
+impl Flag {
+    /// A flag of `kind` saying `text`.
+    pub fn new(kind: FlagKind, text: String) -> Self {
+        Self { kind, text }
+    }
+}
+
+/// What the tank is aimed at and the builder's settings for judging it.
+#[derive(Clone, Debug, PartialEq)]
+pub struct Aim {
+    /// The plan the target was picked from (its band is the one the tank must stay in).
+    pub plan: BandPlan,
+    /// The target frequency, hertz: a channel of the plan or any typed frequency.
+    pub target: Option<f64>,
+    /// "On channel" means |resonance − target| ≤ this, hertz. Set by the user; the default
+    /// is the plan's service practice ([`BandPlan::default_tolerance`]).
+    pub tolerance: f64,
+    /// Drift margin at the band's edges, hertz ([`BandPlan::default_edge_margin`]).
+    pub edge_margin: f64,
+}
+
+impl Aim {
+    /// An aim with the plan's default tolerance and edge margin.
+    pub fn new(plan: BandPlan, target: Option<f64>) -> Self {
+        Self {
+            tolerance: plan.default_tolerance(),
+            edge_margin: plan.default_edge_margin(),
+            plan,
+            target,
+        }
+    }
+
+    /// An aim at a typed frequency with no plan: the band is that of the service whose band
+    /// holds it (FM broadcast, Japan FM, 2 m), if any.
+    pub fn typed(target: f64) -> Self {
+        Self::new(BandPlan::Custom(vec![target]), Some(target))
+    }
+
+    /// The same aim with the user's tolerance, hertz (negative or non-finite: the default).
+    pub fn with_tolerance(mut self, tolerance: f64) -> Self {
+        if tolerance.is_finite() && tolerance >= 0.0 {
+            self.tolerance = tolerance;
+        }
+        self
+    }
+
+    /// The same aim with the user's edge margin, hertz (negative or non-finite: the
+    /// default).
+    pub fn with_edge_margin(mut self, margin: f64) -> Self {
+        if margin.is_finite() && margin >= 0.0 {
+            self.edge_margin = margin;
+        }
+        self
+    }
+}
+
+/// The frequencies the trimmer reaches at the present spacing, hertz.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct Reach {
+    /// Trimmer at its maximum.
+    pub low: f64,
+    /// Trimmer at its minimum.
+    pub high: f64,
+}
+
+/// A harmonic and what it falls in over the whole trimmer travel.
+#[derive(Clone, Debug, PartialEq)]
+pub struct Harmonic {
+    /// 2 or 3.
+    pub order: u32,
+    /// At the present resonance, hertz.
+    pub frequency: f64,
+    /// Over the trimmer's travel, hertz.
+    pub low: f64,
+    /// Over the trimmer's travel, hertz.
+    pub high: f64,
+    /// The allocations it touches (ITU Radio Regulations Art. 5, common practice where
+    /// marked).
+    pub falls_in: Vec<&'static str>,
+}
+
+/// Where a broadcast receiver hears the oscillator again, by its image.
+#[derive(Clone, Debug, PartialEq)]
+pub struct ReceiverImage {
+    /// Dial setting at which a receiver with its local oscillator above the signal hears
+    /// the oscillator as an image: f − 2 × 10.7 MHz, hertz.
+    pub dial_oscillator_above: f64,
+    /// The same for a local oscillator below the signal: f + 2 × 10.7 MHz, hertz.
+    pub dial_oscillator_below: f64,
+    /// In words.
+    pub text: String,
+}
+
+/// The verdict on a coil in its tank against an aim.
+#[derive(Clone, Debug, PartialEq)]
+pub struct Verdict {
+    /// The present resonance, hertz.
+    pub resonance: f64,
+    /// What the trimmer reaches at the present spacing.
+    pub reach: Reach,
+    /// The target, hertz, if there is one.
+    pub target: Option<f64>,
+    /// Resonance minus target, hertz.
+    pub offset: Option<f64>,
+    /// The tolerance judged against, hertz.
+    pub tolerance: f64,
+    /// |offset| ≤ tolerance; `None` without a target.
+    pub on_channel: Option<bool>,
+    /// The band the tank must stay in, if known.
+    pub band: Option<Band>,
+    /// 2nd and 3rd harmonics.
+    pub harmonics: Vec<Harmonic>,
+    /// The receiver image, for a broadcast band.
+    pub image: Option<ReceiverImage>,
+    /// Safety and buildability flags, most serious first.
+    pub flags: Vec<Flag>,
+}
+
+impl Verdict {
+    /// No flag about safety or the law.
+    pub fn is_safe(&self) -> bool {
+        !self.flags.iter().any(|f| f.kind.is_safety())
+    }
+
+    /// No bare turns touching or too close.
+    pub fn is_buildable(&self) -> bool {
+        !self
+            .flags
+            .iter()
+            .any(|f| matches!(f.kind, FlagKind::BareTurns | FlagKind::NarrowGap))
+    }
+
+    /// Whether a flag of `kind` is raised.
+    pub fn has(&self, kind: FlagKind) -> bool {
+        self.flags.iter().any(|f| f.kind == kind)
+    }
+
+    /// The channel line: "On channel: +3.2 kHz from 98.7 MHz (within ±15.0 kHz)" or
+    /// "Off channel: -9.336 MHz from 98.7 MHz (tolerance ±15.0 kHz): …", or the resonance
+    /// alone without a target.
+    pub fn channel_text(&self) -> String {
+        let tol = offset(self.tolerance);
+        let tol = tol.trim_start_matches('+');
+        match (self.target, self.offset, self.on_channel) {
+            (Some(t), Some(o), Some(true)) => {
+                format!(
+                    "On channel: {} from {} MHz (within ±{tol})",
+                    offset(o),
+                    channel_mhz(t)
+                )
+            }
+            (Some(t), Some(o), _) => format!(
+                "Off channel: {} from {} MHz (tolerance ±{tol}): {}",
+                offset(o),
+                channel_mhz(t),
+                if o > 0.0 {
+                    "lower it (squeeze the turns or add capacitance)"
+                } else {
+                    "raise it (stretch the turns or take capacitance away)"
+                }
+            ),
+            _ => format!("Resonance {} (no target set)", mhz(self.resonance)),
+        }
+    }
+
+    /// What to do next, the most pressing first: touching bare turns, the aeronautical band,
+    /// leaving the band, a narrow gap, the band's edge, then the channel.
+    pub fn next_step(&self) -> String {
+        let band = self.band.map_or("band", |b| b.name);
+        if self.has(FlagKind::BareTurns) {
+            return "Space the bare turns apart before anything else: touching turns short each \
+                    other"
+                .to_owned();
+        }
+        if self.has(FlagKind::Aeronautical) {
+            return "Keep this tank off the air: change the fixed capacitance or fit a smaller \
+                    trimmer so its whole travel stays out of 108–137 MHz"
+                .to_owned();
+        }
+        if self.has(FlagKind::OutsideBand) {
+            return format!(
+                "Narrow or re-centre the trimmer's travel (fixed capacitance, trimmer size) so it \
+                 stays inside the {band}"
+            );
+        }
+        if self.has(FlagKind::NarrowGap) {
+            return "Open the gap between the bare turns to the minimum or more".to_owned();
+        }
+        if self.has(FlagKind::BandEdge) {
+            return format!(
+                "Move the trimmer's travel away from the edge of the {band}: a warming \
+                 oscillator drifts"
+            );
+        }
+        match (self.on_channel, self.offset) {
+            (Some(true), _) => {
+                "On channel: fix the turns in place (wax or glue) and log a bench reading"
+                    .to_owned()
+            }
+            (Some(false), Some(o)) if o > 0.0 => {
+                "Lower the frequency: squeeze the turns together or turn the trimmer up".to_owned()
+            }
+            (Some(false), _) => {
+                "Raise the frequency: stretch the turns apart or turn the trimmer down".to_owned()
+            }
+            (None, _) => "Pick a target channel or type a frequency".to_owned(),
+        }
+    }
+
+    /// The safety line: "Safe over the trimmer's travel (…)" or how many flags.
+    pub fn safety_text(&self) -> String {
+        let reach = mhz_range(self.reach.low, self.reach.high);
+        if self.is_safe() {
+            match self.band {
+                Some(b) => format!(
+                    "In band over the trimmer's travel: {reach} inside the {}",
+                    b.name
+                ),
+                None => {
+                    format!("Clear of the aeronautical band over the trimmer's travel: {reach}")
+                }
+            }
+        } else {
+            let n = self.flags.iter().filter(|f| f.kind.is_safety()).count();
+            format!(
+                "Not safe: the trimmer's travel ({reach}) raises {n} caution{}",
+                if n == 1 { "" } else { "s" }
+            )
+        }
+    }
+}
+
+/// Whether an offset is on channel: |offset| ≤ tolerance (hertz). The tolerance is the
+/// user's (default from the service's practice), never the channel spacing.
+pub fn on_channel(offset: f64, tolerance: f64) -> bool {
+    offset.abs() <= tolerance
+}
+
+/// The verdict on `coil` in `tank` against `aim`: the present resonance, the trimmer's
+/// whole travel at the present spacing ([`trimmer_window`]), band and aeronautical flags
+/// over that travel ([`band_flags`]), harmonics ([`harmonics`]), the receiver image for a
+/// broadcast band ([`receiver_image`]) and the gap flags
+/// ([`gap_flags`](super::buildable::gap_flags)).
+pub fn judge(coil: &Coil, tank: &Tank, conditions: &Conditions, aim: &Aim) -> Verdict {
+    let resonance = resonance_of(coil, tank.external_capacitance(), conditions);
+    let (low, high) = trimmer_window(coil, tank, conditions);
+    // The present point is inside the window; min/max guard a trimmer given backwards.
+    let reach = Reach {
+        low: low.min(high).min(resonance),
+        high: high.max(low).max(resonance),
+    };
+    let band = aim.plan.band();
+    let mut flags = band_flags(reach, band, aim.edge_margin);
+    flags.extend(gap_flags(coil));
+    let offset = aim.target.map(|t| resonance - t);
+    Verdict {
+        resonance,
+        reach,
+        target: aim.target,
+        offset,
+        tolerance: aim.tolerance,
+        on_channel: offset.map(|o| on_channel(o, aim.tolerance)),
+        band,
+        harmonics: harmonics(resonance, reach),
+        image: band
+            .filter(|b| b.service == Service::FmBroadcast)
+            .map(|b| receiver_image(resonance, &b)),
+        flags,
+    }
+}
+
+/// The band flags for a trimmer reach, most serious first:
+/// - [`FlagKind::Aeronautical`] when any of [low, high] lies in 108–137 MHz (edges
+///   included; ITU Radio Regulations Art. 5);
+/// - per band edge, [`FlagKind::OutsideBand`] when the reach passes the edge, else
+///   [`FlagKind::BandEdge`] when it comes closer than `edge_margin` (strictly);
+/// - [`FlagKind::HarmonicAeronautical`] when a 2nd or 3rd harmonic of the reach lies in
+///   108–137 MHz.
+pub fn band_flags(reach: Reach, band: Option<Band>, edge_margin: f64) -> Vec<Flag> {
+    let mut flags = Vec::new();
+    let (aero_low, aero_high) = AERONAUTICAL;
+    let reach_text = mhz_range(reach.low, reach.high);
+    if reach.high >= aero_low && reach.low <= aero_high {
+        let (a, b) = (reach.low.max(aero_low), reach.high.min(aero_high));
+        let emergency = if (a..=b).contains(&AERONAUTICAL_EMERGENCY) {
+            ", including 121.5 MHz, the aeronautical emergency frequency"
+        } else {
+            ""
+        };
+        flags.push(Flag::new(
+            FlagKind::Aeronautical,
+            format!(
+                "the trimmer's travel reaches {reach_text}: {} is in the aeronautical band \
+                 (108–137 MHz: navigation and air-traffic voice, ITU Radio Regulations Art. 5)\
+                 {emergency}. Do not let this tank radiate there: narrow the trimmer or change \
+                 the fixed capacitance so the whole travel stays clear, and follow your local \
+                 rules",
+                mhz_range(a, b)
+            ),
+        ));
+    }
+    if let Some(band) = band {
+        let edge = |flags: &mut Vec<Flag>, beyond: bool, near: bool, side: &str, at: f64| {
+            if beyond {
+                flags.push(Flag::new(
+                    FlagKind::OutsideBand,
+                    format!(
+                        "the trimmer's travel ({reach_text}) passes the {side} edge of the {} \
+                         at {}: one turn of the trimmer puts the tank outside the band",
+                        band.name,
+                        mhz(at)
+                    ),
+                ));
+            } else if near {
+                flags.push(Flag::new(
+                    FlagKind::BandEdge,
+                    format!(
+                        "the trimmer's travel ({reach_text}) comes within {} of the {side} \
+                         edge of the {} at {}: a free-running oscillator drifts that far as it \
+                         warms (common practice)",
+                        offset(edge_margin).trim_start_matches('+'),
+                        band.name,
+                        mhz(at)
+                    ),
+                ));
+            }
+        };
+        edge(
+            &mut flags,
+            reach.low < band.low,
+            reach.low < band.low + edge_margin,
+            "lower",
+            band.low,
+        );
+        edge(
+            &mut flags,
+            reach.high > band.high,
+            reach.high > band.high - edge_margin,
+            "upper",
+            band.high,
+        );
+    }
+    for n in [2.0, 3.0] {
+        let (h_low, h_high) = (n * reach.low, n * reach.high);
+        if h_high >= aero_low && h_low <= aero_high {
+            flags.push(Flag::new(
+                FlagKind::HarmonicAeronautical,
+                format!(
+                    "the {} harmonic of the trimmer's travel ({}) reaches the aeronautical band \
+                     (108–137 MHz): filter the output and keep the tank screened",
+                    if n == 2.0 { "2nd" } else { "3rd" },
+                    mhz_range(h_low, h_high)
+                ),
+            ));
+        }
+    }
+    flags
+}
+
+/// The 2nd and 3rd harmonics of `resonance` and of the trimmer's `reach`, with the
+/// allocations they touch (a tank's harmonics are what an oscillator radiates beside its
+/// fundamental; common practice: e.g. an FM-band oscillator's 2nd harmonic lands in
+/// 176–216 MHz, broadcasting Band III).
+pub fn harmonics(resonance: f64, reach: Reach) -> Vec<Harmonic> {
+    [2u32, 3]
+        .into_iter()
+        .map(|order| {
+            let n = f64::from(order);
+            let (low, high) = (n * reach.low, n * reach.high);
+            Harmonic {
+                order,
+                frequency: n * resonance,
+                low,
+                high,
+                falls_in: allocations_touched(low, high)
+                    .into_iter()
+                    .map(|a| a.name)
+                    .collect(),
+            }
+        })
+        .collect()
+}
+
+/// Where a broadcast receiver hears an oscillator at `resonance` by its image, 2 × 10.7 MHz
+/// away (common practice: superheterodyne FM receivers use a 10.7 MHz IF, and a receiver
+/// tuned to f_dial with its local oscillator above also accepts f_dial + 21.4 MHz).
+pub fn receiver_image(resonance: f64, band: &Band) -> ReceiverImage {
+    let shift = 2.0 * BROADCAST_IF;
+    let above = resonance - shift;
+    let below = resonance + shift;
+    let on_dial = |f: f64| {
+        if band.contains(f) {
+            " (on the dial)"
+        } else {
+            " (off the dial)"
+        }
+    };
+    ReceiverImage {
+        dial_oscillator_above: above,
+        dial_oscillator_below: below,
+        text: format!(
+            "a broadcast receiver also hears this tank's signal by its image, 2 × 10.7 MHz \
+             away: with the dial at {}{} when its local oscillator runs above the signal, at \
+             {}{} when below (common practice); check the dial before trusting a reading",
+            mhz(above),
+            on_dial(above),
+            mhz(below),
+            on_dial(below)
+        ),
+    }
+}
