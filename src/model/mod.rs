@@ -8,6 +8,7 @@ mod analysis;
 mod coil;
 mod error;
 pub mod evaluate;
+mod field_wire;
 mod tank;
 mod warnings;
 mod winding;
@@ -16,5 +17,6 @@ pub use analysis::{Analysis, Geometry, Inductances, SelfResonance, Warning, Warn
 pub use coil::Coil;
 pub use error::{Field, InputError};
 pub use evaluate::{Conditions, InductanceModel, evaluate, evaluate_coil};
+pub use field_wire::wire_coil;
 pub use tank::{FeedbackDivider, Tank};
 pub use winding::{Coating, DiameterSpec, Gauge, SpacingSpec, Winding, WireSpec};
