@@ -1,9 +1,11 @@
-//! The headless commands: `evaluate` (from flags or `--recipe FILE`) and `report FILE`.
+//! The headless commands: `evaluate` (from flags or `--recipe FILE`), `impedance` and
+//! `report FILE`.
 //!
 //! Everything here returns strings; `main.rs` prints them and sets the exit code.
 
 mod args;
 mod evaluate;
+mod impedance;
 mod json;
 mod recipe_args;
 mod report;
@@ -11,6 +13,7 @@ mod text;
 
 pub use args::{ArgError, Args};
 pub use evaluate::{EvaluateRequest, run_evaluate};
+pub use impedance::run_impedance;
 pub use json::analysis_json;
 pub use report::{build_report, run_report};
 pub use text::analysis_report;
@@ -26,6 +29,9 @@ usage:
   tankwright evaluate FLAGS [--json]      print every figure for one coil
   tankwright evaluate --recipe FILE [--json]   the same for a saved recipe
   tankwright report FILE                  a recipe as a build sheet, then every figure
+  tankwright impedance FLAGS [--from-mhz A] [--to-mhz B] [--points N] [--json]
+                                          the coil's impedance against frequency, solved
+                                          from its own currents (also with --recipe FILE)
   tankwright help                         this text
 
 evaluate flags (millimetres, picofarads, megahertz):
@@ -40,4 +46,11 @@ evaluate flags (millimetres, picofarads, megahertz):
   --temperature-c T      wire temperature (default 20)
   --model NAME           round-wire | filament-sum | current-sheet | lundin | wheeler
   --json                 one JSON object instead of the report
+
+impedance flags (besides the coil flags above):
+  --from-mhz A           first frequency (default 1)
+  --to-mhz B             last frequency (default 1.25 x the self-resonance)
+  --points N             frequencies, log-spaced (default 40, at most 2000)
+  the leads run straight from the coil's ends to the board and the loop closes beneath the
+  coil; --lead-mm 0 gives the isolated coil with its two ends as the terminals
 ";

@@ -5,6 +5,7 @@
 
 pub mod bands;
 pub mod fit;
+pub mod impedance;
 pub mod solve;
 pub mod sweep;
 
