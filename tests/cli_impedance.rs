@@ -132,3 +132,61 @@ fn bad_input_is_refused_with_a_message() {
     assert!(!ok);
     assert!(err.contains("overlap"), "{err}");
 }
+
+#[test]
+fn evaluate_json_carries_the_field_solution() {
+    let mut eval = with(&["--capacitance-pf", "20", "--json"]);
+    eval[0] = "evaluate";
+    let (ok, out, err) = run(&eval);
+    assert!(ok, "{err}");
+    let v: serde_json::Value = serde_json::from_str(&out).expect("one JSON object");
+    let field = v["self_resonance_mhz"]["field_solved"]
+        .as_f64()
+        .expect("field_solved");
+    for key in ["lumped", "helical"] {
+        assert!(
+            v["self_resonance_mhz"][key].as_f64().is_some(),
+            "kept {key}"
+        );
+    }
+    let apparent = v["inductance_nh"]["apparent"].as_f64().expect("apparent");
+    assert!(v["inductance_nh"]["apparent_classical"].as_f64().is_some());
+    // The same figures as the impedance command gives for the same coil and tank.
+    let (ok, out, err) = run(&with(&[
+        "--capacitance-pf",
+        "20",
+        "--points",
+        "2",
+        "--json",
+    ]));
+    assert!(ok, "{err}");
+    let z: serde_json::Value = serde_json::from_str(&out).expect("one JSON object");
+    assert_eq!(z["self_resonance_mhz"].as_f64(), Some(field));
+    assert_eq!(z["operating"]["apparent_nh"].as_f64(), Some(apparent));
+}
+
+#[test]
+fn evaluate_keeps_working_when_the_field_solution_refuses() {
+    // Leads shorter than the wire diameter: the classical figures stand, the field solution
+    // says why it is absent.
+    let (ok, out, err) = run(&[
+        "evaluate",
+        "--mean-diameter-mm",
+        "7",
+        "--turns",
+        "5",
+        "--length-mm",
+        "8",
+        "--wire-mm",
+        "1",
+        "--lead-mm",
+        "0.5",
+        "--json",
+    ]);
+    assert!(ok, "{err}");
+    let v: serde_json::Value = serde_json::from_str(&out).expect("one JSON object");
+    assert!(v["self_resonance_mhz"]["field_solved"].is_null());
+    let note = v["field_solution_note"].as_str().expect("a note");
+    assert!(note.contains("leads shorter"), "{note}");
+    assert!(v["inductance_nh"]["apparent"].as_f64().is_some());
+}

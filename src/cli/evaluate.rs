@@ -135,7 +135,18 @@ pub fn run_evaluate(words: Vec<String>) -> Result<String, String> {
     let analysis = crate::model::evaluate(&req.winding, &req.tank, &req.conditions)
         .map_err(|e| format!("invalid input: {e}"))?;
     Ok(if req.json {
-        let mut s = super::json::analysis_json(&analysis).to_string();
+        let mut v = super::json::analysis_json(&analysis);
+        let coil = crate::model::Coil::from_winding(&req.winding)
+            .map_err(|e| format!("invalid input: {e}"))?;
+        super::json::add_field_solution(
+            &mut v,
+            crate::tuning::impedance::field_solution(
+                &coil,
+                req.conditions.temperature_c,
+                analysis.resonance,
+            ),
+        );
+        let mut s = v.to_string();
         s.push('\n');
         s
     } else {

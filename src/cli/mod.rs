@@ -45,7 +45,9 @@ evaluate flags (millimetres, picofarads, megahertz):
   --stray-pf S           stray capacitance (default 0)
   --temperature-c T      wire temperature (default 20)
   --model NAME           round-wire | filament-sum | current-sheet | lundin | wheeler
-  --json                 one JSON object instead of the report
+  --json                 one JSON object instead of the report; it adds the field
+                         solution: self_resonance_mhz.field_solved and, at the tank's
+                         resonance, inductance_nh.apparent (classical: apparent_classical)
 
 impedance flags (besides the coil flags above):
   --from-mhz A           first frequency (default 1)

@@ -2,7 +2,7 @@
 //! the headless `impedance` command (both call this, never their own copies).
 
 use crate::model::{Coil, wire_coil};
-use crate::physics::field::{Feed, FieldError, FieldModel};
+use crate::physics::field::{Feed, FieldError, FieldModel, FieldSolution};
 use num_complex::Complex64;
 
 /// Default start of a sweep, hertz.
@@ -93,4 +93,15 @@ pub fn impedance_sweep(
         points,
         operating,
     })
+}
+
+/// The field solution of `coil` at `temperature_c`: first parallel self-resonance, and X/ω
+/// and R at `operating_frequency`.
+pub fn field_solution(
+    coil: &Coil,
+    temperature_c: f64,
+    operating_frequency: f64,
+) -> Result<FieldSolution, FieldError> {
+    let wire = wire_coil(coil, temperature_c);
+    FieldModel::new(&wire, wire.segments_per_turn(), Feed::Terminals)?.solve(operating_frequency)
 }
