@@ -374,3 +374,85 @@ pub(super) fn dot(a: [f64; 3], b: [f64; 3]) -> f64 {
 pub(super) fn norm(a: [f64; 3]) -> f64 {
     dot(a, a).sqrt()
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn demo() -> WireCoil {
+        WireCoil {
+            mean_diameter: 7e-3,
+            pitch: 1.6e-3,
+            turns: 5.0,
+            wire_radius: 0.5e-3,
+            lead_length: 5e-3,
+            resistivity: 1.0 / 58e6,
+        }
+    }
+
+    #[test]
+    fn the_loop_closes_across_the_gap_with_the_stated_geometry() {
+        let c = demo();
+        let s = Structure::build(&c, 12, Feed::Terminals).expect("valid");
+        let first = s.segments[0].start;
+        let last = s.segments[s.segments.len() - 1].at(1.0);
+        // The two ends face each other across the terminals' gap, in the board plane.
+        let board = 0.5 * c.mean_diameter + c.lead_length;
+        assert!((norm(sub(first, last)) - c.terminal_gap()).abs() < 1e-12);
+        assert!((first[0] - board).abs() < 1e-12 && (last[0] - board).abs() < 1e-12);
+        // Every segment starts where the last one ended.
+        for w in s.segments.windows(2) {
+            assert!(norm(sub(w[0].at(1.0), w[1].start)) < 1e-12);
+        }
+        // One basis per node, the ideal source's joining the two ends.
+        assert_eq!(s.bases.len(), s.segments.len());
+        assert_eq!(s.bases[s.feed].arrive, s.segments.len() - 1);
+        assert_eq!(s.bases[s.feed].leave, 0);
+        // Wire length: helix (equal-area polygon, long by δ²/24) plus leads and closing path.
+        let total: f64 = s.segments.iter().map(|g| g.length).sum();
+        let delta = 2.0 * PI / 12.0;
+        let expected =
+            c.helix_wire_length() * (1.0 + delta * delta / 24.0) + 2.0 * c.lead_length + c.length()
+                - c.terminal_gap();
+        assert!(
+            (total / expected - 1.0).abs() < 2e-3,
+            "{total} vs {expected}"
+        );
+    }
+
+    #[test]
+    fn the_middle_feed_sits_on_the_helix_middle() {
+        let c = demo();
+        let s = Structure::build(&c, 12, Feed::HelixMiddle).expect("valid");
+        let b = s.bases[s.feed];
+        let node = s.segments[b.leave].start;
+        // Half-way up the helix: z = l/2.
+        assert!((node[2] - 0.5 * c.length()).abs() < 1e-12, "{node:?}");
+        assert_eq!(s.bases.len(), s.segments.len() - 1);
+    }
+
+    #[test]
+    fn impossible_wires_are_refused_with_a_reason() {
+        let bad = [
+            WireCoil {
+                pitch: 0.9e-3,
+                ..demo()
+            },
+            WireCoil {
+                lead_length: 0.5e-3,
+                ..demo()
+            },
+            WireCoil {
+                turns: 0.5,
+                ..demo()
+            },
+            WireCoil {
+                mean_diameter: f64::NAN,
+                ..demo()
+            },
+        ];
+        for c in bad {
+            assert!(matches!(c.check(), Err(FieldError::Geometry(_))), "{c:?}");
+        }
+    }
+}
