@@ -590,3 +590,75 @@ fn min_max(v: &[f64]) -> (f64, f64) {
             (lo.min(x), hi.max(x))
         })
 }
+
+#[test]
+fn classical_apparent_inductance_rise_bias_as_measured() {
+    // The engine's apparent inductance L/(1 − (f/f_self)²) with the lumped self-resonance,
+    // against the field solution's rise of X/ω between a quarter of the operating frequency and
+    // the operating frequency (the rise goes as f², so a quarter of the way it is 1/16 of the
+    // whole, corrected for; the internal inductance's own fall between the two frequencies,
+    // (µ0/8π)·Δχ per metre of wire, is taken out first). Recorded as measured on this branch,
+    // not hidden; the band is the measured ratios widened by 10 % of themselves (the rise is a
+    // difference of two nearly equal figures, each converged to about 0.1 %).
+    // Measured (2026-12-02): classical/field rise 1.47, 1.66, 1.75, 1.52 on the four coils
+    // below at 92–112 MHz: the classical figure overstates the rise 1.5–1.75 times.
+    use tankwright::model::{
+        Coating, Conditions, DiameterSpec, Gauge, SpacingSpec, Tank, Winding, WireSpec, evaluate,
+    };
+    use tankwright::physics::constants::MU_0;
+    let mut report = String::new();
+    let mut ratios = Vec::new();
+    for (c, tank_pf) in [
+        (coil(7.0, 5.0, 1.6, 1.0, 5.0), 20.0),
+        (coil(10.0, 5.0, 2.0, 1.0, 5.0), 15.0),
+        (coil(12.0, 4.0, 2.5, 1.2, 6.0), 20.0),
+        (coil(8.0, 8.0, 1.5, 0.8, 5.0), 10.0),
+    ] {
+        let winding = Winding {
+            diameter: DiameterSpec::Mean(c.mean_diameter),
+            wire: WireSpec {
+                gauge: Gauge::Metric(2.0 * c.wire_radius),
+                coating: Coating::Bare,
+            },
+            turns: c.turns,
+            spacing: SpacingSpec::Length(c.length()),
+            lead_length: c.lead_length,
+        };
+        let a = evaluate(
+            &winding,
+            &Tank::fixed_only(tank_pf * 1e-12, 0.0),
+            &Conditions::default(),
+        )
+        .expect("valid coil");
+        let f = a.resonance;
+        let classical = a.apparent_inductance / a.total_inductance - 1.0;
+        let m = FieldModel::new(&c, c.segments_per_turn(), Feed::Terminals).expect("model");
+        let at = |f: f64| m.impedance(f).expect("impedance").im / (2.0 * PI * f);
+        let chi = |f: f64| {
+            internal_impedance(c.wire_radius / skin_depth(c.resistivity, f))
+                .internal_inductance_fraction
+        };
+        let internal_fall = MU_0 / (8.0 * PI) * (chi(0.25 * f) - chi(f)) * c.loop_wire_length();
+        let base = at(0.25 * f) - internal_fall;
+        let field = (at(f) / base - 1.0) * 16.0 / 15.0;
+        let ratio = classical / field;
+        writeln!(
+            report,
+            "{} with {tank_pf} pF at {:.1} MHz: classical rise {:.3} %, field rise {:.3} %, ratio {:.2}",
+            describe(&c),
+            f * 1e-6,
+            100.0 * classical,
+            100.0 * field,
+            ratio
+        )
+        .expect("string");
+        ratios.push(ratio);
+    }
+    println!("{report}");
+    let (lo, hi) = min_max(&ratios);
+    println!("classical/field rise {lo:.2}–{hi:.2}");
+    assert!(
+        lo >= 1.32 && hi <= 1.93,
+        "the classical rise's bias moved:\n{report}"
+    );
+}
