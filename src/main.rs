@@ -16,6 +16,10 @@ fn main() -> ExitCode {
             args.remove(0);
             finish(tankwright::cli::run_evaluate(args))
         }
+        Some("impedance") => {
+            args.remove(0);
+            finish(tankwright::cli::run_impedance(args))
+        }
         Some("report") => {
             args.remove(0);
             finish(tankwright::cli::run_report(args))

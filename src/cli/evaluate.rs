@@ -212,6 +212,14 @@ pub fn run_evaluate(words: Vec<String>) -> Result<String, String> {
     Ok(if req.json {
         let mut object = super::json::analysis_json(&analysis);
         super::verdict::add_verdict_json(&mut object, &verdict, &analysis);
+        super::json::add_field_solution(
+            &mut object,
+            crate::tuning::impedance::field_solution(
+                &analysis.coil,
+                req.conditions.temperature_c,
+                analysis.resonance,
+            ),
+        );
         let mut s = object.to_string();
         s.push('\n');
         s

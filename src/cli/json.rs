@@ -1,6 +1,7 @@
 //! The machine-readable form of an [`Analysis`], in display units named in the keys.
 
 use crate::model::{Analysis, InductanceModel};
+use crate::physics::field::{FieldError, FieldSolution};
 use serde_json::{Value, json};
 
 const NH: f64 = 1e9;
@@ -64,4 +65,27 @@ pub fn analysis_json(a: &Analysis) -> Value {
         "length_over_diameter": g.length_over_diameter(),
         "warnings": a.warnings.iter().map(|w| w.message.clone()).collect::<Vec<_>>(),
     })
+}
+
+/// Put the field solution into an [`analysis_json`] object: `self_resonance_mhz.field_solved`
+/// (the first parallel self-resonance at the terminals, leads as given), and
+/// `inductance_nh.apparent` from the field solution's X/ω at the operating frequency, the
+/// classical figure kept as `inductance_nh.apparent_classical`. When the field solution
+/// refuses the coil, `field_solved` is null, `apparent` stays classical and
+/// `field_solution_note` says why.
+pub fn add_field_solution(v: &mut Value, field: Result<FieldSolution, FieldError>) {
+    let classical = v["inductance_nh"]["apparent"].clone();
+    v["inductance_nh"]["apparent_classical"] = classical;
+    match field {
+        Ok(f) => {
+            v["self_resonance_mhz"]["field_solved"] = json!(f.self_resonance * MHZ);
+            v["inductance_nh"]["apparent"] = json!(f.apparent_inductance * NH);
+            v["field_series_resistance_ohm"] = json!(f.series_resistance);
+            v["field_segments"] = json!(f.segments);
+        }
+        Err(e) => {
+            v["self_resonance_mhz"]["field_solved"] = Value::Null;
+            v["field_solution_note"] = json!(e.to_string());
+        }
+    }
 }

@@ -1,10 +1,12 @@
-//! The headless commands: `evaluate` (from flags or `--recipe FILE`) and `report FILE`.
+//! The headless commands: `evaluate` (from flags or `--recipe FILE`), `impedance` and
+//! `report FILE`.
 //!
 //! Everything here returns strings; `main.rs` prints them and sets the exit code.
 
 mod args;
 mod bench;
 mod evaluate;
+mod impedance;
 mod json;
 mod recipe_args;
 mod report;
@@ -14,6 +16,7 @@ mod verdict;
 pub use args::{ArgError, Args};
 pub use bench::{run_fit, run_solve};
 pub use evaluate::{EvaluateRequest, run_evaluate};
+pub use impedance::run_impedance;
 pub use json::analysis_json;
 pub use report::{build_report, run_report};
 pub use text::analysis_report;
@@ -39,6 +42,9 @@ usage:
   tankwright solve --recipe FILE [--target-mhz F] [--trimmer-pct P] [--json]
                                           the coil and trimmer that land the target
   tankwright fit --recipe FILE [--json]   the calibration the recipe's bench readings imply
+  tankwright impedance FLAGS [--from-mhz A] [--to-mhz B] [--points N] [--json]
+                                          the coil's impedance against frequency, solved
+                                          from its own currents (also with --recipe FILE)
   tankwright help                         this text
 
 evaluate flags (millimetres, picofarads, megahertz):
@@ -57,5 +63,14 @@ evaluate flags (millimetres, picofarads, megahertz):
   --trimmer-pct P        trimmer setting, 0 = minimum capacitance (default 50)
   --target-mhz F         the frequency aimed at: offset, on channel, band of its service
   --tolerance-khz T      on channel within +/-T (default: the service's practice)
-  --json                 one JSON object instead of the report
+  --json                 one JSON object instead of the report; it adds the field
+                         solution: self_resonance_mhz.field_solved and, at the tank's
+                         resonance, inductance_nh.apparent (classical: apparent_classical)
+
+impedance flags (besides the coil flags above):
+  --from-mhz A           first frequency (default 1)
+  --to-mhz B             last frequency (default 1.25 x the self-resonance)
+  --points N             frequencies, log-spaced (default 40, at most 2000)
+  the leads run straight from the coil's ends to the board and the loop closes beneath the
+  coil; --lead-mm 0 gives the isolated coil with its two ends as the terminals
 ";

@@ -6,6 +6,7 @@
 pub mod constants;
 pub mod copper;
 pub mod elliptic;
+pub mod field;
 pub mod filament;
 pub mod helix;
 pub mod leads;

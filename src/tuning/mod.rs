@@ -11,6 +11,7 @@ pub mod buildable;
 pub mod channel_list;
 pub mod digits;
 pub mod fit;
+pub mod impedance;
 pub mod service;
 pub mod solve;
 pub mod sweep;

@@ -1,0 +1,167 @@
+//! `tankwright impedance`: the coil's impedance at its terminals against frequency, from the
+//! field solution (see `physics::field`), for scripts.
+
+use super::args::{ArgError, Args};
+use super::evaluate::EvaluateRequest;
+use crate::model::Coil;
+use crate::tuning::impedance::{ImpedancePoint, ImpedanceSweep, impedance_sweep};
+use serde_json::{Value, json};
+use std::fmt::Write as _;
+
+const MHZ: f64 = 1e-6;
+const NH: f64 = 1e9;
+/// Most points a sweep may ask for (each is one solution of the moment matrix).
+const MAX_POINTS: i32 = 2000;
+/// Points when `--points` is not given.
+const DEFAULT_POINTS: i32 = 40;
+
+/// The sweep's own flags, read before the coil's.
+struct Range {
+    from: Option<f64>,
+    to: Option<f64>,
+    points: usize,
+}
+
+fn range(args: &Args) -> Result<Range, ArgError> {
+    let from = args.number("from-mhz")?;
+    let to = args.number("to-mhz")?;
+    for (name, v) in [("from-mhz", from), ("to-mhz", to)] {
+        if let Some(x) = v
+            && x <= 0.0
+        {
+            return Err(ArgError(format!("--{name} must be above 0 MHz, got {x}")));
+        }
+    }
+    if let (Some(a), Some(b)) = (from, to)
+        && b <= a
+    {
+        return Err(ArgError(format!(
+            "--to-mhz {b} must be above --from-mhz {a}"
+        )));
+    }
+    let points = args.integer("points")?.unwrap_or(DEFAULT_POINTS);
+    if !(2..=MAX_POINTS).contains(&points) {
+        return Err(ArgError(format!(
+            "--points {points}: give 2 to {MAX_POINTS} frequencies"
+        )));
+    }
+    Ok(Range {
+        from: from.map(|f| f / MHZ),
+        to: to.map(|f| f / MHZ),
+        points: points as usize,
+    })
+}
+
+/// Run `impedance` on the words after the subcommand; Ok(stdout) or Err(one-line message).
+pub fn run_impedance(words: Vec<String>) -> Result<String, String> {
+    let args = Args::parse(words, &["json"]).map_err(|e| e.to_string())?;
+    let range = range(&args).map_err(|e| e.to_string())?;
+    let req = match args.text("recipe") {
+        Some(file) => super::recipe_args::request_from_recipe(&args, file)?,
+        None => EvaluateRequest::from_args(&args).map_err(|e| e.to_string())?,
+    };
+    if let Some(word) = args.positional.first() {
+        return Err(format!("unexpected word '{word}'"));
+    }
+    // The classical evaluation validates the coil, tank and conditions, and gives the tank's
+    // operating frequency when the tank has a capacitance.
+    let analysis = crate::model::evaluate(&req.winding, &req.tank, &req.conditions)
+        .map_err(|e| format!("invalid input: {e}"))?;
+    let coil = Coil::from_winding(&req.winding).map_err(|e| format!("invalid input: {e}"))?;
+    let operating = (req.tank.external_capacitance() > 0.0).then_some(analysis.resonance);
+    let sweep = impedance_sweep(
+        &coil,
+        req.conditions.temperature_c,
+        range.from,
+        range.to,
+        range.points,
+        operating,
+    )
+    .map_err(|e| e.to_string())?;
+    Ok(if req.json {
+        let mut s = sweep_json(&sweep).to_string();
+        s.push('\n');
+        s
+    } else {
+        sweep_text(&sweep, coil.lead_length())
+    })
+}
+
+fn point_json(p: &ImpedancePoint) -> Value {
+    json!({
+        "mhz": p.frequency * MHZ,
+        "r_ohm": p.impedance.re,
+        "x_ohm": p.impedance.im,
+        "abs_ohm": p.impedance.norm(),
+        "apparent_nh": p.apparent_inductance() * NH,
+        "q": finite_or_null(p.quality()),
+    })
+}
+
+fn finite_or_null(x: f64) -> Value {
+    if x.is_finite() { json!(x) } else { Value::Null }
+}
+
+/// The sweep as one JSON object; units in the key names.
+pub fn sweep_json(s: &ImpedanceSweep) -> Value {
+    json!({
+        "method": "field solution (thin-wire method of moments)",
+        "self_resonance_mhz": s.self_resonance * MHZ,
+        "ceiling_mhz": s.ceiling * MHZ,
+        "segments": s.segments,
+        "operating": s.operating.as_ref().map(point_json),
+        "points": s.points.iter().map(point_json).collect::<Vec<_>>(),
+    })
+}
+
+/// The sweep as a table for people.
+pub fn sweep_text(s: &ImpedanceSweep, lead_length: f64) -> String {
+    let mut out = String::new();
+    let setting = if lead_length > 0.0 {
+        format!(
+            "leads {:.1} mm each to the board, loop closed beneath the coil",
+            lead_length * 1e3
+        )
+    } else {
+        "isolated coil, terminals at its two ends".to_owned()
+    };
+    // Writing to a String cannot fail.
+    let _ = writeln!(
+        out,
+        "Impedance at the terminals (field solution, {} segments; {setting})",
+        s.segments
+    );
+    let _ = writeln!(
+        out,
+        "first parallel self-resonance  {:.2} MHz",
+        s.self_resonance * MHZ
+    );
+    if let Some(p) = &s.operating {
+        let _ = writeln!(
+            out,
+            "at the operating frequency {:.3} MHz: R {:.4} ohm, X {:.3} ohm, X/w {:.2} nH",
+            p.frequency * MHZ,
+            p.impedance.re,
+            p.impedance.im,
+            p.apparent_inductance() * NH
+        );
+    }
+    let _ = writeln!(
+        out,
+        "{:>12} {:>12} {:>12} {:>12} {:>12} {:>9}",
+        "MHz", "R ohm", "X ohm", "|Z| ohm", "X/w nH", "Q"
+    );
+    for p in &s.points {
+        let _ = writeln!(
+            out,
+            "{:>12.4} {:>12.5} {:>12.4} {:>12.4} {:>12.3} {:>9.1}",
+            p.frequency * MHZ,
+            p.impedance.re,
+            p.impedance.im,
+            p.impedance.norm(),
+            p.apparent_inductance() * NH,
+            p.quality()
+        );
+    }
+    out
+}

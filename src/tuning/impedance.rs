@@ -1,0 +1,107 @@
+//! The coil's impedance against frequency from the field solution, for the impedance chart and
+//! the headless `impedance` command (both call this, never their own copies).
+
+use crate::model::{Coil, wire_coil};
+use crate::physics::field::{Feed, FieldError, FieldModel, FieldSolution};
+use num_complex::Complex64;
+
+/// Default start of a sweep, hertz.
+pub const DEFAULT_FROM: f64 = 1e6;
+/// A default sweep ends this far past the self-resonance.
+pub const PAST_RESONANCE: f64 = 1.25;
+
+/// One frequency of a sweep.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct ImpedancePoint {
+    /// Hertz.
+    pub frequency: f64,
+    /// Impedance at the terminals, ohms.
+    pub impedance: Complex64,
+}
+
+impl ImpedancePoint {
+    /// Apparent inductance X/ω, henries.
+    pub fn apparent_inductance(&self) -> f64 {
+        self.impedance.im / (2.0 * std::f64::consts::PI * self.frequency)
+    }
+
+    /// Q = |X|/R (infinite for a lossless point).
+    pub fn quality(&self) -> f64 {
+        self.impedance.im.abs() / self.impedance.re
+    }
+}
+
+/// Z(f) of a coil at its terminals, with its first parallel self-resonance.
+#[derive(Clone, Debug, PartialEq)]
+pub struct ImpedanceSweep {
+    /// First parallel self-resonance at the terminals, hertz.
+    pub self_resonance: f64,
+    /// Highest frequency the solution answers for, hertz.
+    pub ceiling: f64,
+    /// Segments the wire was cut into.
+    pub segments: usize,
+    /// The sweep, in rising frequency, spaced evenly on a log scale.
+    pub points: Vec<ImpedancePoint>,
+    /// The tank's operating frequency, if one was given, with the impedance there.
+    pub operating: Option<ImpedancePoint>,
+}
+
+/// Sweep `coil` at `temperature_c` over `from`…`to` hertz (defaults: 1 MHz to 1.25 × the
+/// self-resonance, or the solution's ceiling if lower) in `points` log-spaced frequencies,
+/// and solve at the `operating` frequency if given.
+pub fn impedance_sweep(
+    coil: &Coil,
+    temperature_c: f64,
+    from: Option<f64>,
+    to: Option<f64>,
+    points: usize,
+    operating: Option<f64>,
+) -> Result<ImpedanceSweep, FieldError> {
+    let wire = wire_coil(coil, temperature_c);
+    let model = FieldModel::new(&wire, wire.segments_per_turn(), Feed::Terminals)?;
+    let self_resonance = model.first_resonance()?;
+    let ceiling = model.max_frequency();
+    let from = from.unwrap_or(DEFAULT_FROM);
+    let to = to.unwrap_or((PAST_RESONANCE * self_resonance).min(ceiling));
+    for f in [Some(from), Some(to), operating].into_iter().flatten() {
+        if !(f.is_finite() && f > 0.0 && f <= ceiling) {
+            return Err(FieldError::Frequency(f));
+        }
+    }
+    let count = points.max(2);
+    let ratio = (to / from).ln() / (count - 1) as f64;
+    let points = (0..count)
+        .map(|i| {
+            let frequency = from * (ratio * i as f64).exp();
+            model.impedance(frequency).map(|impedance| ImpedancePoint {
+                frequency,
+                impedance,
+            })
+        })
+        .collect::<Result<Vec<_>, _>>()?;
+    let operating = match operating {
+        Some(frequency) => Some(ImpedancePoint {
+            frequency,
+            impedance: model.impedance(frequency)?,
+        }),
+        None => None,
+    };
+    Ok(ImpedanceSweep {
+        self_resonance,
+        ceiling,
+        segments: model.segments(),
+        points,
+        operating,
+    })
+}
+
+/// The field solution of `coil` at `temperature_c`: first parallel self-resonance, and X/ω
+/// and R at `operating_frequency`.
+pub fn field_solution(
+    coil: &Coil,
+    temperature_c: f64,
+    operating_frequency: f64,
+) -> Result<FieldSolution, FieldError> {
+    let wire = wire_coil(coil, temperature_c);
+    FieldModel::new(&wire, wire.segments_per_turn(), Feed::Terminals)?.solve(operating_frequency)
+}

@@ -1,0 +1,59 @@
+//! Field-solution benchmarks: the first parallel self-resonance of the demo coil (5 turns,
+//! 7 mm mean diameter, 1 mm wire, 8 mm long, 5 mm leads) solved from scratch.
+//!
+//! Run with `cargo bench --bench field`. Budget (one core of the 2-core project machine):
+//! `field_solve_srf` at most 200 ms median. Its peers in the same run, `field_parts/…`, show
+//! where the time goes: the frequency-independent integrals (`static_integrals`) and one
+//! frequency's fill and factorisation (`one_frequency`); the resonance search costs about a
+//! dozen of the latter.
+
+use criterion::{Criterion, criterion_group, criterion_main};
+use std::hint::black_box;
+use std::time::Duration;
+use tankwright::model::{
+    Coating, Coil, DiameterSpec, Gauge, SpacingSpec, Winding, WireSpec, wire_coil,
+};
+use tankwright::physics::field::{Feed, FieldModel, WireCoil};
+
+fn demo_wire() -> WireCoil {
+    let winding = Winding {
+        diameter: DiameterSpec::Former(6e-3),
+        wire: WireSpec {
+            gauge: Gauge::Metric(1e-3),
+            coating: Coating::Bare,
+        },
+        turns: 5.0,
+        spacing: SpacingSpec::Length(8e-3),
+        lead_length: 5e-3,
+    };
+    let coil = Coil::from_winding(&winding).expect("demo winding is valid");
+    wire_coil(&coil, 20.0)
+}
+
+fn field(c: &mut Criterion) {
+    let wire = demo_wire();
+    let per_turn = wire.segments_per_turn();
+    c.bench_function("field_solve_srf", |b| {
+        b.iter(|| {
+            FieldModel::new(black_box(&wire), per_turn, Feed::Terminals)
+                .and_then(|m| m.first_resonance())
+                .expect("demo coil resonates")
+        })
+    });
+    let mut g = c.benchmark_group("field_parts");
+    g.bench_function("static_integrals", |b| {
+        b.iter(|| FieldModel::new(black_box(&wire), per_turn, Feed::Terminals).expect("model"))
+    });
+    let model = FieldModel::new(&wire, per_turn, Feed::Terminals).expect("model");
+    g.bench_function("one_frequency", |b| {
+        b.iter(|| model.impedance(black_box(100e6)).expect("impedance"))
+    });
+    g.finish();
+}
+
+criterion_group! {
+    name = benches;
+    config = Criterion::default().sample_size(10).measurement_time(Duration::from_secs(3));
+    targets = field
+}
+criterion_main!(benches);
