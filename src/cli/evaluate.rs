@@ -46,7 +46,8 @@ fn model_named(name: &str) -> Result<InductanceModel, ArgError> {
         "wheeler" => InductanceModel::Wheeler1928,
         other => {
             return Err(ArgError(format!(
-                "--model '{other}' is not one of round-wire, filament-sum, current-sheet, lundin, wheeler"
+                "--model '{}' is not one of round-wire, filament-sum, current-sheet, lundin, wheeler",
+                super::clean(other)
             )));
         }
     })
@@ -110,6 +111,7 @@ impl EvaluateRequest {
             conditions.model = model_named(m)?;
         }
         args.reject_unknown()?;
+        args.reject_positional()?;
         Ok(Self {
             winding: Winding {
                 diameter,

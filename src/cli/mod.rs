@@ -15,6 +15,26 @@ pub use json::analysis_json;
 pub use report::{build_report, run_report};
 pub use text::analysis_report;
 
+/// `text` with control characters shown as escapes (`\u{1b}`), so a name or value cannot
+/// move the cursor, change colours or clear the terminal; line feeds and tabs are kept.
+pub fn clean(text: &str) -> String {
+    if !text
+        .chars()
+        .any(|c| c.is_control() && c != '\n' && c != '\t')
+    {
+        return text.to_owned();
+    }
+    text.chars()
+        .map(|c| {
+            if c.is_control() && c != '\n' && c != '\t' {
+                c.escape_unicode().to_string()
+            } else {
+                c.to_string()
+            }
+        })
+        .collect()
+}
+
 /// Usage text for `--help`.
 pub const USAGE: &str = "\
 tankwright — workbench for hand-wound air-core VHF coils

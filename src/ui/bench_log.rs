@@ -2,7 +2,7 @@
 //! implies (how far to stretch or squeeze to land on the target).
 
 use crate::model::{Coil, Conditions, Tank};
-use crate::recipe::{BenchEntry, Recipe};
+use crate::recipe::{BenchEntry, Recipe, rules};
 use crate::tuning::fit::{Correction, correct_from_measurement, length_uncertainty};
 use crate::tuning::solve::stretch_sensitivity;
 use crate::ui::units::LengthUnit;
@@ -278,32 +278,45 @@ impl BenchLogPanel {
                     .labelled_by(label.id);
                 ui.end_row();
             });
-        let valid = self.measured_mhz > 0.0 && self.measured_mhz.is_finite();
         let length = coil.map(|c| c.length);
-        let hint = match length {
-            Some(l) => format!(
+        // The reading as it would be recorded, judged by the recipe rules (the loader's), so
+        // the log never holds a reading the file could not open with.
+        let entry = length.map(|length| BenchEntry {
+            measured: self.measured_mhz * 1e6,
+            length,
+            trimmer_setting: recipe.tank.trimmer_setting,
+            instrument: self.instrument.trim().to_owned(),
+            error_ppm: self.error_known.then_some(self.error_ppm),
+            note: self.note.trim().to_owned(),
+        });
+        let full = recipe.bench_log.len() >= rules::READINGS_MAX;
+        let refusal = entry
+            .as_ref()
+            .and_then(|e| rules::check_reading(e, recipe.bench_log.len()).err());
+        let hint = match (&entry, &refusal) {
+            _ if full => format!(
+                "the log is full: a recipe keeps at most {} readings (remove old ones first)",
+                rules::READINGS_MAX
+            ),
+            (None, _) => "the coil on screen is refused: fix it first".to_owned(),
+            (Some(_), Some(r)) => r.reason.clone(),
+            (Some(e), None) => format!(
                 "records {:.4} MHz at {} and trimmer {:.0} %",
                 self.measured_mhz,
-                unit.show(l),
+                unit.show(e.length),
                 recipe.tank.trimmer_setting * 100.0
             ),
-            None => "the coil on screen is refused: fix it first".to_owned(),
         };
-        let enabled = valid && length.is_some();
+        let enabled = entry.is_some() && refusal.is_none() && !full;
         if ui
             .add_enabled(enabled, egui::Button::new("Record reading"))
-            .on_hover_text(hint)
+            .on_hover_text(&hint)
+            .on_disabled_hover_text(&hint)
             .clicked()
-            && let Some(length) = length
+            && enabled
+            && let Some(entry) = entry
         {
-            action = Some(BenchLogAction::Record(BenchEntry {
-                measured: self.measured_mhz * 1e6,
-                length,
-                trimmer_setting: recipe.tank.trimmer_setting,
-                instrument: self.instrument.trim().to_owned(),
-                error_ppm: self.error_known.then_some(self.error_ppm),
-                note: self.note.trim().to_owned(),
-            }));
+            action = Some(BenchLogAction::Record(entry));
             self.note.clear();
         }
         action
