@@ -480,7 +480,9 @@ impl eframe::App for App {
         }
         if let Some(driver) = &mut self.driver {
             let title = self.files.title(&self.recipe);
-            driver.step(ui.ctx(), &mut self.recipe, &title);
+            if driver.step(ui.ctx(), &mut self.recipe, &title) {
+                self.files.confirm_close();
+            }
         }
     }
 

@@ -62,8 +62,10 @@ impl Driver {
         }
     }
 
-    /// Call once per frame after the window is drawn; `title` is the title shown.
-    pub fn step(&mut self, ctx: &egui::Context, recipe: &mut Recipe, title: &str) {
+    /// Call once per frame after the window is drawn; `title` is the title shown. True when
+    /// the window is to close now (without asking about unsaved changes: they are in the
+    /// working copy).
+    pub fn step(&mut self, ctx: &egui::Context, recipe: &mut Recipe, title: &str) -> bool {
         self.frames += 1;
         if self.frames < EDIT_AT_FRAME.max(PRINT_AT_FRAME) {
             ctx.request_repaint();
@@ -81,6 +83,8 @@ impl Driver {
             println!("turns field: {:.2}", recipe.winding.turns);
             println!("name field: {}", crate::cli::clean(&recipe.name));
             ctx.send_viewport_cmd(egui::ViewportCommand::Close);
+            return true;
         }
+        false
     }
 }

@@ -139,6 +139,12 @@ impl FileDesk {
         }
     }
 
+    /// Let the window close without asking about unsaved changes (they are in the working
+    /// copy): for the test-only `--print-shown`.
+    pub fn confirm_close(&mut self) {
+        self.close_confirmed = true;
+    }
+
     /// Whether a dialog of the desk is open (the app may want to hold its own shortcuts).
     pub fn is_asking(&self) -> bool {
         self.pending.is_some() || self.prompt.is_some()
