@@ -18,7 +18,7 @@ use tankwright::ui::working_copy::{SESSION_FILE, Session, write_copy};
 
 fn window(folder: PathBuf, open: Option<PathBuf>) -> Harness<'static, App> {
     let mut harness = Harness::builder()
-        .with_size(egui::vec2(1400.0, 900.0))
+        .with_size(egui::vec2(1400.0, 1400.0))
         .build_eframe(move |_cc| App::restore(folder.clone(), open.as_deref()));
     harness.run();
     harness
@@ -178,4 +178,55 @@ fn values_from_the_slider_and_field_are_written_at_the_fields_resolution() {
         .set_value_accesskit(6.333333);
     harness.run();
     assert_eq!(harness.state().recipe().winding.turns, 6.33);
+}
+
+/// The window applies the loader's rules while editing, so it never holds what the loader
+/// would refuse: a reading under 1 MHz cannot be recorded, a channel under 1 MHz cannot be
+/// listed, a name cannot grow past 200 characters.
+#[test]
+fn the_window_holds_nothing_the_loader_would_refuse() {
+    let dir = tempfile::tempdir().unwrap();
+    let mut harness = window(dir.path().to_path_buf(), None);
+    harness
+        .get_by_role_and_label(Role::SpinButton, "Measured frequency")
+        .set_value_accesskit(0.5);
+    harness.run();
+    assert!(
+        harness
+            .get_by_label("Record reading")
+            .accesskit_node()
+            .is_disabled(),
+        "0.5 MHz cannot be recorded"
+    );
+    harness
+        .get_by_role_and_label(Role::SpinButton, "Measured frequency")
+        .set_value_accesskit(98.1);
+    harness.run();
+    harness.get_by_label("Record reading").click();
+    harness.run();
+    assert_eq!(harness.state().recipe().bench_log.len(), 1, "98.1 MHz can");
+
+    harness
+        .get_by_role_and_label(Role::ComboBox, "Band plan")
+        .click();
+    harness.run();
+    harness.get_by_label("Custom list").click();
+    harness.run();
+    harness
+        .get_by_role_and_label(Role::TextInput, "Channels (MHz)")
+        .set_text_value_accesskit("99.5, 0.5");
+    harness.run();
+    let text = screen_text(&harness).join("\n");
+    assert!(
+        text.contains("channel 2 0.5 MHz is outside 1–3000 MHz"),
+        "{text}"
+    );
+
+    harness
+        .get_by_role_and_label(Role::TextInput, "Recipe name")
+        .set_text_value_accesskit(&"n".repeat(300));
+    harness.run();
+    let r = harness.state().recipe().clone();
+    assert!(r.name.chars().count() <= 200, "{}", r.name.len());
+    assert_eq!(tankwright::recipe::rules::judge(&r), Ok(()));
 }

@@ -258,3 +258,35 @@ fn the_temporary_file_has_the_final_permissions_before_any_data_is_written() {
     let mode = std::fs::metadata(&path).unwrap().permissions().mode() & 0o777;
     assert_eq!(mode, 0o600);
 }
+
+#[test]
+fn the_working_copy_of_an_earlier_version_is_taken_over() {
+    // What the earlier version left in eframe's state file: a map of RON strings, the working
+    // copy under "tankwright.working_copy" as (recipe, saved, path) texts.
+    #[derive(serde::Serialize)]
+    struct EarlierCopy {
+        recipe: String,
+        saved: String,
+        path: Option<std::path::PathBuf>,
+    }
+    let dir = tempfile::tempdir().unwrap();
+    let copy = edited();
+    let mut values = std::collections::HashMap::new();
+    let earlier = EarlierCopy {
+        recipe: format::to_text(&copy),
+        saved: format::to_text(&Recipe::demo()),
+        path: Some("/home/club/coil.ron".into()),
+    };
+    values.insert("tankwright.working_copy", ron::to_string(&earlier).unwrap());
+    values.insert("tankwright.view", "(unit: \"in\", theme: Light)".to_owned());
+    std::fs::write(dir.path().join("app.ron"), ron::to_string(&values).unwrap()).unwrap();
+
+    let back = restore(dir.path());
+    assert_eq!(back.copy.map(|c| c.recipe), Some(copy));
+    assert_eq!(back.saved, Some(Recipe::demo()));
+    assert_eq!(back.session.origin, Some("/home/club/coil.ron".into()));
+    assert_eq!(
+        back.session.preferences.unit,
+        tankwright::ui::units::LengthUnit::Inches
+    );
+}

@@ -162,9 +162,12 @@ pub fn restore(folder: &Path) -> Restored {
                     session_path.display(),
                     aside_name(&session_path).display()
                 ));
-                out.unreadable.push(session_path);
+                out.unreadable.push(session_path.clone());
             }
         }
+    }
+    if out.copy.is_none() && out.problems.is_empty() && !session_path.exists() {
+        from_earlier_version(folder, &mut out);
     }
     out.saved = out
         .session
@@ -173,6 +176,45 @@ pub fn restore(folder: &Path) -> Restored {
         .and_then(|text| format::read_text(text).ok())
         .map(|o| o.recipe);
     out
+}
+
+/// eframe's own state file, where versions before the working-copy file kept the working
+/// copy, preferences and recent files (it stays; only the window's size and place are in it
+/// from now on, under another name).
+pub const EARLIER_STATE_FILE: &str = "app.ron";
+
+/// Take over what an earlier version kept in eframe's state file: read only, once, when the
+/// data folder has neither a working copy nor a session yet.
+fn from_earlier_version(folder: &Path, out: &mut Restored) {
+    #[derive(Deserialize)]
+    #[serde(default)]
+    #[derive(Default)]
+    struct EarlierCopy {
+        recipe: String,
+        saved: String,
+        path: Option<PathBuf>,
+    }
+    let Ok(text) = std::fs::read_to_string(folder.join(EARLIER_STATE_FILE)) else {
+        return;
+    };
+    let Ok(values) = ron::from_str::<std::collections::HashMap<String, String>>(&text) else {
+        return;
+    };
+    let get = |key: &str| values.get(key).map(String::as_str);
+    if let Some(p) = get("tankwright.view").and_then(|v| ron::from_str(v).ok()) {
+        out.session.preferences = p;
+    }
+    if let Some(f) = get("tankwright.files").and_then(|v| ron::from_str(v).ok()) {
+        out.session.files = f;
+    }
+    if let Some(copy) =
+        get("tankwright.working_copy").and_then(|v| ron::from_str::<EarlierCopy>(v).ok())
+        && let Ok(opened) = format::read_text(&copy.recipe)
+    {
+        out.copy = Some(opened);
+        out.session.origin = copy.path;
+        out.session.saved = Some(copy.saved);
+    }
 }
 
 /// Where an unreadable file is moved before it would be written over.
