@@ -113,3 +113,24 @@ pub fn scratch_folder() -> std::io::Result<PathBuf> {
     }
     Err(last.unwrap_or_else(|| std::io::Error::other("no free name")))
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn the_scratch_folder_is_new_and_private() {
+        let a = scratch_folder().expect("made");
+        let b = scratch_folder().expect("made");
+        assert_ne!(a, b, "a new folder each time");
+        #[cfg(unix)]
+        {
+            use std::os::unix::fs::PermissionsExt;
+            let mode = std::fs::metadata(&a).expect("there").permissions().mode();
+            assert_eq!(mode & 0o077, 0, "{mode:o}");
+        }
+        for dir in [a, b] {
+            std::fs::remove_dir(dir).expect("empty folder removed");
+        }
+    }
+}
