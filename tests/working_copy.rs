@@ -290,3 +290,28 @@ fn the_working_copy_of_an_earlier_version_is_taken_over() {
         tankwright::ui::units::LengthUnit::Inches
     );
 }
+
+#[cfg(unix)]
+#[test]
+fn a_data_folder_that_cannot_be_written_is_reported_once() {
+    let dir = tempfile::tempdir().unwrap();
+    // A file where the folder should be: nothing can be written inside it.
+    let folder = dir.path().join("blocked");
+    std::fs::write(&folder, "not a folder").unwrap();
+    let mut keeper = Keeper::start(folder.clone(), &restore(&folder));
+    let memory = FileDeskMemory::default();
+    let saved = Recipe::demo();
+    keeper.observe(
+        &edited(),
+        SessionStateRef {
+            preferences: Preferences::default(),
+            files: &memory,
+            origin: None,
+            saved: &saved,
+        },
+    );
+    keeper.flush();
+    let failure = keeper.new_failure().expect("the failure is reported");
+    assert!(failure.contains("working-copy.ron"), "{failure}");
+    assert_eq!(keeper.new_failure(), None, "once");
+}

@@ -317,6 +317,16 @@ impl App {
                 saved: self.files.saved_snapshot(),
             },
         );
+        if let Some(failure) = keeper.new_failure() {
+            self.files.notice = Some(Notice {
+                text: format!(
+                    "the working copy cannot be kept in {} ({failure}); save your recipe to a \
+                     file",
+                    keeper.folder().display()
+                ),
+                is_error: true,
+            });
+        }
     }
 
     /// The data folder the working copy is kept in, when it is kept.

@@ -271,6 +271,7 @@ pub struct Keeper {
     sent_copy: Option<Recipe>,
     sent_session: Option<SessionState>,
     failure: Arc<Mutex<Option<String>>>,
+    reported: Option<String>,
 }
 
 impl Keeper {
@@ -299,6 +300,7 @@ impl Keeper {
             sent_copy: restored.copy.as_ref().map(|c| c.recipe.clone()),
             sent_session: None,
             failure,
+            reported: None,
         }
     }
 
@@ -326,6 +328,16 @@ impl Keeper {
     /// The last write that failed, in words (cleared by the next that works).
     pub fn failure(&self) -> Option<String> {
         self.failure.lock().ok().and_then(|f| f.clone())
+    }
+
+    /// A write failure not yet reported (each is given once, until writing works again).
+    pub fn new_failure(&mut self) -> Option<String> {
+        let now = self.failure();
+        if now == self.reported {
+            return None;
+        }
+        self.reported.clone_from(&now);
+        now
     }
 
     /// Write what is pending now and wait for it (at most a few seconds).
