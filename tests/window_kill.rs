@@ -167,3 +167,40 @@ fn an_edit_survives_sigkill_after_an_idle_window_and_shows_after_restart() {
         "marked unsaved after the restart: {shown}"
     );
 }
+
+#[test]
+fn a_recipe_file_that_cannot_be_read_opens_the_window_and_says_why() {
+    let Some(x) = Xvfb::start() else {
+        assert!(
+            std::env::var_os("CI").is_none(),
+            "Xvfb is needed under CI (.ci/setup installs it)"
+        );
+        eprintln!("skipped: Xvfb is not installed (apt install xvfb to run this test)");
+        return;
+    };
+    let dir = tempfile::tempdir().unwrap();
+    let bad = dir.path().join("bad.ron");
+    std::fs::write(&bad, "TankwrightRecipe(schema: 1, name: ").unwrap();
+    let mut child = window(
+        &x,
+        &dir.path().join("data"),
+        &[bad.to_str().unwrap(), "--print-shown"],
+    )
+    .stdout(Stdio::piped())
+    .stderr(Stdio::null())
+    .spawn()
+    .expect("the window starts");
+    let mut out = child.stdout.take().unwrap();
+    let reader = std::thread::spawn(move || {
+        let mut s = String::new();
+        let _ = std::io::Read::read_to_string(&mut out, &mut s);
+        s
+    });
+    let status = wait_with_timeout(&mut child, Duration::from_secs(90));
+    let shown = reader.join().unwrap();
+    assert!(status.is_some_and(|s| s.success()), "{shown}");
+    assert!(
+        shown.contains("notice: could not open") && shown.contains("bad.ron, line 1"),
+        "{shown}"
+    );
+}

@@ -490,7 +490,8 @@ impl eframe::App for App {
         }
         if let Some(driver) = &mut self.driver {
             let title = self.files.title(&self.recipe);
-            if driver.step(ui.ctx(), &mut self.recipe, &title) {
+            let notice = self.files.notice.as_ref().map(|n| n.text.clone());
+            if driver.step(ui.ctx(), &mut self.recipe, &title, notice.as_deref()) {
                 self.files.confirm_close();
             }
         }

@@ -62,10 +62,17 @@ impl Driver {
         }
     }
 
-    /// Call once per frame after the window is drawn; `title` is the title shown. True when
+    /// Call once per frame after the window is drawn; `title` is the title shown, `notice` the
+    /// message line (if any). True when
     /// the window is to close now (without asking about unsaved changes: they are in the
     /// working copy).
-    pub fn step(&mut self, ctx: &egui::Context, recipe: &mut Recipe, title: &str) -> bool {
+    pub fn step(
+        &mut self,
+        ctx: &egui::Context,
+        recipe: &mut Recipe,
+        title: &str,
+        notice: Option<&str>,
+    ) -> bool {
         self.frames += 1;
         if self.frames < EDIT_AT_FRAME.max(PRINT_AT_FRAME) {
             ctx.request_repaint();
@@ -82,6 +89,9 @@ impl Driver {
             println!("title: {title}");
             println!("turns field: {:.2}", recipe.winding.turns);
             println!("name field: {}", crate::cli::clean(&recipe.name));
+            if let Some(notice) = notice {
+                println!("notice: {}", crate::cli::clean(notice));
+            }
             ctx.send_viewport_cmd(egui::ViewportCommand::Close);
             return true;
         }
