@@ -1,15 +1,25 @@
 //! Entry point: the window by default, headless subcommands for scripts.
 #![warn(clippy::unwrap_used, clippy::expect_used)]
-#![expect(
-    clippy::print_stdout,
-    clippy::print_stderr,
-    reason = "the entry point is the one place that prints: the commands return strings"
-)]
 
+use std::io::Write;
 use std::process::ExitCode;
+use tankwright::cli::clean;
 
 fn main() -> ExitCode {
-    let mut args: Vec<String> = std::env::args().skip(1).collect();
+    let mut args: Vec<String> = match std::env::args_os()
+        .skip(1)
+        .map(|a| a.into_string())
+        .collect::<Result<_, _>>()
+    {
+        Ok(args) => args,
+        Err(word) => {
+            complain(&format!(
+                "the word '{}' on the command line is not valid text (UTF-8)",
+                word.to_string_lossy()
+            ));
+            return ExitCode::FAILURE;
+        }
+    };
     let command = args.first().cloned();
     match command.as_deref() {
         Some("evaluate") => {
@@ -32,43 +42,52 @@ fn main() -> ExitCode {
             args.remove(0);
             finish(tankwright::cli::run_fit(args))
         }
-        Some("help") | Some("--help") | Some("-h") => {
-            print!("{}", tankwright::cli::usage());
-            ExitCode::SUCCESS
-        }
+        Some("help") | Some("--help") | Some("-h") => finish(Ok(tankwright::cli::usage())),
+        // The window opens even when the file cannot be read, and says why in it: a
+        // double-clicked file must not vanish without a word.
         Some(file) if file.ends_with(".ron") => {
             let path = std::path::PathBuf::from(file);
             args.remove(0);
-            match tankwright::recipe::store::load(&path) {
-                Ok(recipe) => window(tankwright::ui::run_recipe(recipe, path, args)),
-                Err(e) => {
-                    eprintln!("tankwright: {e}");
-                    ExitCode::FAILURE
-                }
-            }
+            window(tankwright::ui::run_file(path, args))
         }
         _ => window(tankwright::ui::run(args)),
     }
+}
+
+/// Say `message` on standard error; a closed standard error is no reason to panic.
+fn complain(message: &str) {
+    let _ = writeln!(std::io::stderr(), "tankwright: {}", clean(message));
 }
 
 fn window(result: Result<(), String>) -> ExitCode {
     match result {
         Ok(()) => ExitCode::SUCCESS,
         Err(e) => {
-            eprintln!("tankwright: {e}");
+            complain(&e);
             ExitCode::FAILURE
         }
     }
 }
 
+/// Print a command's output (control characters escaped); a closed or full standard output
+/// ends the command with a message and a failure code instead of a panic.
 fn finish(result: Result<String, String>) -> ExitCode {
     match result {
         Ok(out) => {
-            print!("{out}");
-            ExitCode::SUCCESS
+            let mut stdout = std::io::stdout().lock();
+            match stdout
+                .write_all(clean(&out).as_bytes())
+                .and_then(|()| stdout.flush())
+            {
+                Ok(()) => ExitCode::SUCCESS,
+                Err(e) => {
+                    complain(&format!("cannot write the output: {e}"));
+                    ExitCode::FAILURE
+                }
+            }
         }
         Err(e) => {
-            eprintln!("tankwright: {e}");
+            complain(&e);
             ExitCode::FAILURE
         }
     }

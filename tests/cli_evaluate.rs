@@ -132,3 +132,96 @@ fn bad_input_gives_one_line_and_failure() {
         assert!(!err.contains("NaN") && !err.contains("panicked"), "{err}");
     }
 }
+
+/// The words of a working `evaluate` without `--json`.
+const PLAIN: [&str; 9] = [
+    "evaluate",
+    "--mean-diameter-mm",
+    "7",
+    "--turns",
+    "5",
+    "--length-mm",
+    "7",
+    "--wire-mm",
+    "1",
+];
+
+#[test]
+fn stray_words_and_single_dash_flags_are_refused() {
+    let with = |extra: &[&str]| {
+        let mut v: Vec<&str> = PLAIN.to_vec();
+        v.extend_from_slice(extra);
+        run(&v)
+    };
+    assert!(with(&[]).0, "the plain command works");
+    let (ok, out, err) = with(&["stray"]);
+    assert!(
+        !ok && out.is_empty() && err.contains("unexpected word 'stray'"),
+        "{err}"
+    );
+    let (ok, _, err) = with(&["-json"]);
+    assert!(
+        !ok && err.contains("'-json'") && err.contains("two dashes"),
+        "{err}"
+    );
+    // `--turns 5 6`: the 6 is a stray word.
+    let mut v: Vec<&str> = PLAIN.to_vec();
+    v.insert(5, "6");
+    let (ok, _, err) = run(&v);
+    assert!(!ok && err.contains("unexpected word '6'"), "{err}");
+    let (ok, _, err) = run(&["report", "a.ron", "-x"]);
+    assert!(!ok && err.contains("'-x'"), "{err}");
+}
+
+#[test]
+fn control_characters_are_not_echoed_raw() {
+    let mut v: Vec<&str> = PLAIN.to_vec();
+    v.extend_from_slice(&["--model", "\u{1b}[2J\u{7}wheel"]);
+    let (ok, _, err) = run(&v);
+    assert!(!ok);
+    assert!(!err.contains('\u{1b}') && !err.contains('\u{7}'), "{err:?}");
+    assert!(err.contains("\\u{1b}[2J"), "shown escaped: {err}");
+
+    // A recipe whose name holds an escape sequence: the report shows it escaped.
+    let dir = tempfile::tempdir().unwrap();
+    let path = dir.path().join("named.ron");
+    let mut r = tankwright::recipe::Recipe::demo();
+    r.name = "club\u{1b}]0;owned\u{7} coil".to_owned();
+    tankwright::recipe::save(&path, &r).unwrap();
+    let (ok, out, err) = run(&["report", path.to_str().unwrap()]);
+    assert!(ok, "{err}");
+    assert!(!out.contains('\u{1b}') && !out.contains('\u{7}'), "{out:?}");
+    assert!(out.contains("club\\u{1b}]0;owned\\u{7} coil"), "{out}");
+}
+
+#[cfg(target_os = "linux")]
+#[test]
+fn a_full_or_closed_standard_output_ends_with_a_message_not_a_panic() {
+    // Full: /dev/full refuses every write with "no space left on device".
+    let full = std::fs::OpenOptions::new()
+        .write(true)
+        .open("/dev/full")
+        .unwrap();
+    let out = Command::new(env!("CARGO_BIN_EXE_tankwright"))
+        .args(PLAIN)
+        .stdout(full)
+        .output()
+        .unwrap();
+    let err = String::from_utf8_lossy(&out.stderr);
+    assert_eq!(out.status.code(), Some(1), "{err}");
+    assert!(err.contains("cannot write the output"), "{err}");
+    assert!(!err.contains("panicked"), "{err}");
+
+    // Closed: the reading end is gone before the command writes.
+    let (reader, writer) = std::io::pipe().unwrap();
+    drop(reader);
+    let out = Command::new(env!("CARGO_BIN_EXE_tankwright"))
+        .args(PLAIN)
+        .stdout(writer)
+        .output()
+        .unwrap();
+    let err = String::from_utf8_lossy(&out.stderr);
+    assert_eq!(out.status.code(), Some(1), "{err}");
+    assert!(err.contains("cannot write the output"), "{err}");
+    assert!(!err.contains("panicked"), "{err}");
+}

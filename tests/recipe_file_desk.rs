@@ -336,3 +336,60 @@ fn save_first_then_start_a_new_recipe() {
     assert_eq!(h.state().desk.path(), None);
     h.get_by_label("New recipe — Tankwright");
 }
+
+#[test]
+fn a_typed_save_as_onto_an_existing_file_asks_first() {
+    let dir = tempfile::tempdir().unwrap();
+    let folder = dir.path().join("recipes");
+    std::fs::create_dir_all(&folder).unwrap();
+    let existing = folder.join("club.ron");
+    let mut theirs = Recipe::demo();
+    theirs.name = "Somebody else's coil".to_owned();
+    store::save(&existing, &theirs).unwrap();
+    let before = std::fs::read(&existing).unwrap();
+
+    let asker = Scripted::default();
+    let mut h = harness(&folder, &asker);
+    h.run();
+    set_turns(&mut h, 6.0);
+    asker.answer(Picked::Unavailable(NO_DIALOG.to_owned()));
+    menu(&mut h, "Save…");
+    let field = h.get_by_label("File path");
+    field.focus();
+    field.set_text_value_accesskit(&existing.display().to_string());
+    h.run();
+    h.get_by_label("Save").click();
+    h.run();
+    h.get_by_label(&format!(
+        "{} already exists. Replace it with this recipe?",
+        existing.display()
+    ));
+    assert_eq!(
+        std::fs::read(&existing).unwrap(),
+        before,
+        "nothing written yet"
+    );
+
+    // "Keep it": the file stays, the prompt stays open for another name.
+    h.get_by_label("Keep it").click();
+    h.run();
+    assert_eq!(std::fs::read(&existing).unwrap(), before);
+    h.get_by_label("File path");
+
+    // Asked again, "Replace it" writes.
+    h.get_by_label("Save").click();
+    h.run();
+    h.get_by_label("Replace it").click();
+    h.run();
+    assert_eq!(
+        store::load(&existing).unwrap().winding.turns,
+        6.0,
+        "{:?} {:?}",
+        h.state().desk.notice,
+        h.state().doc.winding.turns
+    );
+    assert!(
+        h.query_by_label("Save the recipe").is_none(),
+        "the prompt closed"
+    );
+}

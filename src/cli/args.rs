@@ -45,13 +45,21 @@ impl Args {
                 }
                 let value = match inline {
                     Some(v) => v,
-                    None => it
-                        .next()
-                        .ok_or_else(|| ArgError(format!("--{name} needs a value")))?,
+                    None => it.next().ok_or_else(|| {
+                        ArgError(format!("--{} needs a value", super::clean(&name)))
+                    })?,
                 };
                 if out.values.insert(name.clone(), value).is_some() {
-                    return Err(ArgError(format!("--{name} is given twice")));
+                    return Err(ArgError(format!(
+                        "--{} is given twice",
+                        super::clean(&name)
+                    )));
                 }
+            } else if a.starts_with('-') && a.len() > 1 {
+                return Err(ArgError(format!(
+                    "unknown option '{}': options start with two dashes (e.g. --json)",
+                    super::clean(&a)
+                )));
             } else {
                 out.positional.push(a);
             }
@@ -76,7 +84,10 @@ impl Args {
             None => Ok(None),
             Some(v) => match v.trim().parse::<f64>() {
                 Ok(x) if x.is_finite() => Ok(Some(x)),
-                _ => Err(ArgError(format!("--{name} expects a number, got '{v}'"))),
+                _ => Err(ArgError(format!(
+                    "--{name} expects a number, got '{}'",
+                    super::clean(v)
+                ))),
             },
         }
     }
@@ -85,11 +96,24 @@ impl Args {
     pub fn integer(&self, name: &str) -> Result<Option<i32>, ArgError> {
         match self.text(name) {
             None => Ok(None),
-            Some(v) => v
-                .trim()
-                .parse::<i32>()
-                .map(Some)
-                .map_err(|_| ArgError(format!("--{name} expects a whole number, got '{v}'"))),
+            Some(v) => v.trim().parse::<i32>().map(Some).map_err(|_| {
+                ArgError(format!(
+                    "--{name} expects a whole number, got '{}'",
+                    super::clean(v)
+                ))
+            }),
+        }
+    }
+
+    /// Refuse any word that is not a flag or a flag's value (a stray word is a mistake, e.g. a
+    /// second value after `--turns 5`).
+    pub fn reject_positional(&self) -> Result<(), ArgError> {
+        match self.positional.first() {
+            Some(word) => Err(ArgError(format!(
+                "unexpected word '{}': each value follows its flag (see 'tankwright help')",
+                super::clean(word)
+            ))),
+            None => Ok(()),
         }
     }
 
@@ -98,7 +122,8 @@ impl Args {
         let used = self.used.borrow();
         match self.values.keys().find(|k| !used.contains(k)) {
             Some(k) => Err(ArgError(format!(
-                "unknown flag --{k} (see 'tankwright help')"
+                "unknown flag --{} (see 'tankwright help')",
+                super::clean(k)
             ))),
             None => Ok(()),
         }

@@ -44,7 +44,8 @@ fn one_of<T>(
 fn model_named(name: &str) -> Result<InductanceModel, ArgError> {
     InductanceModel::from_cli_name(name).ok_or_else(|| {
         ArgError(format!(
-            "--model '{name}' is not one of {}",
+            "--model '{}' is not one of {}",
+            super::clean(name),
             InductanceModel::cli_names(", ")
         ))
     })
@@ -110,6 +111,7 @@ impl EvaluateRequest {
             conditions.model = model_named(m)?;
         }
         args.reject_unknown()?;
+        args.reject_positional()?;
         Ok(Self {
             winding: Winding {
                 diameter,

@@ -22,6 +22,26 @@ pub use report::{build_report, run_report};
 pub use text::analysis_report;
 pub use verdict::{add_verdict_json, verdict_lines};
 
+/// `text` with control characters shown as escapes (`\u{1b}`), so a name or value cannot
+/// move the cursor, change colours or clear the terminal; line feeds and tabs are kept.
+pub fn clean(text: &str) -> String {
+    if !text
+        .chars()
+        .any(|c| c.is_control() && c != '\n' && c != '\t')
+    {
+        return text.to_owned();
+    }
+    text.chars()
+        .map(|c| {
+            if c.is_control() && c != '\n' && c != '\t' {
+                c.escape_unicode().to_string()
+            } else {
+                c.to_string()
+            }
+        })
+        .collect()
+}
+
 /// Usage text for `--help`, with the model names from [`InductanceModel::ALL`].
 ///
 /// [`InductanceModel::ALL`]: crate::model::InductanceModel::ALL

@@ -10,7 +10,10 @@ pub(crate) fn request_from_recipe(args: &Args, file: &str) -> Result<EvaluateReq
     args.reject_unknown()
         .map_err(|e| format!("with --recipe only --json may be given: {e}"))?;
     if let Some(word) = args.positional.first() {
-        return Err(format!("unexpected word '{word}' after --recipe"));
+        return Err(format!(
+            "unexpected word '{}' after --recipe",
+            super::clean(word)
+        ));
     }
     let recipe = store::load(Path::new(file)).map_err(|e| e.to_string())?;
     Ok(EvaluateRequest {

@@ -1,26 +1,15 @@
-//! The one place where the file's units (mm, pF, MHz, percent) meet the model's SI units, and
-//! where a parsed file is checked by the same rules as the sliders.
+//! The one place where the file's units (mm, pF, MHz, percent) meet the model's SI units. A
+//! parsed file is judged afterwards, by the same rules as the window (`rules.rs`).
 
 use super::document::{BenchEntry, Recipe, Target};
-use super::load::{LoadError, LoadErrorKind};
 use super::schema::{
     AimSheet, CoatingName, CoilSheet, ConditionsSheet, DiameterMm, DividerSheet, ModelName,
     PlanName, ReadingSheet, RecipeFile, SCHEMA, Scaled, SpacingMm, TankSheet, WireSize,
 };
 use crate::model::{
-    Coating, Conditions, DiameterSpec, FeedbackDivider, Field, Gauge, SpacingSpec, Tank, Winding,
-    WireSpec,
+    Coating, Conditions, DiameterSpec, FeedbackDivider, Gauge, SpacingSpec, Tank, Winding, WireSpec,
 };
 use crate::tuning::BandPlan;
-
-/// Frequencies a recipe may name, MHz: wider than any VHF tank, narrow enough to catch typos.
-const FREQUENCY_MHZ: (f64, f64) = (1.0, 3000.0);
-/// Longest name accepted, characters.
-const NAME_MAX: usize = 200;
-/// Largest instrument error accepted, ppm.
-const PPM_MAX: f64 = 1e6;
-/// Longest coil length a bench reading may record, mm (as the model's limit).
-const BENCH_LENGTH_MAX_MM: f64 = crate::model::limits::LENGTH_MAX * 1e3;
 
 /// The file form of a recipe.
 pub(crate) fn to_file_form(r: &Recipe) -> RecipeFile {
@@ -100,60 +89,9 @@ pub(crate) fn to_file_form(r: &Recipe) -> RecipeFile {
     }
 }
 
-/// The file field (and which occurrence of its key in the text) a model field comes from.
-fn file_field(field: Field, sheet: &RecipeFile) -> (&'static str, &'static str) {
-    match field {
-        Field::Diameter => ("coil.diameter", "diameter"),
-        Field::Wire => ("coil.wire", "wire"),
-        Field::Turns => ("coil.turns", "turns"),
-        Field::Spacing => ("coil.spacing", "spacing"),
-        Field::LeadLength => ("coil.each_lead_mm", "each_lead_mm"),
-        Field::FixedCapacitance => ("tank.fixed_pf", "fixed_pf"),
-        Field::Trimmer => {
-            if (0.0..=crate::model::CAPACITANCE_MAX).contains(&sheet.tank.trimmer_min_pf.si()) {
-                ("tank.trimmer_max_pf", "trimmer_max_pf")
-            } else {
-                ("tank.trimmer_min_pf", "trimmer_min_pf")
-            }
-        }
-        Field::TrimmerSetting => ("tank.trimmer_setting_percent", "trimmer_setting_percent"),
-        Field::StrayCapacitance => ("tank.stray_pf", "stray_pf"),
-        Field::Feedback => ("tank.feedback", "feedback"),
-        Field::Temperature => ("conditions.wire_temperature_c", "wire_temperature_c"),
-        Field::Calibration => ("bench_log", "bench_log"),
-    }
-}
-
-/// A refusal of one value: the field in file terms and where its key stands in the text.
-fn refuse(text: &str, field: &str, key: &str, nth: usize, reason: String) -> LoadError {
-    LoadError::new(LoadErrorKind::Invalid, reason)
-        .about(field)
-        .at(super::load::locate_key(text, key, nth))
-}
-
-fn check_frequency(value: f64, what: &str) -> Result<(), String> {
-    let (lo, hi) = FREQUENCY_MHZ;
-    if !value.is_finite() {
-        return Err(format!("{what} is not a number"));
-    }
-    if !(lo..=hi).contains(&value) {
-        return Err(format!("{what} {value} MHz is outside {lo}–{hi} MHz"));
-    }
-    Ok(())
-}
-
-/// The recipe a parsed file describes, checked by the model's rules. `text` is the file's
-/// text, used only to point at the line of a refused field.
-pub(crate) fn from_file_form(sheet: RecipeFile, text: &str) -> Result<Recipe, LoadError> {
-    if sheet.name.chars().count() > NAME_MAX {
-        return Err(refuse(
-            text,
-            "name",
-            "name",
-            0,
-            format!("the name is longer than {NAME_MAX} characters"),
-        ));
-    }
+/// The recipe a parsed file describes, as written: nothing is judged here (see
+/// [`super::rules::judge`]), so a file that breaks a rule still opens with every field kept.
+pub(crate) fn from_file_form(sheet: RecipeFile) -> Recipe {
     let c = &sheet.coil;
     let winding = Winding {
         diameter: match c.diameter {
@@ -198,11 +136,6 @@ pub(crate) fn from_file_form(sheet: RecipeFile, text: &str) -> Result<Recipe, Lo
         filament_sum: k.filament_sum,
         inductance_scale: 1.0,
     };
-    // The same rules as the sliders: the engine refuses, naming its field.
-    if let Err(e) = crate::model::evaluate(&winding, &tank, &conditions) {
-        let (field, key) = file_field(e.field, &sheet);
-        return Err(refuse(text, field, key, 0, e.reason));
-    }
     let plan = match &sheet.aim.plan {
         PlanName::UsFm => BandPlan::UsFm,
         PlanName::Fm100kHz => BandPlan::Fm100k,
@@ -213,34 +146,27 @@ pub(crate) fn from_file_form(sheet: RecipeFile, text: &str) -> Result<Recipe, Lo
         PlanName::TwoMetreRegion2Step20kHz => BandPlan::TwoMetreRegion2Step20k,
         PlanName::TwoMetreRegion3 => BandPlan::TwoMetreRegion3,
         PlanName::OwnList { channels_mhz } => {
-            if channels_mhz.is_empty() {
-                return Err(refuse(
-                    text,
-                    "aim.plan.channels_mhz",
-                    "channels_mhz",
-                    0,
-                    "an own channel list needs at least one channel".to_owned(),
-                ));
-            }
-            for (i, &f) in channels_mhz.iter().enumerate() {
-                check_frequency(f.file_units(), &format!("channel {}", i + 1)).map_err(
-                    |reason| refuse(text, "aim.plan.channels_mhz", "channels_mhz", 0, reason),
-                )?;
-            }
             BandPlan::Custom(channels_mhz.iter().map(|&f| f.si()).collect())
         }
     };
-    check_frequency(sheet.aim.channel_mhz.file_units(), "the target channel")
-        .map_err(|reason| refuse(text, "aim.channel_mhz", "channel_mhz", 0, reason))?;
     let target = Target {
         plan,
         channel: sheet.aim.channel_mhz.si(),
     };
-    let mut bench_log = Vec::with_capacity(sheet.bench_log.len());
-    for (i, reading) in sheet.bench_log.iter().enumerate() {
-        bench_log.push(reading_from_file(reading, i, text)?);
-    }
-    Ok(Recipe {
+    let bench_log = sheet
+        .bench_log
+        .iter()
+        .map(|r| BenchEntry {
+            measured: r.measured_mhz.si(),
+            length: r.coil_length_mm.si(),
+            trimmer_setting: r.trimmer_percent.si(),
+            added_capacitance: r.added_pf.si(),
+            instrument: r.instrument.clone(),
+            error_ppm: r.error_ppm,
+            note: r.note.clone(),
+        })
+        .collect();
+    Recipe {
         name: sheet.name,
         notes: sheet.notes,
         winding,
@@ -248,65 +174,5 @@ pub(crate) fn from_file_form(sheet: RecipeFile, text: &str) -> Result<Recipe, Lo
         conditions,
         target,
         bench_log,
-    })
-}
-
-fn reading_from_file(r: &ReadingSheet, i: usize, text: &str) -> Result<BenchEntry, LoadError> {
-    let field = |key: &str| format!("bench_log[{i}].{key}");
-    check_frequency(r.measured_mhz.file_units(), "the measured frequency")
-        .map_err(|reason| refuse(text, &field("measured_mhz"), "measured_mhz", i, reason))?;
-    let l = r.coil_length_mm.file_units();
-    if !l.is_finite() || l <= 0.0 || l > BENCH_LENGTH_MAX_MM {
-        return Err(refuse(
-            text,
-            &field("coil_length_mm"),
-            "coil_length_mm",
-            i,
-            format!("coil length {l} mm is outside 0–{BENCH_LENGTH_MAX_MM} mm"),
-        ));
     }
-    let s = r.trimmer_percent.file_units();
-    if !s.is_finite() || !(0.0..=100.0).contains(&s) {
-        return Err(refuse(
-            text,
-            &field("trimmer_percent"),
-            "trimmer_percent",
-            i,
-            format!("trimmer setting {s} % is outside 0–100 %"),
-        ));
-    }
-    if let Some(ppm) = r.error_ppm
-        && (!ppm.is_finite() || !(0.0..=PPM_MAX).contains(&ppm))
-    {
-        return Err(refuse(
-            text,
-            &field("error_ppm"),
-            "error_ppm",
-            i,
-            format!("instrument error {ppm} ppm is outside 0–{PPM_MAX} ppm"),
-        ));
-    }
-    let added = r.added_pf.si();
-    if !(0.0..=crate::model::CAPACITANCE_MAX).contains(&added) {
-        return Err(refuse(
-            text,
-            &field("added_pf"),
-            "added_pf",
-            i,
-            format!(
-                "added capacitance {} pF is outside 0–{:.0} pF",
-                r.added_pf.text(),
-                crate::model::CAPACITANCE_MAX * 1e12
-            ),
-        ));
-    }
-    Ok(BenchEntry {
-        measured: r.measured_mhz.si(),
-        length: r.coil_length_mm.si(),
-        trimmer_setting: r.trimmer_percent.si(),
-        added_capacitance: added,
-        instrument: r.instrument.clone(),
-        error_ppm: r.error_ppm,
-        note: r.note.clone(),
-    })
 }

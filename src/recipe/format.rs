@@ -67,8 +67,64 @@ pub fn to_text(recipe: &Recipe) -> String {
     }
 }
 
-/// Read a recipe from text: the schema first, then every field, then the model's checks.
+/// A recipe as read from its text, and the first rule it breaks, if any. A recipe that breaks
+/// a rule is still the recipe as written, every field kept: the window opens it as it is and
+/// shows the refusal.
+#[derive(Clone, Debug, PartialEq)]
+pub struct Opened {
+    /// The recipe as written.
+    pub recipe: Recipe,
+    /// The rule it breaks (with the field and its line), if any.
+    pub refusal: Option<LoadError>,
+}
+
+impl Opened {
+    /// The recipe, or the rule it breaks.
+    pub fn judged(self) -> Result<Recipe, LoadError> {
+        match self.refusal {
+            Some(e) => Err(e),
+            None => Ok(self.recipe),
+        }
+    }
+}
+
+/// Read and judge a recipe: the recipe only when it meets every rule.
 pub fn from_text(text: &str) -> Result<Recipe, LoadError> {
+    read_text(text)?.judged()
+}
+
+/// The rule `recipe` breaks, as a load error pointing at its field in `text`.
+pub fn judge(recipe: &Recipe, text: &str) -> Option<LoadError> {
+    super::rules::judge(recipe)
+        .err()
+        .map(|r| refusal_error(r, text))
+}
+
+fn refusal_error(r: super::rules::Refusal, text: &str) -> LoadError {
+    let kind = if r.too_large {
+        LoadErrorKind::TooLarge
+    } else {
+        LoadErrorKind::Invalid
+    };
+    LoadError::new(kind, r.reason)
+        .about(r.field)
+        .at(super::load::locate_key(text, r.key.0, r.key.1))
+}
+
+/// Read a recipe from text without judging its values: the schema first, then every field.
+/// Fails only when there is no recipe to show (not RON, a missing field, a newer schema, too
+/// large); a recipe that breaks a rule comes back as it is, with the rule in
+/// [`Opened::refusal`]. A byte-order mark is skipped, and a file whose lines end in a carriage
+/// return alone (old Macintosh text) is read as if they ended in line feeds.
+pub fn read_text(text: &str) -> Result<Opened, LoadError> {
+    let text = text.strip_prefix('\u{feff}').unwrap_or(text);
+    let unix;
+    let text = if text.contains('\r') && !text.contains('\n') {
+        unix = text.replace('\r', "\n");
+        unix.as_str()
+    } else {
+        text
+    };
     if text.len() > MAX_BYTES {
         return Err(LoadError::new(
             LoadErrorKind::TooLarge,
@@ -118,13 +174,29 @@ pub fn from_text(text: &str) -> Result<Recipe, LoadError> {
         LoadError::new(LoadErrorKind::Syntax, reason)
             .at(Some((e.span.start.line, e.span.start.col)))
     })?;
-    from_file_form(file, text)
+    // Sizes first: a recipe past them is not opened at all (see `rules::READINGS_MAX`).
+    let channels = match &file.aim.plan {
+        super::schema::PlanName::OwnList { channels_mhz } => channels_mhz.len(),
+        _ => 0,
+    };
+    if let Err(r) = super::rules::check_sizes(file.bench_log.len(), channels) {
+        return Err(refusal_error(r, text));
+    }
+    let recipe = from_file_form(file);
+    let refusal = judge(&recipe, text);
+    Ok(Opened { recipe, refusal })
 }
 
-/// Read a recipe from raw bytes: refuses text that is not UTF-8, naming where it stops being so.
+/// Read and judge a recipe from raw bytes (see [`from_text`]).
 pub fn from_bytes(bytes: &[u8]) -> Result<Recipe, LoadError> {
+    read_bytes(bytes)?.judged()
+}
+
+/// Read a recipe from raw bytes without judging it (see [`read_text`]): refuses text that is
+/// not UTF-8, naming where it stops being so.
+pub fn read_bytes(bytes: &[u8]) -> Result<Opened, LoadError> {
     match std::str::from_utf8(bytes) {
-        Ok(text) => from_text(text),
+        Ok(text) => read_text(text),
         Err(e) => {
             let valid = bytes.get(..e.valid_up_to()).unwrap_or_default();
             let prefix = std::str::from_utf8(valid).unwrap_or_default();

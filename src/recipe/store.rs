@@ -2,7 +2,7 @@
 //! in the same folder, synced, then renamed over the target), so a failed save loses nothing.
 
 use super::document::Recipe;
-use super::format::{MAX_BYTES, from_bytes, to_text};
+use super::format::{MAX_BYTES, Opened, read_bytes, to_text};
 use super::load::{LoadError, LoadErrorKind};
 use std::fmt;
 use std::fs::{self, File, OpenOptions};
@@ -10,10 +10,31 @@ use std::io::{self, Read, Write};
 use std::path::{Path, PathBuf};
 use std::sync::atomic::{AtomicU32, Ordering};
 
-/// Open a recipe file. The caller's document is untouched on error.
+/// Open and judge a recipe file: the recipe only when it meets every rule. The caller's
+/// document is untouched on error.
 pub fn load(path: &Path) -> Result<Recipe, LoadError> {
+    open(path)?.judged()
+}
+
+/// Read a recipe file without judging its values (see [`super::format::read_text`]): a file
+/// that breaks a rule comes back as written, with the rule. Anything but a regular file (a
+/// FIFO, a device, a folder) is refused before it is opened, so reading never blocks.
+pub fn open(path: &Path) -> Result<Opened, LoadError> {
     let read = || -> io::Result<Vec<u8>> {
-        let file = File::open(path)?;
+        let kind = fs::metadata(path)?.file_type();
+        if !kind.is_file() {
+            let what = if kind.is_dir() {
+                "a folder"
+            } else {
+                "not a regular file (a pipe, socket or device)"
+            };
+            return Err(io::Error::other(format!("it is {what}, not a recipe file")));
+        }
+        let file = open_for_reading(path)?;
+        // Checked again on the open handle: the name may have been swapped in between.
+        if !file.metadata()?.is_file() {
+            return Err(io::Error::other("it is not a regular file"));
+        }
         let mut bytes = Vec::new();
         // One byte past the limit is enough to know it is too large.
         file.take(MAX_BYTES as u64 + 1).read_to_end(&mut bytes)?;
@@ -29,7 +50,27 @@ pub fn load(path: &Path) -> Result<Recipe, LoadError> {
         )
         .with_path(path));
     }
-    from_bytes(&bytes).map_err(|e| e.with_path(path))
+    read_bytes(&bytes)
+        .map(|o| Opened {
+            refusal: o.refusal.map(|e| e.with_path(path)),
+            recipe: o.recipe,
+        })
+        .map_err(|e| e.with_path(path))
+}
+
+/// Open for reading without waiting for a writer should the name be a FIFO after all.
+fn open_for_reading(path: &Path) -> io::Result<File> {
+    let mut options = OpenOptions::new();
+    options.read(true);
+    #[cfg(target_os = "linux")]
+    {
+        use std::os::unix::fs::OpenOptionsExt;
+        /// `O_NONBLOCK` on Linux (all architectures Rust supports there but Alpha and SPARC,
+        /// which Tankwright does not target); harmless for a regular file.
+        const O_NONBLOCK: i32 = 0o4000;
+        options.custom_flags(O_NONBLOCK);
+    }
+    options.open(path)
 }
 
 /// The step of a save that failed.
@@ -39,6 +80,8 @@ pub enum SaveStep {
     Check,
     /// The path names no file.
     Name,
+    /// Following a symbolic link to the file it names.
+    Link,
     /// Creating the temporary file beside the target.
     Create,
     /// Writing the text.
@@ -47,6 +90,20 @@ pub enum SaveStep {
     Sync,
     /// Renaming it over the target.
     Replace,
+    /// Flushing the folder, so the rename itself survives a power cut.
+    SyncFolder,
+}
+
+impl SaveStep {
+    /// Every step, in order (for tests that fail each in turn).
+    pub const ALL: [SaveStep; 6] = [
+        SaveStep::Link,
+        SaveStep::Create,
+        SaveStep::Write,
+        SaveStep::Sync,
+        SaveStep::Replace,
+        SaveStep::SyncFolder,
+    ];
 }
 
 impl SaveStep {
@@ -54,10 +111,12 @@ impl SaveStep {
         match self {
             SaveStep::Check => "the recipe would not open again",
             SaveStep::Name => "no file name",
+            SaveStep::Link => "cannot follow the link to its file",
             SaveStep::Create => "cannot create a temporary file in that folder",
             SaveStep::Write => "writing failed",
             SaveStep::Sync => "flushing to the disk failed",
             SaveStep::Replace => "cannot put the new file in place",
+            SaveStep::SyncFolder => "flushing the folder to the disk failed",
         }
     }
 }
@@ -91,7 +150,7 @@ impl std::error::Error for SaveError {}
 /// is not written; the error says which field.
 pub fn save(path: &Path, recipe: &Recipe) -> Result<(), SaveError> {
     let text = to_text(recipe);
-    if let Err(e) = super::format::from_text(&text) {
+    if let Some(e) = super::format::read_text(&text).map_or_else(Some, |o| o.refusal) {
         let field = e.field.map(|f| format!("{f}: ")).unwrap_or_default();
         return Err(SaveError {
             path: path.to_path_buf(),
@@ -100,6 +159,21 @@ pub fn save(path: &Path, recipe: &Recipe) -> Result<(), SaveError> {
         });
     }
     write_atomically(path, text.as_bytes(), |w, bytes| w.write_all(bytes))
+}
+
+/// Permissions of a new file the user saves (the system's umask still applies): readable by
+/// others, as an editor would make it.
+pub const NEW_FILE_MODE: u32 = 0o666;
+/// Permissions of the program's own files (working copy, session): the owner's only.
+pub const PRIVATE_MODE: u32 = 0o600;
+
+/// How a save goes: the permissions of a new file, and (for tests) a failure injected at one
+/// step.
+pub struct SaveHow<'a> {
+    /// Unix permission bits for a file that does not exist yet (an existing file keeps its own).
+    pub new_mode: u32,
+    /// Called before each step; an error stops the save there as if the step had failed.
+    pub before: &'a mut dyn FnMut(SaveStep) -> io::Result<()>,
 }
 
 /// Distinguishes temporary files of one process.
@@ -112,11 +186,57 @@ pub fn write_atomically<F>(path: &Path, bytes: &[u8], write: F) -> Result<(), Sa
 where
     F: FnOnce(&mut dyn Write, &[u8]) -> io::Result<()>,
 {
+    let how = SaveHow {
+        new_mode: NEW_FILE_MODE,
+        before: &mut |_| Ok(()),
+    };
+    write_atomically_with(path, bytes, write, how)
+}
+
+/// The file a save to `path` writes: `path` itself, or, when it is a symbolic link, the file
+/// the link names (followed to the end), so the link stays and its target gets the new text.
+pub fn save_target(path: &Path) -> io::Result<PathBuf> {
+    let mut target = path.to_path_buf();
+    // The kernel's own limit on links followed in one lookup.
+    for _ in 0..40 {
+        match fs::symlink_metadata(&target) {
+            Ok(meta) if meta.file_type().is_symlink() => {
+                let next = fs::read_link(&target)?;
+                target = match target.parent() {
+                    Some(dir) if next.is_relative() => dir.join(next),
+                    _ => next,
+                };
+            }
+            Ok(_) => return Ok(target),
+            Err(e) if e.kind() == io::ErrorKind::NotFound => return Ok(target),
+            Err(e) => return Err(e),
+        }
+    }
+    Err(io::Error::other("too many levels of symbolic links"))
+}
+
+/// [`write_atomically`] with the permissions of a new file and a hook before each step.
+/// The temporary file is created with the permissions the file will have (the existing
+/// file's, else `how.new_mode`), never wider, so the text is never readable by anyone the
+/// finished file would not be.
+pub fn write_atomically_with<F>(
+    path: &Path,
+    bytes: &[u8],
+    write: F,
+    how: SaveHow<'_>,
+) -> Result<(), SaveError>
+where
+    F: FnOnce(&mut dyn Write, &[u8]) -> io::Result<()>,
+{
     let fail = |step: SaveStep, reason: String| SaveError {
         path: path.to_path_buf(),
         step,
         reason,
     };
+    let before = how.before;
+    before(SaveStep::Link).map_err(|e| fail(SaveStep::Link, e.to_string()))?;
+    let target = save_target(path).map_err(|e| fail(SaveStep::Link, e.to_string()))?;
+    let path = target.as_path();
     let Some(name) = path.file_name() else {
         return Err(fail(SaveStep::Name, "the path ends in no file name".into()));
     };
@@ -130,20 +250,36 @@ where
         std::process::id(),
         COUNTER.fetch_add(1, Ordering::Relaxed)
     ));
-    let mut file = OpenOptions::new()
-        .write(true)
-        .create_new(true)
+    // Keep the old file's permissions (a shared recipe stays shared), from the start.
+    let existing = fs::metadata(path).ok().map(|m| m.permissions());
+    before(SaveStep::Create).map_err(|e| fail(SaveStep::Create, e.to_string()))?;
+    let mut options = OpenOptions::new();
+    options.write(true).create_new(true);
+    #[cfg(unix)]
+    {
+        use std::os::unix::fs::{OpenOptionsExt, PermissionsExt};
+        let mode = existing
+            .as_ref()
+            .map_or(how.new_mode, |p| p.mode() & 0o7777);
+        options.mode(mode);
+    }
+    #[cfg(not(unix))]
+    let _ = how.new_mode;
+    let mut file = options
         .open(&temp)
         .map_err(|e| fail(SaveStep::Create, e.to_string()))?;
     let result = (|| {
+        before(SaveStep::Write).map_err(|e| (SaveStep::Write, e))?;
         write(&mut file, bytes).map_err(|e| (SaveStep::Write, e))?;
         file.flush().map_err(|e| (SaveStep::Write, e))?;
+        before(SaveStep::Sync).map_err(|e| (SaveStep::Sync, e))?;
         file.sync_all().map_err(|e| (SaveStep::Sync, e))?;
-        // Keep the old file's permissions (a shared recipe stays shared).
-        if let Ok(meta) = fs::metadata(path) {
-            let _ = fs::set_permissions(&temp, meta.permissions());
+        // The mode given at creation is masked by the umask; put the old file's back exactly.
+        if let Some(permissions) = existing {
+            let _ = file.set_permissions(permissions);
         }
         drop(file);
+        before(SaveStep::Replace).map_err(|e| (SaveStep::Replace, e))?;
         fs::rename(&temp, path).map_err(|e| (SaveStep::Replace, e))
     })();
     if let Err((step, e)) = result {
@@ -151,6 +287,9 @@ where
         let _ = fs::remove_file(&temp);
         return Err(fail(step, e.to_string()));
     }
+    // The new file is in place; a failure to flush the folder is reported, but the file on
+    // disk is the new one either way.
+    before(SaveStep::SyncFolder).map_err(|e| fail(SaveStep::SyncFolder, e.to_string()))?;
     sync_folder(&folder);
     Ok(())
 }
@@ -164,4 +303,29 @@ fn sync_folder(folder: &Path) {
     }
     #[cfg(not(unix))]
     let _ = folder;
+}
+
+/// Remove temporary files a killed save left in `folder` for `name` (best effort; only files
+/// of the pattern this module makes, and only those of processes no longer running).
+pub fn sweep_leftovers(folder: &Path, name: &str) {
+    // Whether a process still runs is read from /proc, which only Linux is sure to have.
+    if !cfg!(target_os = "linux") {
+        return;
+    }
+    let prefix = format!(".{name}.saving-");
+    let Ok(entries) = fs::read_dir(folder) else {
+        return;
+    };
+    for entry in entries.flatten() {
+        let file_name = entry.file_name();
+        let Some(rest) = file_name.to_str().and_then(|n| n.strip_prefix(&prefix)) else {
+            continue;
+        };
+        let pid = rest.split('-').next().and_then(|p| p.parse::<u32>().ok());
+        let alive = pid
+            .is_some_and(|p| p == std::process::id() || Path::new(&format!("/proc/{p}")).exists());
+        if !alive {
+            let _ = fs::remove_file(entry.path());
+        }
+    }
 }

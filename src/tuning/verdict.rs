@@ -307,7 +307,7 @@ pub fn on_channel(offset: f64, tolerance: f64) -> bool {
 /// whole travel at the present spacing ([`trimmer_window`]), band and aeronautical flags
 /// over that travel ([`band_flags`]), harmonics ([`harmonics`]), the receiver image for a
 /// broadcast band ([`receiver_image`]) and the gap flags
-/// ([`gap_flags`](super::buildable::gap_flags)).
+/// ([`gap_flags`]).
 pub fn judge(coil: &Coil, tank: &Tank, conditions: &Conditions, aim: &Aim) -> Verdict {
     let resonance = resonance_of(coil, tank.external_capacitance(), conditions);
     let (low, high) = trimmer_window(coil, tank, conditions);

@@ -10,12 +10,12 @@ use crate::ui::panels::tank::TankPanel;
 use crate::ui::panels::target::TargetPanel;
 use crate::ui::panels::top_bar::{self, BarState};
 use crate::ui::panels::{Command, bench, readouts, winding};
-use crate::ui::preferences::{PREFERENCES_KEY, Preferences};
+use crate::ui::preferences::Preferences;
 use crate::ui::screenshot::ScreenshotJob;
 use crate::ui::theme::Theme;
 use crate::ui::undo::History;
 use crate::ui::widgets::LABEL_WIDTH;
-use crate::ui::working_copy::{WORKING_COPY_KEY, WorkingCopy};
+use crate::ui::working_copy::{self, Keeper, Recovery, RecoveryChoice, SessionStateRef};
 use eframe::egui::{self, Key, KeyboardShortcut, Modifiers};
 
 /// Seconds a change must rest before it becomes an undo step (the undoer's default), plus a
@@ -30,9 +30,6 @@ const LEFT_SHARE: f32 = 0.3;
 const RIGHT_DEFAULT: f32 = 440.0;
 const RIGHT_MIN: f32 = 360.0;
 const RIGHT_SHARE: f32 = 0.34;
-
-/// eframe storage key of the file desk's memory (recent files, recipe folder).
-const FILES_KEY: &str = "tankwright.files";
 
 const UNDO: KeyboardShortcut = KeyboardShortcut::new(Modifiers::COMMAND, Key::Z);
 const REDO: KeyboardShortcut =
@@ -53,43 +50,74 @@ pub struct App {
     applied_theme: Option<Theme>,
     shown_title: String,
     screenshot: Option<ScreenshotJob>,
+    /// Keeps the working copy and the session on disk (absent in tests and captures).
+    keeper: Option<Keeper>,
+    /// A recovered working copy that differs from the file asked for, until the user chooses.
+    recovery: Option<Recovery>,
+    /// Test-only helpers given on the command line.
+    driver: Option<crate::ui::replay::Driver>,
 }
 
 impl App {
-    /// The window as eframe creates it: the working copy of the last session if there is one
-    /// (so a crash or a forgotten save loses at most the last few seconds), else the demo
-    /// recipe; with the view preferences and recent files of the last session.
-    pub fn new(cc: &eframe::CreationContext<'_>) -> Self {
+    /// The window as eframe creates it, on the demo recipe with default preferences and
+    /// nothing kept on disk (see [`App::restore`] for the window a user starts).
+    pub fn new(_cc: &eframe::CreationContext<'_>) -> Self {
+        Self::with_recipe(Recipe::demo())
+    }
+
+    /// The window a user starts: the working copy, preferences and recent files of the last
+    /// session from `folder` (see [`working_copy`]), kept there from now on; then `open`, the
+    /// file asked for on the command line, if any. A file that cannot be read leaves the
+    /// working copy on screen and says why; one that breaks a rule opens as written, with the
+    /// rule shown; one that differs from a recovered working copy with unsaved changes waits
+    /// for the user to choose between them.
+    pub fn restore(folder: std::path::PathBuf, open: Option<&std::path::Path>) -> Self {
+        let restored = working_copy::restore(&folder);
         let mut app = Self::with_recipe(Recipe::demo());
-        let Some(storage) = cc.storage else {
-            return app;
-        };
-        if let Some(preferences) = eframe::get_value(storage, PREFERENCES_KEY) {
-            app.preferences = preferences;
+        app.preferences = restored.session.preferences;
+        app.files.memory = restored.session.files.clone();
+        let mut notices = restored.problems.clone();
+        let unsaved = restored.has_unsaved_changes();
+        if let Some(copy) = &restored.copy {
+            let saved = restored.saved.as_ref().unwrap_or(&copy.recipe);
+            app.set_document(copy.recipe.clone());
+            // Measured against the recipe as last saved, so unsaved changes stay marked.
+            app.files
+                .mark_opened(restored.session.origin.as_deref(), saved);
+            if let Some(e) = &copy.refusal {
+                notices.push(working_copy::refusal_notice(e));
+            }
         }
-        if let Some(memory) = eframe::get_value::<FileDeskMemory>(storage, FILES_KEY) {
-            app.files.memory = memory;
-        }
-        if let Some(copy) = eframe::get_value::<WorkingCopy>(storage, WORKING_COPY_KEY) {
-            match copy.restore() {
-                Ok(restored) => {
-                    app.set_document(restored.saved.clone());
-                    app.files
-                        .mark_opened(restored.path.as_deref(), &restored.saved);
-                    app.recipe = restored.recipe;
-                    app.evaluation = Evaluation::new(&app.recipe);
-                }
-                Err(reason) => {
-                    app.files.notice = Some(Notice {
-                        text: format!(
-                            "The last session's working copy could not be restored ({reason}); \
-                             showing the demo recipe."
-                        ),
-                        is_error: true,
+        if let Some(path) = open {
+            match crate::recipe::open(path) {
+                Err(e) => notices.push(format!("could not open {}: {e}", path.display())),
+                Ok(opened)
+                    if unsaved
+                        && restored
+                            .copy
+                            .as_ref()
+                            .is_some_and(|c| c.recipe != opened.recipe) =>
+                {
+                    app.recovery = Some(Recovery {
+                        path: path.to_path_buf(),
+                        opened,
                     });
+                }
+                Ok(opened) => {
+                    if let Some(e) = &opened.refusal {
+                        notices.push(working_copy::refusal_notice(e));
+                    }
+                    app = app.with_file(opened.recipe, path);
                 }
             }
         }
+        if !notices.is_empty() {
+            app.files.notice = Some(Notice {
+                text: notices.join("; "),
+                is_error: true,
+            });
+        }
+        app.keeper = Some(Keeper::start(folder, &restored));
         app
     }
 
@@ -109,6 +137,9 @@ impl App {
             applied_theme: None,
             shown_title: String::new(),
             screenshot: None,
+            keeper: None,
+            recovery: None,
+            driver: None,
         }
     }
 
@@ -133,6 +164,11 @@ impl App {
     /// Use `theme` from now on.
     pub fn set_theme(&mut self, theme: Theme) {
         self.preferences.theme = theme;
+    }
+
+    /// Run the test-only command-line helpers (`--replay-edit`, `--print-shown`).
+    pub(crate) fn test_driver(&mut self, driver: crate::ui::replay::Driver) {
+        self.driver = Some(driver);
     }
 
     /// Capture the window to a PNG once it has settled, then close it.
@@ -229,6 +265,74 @@ impl App {
         if self.evaluation.refresh(&self.recipe) {
             ctx.request_repaint();
         }
+        self.recovery_ui(&ctx);
+        self.keep();
+    }
+
+    /// Ask about a recovered working copy that differs from the file asked for.
+    fn recovery_ui(&mut self, ctx: &egui::Context) {
+        let Some(recovery) = &self.recovery else {
+            return;
+        };
+        match working_copy::recovery_ui(ctx, recovery, &self.recipe.name) {
+            Some(RecoveryChoice::KeepRecovered) => self.recovery = None,
+            Some(RecoveryChoice::OpenFile) => {
+                if let Some(Recovery { path, opened }) = self.recovery.take() {
+                    self.files.notice = opened.refusal.as_ref().map(|e| Notice {
+                        text: working_copy::refusal_notice(e),
+                        is_error: true,
+                    });
+                    self.set_document(opened.recipe);
+                    self.files.mark_opened(Some(&path), &self.recipe);
+                }
+            }
+            None => {}
+        }
+    }
+
+    /// Hand the document and the session to the keeper if they changed (it writes them on its
+    /// own thread, so an idle window that paints nothing still has them on disk).
+    fn keep(&mut self) {
+        let Some(keeper) = &mut self.keeper else {
+            return;
+        };
+        keeper.observe(
+            &self.recipe,
+            SessionStateRef {
+                preferences: self.preferences,
+                files: &self.files.memory,
+                origin: self.files.path(),
+                saved: self.files.saved_snapshot(),
+            },
+        );
+        if let Some(failure) = keeper.new_failure() {
+            self.files.notice = Some(Notice {
+                text: format!(
+                    "the working copy cannot be kept in {} ({failure}); save your recipe to a \
+                     file",
+                    keeper.folder().display()
+                ),
+                is_error: true,
+            });
+        }
+    }
+
+    /// The data folder the working copy is kept in, when it is kept.
+    pub fn data_folder(&self) -> Option<&std::path::Path> {
+        self.keeper.as_ref().map(Keeper::folder)
+    }
+
+    /// Write the working copy and session now and wait for it (as on closing).
+    pub fn flush_working_copy(&mut self) {
+        self.keep();
+        if let Some(keeper) = &mut self.keeper {
+            keeper.flush();
+        }
+    }
+
+    /// Whether the window is asking about a recovered working copy.
+    pub fn is_asking_about_recovery(&self) -> bool {
+        self.recovery.is_some()
     }
 
     /// Replace the document with one the file desk opened or made (it keeps its own record of
@@ -390,19 +494,23 @@ impl eframe::App for App {
         if let Some(job) = &mut self.screenshot {
             job.step(ui.ctx());
         }
+        if let Some(driver) = &mut self.driver {
+            let title = self.files.title(&self.recipe);
+            let notice = self.files.notice.as_ref().map(|n| n.text.clone());
+            if driver.step(ui.ctx(), &mut self.recipe, &title, notice.as_deref()) {
+                self.files.confirm_close();
+            }
+        }
     }
 
-    fn save(&mut self, storage: &mut dyn eframe::Storage) {
-        eframe::set_value(storage, PREFERENCES_KEY, &self.preferences);
-        eframe::set_value(storage, FILES_KEY, &self.files.memory);
-        let saved = self.files.saved_snapshot();
-        let copy = WorkingCopy::of(&self.recipe, saved, self.files.path().map(Into::into));
-        eframe::set_value(storage, WORKING_COPY_KEY, &copy);
+    /// Nothing that matters is kept in eframe's storage (it rewrites its file in place): the
+    /// working copy, preferences and recent files are kept by [`Keeper`].
+    fn save(&mut self, _storage: &mut dyn eframe::Storage) {
+        self.flush_working_copy();
     }
 
-    /// Save the working copy every few seconds: a crash loses at most that much.
-    fn auto_save_interval(&self) -> std::time::Duration {
-        std::time::Duration::from_secs(5)
+    fn on_exit(&mut self, _gl: Option<&eframe::glow::Context>) {
+        self.flush_working_copy();
     }
 }
 
@@ -410,8 +518,13 @@ impl eframe::App for App {
 fn recipe_header(ui: &mut egui::Ui, recipe: &mut Recipe) {
     ui.horizontal(|ui| {
         ui.label("Recipe name");
-        ui.add(egui::TextEdit::singleline(&mut recipe.name).desired_width(f32::INFINITY))
-            .on_hover_text("Recipe name");
+        // The recipe rules' longest name: the field cannot hold what the loader refuses.
+        ui.add(
+            egui::TextEdit::singleline(&mut recipe.name)
+                .char_limit(crate::recipe::rules::NAME_MAX)
+                .desired_width(f32::INFINITY),
+        )
+        .on_hover_text("Recipe name");
     });
     egui::CollapsingHeader::new("Notes")
         .default_open(false)

@@ -6,7 +6,7 @@
 //! Nothing here computes physics: the fit and the advice come from the recipe's figures
 //! ([`crate::recipe::figures()`]), the same ones the build sheet and the commands print.
 
-use crate::recipe::{BenchEntry, Figures, Recipe};
+use crate::recipe::{BenchEntry, Figures, Recipe, rules};
 use crate::tuning::advice::Advice;
 use crate::tuning::fit::{Fit, length_uncertainty};
 use crate::ui::units::LengthUnit;
@@ -308,6 +308,8 @@ impl BenchLogPanel {
             });
         let length = self.form.length.or(present_length);
         let valid = self.form.measured_mhz > 0.0 && self.form.measured_mhz.is_finite();
+        // The reading as it would be recorded, judged by the recipe rules (the loader's), so
+        // the log never holds a reading the file could not open with.
         let entry = length.map(|length| BenchEntry {
             measured: self.form.measured_mhz * 1e6,
             length,
@@ -318,14 +320,24 @@ impl BenchLogPanel {
             error_ppm: self.form.error_known.then_some(self.form.error_ppm),
             note: self.form.note.trim().to_owned(),
         });
-        let hint = match &entry {
-            Some(e) => format!(
+        let full = self.editing.is_none() && recipe.bench_log.len() >= rules::READINGS_MAX;
+        let index = self.editing.unwrap_or(recipe.bench_log.len());
+        let refusal = entry
+            .as_ref()
+            .and_then(|e| rules::check_reading(e, index).err());
+        let hint = match (&entry, &refusal) {
+            _ if full => format!(
+                "the log is full: a recipe keeps at most {} readings (remove old ones first)",
+                rules::READINGS_MAX
+            ),
+            (None, _) => "the coil on screen is refused: fix it first".to_owned(),
+            (Some(_), Some(r)) => r.reason.clone(),
+            (Some(e), None) => format!(
                 "records {:.4} MHz at {} and trimmer {:.0} %",
                 self.form.measured_mhz,
                 unit.show(e.length),
                 e.trimmer_setting * 100.0
             ),
-            None => "the coil on screen is refused: fix it first".to_owned(),
         };
         let mut action = None;
         ui.horizontal(|ui| {
@@ -334,8 +346,12 @@ impl BenchLogPanel {
                 None => "Record reading",
             };
             if ui
-                .add_enabled(valid && entry.is_some(), egui::Button::new(button))
-                .on_hover_text(hint)
+                .add_enabled(
+                    valid && entry.is_some() && refusal.is_none() && !full,
+                    egui::Button::new(button),
+                )
+                .on_hover_text(&hint)
+                .on_disabled_hover_text(&hint)
                 .clicked()
                 && let Some(e) = entry
             {

@@ -9,6 +9,7 @@ pub mod evaluation;
 pub mod files;
 pub mod panels;
 pub mod preferences;
+mod replay;
 mod screenshot;
 pub mod theme;
 pub mod undo;
@@ -29,6 +30,10 @@ pub const WINDOW_SIZE: [f32; 2] = [1400.0, 900.0];
 struct WindowArgs {
     screenshot: Option<PathBuf>,
     theme: Option<theme::Theme>,
+    /// Test only: an edit replayed once the window has drawn (`--replay-edit turns=6.5`).
+    replay: Option<replay::Edit>,
+    /// Test only: print what the window shows once it has settled, then close.
+    print_shown: bool,
 }
 
 fn parse_args(args: Vec<String>) -> Result<WindowArgs, String> {
@@ -37,7 +42,7 @@ fn parse_args(args: Vec<String>) -> Result<WindowArgs, String> {
     while let Some(arg) = args.next() {
         match arg.as_str() {
             "--screenshot" => match args.next() {
-                Some(path) if !path.starts_with("--") => out.screenshot = Some(path.into()),
+                Some(path) if !path.starts_with('-') => out.screenshot = Some(path.into()),
                 _ => {
                     return Err(
                         "--screenshot needs a file name, e.g. --screenshot window.png".into(),
@@ -49,10 +54,16 @@ fn parse_args(args: Vec<String>) -> Result<WindowArgs, String> {
                 Some("light") => out.theme = Some(theme::Theme::Light),
                 _ => return Err("--theme takes 'light' or 'dark'".into()),
             },
+            "--replay-edit" => {
+                let edit = args.next().unwrap_or_default();
+                out.replay = Some(replay::Edit::parse(&edit)?);
+            }
+            "--print-shown" => out.print_shown = true,
             other => {
                 return Err(format!(
-                    "unknown option '{other}': the window takes --screenshot FILE.png and \
-                     --theme light|dark (see 'tankwright help')"
+                    "unknown option '{}': the window takes --screenshot FILE.png and \
+                     --theme light|dark (see 'tankwright help')",
+                    crate::cli::clean(other)
                 ));
             }
         }
@@ -67,27 +78,28 @@ pub fn run(args: Vec<String>) -> Result<(), String> {
     open(None, args)
 }
 
-/// Open the window on `recipe`, opened from the file `path`, with the same flags as [`run`].
-pub fn run_recipe(
-    recipe: crate::recipe::Recipe,
-    path: std::path::PathBuf,
-    args: Vec<String>,
-) -> Result<(), String> {
-    open(Some((recipe, path)), args)
+/// Open the window on the recipe file `path` (after the last session's working copy, which it
+/// replaces unless that holds unsaved changes: then the window asks). A file that cannot be
+/// read is reported in the window, which opens all the same.
+pub fn run_file(path: PathBuf, args: Vec<String>) -> Result<(), String> {
+    open(Some(path), args)
 }
 
-fn open(
-    document: Option<(crate::recipe::Recipe, std::path::PathBuf)>,
-    args: Vec<String>,
-) -> Result<(), String> {
+fn open(file: Option<PathBuf>, args: Vec<String>) -> Result<(), String> {
     let args = parse_args(args)?;
     let outcome: screenshot::Outcome = Arc::new(Mutex::new(None));
     let capture = args.screenshot.is_some();
     // A capture starts from the defaults, not from the last session, and leaves it untouched:
-    // it keeps its state in a scratch file of its own.
-    let scratch = capture.then(|| {
-        std::env::temp_dir().join(format!("tankwright-capture-{}.ron", std::process::id()))
-    });
+    // eframe's own state goes to a private folder made for this run and removed after.
+    let scratch =
+        if capture {
+            Some(screenshot::scratch_folder().map_err(|e| {
+                format!("cannot make a private temporary folder for the capture: {e}")
+            })?)
+        } else {
+            None
+        };
+    let folder = working_copy::data_folder();
     let options = eframe::NativeOptions {
         renderer: eframe::Renderer::Glow,
         viewport: eframe::egui::ViewportBuilder::default()
@@ -95,26 +107,41 @@ fn open(
             .with_min_inner_size([1100.0, 700.0])
             .with_title("Tankwright"),
         persist_window: !capture,
-        persistence_path: scratch.clone(),
+        // eframe rewrites its file in place: only the window's size and place are in it.
+        persistence_path: Some(match &scratch {
+            Some(dir) => dir.join("window.ron"),
+            None => folder.join("window.ron"),
+        }),
         ..Default::default()
     };
     let job_outcome = Arc::clone(&outcome);
+    let WindowArgs {
+        screenshot,
+        theme,
+        replay,
+        print_shown,
+    } = args;
     eframe::run_native(
         "Tankwright",
         options,
-        Box::new(move |cc| {
-            let mut app = match (capture, document) {
-                (true, document) => App::with_recipe(
-                    document.map_or_else(crate::recipe::Recipe::demo, |(recipe, _)| recipe),
-                ),
-                (false, Some((recipe, path))) => App::new(cc).with_file(recipe, &path),
-                (false, None) => App::new(cc),
+        Box::new(move |_cc| {
+            let mut app = if capture {
+                let recipe = file
+                    .as_deref()
+                    .and_then(|p| crate::recipe::open(p).ok())
+                    .map_or_else(crate::recipe::Recipe::demo, |o| o.recipe);
+                App::with_recipe(recipe)
+            } else {
+                App::restore(folder, file.as_deref())
             };
-            if let Some(theme) = args.theme {
+            if let Some(theme) = theme {
                 app.set_theme(theme);
             }
-            if let Some(path) = args.screenshot {
+            if let Some(path) = screenshot {
                 app.capture_on_start(screenshot::ScreenshotJob::new(path, job_outcome));
+            }
+            if replay.is_some() || print_shown {
+                app.test_driver(replay::Driver::new(replay, print_shown));
             }
             Ok(Box::new(app))
         }),
@@ -122,7 +149,7 @@ fn open(
     .map_err(|e| format!("cannot open the window: {e}"))?;
     if let Some(scratch) = scratch {
         // Best effort: the scratch state is of no use once the capture is done.
-        let _ = std::fs::remove_file(scratch);
+        let _ = std::fs::remove_dir_all(scratch);
     }
     if capture {
         let result = outcome
@@ -145,7 +172,7 @@ mod tests {
             args,
             Ok(WindowArgs {
                 screenshot: Some("a.png".into()),
-                theme: None,
+                ..WindowArgs::default()
             })
         );
     }

@@ -57,7 +57,8 @@ impl ScreenshotJob {
     }
 }
 
-/// Write the captured frame as a PNG.
+/// Write the captured frame as a PNG to the path the user gave, atomically (a temporary file
+/// beside it, made new and never followed through a link, then renamed over it).
 fn save_png(path: &std::path::Path, image: &ColorImage) -> Result<(), String> {
     let [width, height] = image.size;
     let bytes: Vec<u8> = image
@@ -70,13 +71,66 @@ fn save_png(path: &std::path::Path, image: &ColorImage) -> Result<(), String> {
             "screenshot of {width}×{height} pixels is too large"
         ));
     };
-    image::save_buffer_with_format(
-        path,
+    let mut png = Vec::new();
+    image::ImageEncoder::write_image(
+        image::codecs::png::PngEncoder::new(&mut png),
         &bytes,
         w,
         h,
         image::ExtendedColorType::Rgba8,
-        image::ImageFormat::Png,
     )
-    .map_err(|e| format!("cannot save the screenshot to {}: {e}", path.display()))
+    .map_err(|e| format!("cannot encode the screenshot: {e}"))?;
+    crate::recipe::store::write_atomically(path, &png, |out, b| out.write_all(b))
+        .map_err(|e| format!("cannot save the screenshot: {e}"))
+}
+
+/// A folder of our own in the temporary folder for eframe's state during a capture: made new
+/// (never an existing folder or link someone else put there), readable by the user only.
+pub fn scratch_folder() -> std::io::Result<PathBuf> {
+    let base = std::env::temp_dir();
+    let seed = std::time::SystemTime::now()
+        .duration_since(std::time::UNIX_EPOCH)
+        .map_or(0, |d| d.subsec_nanos());
+    let mut builder = std::fs::DirBuilder::new();
+    #[cfg(unix)]
+    {
+        use std::os::unix::fs::DirBuilderExt;
+        builder.mode(0o700);
+    }
+    let mut last = None;
+    for attempt in 0..16u32 {
+        let name = format!(
+            "tankwright-capture-{}-{:08x}",
+            std::process::id(),
+            seed.wrapping_mul(2_654_435_761).wrapping_add(attempt)
+        );
+        let dir = base.join(name);
+        // `create` fails on anything already there, a link included: nothing is followed.
+        match builder.create(&dir) {
+            Ok(()) => return Ok(dir),
+            Err(e) => last = Some(e),
+        }
+    }
+    Err(last.unwrap_or_else(|| std::io::Error::other("no free name")))
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn the_scratch_folder_is_new_and_private() {
+        let a = scratch_folder().expect("made");
+        let b = scratch_folder().expect("made");
+        assert_ne!(a, b, "a new folder each time");
+        #[cfg(unix)]
+        {
+            use std::os::unix::fs::PermissionsExt;
+            let mode = std::fs::metadata(&a).expect("there").permissions().mode();
+            assert_eq!(mode & 0o077, 0, "{mode:o}");
+        }
+        for dir in [a, b] {
+            std::fs::remove_dir(dir).expect("empty folder removed");
+        }
+    }
 }

@@ -55,6 +55,9 @@ pub(super) struct PathPrompt {
     pub reason: String,
     /// What to do after a successful save (a request that waited for it).
     pub then: Option<Intent>,
+    /// An existing file the user was asked about replacing (save as), while the question is
+    /// open.
+    pub replace: Option<PathBuf>,
 }
 
 /// The app's file handling: where the document came from, whether it changed since, and the
@@ -136,6 +139,12 @@ impl FileDesk {
         }
     }
 
+    /// Let the window close without asking about unsaved changes (they are in the working
+    /// copy): for the test-only `--print-shown`.
+    pub fn confirm_close(&mut self) {
+        self.close_confirmed = true;
+    }
+
     /// Whether a dialog of the desk is open (the app may want to hold its own shortcuts).
     pub fn is_asking(&self) -> bool {
         self.pending.is_some() || self.prompt.is_some()
@@ -184,6 +193,7 @@ impl FileDesk {
                         text: self.memory.folder.join("").display().to_string(),
                         reason,
                         then: None,
+                        replace: None,
                     });
                     None
                 }
@@ -205,15 +215,20 @@ impl FileDesk {
         }
     }
 
-    /// Open `path`; on failure the document stays as it is and the reason is shown.
+    /// Open `path`; on failure the document stays as it is and the reason is shown. A recipe
+    /// that breaks a rule opens as written, with the rule shown.
     pub(super) fn open_path(&mut self, path: &Path) -> Option<FileAction> {
-        match store::load(path) {
-            Ok(r) => {
+        match store::open(path) {
+            Ok(opened) => {
+                let r = opened.recipe;
                 self.mark_opened(Some(path), &r);
                 if let Some(dir) = path.parent().filter(|d| !d.as_os_str().is_empty()) {
                     self.memory.folder = dir.to_path_buf();
                 }
-                self.tell(format!("opened {}", path.display()));
+                match &opened.refusal {
+                    Some(e) => self.warn(crate::ui::working_copy::refusal_notice(e)),
+                    None => self.tell(format!("opened {}", path.display())),
+                }
                 Some(FileAction::Replace(r))
             }
             Err(e) => {
@@ -259,6 +274,7 @@ impl FileDesk {
                     text: folder.join(suggested).display().to_string(),
                     reason,
                     then,
+                    replace: None,
                 });
                 None
             }

@@ -126,7 +126,7 @@ impl FileDesk {
             .as_ref()
             .filter(|n| n.is_error)
             .map(|n| n.text.clone());
-        let (mut go, mut cancel) = (false, false);
+        let (mut go, mut cancel, mut replace, mut keep) = (false, false, false, false);
         let modal = egui::Modal::new(egui::Id::unique("tankwright-path-prompt")).show(ctx, |ui| {
             ui.heading(title);
             ui.label(&prompt.reason);
@@ -161,15 +161,44 @@ impl FileDesk {
                 ui.colored_label(ui.visuals().error_fg_color, e);
             }
             ui.add_space(6.0);
-            ui.horizontal(|ui| {
-                if ui.button(verb).clicked() {
-                    go = true;
-                }
-                if ui.button("Cancel").clicked() {
-                    cancel = true;
-                }
-            });
+            if let Some(existing) = &prompt.replace {
+                ui.label(format!(
+                    "{} already exists. Replace it with this recipe?",
+                    existing.display()
+                ));
+                ui.horizontal(|ui| {
+                    if ui.button("Replace it").clicked() {
+                        replace = true;
+                    }
+                    if ui.button("Keep it").clicked() {
+                        keep = true;
+                    }
+                });
+            } else {
+                ui.horizontal(|ui| {
+                    if ui.button(verb).clicked() {
+                        go = true;
+                    }
+                    if ui.button("Cancel").clicked() {
+                        cancel = true;
+                    }
+                });
+            }
         });
+        if keep {
+            prompt.replace = None;
+            self.prompt = Some(prompt);
+            return None;
+        }
+        // Typing after the question was asked withdraws it.
+        if prompt
+            .replace
+            .as_ref()
+            .is_some_and(|p| *p != with_ron_extension(PathBuf::from(prompt.text.trim())))
+        {
+            prompt.replace = None;
+        }
+        go |= replace;
         if cancel || (!go && modal.should_close()) {
             return None;
         }
@@ -196,6 +225,13 @@ impl FileDesk {
             }
             Purpose::SaveAs => {
                 let path = with_ron_extension(path);
+                // Ask before writing over a file the user did not pick from a system dialog.
+                if !replace && std::fs::symlink_metadata(&path).is_ok() {
+                    prompt.replace = Some(path);
+                    self.prompt = Some(prompt);
+                    return None;
+                }
+                prompt.replace = None;
                 let then = prompt.then.take();
                 if self.write(&path, doc) {
                     if let Some(dir) = path.parent().filter(|d| !d.as_os_str().is_empty()) {

@@ -44,6 +44,8 @@ fn parse_mhz_list(text: &str) -> Result<Vec<f64>, String> {
     if out.is_empty() {
         return Err("the list is empty: type one or more frequencies in MHz".to_owned());
     }
+    // The recipe rules (the loader's): range and count.
+    crate::recipe::rules::check_channels(&out).map_err(|r| r.reason)?;
     Ok(out)
 }
 

@@ -76,16 +76,20 @@ pub fn show(
         .refused(refused == Some(Field::LeadLength))
         .show(ui);
     });
-    // The derived figures only for a coil the engine accepts (not the last good one).
-    if let Some(coil) = coil.filter(|_| refused.is_none()) {
-        ui.label(format!(
+    // The derived figures only for a coil the engine accepts (not the last good one). The
+    // line is always there, one line high, so nothing below moves (and no field being typed
+    // into loses its place) while an input is refused.
+    let summary = match coil.filter(|_| refused.is_none()) {
+        Some(coil) => format!(
             "Former {} · mean {} · pitch {} · wire over insulation {}",
             unit.show(coil.former_diameter()),
             unit.show(coil.mean_diameter()),
             unit.show(coil.pitch()),
             unit.show(coil.wire_overall()),
-        ));
-    }
+        ),
+        None => "Former – · mean – · pitch – · wire over insulation – (input refused)".to_owned(),
+    };
+    ui.add(egui::Label::new(summary).truncate());
 }
 
 fn diameter_rows(

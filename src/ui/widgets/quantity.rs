@@ -122,7 +122,7 @@ impl<'a> Quantity<'a> {
 
         let mut slider = egui::Slider::from_get_set(range, |new| {
             if let Some(v) = new {
-                *value = v * si_per_unit;
+                *value = to_si_at_resolution(v, si_per_unit, decimals);
             }
             *value / si_per_unit
         })
@@ -136,18 +136,39 @@ impl<'a> Quantity<'a> {
 
         // One step per arrow key on the field (and per point of drag on it).
         let speed = if step > 0.0 { step } else { 0.01 };
+        // A typed value is taken when committed (Enter, Tab, focus lost), not at each keystroke:
+        // typing 1000000 turns never shows a 1-turn coil on the way.
         let field = egui::DragValue::from_get_set(|new| {
             if let Some(v) = new {
-                *value = v * si_per_unit;
+                *value = to_si_at_resolution(v, si_per_unit, decimals);
             }
             *value / si_per_unit
         })
+        .update_while_editing(false)
         .speed(speed)
         .fixed_decimals(decimals)
         .suffix(suffix)
         .min_size(egui::vec2(72.0, 0.0));
         let field_response = ui.add(field).labelled_by(label_response.id);
         slider_response | field_response
+    }
+}
+
+/// `display` (in display units) rounded to `decimals` places, in SI. Where the unit is a power
+/// of ten of SI (mm, pF, percent) the rounded number is divided by that power, which gives the
+/// SI value nearest the decimal shown, so the file (which writes the SI value's shortest
+/// digits with the point moved) holds the digits shown: 11.5 mm, never 11.499999999999999.
+pub fn to_si_at_resolution(display: f64, si_per_unit: f64, decimals: usize) -> f64 {
+    if !display.is_finite() {
+        return display * si_per_unit;
+    }
+    let scale = 10f64.powi(i32::try_from(decimals.min(15)).unwrap_or(15));
+    let rounded = (display * scale).round() / scale;
+    let per_si = 1.0 / si_per_unit;
+    if per_si >= 1.0 && (per_si.round() - per_si).abs() <= per_si * 1e-12 {
+        rounded / per_si.round()
+    } else {
+        rounded * si_per_unit
     }
 }
 
