@@ -25,7 +25,7 @@ pub fn wire_over_plane_per_length(height: f64, radius: f64, relative_permittivit
 ///
 /// # Formula
 /// C/ℓ = π·ε₀·ε_r / acosh(s/d)   (Ramo, Whinnery, Van Duzer 1994, Table 5.11, parallel-wire
-/// line; the air line's impedance is then Z₀ = 120·acosh(s/d) Ω). It is half of
+/// line; the air line's impedance is then Z₀ = (η₀/π)·acosh(s/d) ≈ 119.9·acosh(s/d) Ω). It is half of
 /// [`wire_over_plane_per_length`] with h = s/2, r = d/2: the plane midway between the wires is
 /// an equipotential, and the two halves are in series. For s ≫ d, acosh(s/d) → ln(2s/d).
 /// Requires s > d (wires not touching).
