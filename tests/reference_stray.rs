@@ -237,6 +237,7 @@ fn inputs_for(construction: Construction) -> StrayInputs {
             law: JunctionLaw::new(2.0e-12, 0.7, 0.4),
             reverse_bias: 5.0,
             spread: 0.3,
+            coupling: None,
         }),
         divider: Some(DividerLayout {
             upper: 10e-12,

@@ -128,17 +128,25 @@ impl EvaluateRequest {
 /// Run `evaluate` on the words after the subcommand; Ok(stdout) or Err(one-line message).
 pub fn run_evaluate(words: Vec<String>) -> Result<String, String> {
     let args = Args::parse(words, &["json"]).map_err(|e| e.to_string())?;
+    // The stray, junction and drift flags are read first, so the coil's reader sees them used.
+    let extras = super::stray_flags::Extras::from_args(&args).map_err(|e| e.to_string())?;
     let req = match args.text("recipe") {
         Some(file) => super::recipe_args::request_from_recipe(&args, file)?,
         None => EvaluateRequest::from_args(&args).map_err(|e| e.to_string())?,
     };
-    let analysis = crate::model::evaluate(&req.winding, &req.tank, &req.conditions)
+    // With a junction given, the tank's resonance includes its capacitance at the bias.
+    let mut tank = req.tank;
+    tank.stray += extras.junction_across_tank();
+    let analysis = crate::model::evaluate(&req.winding, &tank, &req.conditions)
         .map_err(|e| format!("invalid input: {e}"))?;
+    let more = super::stray_flags::ExtraFigures::compute(&extras, &req, &analysis)?;
     Ok(if req.json {
-        let mut s = super::json::analysis_json(&analysis).to_string();
+        let mut v = super::json::analysis_json(&analysis);
+        more.add_json(&mut v);
+        let mut s = v.to_string();
         s.push('\n');
         s
     } else {
-        super::text::analysis_report(&analysis)
+        super::text::analysis_report(&analysis) + &more.text()
     })
 }

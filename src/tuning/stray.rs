@@ -117,9 +117,27 @@ pub enum PartKind {
     Trimmer,
     /// The fixed capacitor, with its tolerance.
     FixedCapacitor,
+    /// A stray figure entered by hand.
+    EnteredStray,
 }
 
 impl PartKind {
+    /// Every part, in the order drawn.
+    pub const ALL: [PartKind; 12] = [
+        PartKind::SelfCapacitance,
+        PartKind::CoilToGround,
+        PartKind::LeadToGround,
+        PartKind::LeadToLead,
+        PartKind::PadsAndTraces,
+        PartKind::NeighbourStrips,
+        PartKind::DeviceJunction,
+        PartKind::DeviceInput,
+        PartKind::FeedbackDivider,
+        PartKind::Trimmer,
+        PartKind::FixedCapacitor,
+        PartKind::EnteredStray,
+    ];
+
     /// Short name for tables and bars.
     pub fn label(self) -> &'static str {
         match self {
@@ -134,6 +152,7 @@ impl PartKind {
             PartKind::FeedbackDivider => "feedback divider",
             PartKind::Trimmer => "trimmer",
             PartKind::FixedCapacitor => "fixed capacitor",
+            PartKind::EnteredStray => "stray as entered",
         }
     }
 
@@ -151,6 +170,7 @@ impl PartKind {
             PartKind::FeedbackDivider => "feedback_divider",
             PartKind::Trimmer => "trimmer",
             PartKind::FixedCapacitor => "fixed_capacitor",
+            PartKind::EnteredStray => "entered_stray",
         }
     }
 }
@@ -231,6 +251,9 @@ pub struct DeviceJunction {
     pub reverse_bias: f64,
     /// Part-to-part spread of Cj0, as a fraction (e.g. 0.3).
     pub spread: f64,
+    /// Series coupling capacitor between the junction and the tank, farads (None: the
+    /// junction sits directly across the tank).
+    pub coupling: Option<f64>,
 }
 
 /// The feedback divider and the device input across its lower capacitor.
@@ -269,6 +292,9 @@ pub struct StrayInputs {
     pub trimmer: Option<Span>,
     /// The fixed capacitor's nominal value, farads, and its tolerance as a fraction.
     pub fixed: Option<(f64, f64)>,
+    /// A stray figure entered by hand (the tank's own stray term), farads: shown as a part of
+    /// its own when above zero.
+    pub entered_stray: f64,
 }
 
 /// Medhurst's stated accuracy for the self-capacitance, ± fraction (Medhurst 1947).
@@ -415,7 +441,8 @@ pub fn estimate_stray(inputs: &StrayInputs) -> StrayEstimate {
         );
     }
     if let Some(j) = inputs.junction {
-        let c = j.law.capacitance(j.reverse_bias);
+        let cj = j.law.capacitance(j.reverse_bias);
+        let c = j.coupling.map_or(cj, |cc| series(cj, cc));
         push(
             PartKind::DeviceJunction,
             Role::Stray,
@@ -459,6 +486,14 @@ pub fn estimate_stray(inputs: &StrayInputs) -> StrayEstimate {
             Role::Tank,
             Span::relative(c, tol),
             "the fixed capacitor with its tolerance",
+        );
+    }
+    if inputs.entered_stray > 0.0 {
+        push(
+            PartKind::EnteredStray,
+            Role::Stray,
+            Span::exact(inputs.entered_stray),
+            "the stray figure as entered",
         );
     }
     StrayEstimate { parts }
