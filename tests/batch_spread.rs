@@ -168,3 +168,54 @@ fn band_over_lengths_holds_the_curve() {
         assert!(lo < f && f < hi, "length {l}: {lo} {f} {hi}");
     }
 }
+
+/// The band at the coil's own length is the point spread's central 95 %: the same seed draws
+/// the same builds in the same order, one through the batch path and one point by point.
+#[test]
+fn band_at_the_coil_length_is_the_point_spread() {
+    let c = coil(6e-3, 1e-3, 5.0, 8e-3, 5e-3);
+    let cond = Conditions::default();
+    let band = spread_band(&c, &TANK, &cond, &demo_tolerances(), &[c.length], 1000, 11);
+    let point = spread(&c, &TANK, &cond, &demo_tolerances(), 1000, 11);
+    let [_, lo, hi] = band[0];
+    assert!(
+        ((lo - point.expected.0) / lo).abs() < 1e-9,
+        "{lo} vs {:?}",
+        point.expected
+    );
+    assert!(
+        ((hi - point.expected.1) / hi).abs() < 1e-9,
+        "{hi} vs {:?}",
+        point.expected
+    );
+}
+
+/// Medhurst's table found without a search: a fine sweep of l/D from below the table's first
+/// entry (0.1) to beyond its last (50), so every segment, every boundary and both extended
+/// ends are crossed, equal to the per-point path (which searches).
+#[test]
+fn batch_crosses_every_medhurst_segment() {
+    let cond = Conditions::default();
+    let mut columns = SweepColumns::default();
+    // Former 60 mm, 2 turns of 2 mm wire: close-wound l/D ≈ 0.07.
+    let wide = coil(60e-3, 2e-3, 2.0, 5e-3, 0.0);
+    // Former 1.2 mm, 10 turns of 0.3 mm wire: l/D up to 70 at 105 mm.
+    let slim = coil(1.2e-3, 0.3e-3, 10.0, 4e-3, 0.0);
+    for (c, longest) in [(&wide, 0.9), (&slim, 105e-3)] {
+        let lengths = lengths_for(c, 5000, longest);
+        let ld_first = lengths[0] / c.mean_diameter;
+        let ld_last = lengths[lengths.len() - 1] / c.mean_diameter;
+        let mut out = vec![0.0; lengths.len()];
+        let path = resonance_over_lengths(c, 10e-12, &cond, &lengths, &mut out, &mut columns);
+        assert_eq!(path, BatchPath::Columns);
+        for (&l, &f) in lengths.iter().zip(&out) {
+            let want = resonance_of(&c.with_length(l), 10e-12, &cond);
+            assert!(
+                ((f - want) / want).abs() < 1e-9,
+                "l/D {}: {f} vs {want}",
+                l / c.mean_diameter
+            );
+        }
+        assert!(ld_first < 0.1 || ld_last > 50.0, "{ld_first}–{ld_last}");
+    }
+}

@@ -93,12 +93,21 @@ impl SweepColumns {
     }
 }
 
-/// Medhurst's table as the batch uses it: the l/D of each entry, H, and the logarithms.
+/// Bins of equal width in ln(l/D) over Medhurst's table, for finding the segment without a
+/// search: each bin (width ln 500/128 ≈ 0.049) is narrower than the table's narrowest step in
+/// ln(l/D) (ln(1/0.9) ≈ 0.105), so a bin holds at most one entry.
+const BINS: usize = 128;
+
+/// Medhurst's table as the batch uses it: the l/D of each entry (padded with +∞), H, the
+/// logarithms, and for each bin the count of entries below the bin's start.
 struct MedhurstColumns {
-    x: [f64; 33],
+    x: [f64; 36],
     h: [f64; 33],
     ln_x: [f64; 33],
     inv_step: [f64; 33],
+    ln_start: f64,
+    bins_per_ln: f64,
+    below: [usize; BINS],
 }
 
 fn medhurst_columns() -> &'static MedhurstColumns {
@@ -106,10 +115,13 @@ fn medhurst_columns() -> &'static MedhurstColumns {
     COLS.get_or_init(|| {
         let t = medhurst::table();
         let mut c = MedhurstColumns {
-            x: [0.0; 33],
+            x: [f64::INFINITY; 36],
             h: [0.0; 33],
             ln_x: [0.0; 33],
             inv_step: [0.0; 33],
+            ln_start: 0.0,
+            bins_per_ln: 0.0,
+            below: [0; BINS],
         };
         for (i, &(x, h)) in t.iter().enumerate().take(33) {
             c.x[i] = x;
@@ -119,19 +131,31 @@ fn medhurst_columns() -> &'static MedhurstColumns {
         for i in 0..32 {
             c.inv_step[i] = 1.0 / (c.ln_x[i + 1] - c.ln_x[i]);
         }
+        c.ln_start = c.ln_x[0];
+        let width = (c.ln_x[32] - c.ln_x[0]) / BINS as f64;
+        c.bins_per_ln = 1.0 / width;
+        for (b, below) in c.below.iter_mut().enumerate() {
+            let start = (c.ln_start + b as f64 * width).exp();
+            *below = t.partition_point(|&(x, _)| x < start);
+        }
         c
     })
 }
 
-/// Medhurst's factor from l/D and its logarithm, branch-free: the segment is found by counting
-/// the table entries below x (what [`medhurst::factor`]'s search finds), then interpolated in
+/// Medhurst's factor from l/D and its logarithm, branch-free: the segment is the count of
+/// table entries below x (what [`medhurst::factor`]'s search finds), taken from the count
+/// below the bin's start, less one, plus three comparisons (one for the entry the bin may
+/// hold, two spare for a bin misplaced by rounding at either edge), then interpolated in
 /// ln(l/D) exactly as there.
 #[inline(always)]
 fn medhurst_factor(t: &MedhurstColumns, x: f64, ln_x: f64) -> f64 {
-    let mut below = 0usize;
-    for &tx in &t.x {
-        below += usize::from(tx < x);
-    }
+    // `as usize` saturates: below the table gives bin 0 (NaN too), above it the last bin.
+    let bin = (((ln_x - t.ln_start) * t.bins_per_ln) as usize).min(BINS - 1);
+    let base = t.below[bin].saturating_sub(1);
+    let below = base
+        + usize::from(t.x[base] < x)
+        + usize::from(t.x[base + 1] < x)
+        + usize::from(t.x[base + 2] < x);
     let i = below.clamp(1, 32);
     let (h0, h1) = (t.h[i - 1], t.h[i]);
     let s = (ln_x - t.ln_x[i - 1]) * t.inv_step[i - 1];

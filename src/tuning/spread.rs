@@ -293,18 +293,24 @@ pub fn spread_band(
         resonance_over_lengths(&c, external, conditions, &shifted, row, &mut columns);
     }
     let mut column = vec![0.0; draws];
+    let index = |p: f64| ((p * (draws.max(1) - 1) as f64).round() as usize).min(draws.max(1) - 1);
+    let (k_low, k_high) = (index(0.025), index(0.975));
     lengths
         .iter()
         .enumerate()
         .map(|(j, &l)| {
+            if draws == 0 {
+                return [l, f64::NAN, f64::NAN];
+            }
             for (i, v) in column.iter_mut().enumerate() {
                 *v = grid[i * m + j];
             }
-            [
-                l,
-                percentile(&mut column, 0.025),
-                percentile(&mut column, 0.975),
-            ]
+            // The high percentile first; the low one is then in the part below it.
+            let high = *column.select_nth_unstable_by(k_high, f64::total_cmp).1;
+            let low = *column[..k_high.max(1)]
+                .select_nth_unstable_by(k_low.min(k_high.max(1) - 1), f64::total_cmp)
+                .1;
+            [l, low, high]
         })
         .collect()
 }
