@@ -278,28 +278,35 @@ pub fn resonance_over_lengths(
     columns.resize(n);
     let c = columns;
 
-    // Pass 1 (scalar: the logarithm is a library call): ln l for k_s and Medhurst's factor,
-    // the tank capacitance with the self-capacitance, and the AGM's start.
-    let mut shortest = f64::INFINITY;
-    for i in 0..n {
-        let l = lengths[i];
-        let ln_l = l.ln();
-        let h_factor = medhurst_factor(med, l * inv_d, ln_l - ln_d);
-        c.capacitance[i] = external_capacitance + h_factor * d * 1e-10;
-        // Rosa's correction at χ = 0 (k_s = offset − ln l), kept in `bare` until the sheet
-        // is known.
-        c.bare[i] = s.rosa_scale * (s.k_s_offset - ln_l + s.k_m);
-        c.mean[i] = (d2 + l * l).sqrt();
-        c.geo[i] = l;
-        c.sum[i] = 0.5 * d2;
-        shortest = shortest.min(l);
+    // Pass 1 (scalar: the logarithm is a library call and Medhurst's table a lookup): ln l
+    // for k_s and Medhurst's factor, giving the tank capacitance with the self-capacitance
+    // and Rosa's correction at χ = 0 (k_s = offset − ln l, kept in `bare` until the sheet is
+    // known).
+    {
+        let (cap, bare) = (&mut c.capacitance[..n], &mut c.bare[..n]);
+        for i in 0..n {
+            let l = lengths[i];
+            let ln_l = l.ln();
+            let h_factor = medhurst_factor(med, l * inv_d, ln_l - ln_d);
+            cap[i] = external_capacitance + h_factor * d * 1e-10;
+            bare[i] = s.rosa_scale * (s.k_s_offset - ln_l + s.k_m);
+        }
     }
+    // The extremes are taken in separate folds, so that the passes themselves carry no
+    // reduction and vectorise.
+    let shortest = lengths.iter().copied().fold(f64::INFINITY, f64::min);
 
-    // Pass 2: the AGM, the same number of rounds for every element.
+    // Pass 2: the AGM from h = √(D² + l²) and l, the same number of rounds for every element.
     let rounds = agm_rounds(d2, shortest);
-    let mut weight = 0.5_f64;
     {
         let (mean, geo, sum) = (&mut c.mean[..n], &mut c.geo[..n], &mut c.sum[..n]);
+        for i in 0..n {
+            let l = lengths[i];
+            mean[i] = (d2 + l * l).sqrt();
+            geo[i] = l;
+            sum[i] = 0.5 * d2;
+        }
+        let mut weight = 0.5_f64;
         for _ in 0..rounds {
             weight *= 2.0;
             for i in 0..n {
@@ -313,25 +320,24 @@ pub fn resonance_over_lengths(
     }
 
     // Pass 3: the exact sheet, the driving inductance at χ = 0, the skin-depth gain.
-    let gain_scale = s.depth_scale;
-    let mut l0_min = f64::INFINITY;
-    let mut l0_max = 0.0_f64;
-    let mut gain_max = 0.0_f64;
-    for i in 0..n {
-        let l = lengths[i];
-        let l2 = l * l;
-        let h2 = d2 + l2;
-        let m = c.mean[i];
-        let bracket = 2.0 * PI * (h2 * d2 + c.sum[i] * (l2 - d2)) - 4.0 * d2 * d * m;
-        let sheet = bracket / (l2 * m) * s.sheet_scale;
-        let l0 = sheet - c.bare[i] + s.leads_surface;
-        c.bare[i] = l0;
-        let g = gain_scale * c.capacitance[i].sqrt().sqrt();
-        c.gain[i] = g;
-        l0_min = l0_min.min(l0);
-        l0_max = l0_max.max(l0);
-        gain_max = gain_max.max(g);
+    {
+        let gain_scale = s.depth_scale;
+        let (mean, sum, cap) = (&c.mean[..n], &c.sum[..n], &c.capacitance[..n]);
+        let (bare, gain) = (&mut c.bare[..n], &mut c.gain[..n]);
+        for i in 0..n {
+            let l = lengths[i];
+            let l2 = l * l;
+            let h2 = d2 + l2;
+            let m = mean[i];
+            let bracket = 2.0 * PI * (h2 * d2 + sum[i] * (l2 - d2)) - 4.0 * d2 * d * m;
+            let sheet = bracket / (l2 * m) * s.sheet_scale;
+            bare[i] = sheet - bare[i] + s.leads_surface;
+            gain[i] = gain_scale * cap[i].sqrt().sqrt();
+        }
     }
+    let l0_min = c.bare.iter().copied().fold(f64::INFINITY, f64::min);
+    let l0_max = c.bare.iter().copied().fold(0.0, f64::max);
+    let gain_max = c.gain.iter().copied().fold(0.0, f64::max);
 
     let Some(solve) = solve_rounds(s.slope, l0_min, l0_max, gain_max) else {
         per_point_lengths(coil, external_capacitance, conditions, lengths, out);
