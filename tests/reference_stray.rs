@@ -383,3 +383,36 @@ fn drift_budget_directions_sum_and_class() {
         .expect("line");
     assert_eq!(c0g.shift, 0.0);
 }
+
+/// Inputs the formulas cannot take are refused, naming the field.
+#[test]
+fn stray_inputs_that_cannot_be_used_are_refused() {
+    let mut inputs = inputs_for(Construction::CopperClad);
+    assert!(inputs.check().is_ok());
+    inputs.coil_axis_height = Some(Span::new(1e-3, 2e-3, 3e-3));
+    let e = inputs.check().expect_err("coil in the plane");
+    assert!(e.0.contains("coil height"), "{e}");
+    let mut inputs = inputs_for(Construction::CopperClad);
+    if let Some(l) = inputs.leads.as_mut() {
+        l.spacing = Span::new(0.5e-3, 5e-3, 6e-3);
+    }
+    assert!(
+        inputs
+            .check()
+            .expect_err("leads touch")
+            .0
+            .contains("lead spacing")
+    );
+    let mut inputs = inputs_for(Construction::CopperClad);
+    inputs.trimmer = Some(Span::new(3e-12, 2e-12, 4e-12));
+    assert!(
+        inputs
+            .check()
+            .expect_err("out of order")
+            .0
+            .contains("trimmer")
+    );
+    for c in Construction::ALL {
+        assert!(inputs_for(c).check().is_ok(), "{c:?}");
+    }
+}

@@ -239,6 +239,7 @@ impl ExtraFigures {
                 coupling: j.modulator.coupling,
             });
         }
+        inputs.check().map_err(|e| format!("invalid input: {e}"))?;
         let estimate = estimate_stray(&inputs);
         let window = frequency_window(&coil, &req.conditions, &estimate);
         let other = req.tank.external_capacitance();

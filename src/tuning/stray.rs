@@ -338,7 +338,94 @@ impl StrayEstimate {
     }
 }
 
-/// Estimate the tank's capacitance part by part.
+/// Why a stray estimate's inputs cannot be used: the field, in words.
+#[derive(Clone, Debug, PartialEq)]
+pub struct StrayInputError(pub String);
+
+impl std::fmt::Display for StrayInputError {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        f.write_str(&self.0)
+    }
+}
+
+impl std::error::Error for StrayInputError {}
+
+/// Check a span: finite, not negative, ordered.
+fn check_span(what: &str, s: Span) -> Result<(), StrayInputError> {
+    let finite = s.low.is_finite() && s.typical.is_finite() && s.high.is_finite();
+    if !finite || s.low < 0.0 || !s.is_ordered() {
+        return Err(StrayInputError(format!(
+            "{what}: low {:e}, typical {:e}, high {:e} must be numbers, not negative, in order",
+            s.low, s.typical, s.high
+        )));
+    }
+    Ok(())
+}
+
+impl StrayInputs {
+    /// Refuse inputs the formulas cannot take, naming the field: spans out of order or
+    /// negative, a coil or lead touching the plane (height at or below its radius), leads
+    /// touching each other, a board of no thickness.
+    pub fn check(&self) -> Result<(), StrayInputError> {
+        if let Some(h) = self.coil_axis_height {
+            check_span("coil height over the plane", h)?;
+            if h.low <= 0.5 * self.coil_mean_diameter {
+                return Err(StrayInputError(format!(
+                    "coil height over the plane {:.2} mm must exceed the coil's radius {:.2} mm",
+                    h.low * 1e3,
+                    0.5 * self.coil_mean_diameter * 1e3
+                )));
+            }
+        }
+        if let Some(l) = self.leads {
+            check_span("lead length", l.length)?;
+            check_span("lead spacing", l.spacing)?;
+            if let Some(h) = l.height {
+                check_span("lead height", h)?;
+                if h.low <= 0.5 * l.wire_diameter {
+                    return Err(StrayInputError(format!(
+                        "lead height {:.2} mm must exceed the wire's radius",
+                        h.low * 1e3
+                    )));
+                }
+            }
+            if l.spacing.low <= l.wire_diameter {
+                return Err(StrayInputError(format!(
+                    "lead spacing {:.2} mm must exceed the wire diameter {:.2} mm",
+                    l.spacing.low * 1e3,
+                    l.wire_diameter * 1e3
+                )));
+            }
+        }
+        if let Some(p) = self.pads {
+            check_span("pad area", p.area)?;
+            check_span("board permittivity", p.relative_permittivity)?;
+            if !(p.board_thickness > 0.0 && p.width > 0.0) {
+                return Err(StrayInputError(
+                    "board thickness and pad width must be above zero".to_owned(),
+                ));
+            }
+        }
+        if let Some(j) = self.junction {
+            let law = j.law;
+            if !(law.cj0 > 0.0 && law.contact_potential > 0.0 && law.grading > 0.0)
+                || j.reverse_bias < 0.0
+            {
+                return Err(StrayInputError(
+                    "junction: Cj0, φ and m must be above zero and the bias reverse (0 V or more)"
+                        .to_owned(),
+                ));
+            }
+        }
+        if let Some(t) = self.trimmer {
+            check_span("trimmer", t)?;
+        }
+        Ok(())
+    }
+}
+
+/// Estimate the tank's capacitance part by part (call [`StrayInputs::check`] first: inputs it
+/// refuses give infinite or NaN parts here).
 pub fn estimate_stray(inputs: &StrayInputs) -> StrayEstimate {
     let mut parts = Vec::new();
     let mut push = |kind, role, value: Span, method| {
