@@ -74,6 +74,36 @@ fn junction_law_matches_ngspice_operating_point() {
     }
 }
 
+/// The junction's temperature law against ngspice: the same diode at 3 V reverse at 77 °C and
+/// −13 °C (TNOM 27 °C), ngspice's `@d1[cd]` against `JunctionLaw::at_temperature`, within its
+/// seven printed figures.
+#[test]
+fn junction_temperature_law_matches_ngspice() {
+    let model = parse_model(DIODE_MODEL).expect("model reads");
+    let temps = [27.0, 77.0, -13.0, 45.0];
+    let mut net = String::from("junction temperature check\nV1 k 0 DC 3\nD1 0 k LHVAR\n");
+    net.push_str(DIODE_MODEL);
+    net.push_str("\n.control\n");
+    for t in temps {
+        net.push_str(&format!("set temp={t}\nop\nprint @d1[cd]\n"));
+    }
+    net.push_str(".endc\n.end\n");
+    let values = ngspice_values(&net);
+    let cd: Vec<f64> = values
+        .iter()
+        .filter(|(k, _)| k == "@d1[cd]")
+        .map(|p| p.1)
+        .collect();
+    assert_eq!(cd.len(), temps.len(), "ngspice printed {values:?}");
+    for (t, spice) in temps.iter().zip(cd) {
+        let ours = model.law.at_temperature(27.0, *t).capacitance(3.0);
+        assert!(
+            ((ours - spice) / spice).abs() < 1e-6,
+            "{t} °C: ours {ours:e}, ngspice {spice:e}"
+        );
+    }
+}
+
 #[test]
 fn model_reader_takes_continuations_suffixes_and_lists_the_rest() {
     let m = parse_model(DIODE_MODEL).expect("reads");

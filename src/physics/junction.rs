@@ -20,10 +20,6 @@ pub struct JunctionLaw {
 /// SPICE's default forward-bias coefficient FC.
 pub const DEFAULT_FORWARD_KNEE: f64 = 0.5;
 
-/// Rate at which a silicon junction's contact potential falls with temperature, V/K
-/// (about −2 mV/K: common practice). It makes the junction capacitance rise when warm.
-pub const CONTACT_POTENTIAL_SLOPE: f64 = -2e-3;
-
 impl JunctionLaw {
     /// A law with SPICE's default forward-bias coefficient.
     pub fn new(cj0: f64, contact_potential: f64, grading: f64) -> Self {
@@ -70,19 +66,39 @@ impl JunctionLaw {
         }
     }
 
-    /// The same junction warmer by `delta_t` kelvin.
+    /// The same junction at `temperature_c` when its parameters hold at `nominal_c` (°C).
     ///
     /// # Formula
-    /// φ(T) = φ + (dφ/dT)·ΔT with dφ/dT = [`CONTACT_POTENTIAL_SLOPE`] (common practice), and
-    /// Cj0(T) = Cj0·(1 + m·(4·10⁻⁴·ΔT − Δφ/φ)), the zero-bias scaling of the SPICE2 diode
-    /// model (P. Antognetti, G. Massobrio, *Semiconductor Device Modeling with SPICE*, 2nd ed.
-    /// 1993, ch. 1; from memory). A first-order estimate for a few tens of kelvin.
-    pub fn at_temperature_offset(&self, delta_t: f64) -> Self {
-        let d_phi = CONTACT_POTENTIAL_SLOPE * delta_t;
+    /// The SPICE diode model's temperature law (Berkeley SPICE3 and ngspice; P. Antognetti,
+    /// G. Massobrio, *Semiconductor Device Modeling with SPICE*, 2nd ed. 1993, ch. 1), with
+    /// T_ref = 300.15 K, V_t = kT/q and the silicon gap E_g(T) = 1.16 − 7.02·10⁻⁴·T²/(T + 1108) eV:
+    /// pbfact(T) = −2·V_t·(1.5·ln(T/T_ref) + q·(−E_g(T)/(2kT) + 1.1150877/(2k·T_ref))),
+    /// φ₀ = (φ − pbfact(T_nom))/(T_nom/T_ref), φ(T) = pbfact(T) + (T/T_ref)·φ₀,
+    /// Cj0(T) = Cj0·(1 + m·(4·10⁻⁴·(T − T_ref) − (φ(T) − φ₀)/φ₀))
+    ///             /(1 + m·(4·10⁻⁴·(T_nom − T_ref) − (φ − φ₀)/φ₀)).
+    /// The contact potential falls by about 2 mV/K and the capacitance rises; the tests hold
+    /// this to ngspice's operating point at other temperatures.
+    pub fn at_temperature(&self, nominal_c: f64, temperature_c: f64) -> Self {
+        const K: f64 = 1.380_649e-23;
+        const Q: f64 = 1.602_176_634e-19;
+        const T_REF: f64 = 300.15;
+        let kelvin = |c: f64| c + 273.15;
+        let (t, t_nom) = (kelvin(temperature_c), kelvin(nominal_c));
+        let gap = |t: f64| 1.16 - 7.02e-4 * t * t / (t + 1108.0);
+        let pbfact = |t: f64| {
+            let vt = K * t / Q;
+            let arg = -gap(t) / (2.0 * K * t) + 1.115_087_7 / (2.0 * K * T_REF);
+            -2.0 * vt * (1.5 * (t / T_REF).ln() + Q * arg)
+        };
         let phi = self.contact_potential;
+        let m = self.grading;
+        let phi0 = (phi - pbfact(t_nom)) / (t_nom / T_REF);
+        let phi_t = pbfact(t) + (t / T_REF) * phi0;
+        let old = 1.0 + m * (4e-4 * (t_nom - T_REF) - (phi - phi0) / phi0);
+        let new = 1.0 + m * (4e-4 * (t - T_REF) - (phi_t - phi0) / phi0);
         Self {
-            cj0: self.cj0 * (1.0 + self.grading * (4e-4 * delta_t - d_phi / phi)),
-            contact_potential: phi + d_phi,
+            cj0: self.cj0 / old * new,
+            contact_potential: phi_t,
             ..*self
         }
     }

@@ -174,8 +174,9 @@ fn scaled(coil: &Coil, k: f64) -> Coil {
 /// supply — the junction's bias scaled by (V_s + ΔV_s)/V_s (the bias divider follows the
 /// supply); coil — every dimension × (1 + α_Cu·ΔT) with α_Cu = 16.5·10⁻⁶/K, and the wire's
 /// resistivity at the new temperature; fixed capacitor — C × (1 + TC·ΔT) with the class's
-/// nominal TC (IEC 60384-8 / EIA-198); junction — the law warmed by ΔT
-/// ([`crate::physics::junction::JunctionLaw::at_temperature_offset`]); hand and load — their
+/// nominal TC (IEC 60384-8 / EIA-198); junction — the law warmed by ΔT by SPICE's
+/// temperature law ([`crate::physics::junction::JunctionLaw::at_temperature`], its
+/// parameters taken at the working temperature); hand and load — their
 /// capacitance added across the tank.
 pub fn drift_budget(
     coil: &Coil,
@@ -216,7 +217,9 @@ pub fn drift_budget(
     });
     if let Some((m, bias)) = tank.junction {
         let warm_m = Modulator {
-            law: m.law.at_temperature_offset(dt),
+            law: m
+                .law
+                .at_temperature(conditions.temperature_c, conditions.temperature_c + dt),
             ..m
         };
         lines.push(DriftLine {
