@@ -103,5 +103,25 @@ fn sweep(c: &mut Criterion) {
     });
 }
 
-criterion_group!(benches, sweep);
+/// Where `spread_band`'s time goes (no budgets): the two percentiles of one length's 1000
+/// draws, as the band takes them for each of its 240 lengths.
+fn parts(c: &mut Criterion) {
+    let mut g = c.benchmark_group("parts");
+    // 1000 values in a scrambled order, like one length's draws.
+    let values: Vec<f64> = (0..1000u64)
+        .map(|i| ((i * 7919) % 1000) as f64 * 1e3 + 98e6)
+        .collect();
+    let mut column = values.clone();
+    g.bench_function("band_percentiles_one_length", |b| {
+        b.iter(|| {
+            column.copy_from_slice(&values);
+            let high = *column.select_nth_unstable_by(975, f64::total_cmp).1;
+            let low = *column[..975].select_nth_unstable_by(25, f64::total_cmp).1;
+            black_box((low, high))
+        })
+    });
+    g.finish();
+}
+
+criterion_group!(benches, sweep, parts);
 criterion_main!(benches);
