@@ -293,3 +293,36 @@ fn service_limits_and_advice() {
     assert!(narrow.advice[0].contains("lower the audio level"));
     assert!(!out.forward_on_peaks);
 }
+
+/// The chart sweeps are the point figures: the carrier at each bias and the deviations at each
+/// audio peak equal `modulation`'s (the batch path against the per-point one: within 1e-9 of
+/// the carrier).
+#[test]
+fn chart_sweeps_match_the_point_figures() {
+    use tankwright::tuning::modulation::{carrier_over_bias, deviation_over_audio};
+    let coil = demo_coil();
+    let cond = Conditions::default();
+    let m = collector_base();
+    let biases: Vec<f64> = (0..40).map(|i| 0.5 + 0.25 * i as f64).collect();
+    for [v, f] in carrier_over_bias(&coil, 18e-12, &cond, &m, &biases) {
+        let want = resonance_of(&coil, 18e-12 + m.across_tank(v), &cond);
+        assert!(((f - want) / want).abs() < 1e-9);
+    }
+    let peaks = [0.1, 0.5, 1.0, 2.0];
+    for [p, up, down] in deviation_over_audio(&coil, 18e-12, &cond, &m, 4.0, &peaks) {
+        let point = modulation(
+            &coil,
+            18e-12,
+            &cond,
+            &ModulationInputs {
+                modulator: m,
+                bias_v: 4.0,
+                audio_peak_v: p,
+                audio_max_hz: 15e3,
+            },
+        );
+        let tol = 1e-9 * point.carrier;
+        assert!((up - point.deviation_up).abs() < tol, "{p} V up");
+        assert!((down - point.deviation_down).abs() < tol, "{p} V down");
+    }
+}

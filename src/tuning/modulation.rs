@@ -232,3 +232,63 @@ pub fn judge(m: &Modulation, service: Service) -> ModulationVerdict {
         advice,
     }
 }
+
+/// The carrier against the junction's reverse bias, for a chart: (bias volts, hertz) at each
+/// of `biases`, through the batch path over capacitances.
+pub fn carrier_over_bias(
+    coil: &Coil,
+    other_capacitance: f64,
+    conditions: &Conditions,
+    modulator: &Modulator,
+    biases: &[f64],
+) -> Vec<[f64; 2]> {
+    let caps: Vec<f64> = biases
+        .iter()
+        .map(|&v| other_capacitance + modulator.across_tank(v))
+        .collect();
+    let mut out = vec![0.0; caps.len()];
+    let mut columns = crate::model::batch::SweepColumns::default();
+    crate::model::batch::resonance_over_capacitances(
+        coil,
+        conditions,
+        &caps,
+        &mut out,
+        &mut columns,
+    );
+    biases.iter().zip(out).map(|(&v, f)| [v, f]).collect()
+}
+
+/// The peak deviations against the audio's peak voltage, for a chart: (peak volts, upward
+/// hertz, downward hertz) at each of `peaks`, at `bias_v`.
+pub fn deviation_over_audio(
+    coil: &Coil,
+    other_capacitance: f64,
+    conditions: &Conditions,
+    modulator: &Modulator,
+    bias_v: f64,
+    peaks: &[f64],
+) -> Vec<[f64; 3]> {
+    // Carrier first, then each peak's two capacitances, in one batch.
+    let mut caps = Vec::with_capacity(1 + 2 * peaks.len());
+    caps.push(other_capacitance + modulator.across_tank(bias_v));
+    for &p in peaks {
+        let p = p.abs();
+        caps.push(other_capacitance + modulator.across_tank(bias_v + p));
+        caps.push(other_capacitance + modulator.across_tank(bias_v - p));
+    }
+    let mut out = vec![0.0; caps.len()];
+    let mut columns = crate::model::batch::SweepColumns::default();
+    crate::model::batch::resonance_over_capacitances(
+        coil,
+        conditions,
+        &caps,
+        &mut out,
+        &mut columns,
+    );
+    let carrier = out[0];
+    peaks
+        .iter()
+        .enumerate()
+        .map(|(i, &p)| [p.abs(), out[1 + 2 * i] - carrier, carrier - out[2 + 2 * i]])
+        .collect()
+}
