@@ -202,12 +202,18 @@ fn aim_from_args(args: &Args) -> Result<Aim, ArgError> {
 /// Run `evaluate` on the words after the subcommand; Ok(stdout) or Err(one-line message).
 pub fn run_evaluate(words: Vec<String>) -> Result<String, String> {
     let args = Args::parse(words, &["json"]).map_err(|e| e.to_string())?;
+    // The stray, junction and drift flags are read first, so the coil's reader sees them used.
+    let extras = super::stray_flags::Extras::from_args(&args).map_err(|e| e.to_string())?;
     let req = match args.text("recipe") {
         Some(file) => super::recipe_args::request_from_recipe(&args, file)?,
         None => EvaluateRequest::from_args(&args).map_err(|e| e.to_string())?,
     };
-    let analysis = crate::model::evaluate(&req.winding, &req.tank, &req.conditions)
+    // With a junction given, the tank's resonance includes its capacitance at the bias.
+    let mut tank = req.tank;
+    tank.stray += extras.junction_across_tank();
+    let analysis = crate::model::evaluate(&req.winding, &tank, &req.conditions)
         .map_err(|e| format!("invalid input: {e}"))?;
+    let more = super::stray_flags::ExtraFigures::compute(&extras, &req, &analysis)?;
     let coil = crate::model::Coil::from_winding(&req.winding)
         .map_err(|e| format!("invalid input: {e}"))?;
     let verdict = judge(&coil, &req.tank, &req.conditions, &req.aim);
@@ -222,6 +228,7 @@ pub fn run_evaluate(words: Vec<String>) -> Result<String, String> {
                 analysis.resonance,
             ),
         );
+        more.add_json(&mut object);
         let mut s = object.to_string();
         s.push('\n');
         s
@@ -229,6 +236,7 @@ pub fn run_evaluate(words: Vec<String>) -> Result<String, String> {
         let mut s = super::verdict::verdict_lines(&verdict).join("\n");
         s.push_str("\n\n");
         s.push_str(&super::text::analysis_report(&analysis));
+        s.push_str(&more.text());
         s
     })
 }

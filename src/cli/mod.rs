@@ -10,6 +10,7 @@ mod impedance;
 mod json;
 mod recipe_args;
 mod report;
+mod stray_flags;
 mod text;
 mod verdict;
 
@@ -93,4 +94,23 @@ impedance flags (besides the coil flags above):
   --points N             frequencies, log-spaced (default 40, at most 2000)
   the leads run straight from the coil's ends to the board and the loop closes beneath the
   coil; --lead-mm 0 gives the isolated coil with its two ends as the terminals
+
+stray estimate (adds stray_breakdown_pf and resonance_range_mhz):
+  --construction NAME    copper-clad | ground-plane-board | stripboard | perfboard | breadboard
+  --capacitance-tolerance-pct T   the fixed capacitor's tolerance (default 5)
+
+modulating junction (adds modulation; the tank then includes the junction at its bias):
+  --junction-cj0-pf C --junction-vj V --junction-m M   the law Cj0/(1 + V/phi)^m
+  --junction-model '.model NAME D(CJO=.. VJ=.. M=..)'  or a SPICE line (D, NPN, PNP)
+  --bias-v V             the junction's DC reverse bias
+  --audio-peak-v A       audio peak voltage at the junction (default 0)
+  --coupling-pf C        series coupling capacitor (absent: junction straight across the tank)
+  --audio-max-khz F      highest audio frequency for Carson's bandwidth (default 15)
+
+drift budget (adds drift):
+  --supply-v V --supply-change-v D   supply and its change (default 9 and -2)
+  --temperature-change-k K           (default 20)
+  --capacitor-class C0G|N750|...     the fixed capacitor's class (default C0G)
+  --hand-pf H --load-change-pf L     (defaults 1 and 0.5)
+  --channel-tolerance-khz T          how far the carrier may move (default 50)
 ";

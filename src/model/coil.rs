@@ -290,6 +290,67 @@ impl Coil {
         (length / self.turns - self.wire_overall).max(0.0)
     }
 
+    /// The coil with its former, bare wire, turns and length moved by the given amounts (the
+    /// insulation's build kept), for tolerance studies. The length is raised to the new
+    /// shortest length when the change would make the turns overlap (a coil cannot be wound
+    /// shorter); the result is checked as [`Coil::from_winding`] checks it.
+    pub fn varied(
+        &self,
+        d_former: f64,
+        d_wire: f64,
+        d_turns: f64,
+        d_length: f64,
+    ) -> Result<Self, InputError> {
+        let build = self.wire_overall - self.wire_bare;
+        let bare = within(
+            Field::Wire,
+            "bare wire diameter",
+            self.wire_bare + d_wire,
+            limits::WIRE,
+            Unit::Mm,
+        )?;
+        let overall = bare + build;
+        let former = self.former_diameter + d_former;
+        let mean = within(
+            Field::Diameter,
+            "mean diameter",
+            former + overall,
+            limits::DIAMETER,
+            Unit::Mm,
+        )?;
+        let turns = within(
+            Field::Turns,
+            "turns",
+            self.turns + d_turns,
+            limits::TURNS,
+            Unit::Count,
+        )?;
+        let base = Self {
+            mean_diameter: mean,
+            former_diameter: former,
+            wire_bare: bare,
+            wire_overall: overall,
+            turns,
+            ..*self
+        };
+        base.with_length((self.length + d_length).max(base.shortest_length()))
+    }
+
+    /// The coil with every dimension times `k` (thermal expansion: k within a few parts in
+    /// 10⁴ of 1, which keeps every check the coil passed).
+    pub fn scaled(&self, k: f64) -> Self {
+        Self {
+            mean_diameter: self.mean_diameter * k,
+            former_diameter: self.former_diameter * k,
+            wire_bare: self.wire_bare * k,
+            wire_overall: self.wire_overall * k,
+            turns: self.turns,
+            pitch: self.pitch * k,
+            length: self.length * k,
+            lead_length: self.lead_length * k,
+        }
+    }
+
     /// The same wire, diameter and leads wound with `turns` turns to `length`, checked as
     /// [`Coil::from_winding`] checks it.
     pub fn with_turns(&self, turns: f64, length: f64) -> Result<Self, InputError> {

@@ -5,6 +5,7 @@
 //! [`Analysis`] that carries its own warnings.
 
 mod analysis;
+pub mod batch;
 mod coil;
 mod error;
 pub mod evaluate;

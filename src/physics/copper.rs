@@ -11,6 +11,11 @@ pub const RESISTIVITY_20C: f64 = 1.0 / 58.0 * 1e-6;
 /// (IEC 60028: 0.00393 /K).
 pub const TEMPERATURE_COEFFICIENT: f64 = 0.00393;
 
+/// Linear thermal expansion coefficient of copper near 20 °C, per kelvin: 16.5·10⁻⁶ /K
+/// (CRC Handbook of Chemistry and Physics, "Thermal expansion of metals and alloys";
+/// value from memory). A coil's dimensions all grow by this fraction per kelvin.
+pub const LINEAR_EXPANSION: f64 = 16.5e-6;
+
 /// Resistivity of annealed copper at `temperature_c` (°C), Ω·m.
 ///
 /// # Formula
@@ -80,8 +85,9 @@ pub fn internal_inductance_fraction_at_depth_ratio(skin_depth_over_radius: f64) 
 }
 
 /// The asymptotic internal inductance fraction at v = δ/r (see `asymptotic_impedance`),
-/// clamped to [0, 1]: a polynomial in v, with no division.
-fn asymptotic_fraction(v: f64) -> f64 {
+/// clamped to [0, 1]: a polynomial in v, with no division and no branch, for batch paths.
+/// Valid for v = δ/r below 0.1 (r/δ above 10); callers check the range.
+pub fn asymptotic_fraction(v: f64) -> f64 {
     let v2 = v * v;
     let v4 = v2 * v2;
     let fraction = v * 2.0 - v2 * v * (0.375 + v * (0.375 + v * (63.0 / 256.0)))

@@ -1,0 +1,302 @@
+//! How far the built coil's frequency can land from the prediction, before any measurement:
+//! the winding's tolerances and the stray estimate's range carried to the resonance, by Monte
+//! Carlo and by linear propagation.
+//!
+//! Each tolerance is a ± bound drawn uniformly (a builder's "to within ± x"); the turns are
+//! counted to a quarter (± ¼ turn); the stray term is drawn from the triangular distribution
+//! on its low, typical and high figures. The linear propagation uses each input's standard
+//! deviation (tol/√3 for a uniform bound; √((a² + b² + c² − ab − ac − bc)/18) for the
+//! triangular) and central-difference sensitivities; the tests hold it to the Monte Carlo run.
+
+use super::stray::Span;
+use crate::model::batch::{SweepColumns, resonance_over_lengths};
+use crate::model::{Coil, Conditions, evaluate::resonance_of};
+use rand_core::{Rng, SeedableRng};
+use rand_xoshiro::Xoshiro256PlusPlus;
+
+/// The builder's tolerances (± bounds, SI) and the stray term's range.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct Tolerances {
+    /// Former diameter, ± metres.
+    pub former_diameter: f64,
+    /// Coil length, ± metres.
+    pub length: f64,
+    /// Bare wire diameter, ± metres.
+    pub wire_diameter: f64,
+    /// Turns, ± turns (a quarter when counted to a quarter).
+    pub turns: f64,
+    /// Fixed capacitor, ± fraction of its value.
+    pub fixed_fraction: f64,
+    /// The stray term: low, typical, high, farads.
+    pub stray: Span,
+}
+
+/// The tank around the coil, split as the spread needs it.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct TankParts {
+    /// The fixed capacitor's nominal value, farads.
+    pub fixed: f64,
+    /// Everything else drawn (trimmer at its setting, divider), farads; the stray term is in
+    /// [`Tolerances::stray`].
+    pub other: f64,
+}
+
+/// The spread at one coil.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct Spread {
+    /// Resonance with every input at its nominal (typical) value, hertz.
+    pub nominal: f64,
+    /// Lowest and highest of the Monte Carlo draws, hertz.
+    pub draws_range: (f64, f64),
+    /// The central 95 % of the draws (2.5th and 97.5th percentiles), hertz: "expect …".
+    pub expected: (f64, f64),
+    /// Standard deviation of the draws, hertz.
+    pub draws_sigma: f64,
+    /// Linear propagation: the mean (nominal moved by the stray's skew), hertz.
+    pub linear_mean: f64,
+    /// Linear propagation: standard deviation, hertz.
+    pub linear_sigma: f64,
+    /// Linear propagation: mean ± 1.96σ, hertz.
+    pub linear_band: (f64, f64),
+    /// Each input's share of the linear variance, in the order of [`INPUT_NAMES`].
+    pub shares: [f64; 6],
+}
+
+/// The inputs of the spread, in the order of [`Spread::shares`].
+pub const INPUT_NAMES: [&str; 6] = [
+    "former diameter",
+    "coil length",
+    "wire diameter",
+    "turns",
+    "fixed capacitor",
+    "stray capacitance",
+];
+
+/// A coil with its former, wire, turns and length moved (every other figure kept; see
+/// [`Coil::varied`]); a draw the model refuses keeps the nominal coil.
+fn perturbed(coil: &Coil, d_former: f64, d_wire: f64, d_turns: f64, d_length: f64) -> Coil {
+    coil.varied(d_former, d_wire, d_turns, d_length)
+        .unwrap_or(*coil)
+}
+
+/// A uniform draw on [0, 1) from 53 random bits.
+fn unit(rng: &mut Xoshiro256PlusPlus) -> f64 {
+    (rng.next_u64() >> 11) as f64 * (1.0 / (1u64 << 53) as f64)
+}
+
+/// A uniform draw on [−1, 1).
+fn symmetric(rng: &mut Xoshiro256PlusPlus) -> f64 {
+    2.0 * unit(rng) - 1.0
+}
+
+/// A draw from the triangular distribution on (low, mode, high), by inverting its CDF.
+fn triangular(rng: &mut Xoshiro256PlusPlus, s: Span) -> f64 {
+    let (a, c, b) = (s.low, s.typical, s.high);
+    if b <= a {
+        return c;
+    }
+    let u = unit(rng);
+    let split = (c - a) / (b - a);
+    if u < split {
+        a + ((b - a) * (c - a) * u).sqrt()
+    } else {
+        b - ((b - a) * (b - c) * (1.0 - u)).sqrt()
+    }
+}
+
+/// Standard deviation of the triangular distribution on `s`.
+fn triangular_sigma(s: Span) -> f64 {
+    let (a, c, b) = (s.low, s.typical, s.high);
+    ((a * a + b * b + c * c - a * b - a * c - b * c) / 18.0)
+        .max(0.0)
+        .sqrt()
+}
+
+/// One draw of the six inputs' offsets from nominal (former, length, wire, turns, fixed as a
+/// fraction, stray as an absolute capacitance).
+fn draw(rng: &mut Xoshiro256PlusPlus, t: &Tolerances) -> [f64; 6] {
+    [
+        t.former_diameter * symmetric(rng),
+        t.length * symmetric(rng),
+        t.wire_diameter * symmetric(rng),
+        t.turns * symmetric(rng),
+        t.fixed_fraction * symmetric(rng),
+        triangular(rng, t.stray),
+    ]
+}
+
+fn resonance_with(
+    coil: &Coil,
+    tank: &TankParts,
+    conditions: &Conditions,
+    x: &[f64; 6],
+    stray: f64,
+) -> f64 {
+    let c = perturbed(coil, x[0], x[2], x[3], x[1]);
+    resonance_of(
+        &c,
+        tank.fixed * (1.0 + x[4]) + tank.other + stray,
+        conditions,
+    )
+}
+
+/// Percentile `p` (0–1) of `values` (reordered in place), by selection.
+fn percentile(values: &mut [f64], p: f64) -> f64 {
+    let n = values.len();
+    if n == 0 {
+        return f64::NAN;
+    }
+    let k = ((p * (n - 1) as f64).round() as usize).min(n - 1);
+    *values.select_nth_unstable_by(k, f64::total_cmp).1
+}
+
+/// The spread of the resonance for `coil` in `tank` with `tolerances`: Monte Carlo with
+/// `draws` draws (at least 1000 is advised) from a generator seeded with `seed` (the same
+/// seed gives the same band), and linear propagation beside it.
+pub fn spread(
+    coil: &Coil,
+    tank: &TankParts,
+    conditions: &Conditions,
+    tolerances: &Tolerances,
+    draws: usize,
+    seed: u64,
+) -> Spread {
+    let t = tolerances;
+    let zero = [0.0; 6];
+    let nominal = resonance_with(coil, tank, conditions, &zero, t.stray.typical);
+
+    // Linear propagation: central differences with a step of a thousandth of each bound.
+    let bounds = [
+        t.former_diameter,
+        t.length,
+        t.wire_diameter,
+        t.turns,
+        t.fixed_fraction,
+        (t.stray.high - t.stray.low).max(0.0),
+    ];
+    let sigmas = [
+        t.former_diameter / 3f64.sqrt(),
+        t.length / 3f64.sqrt(),
+        t.wire_diameter / 3f64.sqrt(),
+        t.turns / 3f64.sqrt(),
+        t.fixed_fraction / 3f64.sqrt(),
+        triangular_sigma(t.stray),
+    ];
+    let mut variance_parts = [0.0; 6];
+    let mut slope_stray = 0.0;
+    for i in 0..6 {
+        let h = 1e-3 * bounds[i];
+        if h <= 0.0 {
+            continue;
+        }
+        let (mut up, mut down) = (zero, zero);
+        up[i] = h;
+        down[i] = -h;
+        let (s_up, s_down) = if i == 5 {
+            (t.stray.typical + h, t.stray.typical - h)
+        } else {
+            (t.stray.typical, t.stray.typical)
+        };
+        let slope = (resonance_with(coil, tank, conditions, &up, s_up)
+            - resonance_with(coil, tank, conditions, &down, s_down))
+            / (2.0 * h);
+        if i == 5 {
+            slope_stray = slope;
+        }
+        variance_parts[i] = (slope * sigmas[i]).powi(2);
+    }
+    let variance: f64 = variance_parts.iter().sum();
+    let linear_sigma = variance.sqrt();
+    let stray_mean = (t.stray.low + t.stray.typical + t.stray.high) / 3.0;
+    let linear_mean = nominal + slope_stray * (stray_mean - t.stray.typical);
+    let shares = if variance > 0.0 {
+        variance_parts.map(|v| v / variance)
+    } else {
+        [0.0; 6]
+    };
+
+    // Monte Carlo.
+    let mut rng = Xoshiro256PlusPlus::seed_from_u64(seed);
+    let mut values: Vec<f64> = (0..draws)
+        .map(|_| {
+            let x = draw(&mut rng, t);
+            resonance_with(coil, tank, conditions, &x, x[5])
+        })
+        .collect();
+    let n = values.len().max(1) as f64;
+    let mean = values.iter().sum::<f64>() / n;
+    let draws_sigma =
+        (values.iter().map(|v| (v - mean).powi(2)).sum::<f64>() / (n - 1.0).max(1.0)).sqrt();
+    let lo = values.iter().copied().fold(f64::INFINITY, f64::min);
+    let hi = values.iter().copied().fold(f64::NEG_INFINITY, f64::max);
+    let expected = (
+        percentile(&mut values, 0.025),
+        percentile(&mut values, 0.975),
+    );
+    Spread {
+        nominal,
+        draws_range: (lo, hi),
+        expected,
+        draws_sigma,
+        linear_mean,
+        linear_sigma,
+        linear_band: (
+            linear_mean - 1.96 * linear_sigma,
+            linear_mean + 1.96 * linear_sigma,
+        ),
+        shares,
+    }
+}
+
+/// The spread drawn as a band around a spacing curve: at each of `lengths` (metres), the
+/// central 95 % of `draws` Monte Carlo builds, as (length, low hertz, high hertz).
+///
+/// Each draw is one built coil (its former, wire, turns, fixed capacitor and stray drawn
+/// once, and its length off by one drawn amount at every point of the curve), swept over the
+/// lengths by the batch path.
+pub fn spread_band(
+    coil: &Coil,
+    tank: &TankParts,
+    conditions: &Conditions,
+    tolerances: &Tolerances,
+    lengths: &[f64],
+    draws: usize,
+    seed: u64,
+) -> Vec<[f64; 3]> {
+    let t = tolerances;
+    let m = lengths.len();
+    let mut rng = Xoshiro256PlusPlus::seed_from_u64(seed);
+    let mut grid = vec![0.0; draws * m];
+    let mut shifted = vec![0.0; m];
+    let mut columns = SweepColumns::default();
+    for row in grid.chunks_exact_mut(m.max(1)).take(draws) {
+        let x = draw(&mut rng, t);
+        let c = perturbed(coil, x[0], x[2], x[3], 0.0);
+        for (s, &l) in shifted.iter_mut().zip(lengths) {
+            *s = l + x[1];
+        }
+        let external = tank.fixed * (1.0 + x[4]) + tank.other + x[5];
+        resonance_over_lengths(&c, external, conditions, &shifted, row, &mut columns);
+    }
+    let mut column = vec![0.0; draws];
+    let index = |p: f64| ((p * (draws.max(1) - 1) as f64).round() as usize).min(draws.max(1) - 1);
+    let (k_low, k_high) = (index(0.025), index(0.975));
+    lengths
+        .iter()
+        .enumerate()
+        .map(|(j, &l)| {
+            if draws == 0 {
+                return [l, f64::NAN, f64::NAN];
+            }
+            for (i, v) in column.iter_mut().enumerate() {
+                *v = grid[i * m + j];
+            }
+            // The high percentile first; the low one is then in the part below it.
+            let high = *column.select_nth_unstable_by(k_high, f64::total_cmp).1;
+            let low = *column[..k_high.max(1)]
+                .select_nth_unstable_by(k_low.min(k_high.max(1) - 1), f64::total_cmp)
+                .1;
+            [l, low, high]
+        })
+        .collect()
+}

@@ -1,0 +1,253 @@
+//! The headless `evaluate` with the stray estimate, a modulating junction and the drift
+//! budget, run as a user would run it.
+
+use std::process::Command;
+
+fn run(args: &[&str]) -> (bool, String, String) {
+    let out = Command::new(env!("CARGO_BIN_EXE_tankwright"))
+        .args(args)
+        .output()
+        .expect("the binary runs");
+    (
+        out.status.success(),
+        String::from_utf8_lossy(&out.stdout).into_owned(),
+        String::from_utf8_lossy(&out.stderr).into_owned(),
+    )
+}
+
+const COIL: [&str; 14] = [
+    "evaluate",
+    "--mean-diameter-mm",
+    "7",
+    "--turns",
+    "5",
+    "--length-mm",
+    "9",
+    "--wire-mm",
+    "0.8",
+    "--lead-mm",
+    "4",
+    "--capacitance-pf",
+    "22",
+    "--json",
+];
+
+fn json(extra: &[&str]) -> serde_json::Value {
+    let mut args: Vec<&str> = COIL.to_vec();
+    args.extend_from_slice(extra);
+    let (ok, out, err) = run(&args);
+    assert!(ok, "{err}");
+    serde_json::from_str(&out).expect("one JSON object")
+}
+
+fn num(v: &serde_json::Value, path: &[&str]) -> f64 {
+    let mut x = v;
+    for p in path {
+        x = &x[*p];
+    }
+    x.as_f64()
+        .unwrap_or_else(|| panic!("{path:?} is not a number in {v}"))
+}
+
+const JUNCTION: [&str; 10] = [
+    "--junction-cj0-pf",
+    "2.2",
+    "--junction-vj",
+    "0.65",
+    "--junction-m",
+    "0.4",
+    "--bias-v",
+    "4",
+    "--audio-peak-v",
+    "0.3",
+];
+
+#[test]
+fn breakdown_and_range_are_in_the_json() {
+    let v = json(&["--stray-pf", "3"]);
+    let parts = v["stray_breakdown_pf"]
+        .as_object()
+        .expect("breakdown object");
+    let mut sum = 0.0;
+    for (k, p) in parts {
+        let (lo, typ, hi) = (num(p, &["low"]), num(p, &["typical"]), num(p, &["high"]));
+        assert!(lo <= typ && typ <= hi, "{k}");
+        if k != "total" {
+            sum += typ;
+        }
+    }
+    assert!((sum - num(&v, &["stray_breakdown_pf", "total", "typical"])).abs() < 1e-9);
+    assert_eq!(
+        num(&v, &["stray_breakdown_pf", "entered_stray", "typical"]),
+        3.0
+    );
+    assert_eq!(
+        num(&v, &["stray_breakdown_pf", "fixed_capacitor", "high"]),
+        22.0 * 1.05
+    );
+    // Without a construction the typical estimate is the tank as given: the range holds the
+    // resonance.
+    let f = num(&v, &["resonance_mhz"]);
+    assert!(
+        num(&v, &["resonance_range_mhz", "low"]) < f
+            && f < num(&v, &["resonance_range_mhz", "high"])
+    );
+    assert!(v["modulation"].is_null());
+
+    // A construction adds its parts and pulls the window down.
+    let w = json(&["--stray-pf", "3", "--construction", "breadboard"]);
+    assert_eq!(
+        num(&w, &["stray_breakdown_pf", "neighbour_strips", "typical"]),
+        4.0
+    );
+    assert!(num(&w, &["resonance_range_mhz", "high"]) < num(&v, &["resonance_range_mhz", "high"]));
+}
+
+/// With a junction the resonance includes it at the bias, and the modulation block carries
+/// the keys; the pasted `.model` line and the three numbers give the same figures.
+#[test]
+fn modulation_block_from_numbers_or_model_line() {
+    let plain = json(&[]);
+    let v = json(&JUNCTION);
+    let m = &v["modulation"];
+    for key in [
+        "junction_pf",
+        "deviation_up_khz",
+        "deviation_down_khz",
+        "sensitivity_khz_per_v",
+        "distortion_pct",
+        "carson_bandwidth_khz",
+    ] {
+        assert!(m[key].is_number(), "missing {key}");
+    }
+    // Cj = 2.2/(1 + 4/0.65)^0.4 pF.
+    let cj = 2.2 / (1.0f64 + 4.0 / 0.65).powf(0.4);
+    assert!((num(m, &["junction_pf"]) - cj).abs() < 1e-12);
+    assert!(num(&v, &["resonance_mhz"]) < num(&plain, &["resonance_mhz"]));
+    assert!((num(m, &["carrier_mhz"]) - num(&v, &["resonance_mhz"])).abs() < 1e-9);
+    let up = num(m, &["deviation_up_khz"]);
+    let down = num(m, &["deviation_down_khz"]);
+    assert!(up > 0.0 && down > up);
+    assert!((num(m, &["sensitivity_khz_per_v"]) - (up + down) / 0.6).abs() < 1e-9);
+    assert!((num(m, &["carson_bandwidth_khz"]) - 2.0 * (down + 15.0)).abs() < 1e-9);
+
+    let model = json(&[
+        "--junction-model",
+        ".model Q1 NPN(IS=1f BF=120\n+ CJC=2.2p VJC=0.65 MJC=0.4)",
+        "--bias-v",
+        "4",
+        "--audio-peak-v",
+        "0.3",
+    ]);
+    let mm = &model["modulation"];
+    assert_eq!(mm["deviation_up_khz"], m["deviation_up_khz"]);
+    assert_eq!(
+        mm["model_parameters_ignored"],
+        serde_json::json!(["IS", "BF"])
+    );
+
+    // Through a coupling capacitor the swing is smaller.
+    let mut coupled: Vec<&str> = JUNCTION.to_vec();
+    coupled.extend_from_slice(&["--coupling-pf", "2.2"]);
+    let c = json(&coupled);
+    assert!(num(&c["modulation"], &["deviation_up_khz"]) < up);
+}
+
+#[test]
+fn drift_lines_and_class() {
+    let v = json(&JUNCTION);
+    let lines = v["drift"].as_array().expect("drift list");
+    let sources: Vec<&str> = lines
+        .iter()
+        .map(|l| l["source"].as_str().expect("source"))
+        .collect();
+    assert_eq!(
+        sources,
+        [
+            "supply",
+            "coil_expansion",
+            "fixed_capacitor_temperature",
+            "junction_temperature",
+            "hand",
+            "load"
+        ]
+    );
+    for l in lines {
+        assert!(l["change"].is_string() && l["shift_khz"].is_number());
+    }
+    let c0g = num(&lines[2], &["shift_khz"]);
+    assert_eq!(c0g, 0.0);
+    let mut n750: Vec<&str> = JUNCTION.to_vec();
+    n750.extend_from_slice(&["--capacitor-class", "N750"]);
+    let w = json(&n750);
+    assert!(num(&w["drift"][2], &["shift_khz"]) > 0.0);
+    assert_ne!(
+        num(&w, &["drift_total_khz", "sum"]),
+        num(&v, &["drift_total_khz", "sum"])
+    );
+}
+
+#[test]
+fn bad_flags_are_refused_in_words() {
+    let with = |extra: &[&str]| {
+        let mut args: Vec<&str> = COIL.to_vec();
+        args.extend_from_slice(extra);
+        run(&args)
+    };
+    for (extra, says) in [
+        (vec!["--bias-v", "3"], "need a junction"),
+        (vec!["--junction-cj0-pf", "2"], "all three"),
+        (
+            vec![
+                "--junction-cj0-pf",
+                "2",
+                "--junction-vj",
+                "0.7",
+                "--junction-m",
+                "0.5",
+            ],
+            "--bias-v",
+        ),
+        (
+            vec!["--junction-model", ".model X R(R=1)", "--bias-v", "3"],
+            "type R",
+        ),
+        (vec!["--construction", "veroboard"], "not one of"),
+        (vec!["--capacitor-class", "X7R"], "not one of"),
+        (
+            vec![
+                "--junction-cj0-pf",
+                "2",
+                "--junction-vj",
+                "0.7",
+                "--junction-m",
+                "0.5",
+                "--bias-v",
+                "-1",
+            ],
+            "reverse-biased",
+        ),
+    ] {
+        let (ok, _, err) = with(&extra);
+        assert!(!ok, "{extra:?} accepted");
+        assert!(err.contains(says), "{extra:?}: {err}");
+    }
+}
+
+#[test]
+fn the_report_shows_the_new_sections() {
+    let mut args: Vec<&str> = COIL[..13].to_vec();
+    args.extend_from_slice(&JUNCTION);
+    args.extend_from_slice(&["--construction", "copper-clad"]);
+    let (ok, out, err) = run(&args);
+    assert!(ok, "{err}");
+    for s in [
+        "Tank capacitance by part",
+        "coil to ground plane",
+        "Modulation",
+        "Drift",
+        "resonance range",
+    ] {
+        assert!(out.contains(s), "missing {s}");
+    }
+}
