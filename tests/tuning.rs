@@ -134,3 +134,59 @@ fn instrument_error_as_length() {
     assert!((u - 1e-6).abs() < 1e-18, "{u}");
     assert!(tankwright::tuning::fit::length_uncertainty(sigma, 0.0).is_none());
 }
+
+/// Where the resonance turns over against length (a large coil of few turns with long leads
+/// and almost no external capacitance: stretching shrinks the coil's inductance but grows
+/// Medhurst's self-capacitance, and the leads' inductance does not shrink), a target below the
+/// peak is reached at two lengths. The solver brackets both on its scan and each, evaluated
+/// again, lands within 1 kHz; the proposal is the one nearest the present length.
+#[test]
+fn a_turning_curve_gives_both_roots() {
+    let coil = Coil::from_winding(&Winding {
+        diameter: DiameterSpec::Former(30e-3),
+        wire: WireSpec {
+            gauge: Gauge::Metric(1e-3),
+            coating: Coating::EnamelGrade1,
+        },
+        turns: 3.0,
+        spacing: SpacingSpec::Length(10e-3),
+        lead_length: 100e-3,
+    })
+    .expect("valid");
+    let cond = Conditions::default();
+    let c_ext = 0.2e-12;
+    let lo = coil.shortest_length();
+    let hi = coil.longest_proposed_length();
+    let f_at = |l: f64| resonance_of(&coil.with_length(l).unwrap(), c_ext, &cond);
+    let scan: Vec<f64> = (0..200)
+        .map(|i| f_at(lo + (hi - lo) * f64::from(i) / 199.0))
+        .collect();
+    let (peak_i, peak) = scan
+        .iter()
+        .copied()
+        .enumerate()
+        .max_by(|a, b| a.1.total_cmp(&b.1))
+        .unwrap();
+    assert!(
+        peak_i > 0 && peak_i < 199,
+        "this coil's resonance does not turn over inside the range (peak at {peak_i})"
+    );
+    let target = peak - 0.3 * (peak - scan[0].max(scan[199]));
+    let roots = tankwright::tuning::solve::lengths_for_target(&coil, c_ext, &cond, target)
+        .expect("reachable");
+    assert_eq!(roots.len(), 2, "{roots:?}");
+    for l in &roots {
+        assert!((f_at(*l) - target).abs() < 1e3, "{l}: {}", f_at(*l));
+    }
+    let chosen = length_for_target(&coil, c_ext, &cond, target).unwrap();
+    let nearest = roots
+        .iter()
+        .copied()
+        .min_by(|a, b| {
+            (a - coil.length())
+                .abs()
+                .total_cmp(&(b - coil.length()).abs())
+        })
+        .unwrap();
+    assert_eq!(chosen, nearest);
+}

@@ -94,5 +94,54 @@ fn parts(c: &mut Criterion) {
     g.finish();
 }
 
-criterion_group!(benches, engine, parts);
+/// The bench loop: calibrating on three readings (stray and inductance scale by least
+/// squares) and solving the demo for a target by the bracketing length solver.
+fn bench_loop(c: &mut Criterion) {
+    let r = tankwright::recipe::Recipe::demo();
+    let coil = Coil::from_winding(&r.winding).expect("demo winding is valid");
+    let truth = tankwright::tuning::fit::Calibration {
+        extra_capacitance: 1.2e-12,
+        inductance_scale: 1.03,
+    };
+    let readings: Vec<tankwright::tuning::fit::Reading> = [0.0, 0.5, 1.0]
+        .into_iter()
+        .map(|setting| {
+            let f = resonance_of(
+                &coil,
+                truth.tank(&r.tank).external_capacitance_at(setting),
+                &truth.conditions(&r.conditions),
+            );
+            tankwright::tuning::fit::Reading {
+                measured: f,
+                length: coil.length(),
+                trimmer_setting: setting,
+                added_capacitance: 0.0,
+                error_ppm: Some(5.0),
+            }
+        })
+        .collect();
+    c.bench_function("fit_3_readings", |b| {
+        b.iter(|| {
+            tankwright::tuning::fit::fit(
+                black_box(&coil),
+                black_box(&r.tank),
+                &r.conditions,
+                black_box(&readings),
+            )
+        })
+    });
+    let external = r.tank.external_capacitance();
+    c.bench_function("solve_target", |b| {
+        b.iter(|| {
+            tankwright::tuning::solve::length_for_target(
+                black_box(&coil),
+                black_box(external),
+                &r.conditions,
+                black_box(101.1e6),
+            )
+        })
+    });
+}
+
+criterion_group!(benches, engine, parts, bench_loop);
 criterion_main!(benches);

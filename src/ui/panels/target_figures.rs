@@ -22,14 +22,12 @@ pub fn show(
     commands: &mut Vec<Command>,
 ) {
     let t = &figures.target;
-    let offset_khz = t.offset * 1e-3;
     let on_channel = t.on_channel;
     let colour = if on_channel {
         theme::on_target(ui)
     } else {
         theme::caution(ui)
     };
-    let decimals = if offset_khz.abs() < 1000.0 { 1 } else { 0 };
     let side = if on_channel {
         "within the channel"
     } else if t.offset > 0.0 {
@@ -49,7 +47,7 @@ pub fn show(
     );
     Readout::new(
         "Offset from target",
-        format!("{offset_khz:+.decimals$} kHz, {side}"),
+        format!("{}, {side}", crate::tuning::digits::offset(t.offset)),
         &note,
     )
     .emphasis(true)
