@@ -136,6 +136,8 @@ fn a_second_reading_at_another_setting_gives_the_scale_and_the_calibrated_curve(
     let text = screen_text(&harness).join("\n");
     assert!(text.contains("Calibrated on 2 readings"), "{text}");
     assert!(text.contains("× the model's"), "{text}");
+    // The uncalibrated prediction stays on screen beside the calibrated one.
+    assert!(text.contains("Model before calibration"), "{text}");
     // The spacing chart now carries the model before calibration beside the calibrated curves.
     harness.get_by_label("spacing chart");
     assert!(harness.state().figures().is_some_and(|f| f.calibrated()));

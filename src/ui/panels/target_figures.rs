@@ -53,6 +53,21 @@ pub fn show(
     .emphasis(true)
     .colour(colour)
     .show(ui);
+    if figures.calibrated() {
+        let before = figures.uncalibrated.resonance;
+        Readout::new(
+            "Model before calibration",
+            format!(
+                "{:.3} MHz ({})",
+                mhz(before),
+                crate::tuning::digits::offset(before - t.channel)
+            ),
+            "What the model predicted before the bench readings calibrated it; every other \
+             figure and the charts use the calibrated model",
+        )
+        .indent(true)
+        .show(ui);
+    }
     Readout::new(
         "Trimmer reaches",
         format!("{:.3}–{:.3} MHz", mhz(t.window.0), mhz(t.window.1)),
