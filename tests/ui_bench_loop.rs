@@ -136,6 +136,8 @@ fn a_second_reading_at_another_setting_gives_the_scale_and_the_calibrated_curve(
     let text = screen_text(&harness).join("\n");
     assert!(text.contains("Calibrated on 2 readings"), "{text}");
     assert!(text.contains("× the model's"), "{text}");
+    // Two readings at one length and different capacitance: the 1/f² chart is drawn.
+    harness.get_by_label(tankwright::ui::bench_log::INVERSE_SQUARE_LABEL);
     // The uncalibrated prediction stays on screen beside the calibrated one.
     assert!(text.contains("Model before calibration"), "{text}");
     // The spacing chart now carries the model before calibration beside the calibrated curves.

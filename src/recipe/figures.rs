@@ -7,7 +7,7 @@
 
 use super::document::Recipe;
 use crate::model::{Analysis, Coil, Conditions, InputError, Tank, evaluate, evaluate_coil};
-use crate::tuning::fit::{Fit, FitError, fit};
+use crate::tuning::fit::{Fit, FitError, InverseSquareLine, fit, inverse_square_line};
 use crate::tuning::target::{TargetFigures, target_figures};
 
 /// Everything computed for a valid recipe.
@@ -25,6 +25,9 @@ pub struct Figures {
     pub uncalibrated: Analysis,
     /// The fit of the bench readings (`None` when there are none).
     pub fit: Option<Result<Fit, FitError>>,
+    /// The straight line of 1/f² against external capacitance through the readings at the
+    /// latest reading's length (`None` with fewer than two there).
+    pub line: Option<InverseSquareLine>,
     /// Against the target, by the driving (calibrated) model.
     pub target: TargetFigures,
 }
@@ -68,7 +71,9 @@ pub fn figures(recipe: &Recipe) -> Result<Figures, InputError> {
         recipe.target.channel,
         recipe.target.plan.default_tolerance(),
     );
+    let line = inverse_square_line(&recipe.tank, &readings);
     Ok(Figures {
+        line,
         coil,
         tank,
         conditions,

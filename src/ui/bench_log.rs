@@ -116,6 +116,9 @@ impl BenchLogPanel {
         }
         if let Some(f) = figures {
             action = action.or(fit_ui(ui, f, unit));
+            if let Some(line) = &f.line {
+                inverse_square_chart(ui, recipe, line);
+            }
         }
         ui.separator();
         action.or(self.form_ui(ui, recipe, figures, unit))
@@ -440,4 +443,67 @@ fn fit_ui(ui: &mut egui::Ui, figures: &Figures, unit: LengthUnit) -> Option<Benc
         return action;
     }
     None
+}
+
+/// Accessible name of the 1/f² chart.
+pub const INVERSE_SQUARE_LABEL: &str = "one over f squared against capacitance";
+
+/// The bench builder's check by hand: 1/f² (in 1/MHz²) of the readings at the latest length
+/// against the external capacitance (pF), with the fitted straight line drawn back to where it
+/// crosses zero. Its slope is 4π²·L and the crossing lies at minus the capacitance the model
+/// does not see plus the coil's self-capacitance.
+fn inverse_square_chart(
+    ui: &mut egui::Ui,
+    recipe: &Recipe,
+    line: &crate::tuning::fit::InverseSquareLine,
+) {
+    use egui_plot::{Line, Plot, PlotPoints, Points};
+    let length = recipe.bench_log.last().map_or(0.0, |e| e.length);
+    let points: Vec<[f64; 2]> = recipe
+        .readings()
+        .iter()
+        .filter(|r| (r.length - length).abs() <= 1e-9)
+        .map(|r| {
+            [
+                r.external_capacitance(&recipe.tank) * 1e12,
+                1e12 / (r.measured * r.measured),
+            ]
+        })
+        .collect();
+    let x_max = points.iter().map(|p| p[0]).fold(0.0, f64::max) * 1.1;
+    let x_min = -line.hidden_capacitance * 1e12;
+    // y in 1/MHz²: 1/f² [s²] × 1e12.
+    let y_at = |pf: f64| (line.slope * pf * 1e-12 + line.intercept) * 1e12;
+    ui.label(format!(
+        "1/f² against the tank's capacitance: {:.1} nH from the slope, {:.2} pF unseen by the \
+         model plus the coil's own from where the line crosses zero",
+        line.inductance * 1e9,
+        line.hidden_capacitance * 1e12
+    ));
+    let response = Plot::new("tankwright inverse square chart")
+        .height(150.0)
+        .x_axis_label("capacitance across the coil (pF)")
+        .y_axis_label("1/f² (1/MHz²)")
+        .allow_drag(false)
+        .allow_zoom(false)
+        .allow_scroll(false)
+        .allow_boxed_zoom(false)
+        .show(ui, |plot_ui| {
+            plot_ui.line(
+                Line::new(
+                    "fitted line",
+                    PlotPoints::from(vec![[x_min, y_at(x_min)], [x_max, y_at(x_max)]]),
+                )
+                .width(1.5),
+            );
+            plot_ui.points(
+                Points::new("readings", points)
+                    .shape(egui_plot::MarkerShape::Diamond)
+                    .filled(true)
+                    .radius(4.0),
+            );
+        });
+    response
+        .response
+        .widget_info(|| egui::WidgetInfo::labeled(egui::Role::Figure, true, INVERSE_SQUARE_LABEL));
 }
