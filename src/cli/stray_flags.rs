@@ -14,7 +14,7 @@ use crate::tuning::modulation::{
 };
 use crate::tuning::spice_model::parse_model;
 use crate::tuning::stray::{
-    DividerLayout, PartKind, Span, StrayEstimate, StrayInputs, estimate_stray, frequency_window,
+    PartKind, Span, StrayEstimate, StrayInputs, estimate_stray, frequency_window,
 };
 use serde_json::{Value, json};
 
@@ -199,26 +199,13 @@ pub(crate) struct ExtraFigures {
 
 /// The stray estimate's inputs from the tank as given (and the construction, if any).
 fn stray_inputs(extras: &Extras, coil: &Coil, tank: &Tank, analysis: &Analysis) -> StrayInputs {
-    let mut inputs = StrayInputs {
-        self_capacitance: analysis.self_capacitance,
-        coil_mean_diameter: coil.mean_diameter(),
-        coil_length: coil.length(),
-        fixed: (tank.fixed > 0.0).then_some((tank.fixed, extras.fixed_tolerance)),
-        trimmer: (tank.trimmer_max > 0.0)
-            .then(|| Span::exact(tank.trimmer_at(tank.trimmer_setting))),
-        divider: tank.feedback.map(|f| DividerLayout {
-            upper: f.upper,
-            lower: f.lower,
-            device_input: Span::exact(0.0),
-        }),
-        entered_stray: tank.stray,
-        ..StrayInputs::default()
-    };
-    if let Some(c) = extras.construction {
-        c.layout(coil.mean_diameter(), coil.wire_bare())
-            .apply_to(&mut inputs);
-    }
-    inputs
+    crate::tuning::stray::inputs_for(
+        coil,
+        tank,
+        analysis.self_capacitance,
+        extras.fixed_tolerance,
+        extras.construction,
+    )
 }
 
 impl ExtraFigures {

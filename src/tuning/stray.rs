@@ -586,6 +586,39 @@ pub fn estimate_stray(inputs: &StrayInputs) -> StrayEstimate {
     StrayEstimate { parts }
 }
 
+/// The estimate's inputs for `coil` in `tank` as given: the coil's own `self_capacitance`, the
+/// fixed capacitor with its `fixed_tolerance` (a fraction), the trimmer at its setting, the
+/// feedback divider, the stray as entered; and, with a `construction`, its layout (leads,
+/// pads, strips, board). The window and the command line both start here.
+pub fn inputs_for(
+    coil: &Coil,
+    tank: &crate::model::Tank,
+    self_capacitance: f64,
+    fixed_tolerance: f64,
+    construction: Option<super::construction::Construction>,
+) -> StrayInputs {
+    let mut inputs = StrayInputs {
+        self_capacitance,
+        coil_mean_diameter: coil.mean_diameter(),
+        coil_length: coil.length(),
+        fixed: (tank.fixed > 0.0).then_some((tank.fixed, fixed_tolerance)),
+        trimmer: (tank.trimmer_max > 0.0)
+            .then(|| Span::exact(tank.trimmer_at(tank.trimmer_setting))),
+        divider: tank.feedback.map(|f| DividerLayout {
+            upper: f.upper,
+            lower: f.lower,
+            device_input: Span::exact(0.0),
+        }),
+        entered_stray: tank.stray,
+        ..StrayInputs::default()
+    };
+    if let Some(c) = construction {
+        c.layout(coil.mean_diameter(), coil.wire_bare())
+            .apply_to(&mut inputs);
+    }
+    inputs
+}
+
 /// The frequency window the estimate implies for `coil`, hertz: (lowest, typical, highest).
 ///
 /// The external capacitance is every part but the coil's self-capacitance (which the engine

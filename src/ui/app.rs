@@ -43,6 +43,7 @@ pub struct App {
     evaluation: Evaluation,
     history: History,
     tank_panel: TankPanel,
+    stray_panel: crate::ui::panels::stray::StrayPanel,
     target_panel: TargetPanel,
     bench_log: BenchLogPanel,
     files: FileDesk,
@@ -130,6 +131,7 @@ impl App {
             preferences: Preferences::default(),
             history: History::default(),
             tank_panel: TankPanel::default(),
+            stray_panel: Default::default(),
             target_panel: TargetPanel::default(),
             bench_log: BenchLogPanel::default(),
             files,
@@ -351,6 +353,7 @@ impl App {
             evaluation,
             history,
             tank_panel,
+            stray_panel,
             target_panel,
             bench_log,
             files,
@@ -402,6 +405,23 @@ impl App {
                     winding::show(ui, &mut recipe.winding, coil.as_ref(), unit, refused);
                     ui.add_space(8.0);
                     tank_panel.show(ui, &mut recipe.tank, &mut recipe.conditions, refused);
+                    ui.add_space(8.0);
+                    egui::CollapsingHeader::new("Where the stray comes from")
+                        .default_open(false)
+                        .show(ui, |ui| {
+                            let latest = evaluation.latest();
+                            let self_capacitance =
+                                latest.map_or(0.0, |f| f.uncalibrated.self_capacitance);
+                            if let Some(stray) = stray_panel.show(
+                                ui,
+                                coil.as_ref(),
+                                self_capacitance,
+                                &recipe.tank,
+                                &recipe.conditions,
+                            ) {
+                                recipe.tank.stray = stray;
+                            }
+                        });
                 });
             });
         egui::Panel::right("readouts_and_target")

@@ -3,6 +3,7 @@
 
 pub mod bench;
 pub mod readouts;
+pub mod stray;
 pub mod tank;
 pub mod target;
 pub mod target_figures;
