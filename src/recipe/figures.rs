@@ -9,6 +9,7 @@ use super::document::Recipe;
 use crate::model::{Analysis, Coil, Conditions, InputError, Tank, evaluate, evaluate_coil};
 use crate::tuning::fit::{Fit, FitError, fit};
 use crate::tuning::target::{TargetFigures, target_figures};
+use crate::tuning::verdict::{Aim, Verdict, judge};
 
 /// Everything computed for a valid recipe.
 #[derive(Clone, Debug, PartialEq)]
@@ -27,6 +28,9 @@ pub struct Figures {
     pub fit: Option<Result<Fit, FitError>>,
     /// Against the target, by the driving (calibrated) model.
     pub target: TargetFigures,
+    /// The verdict against the recipe's channel and band plan, by the driving (calibrated)
+    /// model: what the window's verdict block and the build sheet both show.
+    pub verdict: Verdict,
 }
 
 impl Figures {
@@ -68,6 +72,8 @@ pub fn figures(recipe: &Recipe) -> Result<Figures, InputError> {
         recipe.target.channel,
         recipe.target.plan.default_tolerance(),
     );
+    let aim = Aim::new(recipe.target.plan.clone(), Some(recipe.target.channel));
+    let verdict = judge(&coil, &tank, &conditions, &aim);
     Ok(Figures {
         coil,
         tank,
@@ -76,5 +82,6 @@ pub fn figures(recipe: &Recipe) -> Result<Figures, InputError> {
         uncalibrated,
         fit,
         target,
+        verdict,
     })
 }
