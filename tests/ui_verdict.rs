@@ -160,3 +160,38 @@ fn the_band_is_not_drawn_when_the_charts_stay_below_it() {
         0
     );
 }
+
+#[test]
+fn a_bench_reading_makes_the_verdict_calibrated() {
+    let mut harness = window(1400.0, 1000.0);
+    let figures = harness.state().figures().expect("valid").clone();
+    let tank = harness.state().recipe().tank;
+    // A reading 1 MHz below the model at the present coil and trimmer.
+    harness
+        .state_mut()
+        .recipe_mut()
+        .bench_log
+        .push(tankwright::recipe::BenchEntry {
+            measured: figures.analysis.resonance - 1.0e6,
+            length: figures.coil.length(),
+            trimmer_setting: tank.trimmer_setting,
+            added_capacitance: 0.0,
+            instrument: "counter".to_owned(),
+            error_ppm: None,
+            note: String::new(),
+        });
+    harness.run();
+    harness.run();
+    let figures = harness.state().figures().expect("valid");
+    assert!(figures.calibrated(), "the one reading should fit");
+    assert_eq!(figures.readings_used(), 1);
+    let text = screen_text(&harness);
+    assert!(text.iter().any(|t| t == "Calibrated on 1 bench reading"));
+    // The verdict follows the calibrated model, as the readouts do.
+    assert!(
+        (figures.verdict.resonance - figures.analysis.resonance).abs() < 1.0,
+        "verdict {} Hz against calibrated analysis {} Hz",
+        figures.verdict.resonance,
+        figures.analysis.resonance
+    );
+}
