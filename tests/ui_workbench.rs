@@ -315,6 +315,9 @@ fn arrow_keys_step_the_number_field_too() {
 #[test]
 fn stretch_to_target_lands_on_the_channel() {
     let mut harness = workbench();
+    // The verdict block sits above the target panel: bring the button into view first.
+    harness.get_by_label("Stretch to target").scroll_to_me();
+    harness.run();
     harness.get_by_label("Stretch to target").click();
     harness.run();
     let offset = number(&readout(&harness, "Offset from target"));

@@ -7,7 +7,6 @@ use crate::tuning::BandPlan;
 use crate::tuning::bands::us_fm_channel_number;
 use crate::tuning::buildable::former_drills;
 use crate::tuning::digits;
-use crate::tuning::verdict::{Aim, judge};
 use std::path::Path;
 
 /// Run `report` on the words after the subcommand; Ok(stdout) or Err(one-line message).
@@ -32,13 +31,7 @@ pub fn build_report(r: &Recipe) -> Result<String, String> {
     out.push(format!("Recipe: {}", r.name));
     out.push(String::new());
     // The verdict first: what the builder acts on.
-    let aim = Aim::new(r.target.plan.clone(), Some(r.target.channel));
-    out.extend(super::verdict::verdict_lines(&judge(
-        &f.coil,
-        &f.tank,
-        &f.conditions,
-        &aim,
-    )));
+    out.extend(super::verdict::verdict_lines(&f.verdict));
     out.push(String::new());
     if !r.notes.trim().is_empty() {
         out.push(format!("Notes: {}", r.notes.trim()));

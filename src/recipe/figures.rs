@@ -9,6 +9,7 @@ use super::document::Recipe;
 use crate::model::{Analysis, Coil, Conditions, InputError, Tank, evaluate, evaluate_coil};
 use crate::tuning::fit::{Fit, FitError, InverseSquareLine, fit, inverse_square_line};
 use crate::tuning::target::{TargetFigures, target_figures};
+use crate::tuning::verdict::{Aim, Verdict, judge};
 
 /// Everything computed for a valid recipe.
 #[derive(Clone, Debug, PartialEq)]
@@ -30,6 +31,9 @@ pub struct Figures {
     pub line: Option<InverseSquareLine>,
     /// Against the target, by the driving (calibrated) model.
     pub target: TargetFigures,
+    /// The verdict against the recipe's channel and band plan, by the driving (calibrated)
+    /// model: what the window's verdict block and the build sheet both show.
+    pub verdict: Verdict,
 }
 
 impl Figures {
@@ -72,6 +76,8 @@ pub fn figures(recipe: &Recipe) -> Result<Figures, InputError> {
         recipe.target.plan.default_tolerance(),
     );
     let line = inverse_square_line(&recipe.tank, &readings);
+    let aim = Aim::new(recipe.target.plan.clone(), Some(recipe.target.channel));
+    let verdict = judge(&coil, &tank, &conditions, &aim);
     Ok(Figures {
         line,
         coil,
@@ -81,5 +87,6 @@ pub fn figures(recipe: &Recipe) -> Result<Figures, InputError> {
         uncalibrated,
         fit,
         target,
+        verdict,
     })
 }

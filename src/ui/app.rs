@@ -9,7 +9,7 @@ use crate::ui::files::{FileAction, FileDesk, FileDeskMemory, Notice};
 use crate::ui::panels::tank::TankPanel;
 use crate::ui::panels::target::TargetPanel;
 use crate::ui::panels::top_bar::{self, BarState};
-use crate::ui::panels::{Command, bench, readouts, winding};
+use crate::ui::panels::{Command, bench, readouts, verdict, winding};
 use crate::ui::preferences::Preferences;
 use crate::ui::screenshot::ScreenshotJob;
 use crate::ui::theme::Theme;
@@ -430,6 +430,8 @@ impl App {
             .size_range(RIGHT_MIN..=right_max)
             .show(ui, |ui| {
                 egui::ScrollArea::both().show(ui, |ui| {
+                    verdict::show(ui, evaluation);
+                    ui.add_space(8.0);
                     readouts::show(ui, evaluation, unit);
                     ui.add_space(8.0);
                     target_panel.show(ui, &mut recipe.target, evaluation, unit, commands);

@@ -9,10 +9,12 @@ mod spacing;
 mod trimmer;
 
 use crate::model::{Coil, Tank};
+use crate::tuning::service::AERONAUTICAL;
 use crate::ui::units::LengthUnit;
 use eframe::egui::{self, Color32};
 
 pub use cache::{ChartCache, SETTINGS};
+
 pub use spacing::{SPACING_CHART_LABEL, spacing_chart};
 pub use trimmer::{TRIMMER_CHART_LABEL, trimmer_chart};
 
@@ -133,6 +135,13 @@ pub(crate) mod palette {
     pub const UNCALIBRATED: Color32 = Color32::from_rgb(0x8c, 0x8c, 0x8c);
     /// The target channel.
     pub const TARGET: Color32 = Color32::from_rgb(0x3a, 0xa8, 0x5c);
+    /// The aeronautical band: a warning red of our own, readable on both themes.
+    pub const AERONAUTICAL: Color32 = Color32::from_rgb(0xd2, 0x3c, 0x3c);
+
+    /// Translucent fill of the aeronautical band.
+    pub fn aeronautical_fill() -> Color32 {
+        Color32::from_rgba_unmultiplied(AERONAUTICAL.r(), AERONAUTICAL.g(), AERONAUTICAL.b(), 40)
+    }
 
     fn lerp(a: Color32, b: Color32, t: f32) -> Color32 {
         let t = t.clamp(0.0, 1.0);
@@ -329,6 +338,26 @@ pub(crate) fn target_channel(plot_ui: &mut egui_plot::PlotUi<'_>, view: &ChartVi
             .axis(egui_plot::Axis::Y)
             .fill(palette::target_fill())
             .border_color(palette::TARGET.gamma_multiply(0.6))
+            .border_width(1.0),
+    );
+}
+
+/// Name of the shaded aeronautical band on the charts (and its legend entry).
+pub const AERONAUTICAL_BAND_LABEL: &str = "aeronautical band (108–137 MHz)";
+
+/// The aeronautical band, 108–137 MHz ([`AERONAUTICAL`]), shaded across the chart when the
+/// frequency axis (`y_mhz`, MHz: low, high) reaches into it. The axis is never widened to
+/// show it, so the band (and its legend entry) appears only when the sweep comes near it.
+pub(crate) fn aeronautical_band(plot_ui: &mut egui_plot::PlotUi<'_>, y_mhz: (f64, f64)) {
+    let (lo, hi) = (AERONAUTICAL.0 * 1e-6, AERONAUTICAL.1 * 1e-6);
+    if !(y_mhz.1 > lo && y_mhz.0 < hi) {
+        return;
+    }
+    plot_ui.span(
+        egui_plot::Span::new(AERONAUTICAL_BAND_LABEL, lo..=hi)
+            .axis(egui_plot::Axis::Y)
+            .fill(palette::aeronautical_fill())
+            .border_color(palette::AERONAUTICAL.gamma_multiply(0.7))
             .border_width(1.0),
     );
 }

@@ -1,8 +1,8 @@
 //! Resonance against spacing, one curve per trimmer setting.
 
 use super::{
-    ChartView, held_bounds, hover_text, palette, pointer_x, present_marker, reading_points,
-    still_plot, target_channel,
+    ChartView, aeronautical_band, held_bounds, hover_text, palette, pointer_x, present_marker,
+    reading_points, still_plot, target_channel,
 };
 use eframe::egui;
 use egui_plot::{Corner, Line, LineStyle, PlotPoints, Span, VLine};
@@ -70,6 +70,7 @@ pub fn spacing_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
         );
 
         target_channel(plot_ui, view);
+        aeronautical_band(plot_ui, (bounds[2], bounds[3]));
 
         for curve in view.cache.spacing_curves().iter().rev() {
             let name = format!("trimmer {:.0} %", curve.setting * 100.0);

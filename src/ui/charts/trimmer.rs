@@ -1,8 +1,8 @@
 //! Resonance against trimmer setting at the present spacing.
 
 use super::{
-    ChartView, held_bounds, hover_text, palette, pointer_x, present_marker, reading_points,
-    still_plot, target_channel,
+    ChartView, aeronautical_band, held_bounds, hover_text, palette, pointer_x, present_marker,
+    reading_points, still_plot, target_channel,
 };
 use eframe::egui;
 use egui_plot::{Corner, Line, PlotPoints};
@@ -38,6 +38,7 @@ pub fn trimmer_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
                 .width(1.8),
         );
         target_channel(plot_ui, view);
+        aeronautical_band(plot_ui, (bounds[2], bounds[3]));
         // Readings at the present length only: at another length they lie on another curve.
         let here = view.coil.length();
         let same_length: Vec<_> = view

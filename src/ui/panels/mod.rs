@@ -8,6 +8,7 @@ pub mod tank;
 pub mod target;
 pub mod target_figures;
 pub mod top_bar;
+pub mod verdict;
 pub mod winding;
 
 use crate::ui::units::LengthUnit;

@@ -1,0 +1,92 @@
+//! The verdict block at the top of the right column: the answer first — on channel or by how
+//! much, in band and safe over the trimmer's travel, buildable, calibrated or not — then the
+//! next step. Everything shown comes from [`crate::recipe::Figures::verdict`], computed once
+//! per change by the engine ([`crate::tuning::verdict::judge`]), the same verdict the build
+//! sheet prints.
+
+use super::heading;
+use crate::recipe::Figures;
+use crate::tuning::verdict::Verdict;
+use crate::ui::evaluation::Evaluation;
+use crate::ui::theme;
+use eframe::egui::{self, Color32, RichText};
+
+/// Heading of the block (also its name for assistive tools).
+pub const VERDICT_HEADING: &str = "Verdict";
+
+/// Show the verdict for the present figures; nothing when the input is refused (the readouts
+/// below say why).
+pub fn show(ui: &mut egui::Ui, evaluation: &Evaluation) {
+    if let Ok(figures) = evaluation.current() {
+        heading(ui, VERDICT_HEADING);
+        block(ui, figures);
+    }
+}
+
+/// A wrapping line in `color` (no clipping in a narrow column).
+fn line(ui: &mut egui::Ui, text: impl Into<String>, color: Option<Color32>, strong: bool) {
+    let mut rich = RichText::new(text.into());
+    if let Some(c) = color {
+        rich = rich.color(c);
+    }
+    if strong {
+        rich = rich.strong();
+    }
+    ui.add(egui::Label::new(rich).wrap());
+}
+
+/// The calibration line: "Calibrated on N readings" or what the figures rest on.
+pub fn calibration_text(figures: &Figures) -> String {
+    match &figures.fit {
+        Some(Ok(_)) => {
+            let n = figures.readings_used();
+            format!(
+                "Calibrated on {n} bench reading{}",
+                if n == 1 { "" } else { "s" }
+            )
+        }
+        Some(Err(_)) => {
+            "Not calibrated: the bench readings could not be fitted (see the bench log)".to_owned()
+        }
+        None => "Not calibrated: model only, no bench readings yet".to_owned(),
+    }
+}
+
+/// The buildability line.
+pub fn buildable_text(verdict: &Verdict) -> &'static str {
+    if verdict.is_buildable() {
+        "Buildable: the bare turns keep their gap"
+    } else {
+        "Not buildable as drawn: see the cautions below"
+    }
+}
+
+fn block(ui: &mut egui::Ui, figures: &Figures) {
+    let v = &figures.verdict;
+    let good = theme::on_target(ui);
+    let caution = theme::caution(ui);
+    let channel_colour = match v.on_channel {
+        Some(true) => good,
+        Some(false) => caution,
+        None => ui.visuals().text_color(),
+    };
+    line(ui, v.channel_text(), Some(channel_colour), true);
+    line(
+        ui,
+        v.safety_text(),
+        Some(if v.is_safe() { good } else { caution }),
+        false,
+    );
+    line(
+        ui,
+        buildable_text(v),
+        Some(if v.is_buildable() { good } else { caution }),
+        false,
+    );
+    for flag in &v.flags {
+        line(ui, format!("Caution: {}", flag.text), Some(caution), false);
+    }
+    line(ui, calibration_text(figures), None, false);
+    ui.add_space(2.0);
+    line(ui, format!("Next: {}", v.next_step()), None, true);
+}
