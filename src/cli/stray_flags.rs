@@ -242,11 +242,7 @@ impl ExtraFigures {
                     audio_max_hz: j.audio_max_hz,
                 },
             );
-            let service = if m.carrier > 120e6 {
-                Service::TwoMetreNarrowBand
-            } else {
-                Service::FmBroadcast
-            };
+            let service = Service::for_carrier(m.carrier);
             (m, judge(&m, service), j.ignored.clone())
         });
         let d = &extras.drift;

@@ -138,6 +138,16 @@ pub enum Service {
 }
 
 impl Service {
+    /// The service a carrier belongs to: 2 m amateur above 120 MHz, FM broadcast below
+    /// (the two services this tool serves).
+    pub fn for_carrier(carrier: f64) -> Self {
+        if carrier > 120e6 {
+            Service::TwoMetreNarrowBand
+        } else {
+            Service::FmBroadcast
+        }
+    }
+
     /// Peak deviation allowed, hertz.
     ///
     /// FM broadcast: ±75 kHz (ITU-R Recommendation BS.450, "Transmission standards for FM

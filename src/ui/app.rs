@@ -44,6 +44,7 @@ pub struct App {
     history: History,
     tank_panel: TankPanel,
     stray_panel: crate::ui::panels::stray::StrayPanel,
+    audio_panel: crate::ui::panels::audio::AudioPanel,
     target_panel: TargetPanel,
     bench_log: BenchLogPanel,
     files: FileDesk,
@@ -132,6 +133,7 @@ impl App {
             history: History::default(),
             tank_panel: TankPanel::default(),
             stray_panel: Default::default(),
+            audio_panel: Default::default(),
             target_panel: TargetPanel::default(),
             bench_log: BenchLogPanel::default(),
             files,
@@ -354,6 +356,7 @@ impl App {
             history,
             tank_panel,
             stray_panel,
+            audio_panel,
             target_panel,
             bench_log,
             files,
@@ -421,6 +424,19 @@ impl App {
                             ) {
                                 recipe.tank.stray = stray;
                             }
+                        });
+                    egui::CollapsingHeader::new("Audio and drift")
+                        .default_open(false)
+                        .show(ui, |ui| {
+                            let tolerance =
+                                evaluation.latest().map_or(15e3, |f| f.target.tolerance);
+                            audio_panel.show(
+                                ui,
+                                coil.as_ref(),
+                                &recipe.tank,
+                                &recipe.conditions,
+                                tolerance,
+                            );
                         });
                 });
             });

@@ -1,6 +1,7 @@
 //! The window's panels, one file each. Each shows its part of the recipe and records what the
 //! user asked for that cannot be done mid-layout as a [`Command`].
 
+pub mod audio;
 pub mod bench;
 pub mod readouts;
 pub mod stray;
