@@ -40,6 +40,12 @@ fn another_building_method_changes_the_breakdown_and_applying_sets_the_stray() {
     let first = stray_lines(&harness);
     assert!(first.iter().any(|t| t == "stray in all"), "{first:?}");
     assert!(first.iter().any(|t| t.starts_with("Expect ")), "{first:?}");
+    assert!(
+        first
+            .iter()
+            .any(|t| t.starts_with("With the winding's own tolerances")),
+        "{first:?}"
+    );
 
     harness.get_by_label(CONSTRUCTION_LABEL).click();
     harness.run();
