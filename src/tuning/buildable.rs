@@ -11,30 +11,9 @@ pub const MIN_BARE_GAP: f64 = 0.2e-3;
 /// Smallest gap between bare turns as a fraction of the wire diameter: a quarter.
 pub const MIN_BARE_GAP_FRACTION: f64 = 0.25;
 
-/// The coil's figures this module judges, read in one place (so that a change in how
-/// [`Coil`] exposes them touches one function).
-struct Winding {
-    bare: bool,
-    wire: f64,
-    turns: f64,
-    gap: f64,
-    former: f64,
-}
-
-fn winding(coil: &Coil) -> Winding {
-    Winding {
-        // Bare or tinned wire has no insulation: the overall diameter is the copper's.
-        bare: coil.wire_overall() <= coil.wire_bare(),
-        wire: coil.wire_overall(),
-        turns: coil.turns(),
-        gap: coil.pitch() - coil.wire_overall(),
-        former: coil.former_diameter(),
-    }
-}
-
 /// Whether the coil is wound with bare (or tinned) wire, whose turns must not touch.
 pub fn is_bare(coil: &Coil) -> bool {
-    winding(coil).bare
+    coil.is_bare()
 }
 
 /// The smallest gap (metres) this coil's turns should keep: for bare wire the larger of
@@ -44,9 +23,8 @@ pub fn is_bare(coil: &Coil) -> bool {
 /// spacing intended, solder or tinning can bridge a hair's gap, and a knock closes a small
 /// one; a quarter of the wire diameter keeps thick wire's turns clearly apart.
 pub fn minimum_gap(coil: &Coil) -> f64 {
-    let w = winding(coil);
-    if w.bare {
-        MIN_BARE_GAP.max(MIN_BARE_GAP_FRACTION * w.wire)
+    if coil.is_bare() {
+        MIN_BARE_GAP.max(MIN_BARE_GAP_FRACTION * coil.wire_overall())
     } else {
         0.0
     }
@@ -54,39 +32,38 @@ pub fn minimum_gap(coil: &Coil) -> f64 {
 
 /// The shortest coil (turns × pitch, metres) that keeps [`minimum_gap`] between turns.
 pub fn shortest_buildable_length(coil: &Coil) -> f64 {
-    let w = winding(coil);
-    w.turns * (w.wire + minimum_gap(coil))
+    coil.length_for_gap(minimum_gap(coil))
 }
 
 /// The gap flags of a coil: [`FlagKind::BareTurns`] when bare turns touch (a coil that
 /// cannot work: the turns short each other), [`FlagKind::NarrowGap`] when bare turns are
 /// closer than [`minimum_gap`]. Insulated wire raises neither.
 pub fn gap_flags(coil: &Coil) -> Vec<Flag> {
-    let w = winding(coil);
     let min = minimum_gap(coil);
-    if !w.bare {
+    if !coil.is_bare() {
         return Vec::new();
     }
     // A gap within a micrometre of zero is touching (pitch = wire diameter as typed).
-    if w.gap <= 1e-6 {
+    let gap = coil.gap();
+    if gap <= 1e-6 {
         return vec![Flag::new(
             FlagKind::BareTurns,
             format!(
                 "bare turns touch (gap {}): they short each other. Space them at least {} \
                  apart (coil length {} or more), or use enamelled wire",
-                super::digits::mm(w.gap.max(0.0), 2),
+                super::digits::mm(gap, 2),
                 super::digits::mm(min, 2),
                 super::digits::mm(shortest_buildable_length(coil), 1)
             ),
         )];
     }
-    if w.gap < min {
+    if gap < min {
         return vec![Flag::new(
             FlagKind::NarrowGap,
             format!(
                 "the gap between bare turns is {}, below the {} a hand-spread coil keeps \
                  reliably (common practice): a knock or a blob of solder will short them",
-                super::digits::mm(w.gap, 2),
+                super::digits::mm(gap, 2),
                 super::digits::mm(min, 2)
             ),
         )];
@@ -135,7 +112,6 @@ impl fmt::Display for TooTight {
 /// shortest buildable length. Insulated wire may close-wind; bare wire keeps
 /// [`minimum_gap`].
 pub fn check_length(coil: &Coil, proposed: f64) -> Result<f64, TooTight> {
-    let w = winding(coil);
     let shortest = shortest_buildable_length(coil);
     if proposed >= shortest - 1e-9 {
         return Ok(proposed);
@@ -143,7 +119,7 @@ pub fn check_length(coil: &Coil, proposed: f64) -> Result<f64, TooTight> {
     Err(TooTight {
         proposed,
         shortest,
-        gap: proposed / w.turns - w.wire,
+        gap: proposed / coil.turns() - coil.wire_overall(),
         minimum_gap: minimum_gap(coil),
         at_shortest: None,
     })
@@ -276,5 +252,5 @@ pub fn nearest_drills(former: f64) -> NearestDrills {
 
 /// The nearest drills or rods to the coil's former diameter (see [`nearest_drills`]).
 pub fn former_drills(coil: &Coil) -> NearestDrills {
-    nearest_drills(winding(coil).former)
+    nearest_drills(coil.former_diameter())
 }
