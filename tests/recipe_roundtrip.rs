@@ -289,23 +289,25 @@ fn file_strategy(
         proptest::collection::vec(reading, 0..4),
     )
         .prop_map(
-            |(name, notes, coil, tank, (t, m, fs), plan, (channel, within), bench_log)| RecipeFile {
-                schema: 1,
-                name,
-                notes,
-                coil,
-                tank,
-                conditions: ConditionsSheet {
-                    wire_temperature_c: t,
-                    drives_resonance: m,
-                    filament_sum: fs,
-                },
-                aim: AimSheet {
-                    plan,
-                    channel_mhz: Scaled::from_file_units(channel),
-                    on_channel_within_khz: within.map(Scaled::from_file_units),
-                },
-                bench_log,
+            |(name, notes, coil, tank, (t, m, fs), plan, (channel, within), bench_log)| {
+                RecipeFile {
+                    schema: 1,
+                    name,
+                    notes,
+                    coil,
+                    tank,
+                    conditions: ConditionsSheet {
+                        wire_temperature_c: t,
+                        drives_resonance: m,
+                        filament_sum: fs,
+                    },
+                    aim: AimSheet {
+                        plan,
+                        channel_mhz: Scaled::from_file_units(channel),
+                        on_channel_within_khz: within.map(Scaled::from_file_units),
+                    },
+                    bench_log,
+                }
             },
         )
 }

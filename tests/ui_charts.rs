@@ -421,7 +421,9 @@ fn labelled(lo: f64, span: f64, width: f64, room: f32) -> (f64, Vec<egui_plot::G
 #[test]
 fn axis_ticks_fall_on_1_2_5_steps_with_room_for_distinct_labels_at_every_zoom() {
     let room = ticks::X_LABEL_FADE.1;
-    for span in [0.03, 0.3, 0.62, 1.0, 2.5, 7.0, 13.0, 40.0, 104.0, 250.0, 3000.0] {
+    for span in [
+        0.03, 0.3, 0.62, 1.0, 2.5, 7.0, 13.0, 40.0, 104.0, 250.0, 3000.0,
+    ] {
         for lo in [-0.02 * span, 0.0, 0.17, 88.3] {
             for width in [160.0, 200.0, 250.0, 400.0, 800.0, 1600.0] {
                 let (step, marks) = labelled(lo, span, width, room);
@@ -437,12 +439,20 @@ fn axis_ticks_fall_on_1_2_5_steps_with_room_for_distinct_labels_at_every_zoom() 
                     "labels {points} points apart (span {span}, width {width})"
                 );
                 if width >= 2.5 * 2.0 * f64::from(room) {
-                    assert!(marks.len() >= 2, "{} labels (span {span}, width {width})", marks.len());
+                    assert!(
+                        marks.len() >= 2,
+                        "{} labels (span {span}, width {width})",
+                        marks.len()
+                    );
                 }
                 let texts: Vec<String> = marks.iter().map(|m| ticks::label(*m)).collect();
                 for (m, t) in marks.iter().zip(&texts) {
                     let read: f64 = t.parse().expect("a number");
-                    assert!((read - m.value).abs() <= 1e-6 * step.max(1.0), "{t} for {}", m.value);
+                    assert!(
+                        (read - m.value).abs() <= 1e-6 * step.max(1.0),
+                        "{t} for {}",
+                        m.value
+                    );
                     assert_ne!(t, "-0", "negative zero");
                 }
                 let mut distinct = texts.clone();
@@ -520,7 +530,10 @@ fn hover_reads_the_curves_at_the_pointers_length() {
             "{axis:?}/{unit:?}: {shown} MHz against {exact} Hz"
         );
         // Every curve is read, the higher settings lower.
-        assert_eq!(text.lines().filter(|l| l.starts_with("trimmer ")).count(), 5);
+        assert_eq!(
+            text.lines().filter(|l| l.starts_with("trimmer ")).count(),
+            5
+        );
         // Left of the touching limit there is no coil to read.
         let left = view.x_of_length(coil.shortest_length()) - 0.1;
         assert!(hover::spacing_text(&view, left).contains("turns touching"));

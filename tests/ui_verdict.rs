@@ -257,7 +257,9 @@ fn at_1280_by_720_no_text_in_the_right_column_is_clipped_and_the_bench_log_shows
     harness.run();
     harness.run();
     assert!(
-        screen_text(&harness).iter().any(|t| t == "Self-capacitance"),
+        screen_text(&harness)
+            .iter()
+            .any(|t| t == "Self-capacitance"),
         "the readouts did not unfold"
     );
     assert_nothing_clipped(&harness, 1280.0);
@@ -404,7 +406,11 @@ fn the_tolerance_field_moves_the_on_channel_verdict_at_its_boundary() {
             .expect("valid")
             .verdict
             .channel_text();
-        assert!(line.starts_with(if expected { "On channel" } else { "Off channel" }));
+        assert!(line.starts_with(if expected {
+            "On channel"
+        } else {
+            "Off channel"
+        }));
         assert!(screen_text(&harness).contains(&line), "{line:?} not shown");
     }
     // Back to the plan's default.

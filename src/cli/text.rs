@@ -71,7 +71,10 @@ pub fn analysis_report(a: &Analysis) -> String {
     line(format!(
         "  apparent           {}",
         match apparent_inductance(a) {
-            Ok(l) => format!("{:>10.2} nH   at the resonance, L/(1 - (f/f_self)^2)", l * 1e9),
+            Ok(l) => format!(
+                "{:>10.2} nH   at the resonance, L/(1 - (f/f_self)^2)",
+                l * 1e9
+            ),
             Err(why) => why.reason().to_owned(),
         }
     ));

@@ -119,7 +119,9 @@ mod tests {
 
     #[test]
     fn interpolation_is_exact_on_a_straight_line_and_refuses_outside() {
-        let line: Vec<[f64; 2]> = (0..=10).map(|i| [f64::from(i), 3.0 * f64::from(i) + 1.0]).collect();
+        let line: Vec<[f64; 2]> = (0..=10)
+            .map(|i| [f64::from(i), 3.0 * f64::from(i) + 1.0])
+            .collect();
         for x in [0.0, 0.25, 4.5, 9.99, 10.0] {
             let v = value_at(&line, x).expect("inside");
             assert!((v - (3.0 * x + 1.0)).abs() < 1e-12, "{x}: {v}");

@@ -4,7 +4,7 @@
 
 use super::palette;
 use super::{AERONAUTICAL, AERONAUTICAL_BAND_LABEL, ChartView};
-use eframe::egui::{self, Color32, RichText};
+use eframe::egui::{self, Color32};
 
 /// How an entry's swatch is drawn.
 #[derive(Clone, Copy, Debug, PartialEq)]
@@ -43,30 +43,43 @@ impl Entry {
 /// Width of a swatch, points.
 const SWATCH_WIDTH: f32 = 18.0;
 
-/// Draw `entries` in wrapping rows, small text; each name is a label (found by its name).
+/// Draw `entries` in wrapping rows, small text; each entry (swatch and name) is one widget
+/// that moves to the next row whole, named by its name for assistive tools.
 pub fn show(ui: &mut egui::Ui, entries: &[Entry]) {
     ui.horizontal_wrapped(|ui| {
-        ui.spacing_mut().item_spacing = egui::vec2(4.0, 1.0);
+        ui.spacing_mut().item_spacing = egui::vec2(10.0, 1.0);
         for entry in entries {
-            // Swatch and name kept together on one row.
-            ui.scope(|ui| {
-                ui.spacing_mut().item_spacing.x = 2.0;
-                swatch(ui, entry.swatch);
-                ui.label(RichText::new(&entry.name).small());
-            });
-            ui.add_space(6.0);
+            entry_widget(ui, entry);
         }
     });
 }
 
-fn swatch(ui: &mut egui::Ui, swatch: Swatch) {
-    let height = ui.text_style_height(&egui::TextStyle::Small);
-    let (rect, _) =
-        ui.allocate_exact_size(egui::vec2(SWATCH_WIDTH, height), egui::Sense::hover());
+fn entry_widget(ui: &mut egui::Ui, entry: &Entry) {
+    let font = egui::TextStyle::Small.resolve(ui.style());
+    let colour = ui.visuals().text_color();
+    let galley = ui
+        .painter()
+        .layout_no_wrap(entry.name.clone(), font, colour);
+    let height = galley
+        .size()
+        .y
+        .max(ui.text_style_height(&egui::TextStyle::Small));
+    let size = egui::vec2(SWATCH_WIDTH + 3.0 + galley.size().x, height);
+    let (rect, response) = ui.allocate_exact_size(size, egui::Sense::hover());
+    response.widget_info(|| egui::WidgetInfo::labeled(egui::Role::Label, true, &entry.name));
     if !ui.is_rect_visible(rect) {
         return;
     }
-    let p = ui.painter();
+    let swatch_rect = egui::Rect::from_min_size(rect.min, egui::vec2(SWATCH_WIDTH, rect.height()));
+    paint_swatch(ui.painter(), swatch_rect, entry.swatch);
+    ui.painter().galley(
+        egui::pos2(swatch_rect.right() + 3.0, rect.top()),
+        galley,
+        colour,
+    );
+}
+
+fn paint_swatch(p: &egui::Painter, rect: egui::Rect, swatch: Swatch) {
     let mid = rect.center().y;
     let (l, r) = (rect.left() + 1.0, rect.right() - 1.0);
     match swatch {
@@ -137,7 +150,10 @@ fn shared(view: &ChartView<'_>, y_mhz: (f64, f64), readings: bool) -> Vec<Entry>
         ));
     }
     if readings {
-        out.push(Entry::new("bench readings", Swatch::Point(palette::READING)));
+        out.push(Entry::new(
+            "bench readings",
+            Swatch::Point(palette::READING),
+        ));
     }
     out
 }
@@ -150,7 +166,7 @@ pub fn spacing_entries(
 ) -> Vec<Entry> {
     let mut out = vec![
         Entry::new(
-            "trimmer 0–100 % (each curve labelled)",
+            "trimmer 0–100 %",
             Swatch::Ramp(
                 palette::trimmer(visuals, 0.0),
                 palette::trimmer(visuals, 1.0),

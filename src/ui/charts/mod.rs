@@ -304,8 +304,10 @@ pub(crate) fn target_channel(plot_ui: &mut egui_plot::PlotUi<'_>, view: &ChartVi
             .color(palette::TARGET)
             .width(1.0),
     );
+    // Spans are left unnamed: egui_plot would write the name inside the band, cut short;
+    // the legend above the chart names them.
     plot_ui.span(
-        egui_plot::Span::new("target channel", band_lo..=band_hi)
+        egui_plot::Span::new("", band_lo..=band_hi)
             .axis(egui_plot::Axis::Y)
             .fill(palette::target_fill())
             .border_color(palette::TARGET.gamma_multiply(0.6))
@@ -325,7 +327,9 @@ pub(crate) fn aeronautical_band(plot_ui: &mut egui_plot::PlotUi<'_>, y_mhz: (f64
         return;
     }
     plot_ui.span(
-        egui_plot::Span::new(AERONAUTICAL_BAND_LABEL, lo..=hi)
+        // Unnamed: egui_plot would write the name inside the band, cut short ("aer…"); the
+        // legend above the chart names it.
+        egui_plot::Span::new("", lo..=hi)
             .axis(egui_plot::Axis::Y)
             .fill(palette::aeronautical_fill())
             .border_color(palette::AERONAUTICAL.gamma_multiply(0.7))

@@ -53,7 +53,7 @@ pub fn spacing_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
                 .style(LineStyle::dashed_loose()),
         );
         plot_ui.span(
-            Span::new("turns touching", (bounds[0].min(x_touch))..=x_touch)
+            Span::new("", (bounds[0].min(x_touch))..=x_touch)
                 .fill(palette::touching_fill(&visuals))
                 .border_width(0.0),
         );
@@ -73,8 +73,8 @@ pub fn spacing_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
                     .color(palette::trimmer(&visuals, curve.setting))
                     .width(1.8),
             );
-            curve_label(plot_ui, view, curve, &visuals, bounds[1]);
         }
+        curve_labels(plot_ui, view, &visuals, bounds[1]);
 
         if let Some(before) = view.uncalibrated {
             let present = view.tank.trimmer_setting;
@@ -129,34 +129,51 @@ fn spacing_plot<'a>(view: &'a ChartView<'a>) -> egui_plot::Plot<'a> {
     .label_formatter(move |pos| Some(hover::with_marker(pos, |x| hover::spacing_text(view, x))))
 }
 
-/// The curve's trimmer setting written at its last point inside the chart ("25 %"), in the
-/// curve's colour, so the curves can be told apart without the legend.
-fn curve_label(
+/// Each curve's trimmer setting written at its last point inside the chart ("25 %"), in the
+/// curve's colour, so the curves can be told apart without the legend; where curves run too
+/// close for two labels, the lower one's is left out (the legend's ramp still tells them).
+fn curve_labels(
     plot_ui: &mut egui_plot::PlotUi<'_>,
     view: &ChartView<'_>,
-    curve: &SpacingCurve,
     visuals: &egui::Visuals,
     x_max: f64,
 ) {
-    let Some(end) = curve
-        .points
+    /// Height of a label, points (small text), and the least gap between two.
+    const ROOM: f32 = 12.0;
+    let mut ends: Vec<(f32, [f64; 2], &SpacingCurve)> = view
+        .cache
+        .spacing_curves()
         .iter()
-        .rev()
-        .map(|p| [view.x_of_length(p[0]), p[1] * 1e-6])
-        .find(|p| p[0] <= x_max && p[1].is_finite())
-    else {
-        return;
-    };
-    let colour = palette::trimmer(visuals, curve.setting);
-    plot_ui.text(
-        egui_plot::Text::new(
-            "",
-            egui_plot::PlotPoint::new(end[0], end[1]),
-            egui::RichText::new(format!("{:.0} %", curve.setting * 100.0))
-                .small()
-                .strong()
-                .color(colour),
-        )
-        .anchor(egui::Align2::RIGHT_BOTTOM),
-    );
+        .filter_map(|curve| {
+            let end = curve
+                .points
+                .iter()
+                .rev()
+                .map(|p| [view.x_of_length(p[0]), p[1] * 1e-6])
+                .find(|p| p[0] <= x_max && p[1].is_finite())?;
+            let y = plot_ui
+                .screen_from_plot(egui_plot::PlotPoint::new(end[0], end[1]))
+                .y;
+            Some((y, end, curve))
+        })
+        .collect();
+    ends.sort_by(|a, b| a.0.total_cmp(&b.0));
+    let mut last_y = f32::NEG_INFINITY;
+    for (y, end, curve) in ends {
+        if y - last_y < ROOM {
+            continue;
+        }
+        last_y = y;
+        plot_ui.text(
+            egui_plot::Text::new(
+                "",
+                egui_plot::PlotPoint::new(end[0], end[1]),
+                egui::RichText::new(format!("{:.0} %", curve.setting * 100.0))
+                    .small()
+                    .strong()
+                    .color(palette::trimmer(visuals, curve.setting)),
+            )
+            .anchor(egui::Align2::RIGHT_BOTTOM),
+        );
+    }
 }

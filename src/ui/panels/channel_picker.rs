@@ -26,7 +26,11 @@ pub struct ChannelPicker {
 
 /// A typed frequency in MHz, in hertz, if it is one a recipe may aim at.
 pub fn typed_frequency(text: &str) -> Option<f64> {
-    let t = text.trim().trim_end_matches("MHz").trim_end_matches("mhz").trim();
+    let t = text
+        .trim()
+        .trim_end_matches("MHz")
+        .trim_end_matches("mhz")
+        .trim();
     let mhz: f64 = t.parse().ok()?;
     crate::recipe::rules::check_frequency_mhz(mhz, "the typed frequency").ok()?;
     // Whole hertz, as a plan's channels are.

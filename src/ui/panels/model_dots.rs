@@ -55,9 +55,10 @@ pub fn dots(a: &Analysis) -> Vec<Dot> {
 /// A row's text for assistive tools and tests: "Rosa round wire 52.31 nH (drives the
 /// resonance)".
 pub fn row_text(dot: &Dot) -> String {
-    let value = dot
-        .value
-        .map_or_else(|| "not computed".to_owned(), |v| format!("{} nH", digits::fixed(v * 1e9, 2)));
+    let value = dot.value.map_or_else(
+        || "not computed".to_owned(),
+        |v| format!("{} nH", digits::fixed(v * 1e9, 2)),
+    );
     if dot.driving {
         format!("{} {value} (drives the resonance)", dot.name)
     } else {
@@ -104,9 +105,7 @@ pub fn show(ui: &mut egui::Ui, a: &Analysis) {
 
     for dot in &rows {
         let (rect, response) = ui.allocate_exact_size(egui::vec2(width, ROW), Sense::hover());
-        response.widget_info(|| {
-            egui::WidgetInfo::labeled(egui::Role::Label, true, row_text(dot))
-        });
+        response.widget_info(|| egui::WidgetInfo::labeled(egui::Role::Label, true, row_text(dot)));
         let painter = ui.painter();
         let colour = if dot.driving { text } else { muted };
         painter.text(
@@ -164,7 +163,13 @@ pub fn show(ui: &mut egui::Ui, a: &Analysis) {
 }
 
 /// Ticks in nH at 1–2–5 steps under the rows.
-fn axis(ui: &mut egui::Ui, (lo, hi): (f64, f64), plot_width: f32, font: &egui::FontId, colour: Color32) {
+fn axis(
+    ui: &mut egui::Ui,
+    (lo, hi): (f64, f64),
+    plot_width: f32,
+    font: &egui::FontId,
+    colour: Color32,
+) {
     let width = ui.available_width();
     let (rect, _) = ui.allocate_exact_size(egui::vec2(width, ROW), Sense::hover());
     let per_point = (hi - lo) / f64::from(plot_width);

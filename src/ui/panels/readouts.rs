@@ -21,7 +21,6 @@ fn show_pf(farads: f64) -> String {
     format!("{:.2} pF", pf(farads))
 }
 
-
 /// Heading of the readouts (and the name of their fold).
 pub const READOUTS_HEADING: &str = "Readouts";
 

@@ -195,9 +195,7 @@ impl TargetPanel {
                 tolerance_row(ui, target);
                 ui.end_row();
             });
-        ui.add(
-            egui::Label::new(RichText::new(tolerance_note(target)).small().weak()).wrap(),
-        );
+        ui.add(egui::Label::new(RichText::new(tolerance_note(target)).small().weak()).wrap());
         if let Some(problem) = &self.custom_problem {
             ui.label(RichText::new(problem).color(theme::refusal(ui)));
         }
@@ -211,9 +209,7 @@ pub const TOLERANCE_LABEL: &str = "On channel within ±";
 /// practice, [`BandPlan::default_tolerance`]); a button goes back to the default.
 fn tolerance_row(ui: &mut egui::Ui, target: &mut crate::recipe::Target) {
     let (lo, hi) = crate::recipe::rules::TOLERANCE_KHZ;
-    let label = ui
-        .label(TOLERANCE_LABEL)
-        .on_hover_text(TOLERANCE_NOTE);
+    let label = ui.label(TOLERANCE_LABEL).on_hover_text(TOLERANCE_NOTE);
     ui.horizontal(|ui| {
         let mut khz = target.tolerance() * 1e-3;
         let field = ui
