@@ -104,6 +104,51 @@ fn integers_and_omitted_fields_are_read_as_a_builder_would_write_them() {
     assert_eq!(r.tank.feedback, None);
     assert_eq!(r.conditions, tankwright::model::Conditions::default());
     assert!(r.notes.is_empty() && r.bench_log.is_empty());
+    // A file from before the on-channel tolerance: the plan's default (its service's
+    // practice, ±15 kHz for FM broadcast: common practice, tuning/service.rs).
+    assert_eq!(r.target.tolerance, None);
+    assert_eq!(r.target.tolerance(), 15e3);
+}
+
+#[test]
+fn the_on_channel_tolerance_is_read_written_and_judged() {
+    let old = r#"TankwrightRecipe(
+        schema: 1,
+        name: "Club test channel",
+        coil: Winding(diameter: FormerMm(6), wire: Awg(18), turns: 5, spacing: GapMm(1)),
+        tank: Tank(fixed_pf: 22),
+        aim: Aim(plan: UsFm, channel_mhz: 100.1),
+    )"#;
+    let with = old.replace(
+        "channel_mhz: 100.1)",
+        "channel_mhz: 100.1, on_channel_within_khz: Some(4.5))",
+    );
+    let r = format::from_text(&with).unwrap();
+    assert_eq!(r.target.tolerance, Some(4.5e3));
+    assert_eq!(r.target.tolerance(), 4.5e3);
+    // Written back as typed, and read back to the same recipe.
+    let text = format::to_text(&r);
+    assert!(text.contains("on_channel_within_khz: Some(4.5)"), "{text}");
+    assert_eq!(format::from_text(&text).unwrap(), r);
+    // The default is not written: an old program reads the file the new one saves.
+    let plain = format::to_text(&format::from_text(old).unwrap());
+    assert!(!plain.contains("on_channel_within_khz"), "{plain}");
+    // The verdict and the target figures use it.
+    let f = recipe::figures(&r).unwrap();
+    assert_eq!(f.verdict.tolerance, 4.5e3);
+    assert_eq!(f.target.tolerance, 4.5e3);
+    // Nonsense is refused, naming the field.
+    for bad in ["0.0", "-3.0", "2000.0"] {
+        let text = old.replace(
+            "channel_mhz: 100.1)",
+            &format!("channel_mhz: 100.1, on_channel_within_khz: Some({bad}))"),
+        );
+        let e = format::from_text(&text).unwrap_err();
+        assert!(
+            e.to_string().contains("on_channel_within_khz"),
+            "{bad}: {e}"
+        );
+    }
 }
 
 fn overall(wire: WireSize, coating: CoatingName) -> Option<f64> {
@@ -240,26 +285,29 @@ fn file_strategy(
         tank,
         (num(-20.0, 80.0), model, any::<bool>()),
         plan,
-        num(30.0, 500.0),
+        (num(30.0, 500.0), proptest::option::of(num(0.1, 1000.0))),
         proptest::collection::vec(reading, 0..4),
     )
         .prop_map(
-            |(name, notes, coil, tank, (t, m, fs), plan, channel, bench_log)| RecipeFile {
-                schema: 1,
-                name,
-                notes,
-                coil,
-                tank,
-                conditions: ConditionsSheet {
-                    wire_temperature_c: t,
-                    drives_resonance: m,
-                    filament_sum: fs,
-                },
-                aim: AimSheet {
-                    plan,
-                    channel_mhz: Scaled::from_file_units(channel),
-                },
-                bench_log,
+            |(name, notes, coil, tank, (t, m, fs), plan, (channel, within), bench_log)| {
+                RecipeFile {
+                    schema: 1,
+                    name,
+                    notes,
+                    coil,
+                    tank,
+                    conditions: ConditionsSheet {
+                        wire_temperature_c: t,
+                        drives_resonance: m,
+                        filament_sum: fs,
+                    },
+                    aim: AimSheet {
+                        plan,
+                        channel_mhz: Scaled::from_file_units(channel),
+                        on_channel_within_khz: within.map(Scaled::from_file_units),
+                    },
+                    bench_log,
+                }
             },
         )
 }
@@ -326,6 +374,7 @@ proptest! {
         stray in 0.0..10e-12f64,
         channel in 88e6..108e6f64,
         measured in 60e6..150e6f64,
+        tolerance in proptest::option::of(100.0..1e6f64),
     ) {
         let mut r = Recipe::demo();
         r.winding.spacing = tankwright::model::SpacingSpec::Length(length);
@@ -333,6 +382,7 @@ proptest! {
         r.tank.trimmer_setting = setting;
         r.tank.stray = stray;
         r.target.channel = channel;
+        r.target.tolerance = tolerance;
         r.bench_log.push(recipe::BenchEntry {
             measured,
             length,

@@ -6,8 +6,8 @@ use egui_kittest::kittest::Queryable;
 use tankwright::model::{Coil, Conditions, Tank, evaluate_coil};
 use tankwright::recipe::Recipe;
 use tankwright::ui::charts::{
-    ChartCache, ChartView, SPACING_CHART_LABEL, SpacingAxis, TRIMMER_CHART_LABEL, spacing_chart,
-    trimmer_chart,
+    ChartCache, ChartView, SPACING_CHART_LABEL, SpacingAxis, TRIMMER_CHART_LABEL, hover,
+    spacing_chart, ticks, trimmer_chart,
 };
 use tankwright::ui::coil_view::{HANDLE_LABEL, coil_view};
 use tankwright::ui::units::LengthUnit;
@@ -399,4 +399,154 @@ fn the_free_end_steps_from_the_keyboard_and_a_screen_reader() {
     harness.get_by_label(HANDLE_LABEL).set_value_accesskit(0.0);
     harness.run();
     approx::assert_relative_eq!(harness.state().coil.length(), touching, max_relative = 1e-9);
+}
+
+/// Every grid mark of an axis from `lo` to `lo + span` on `width` points, with labels at
+/// least `room` points apart (as the charts ask): (labelled step, labelled marks).
+fn labelled(lo: f64, span: f64, width: f64, room: f32) -> (f64, Vec<egui_plot::GridMark>) {
+    let input = egui_plot::GridInput {
+        bounds: (lo, lo + span),
+        base_step_size: span / width * f64::from(ticks::GRID_MIN_POINTS),
+    };
+    let marks = ticks::marks(&input, room);
+    let step = marks.iter().map(|m| m.step_size).fold(0.0, f64::max);
+    let labelled = marks.into_iter().filter(|m| m.step_size == step).collect();
+    (step, labelled)
+}
+
+/// Axis ticks step by 1, 2 or 5 × 10^k (the usual steps of a chart scale: common practice),
+/// the smallest such step that leaves room for a label, at every zoom and unit. The two axes
+/// the issue saw fail ("0" alone on a 0–0.6 mm gap axis, "1" alone on an inch axis) get
+/// several distinct labels.
+#[test]
+fn axis_ticks_fall_on_1_2_5_steps_with_room_for_distinct_labels_at_every_zoom() {
+    let room = ticks::X_LABEL_FADE.1;
+    for span in [
+        0.03, 0.3, 0.62, 1.0, 2.5, 7.0, 13.0, 40.0, 104.0, 250.0, 3000.0,
+    ] {
+        for lo in [-0.02 * span, 0.0, 0.17, 88.3] {
+            for width in [160.0, 200.0, 250.0, 400.0, 800.0, 1600.0] {
+                let (step, marks) = labelled(lo, span, width, room);
+                let mantissa = step / 10f64.powf(step.log10().floor());
+                assert!(
+                    [1.0, 2.0, 5.0].iter().any(|m| (mantissa - m).abs() < 1e-9),
+                    "step {step} for span {span} on {width} points"
+                );
+                let points = step * width / span;
+                // Room for the label, and never more than one step of the series too coarse.
+                assert!(
+                    points >= f64::from(room) - 1e-6 && points < 2.5 * f64::from(room) + 1e-6,
+                    "labels {points} points apart (span {span}, width {width})"
+                );
+                if width >= 2.5 * 2.0 * f64::from(room) {
+                    assert!(
+                        marks.len() >= 2,
+                        "{} labels (span {span}, width {width})",
+                        marks.len()
+                    );
+                }
+                let texts: Vec<String> = marks.iter().map(|m| ticks::label(*m)).collect();
+                for (m, t) in marks.iter().zip(&texts) {
+                    let read: f64 = t.parse().expect("a number");
+                    assert!(
+                        (read - m.value).abs() <= 1e-6 * step.max(1.0),
+                        "{t} for {}",
+                        m.value
+                    );
+                    assert_ne!(t, "-0", "negative zero");
+                }
+                let mut distinct = texts.clone();
+                distinct.dedup();
+                assert_eq!(distinct, texts, "repeated labels");
+            }
+        }
+    }
+    // The issue's axes, as drawn at 1280×720 (about 190 points of plot).
+    let gap: Vec<String> = labelled(-0.024, 0.624, 190.0, room)
+        .1
+        .into_iter()
+        .map(ticks::label)
+        .collect();
+    assert_eq!(gap, ["0.0", "0.2", "0.4", "0.6"]);
+    let inches: Vec<String> = labelled(0.2, 0.4, 190.0, room)
+        .1
+        .into_iter()
+        .map(ticks::label)
+        .collect();
+    assert_eq!(inches, ["0.2", "0.4", "0.6"]);
+}
+
+/// Hover text reads each curve at the pointer's length (interpolated along the sweep), not
+/// the pointer's height: at the present coil the curve for the present trimmer setting gives
+/// the engine's own resonance, to within the display's 1 kHz plus the interpolation error
+/// (bounded by an eighth of the sweep's largest second difference).
+#[test]
+fn hover_reads_the_curves_at_the_pointers_length() {
+    let (coil, tank, conditions) = demo();
+    let mut cache = ChartCache::default();
+    cache.refresh(&coil, &tank, &conditions);
+    let exact = evaluate_coil(&coil, tank.external_capacitance(), &conditions).resonance;
+    let present = cache
+        .spacing_curves()
+        .iter()
+        .find(|c| (c.setting - tank.trimmer_setting).abs() < 1e-12)
+        .expect("a curve at the demo's 50 %");
+    let bend = present
+        .points
+        .windows(3)
+        .map(|w| (w[2][1] - 2.0 * w[1][1] + w[0][1]).abs())
+        .fold(0.0, f64::max);
+    let allowed_khz = 0.5 + bend / 8.0 * 1e-3 + 1e-9;
+    for (axis, unit) in [
+        (SpacingAxis::Length, LengthUnit::Millimetres),
+        (SpacingAxis::Gap, LengthUnit::Millimetres),
+        (SpacingAxis::Length, LengthUnit::Inches),
+    ] {
+        let view = ChartView {
+            uncalibrated: None,
+            readings: &[],
+            cache: &cache,
+            coil: &coil,
+            tank: &tank,
+            target_hz: 98.7e6,
+            channel_width_hz: 200e3,
+            resonance_hz: exact,
+            axis,
+            unit,
+        };
+        let x = view.x_of_length(coil.length());
+        let text = hover::spacing_text(&view, x);
+        let line = text
+            .lines()
+            .find(|l| l.starts_with("trimmer 50 %: "))
+            .unwrap_or_else(|| panic!("no 50 % curve in {text:?}"));
+        let shown: f64 = line
+            .trim_start_matches("trimmer 50 %: ")
+            .trim_end_matches(" MHz")
+            .parse()
+            .expect("MHz");
+        assert!(
+            (shown * 1e3 - exact * 1e-3).abs() <= allowed_khz,
+            "{axis:?}/{unit:?}: {shown} MHz against {exact} Hz"
+        );
+        // Every curve is read, the higher settings lower.
+        assert_eq!(
+            text.lines().filter(|l| l.starts_with("trimmer ")).count(),
+            5
+        );
+        // Left of the touching limit there is no coil to read.
+        let left = view.x_of_length(coil.shortest_length()) - 0.1;
+        assert!(hover::spacing_text(&view, left).contains("turns touching"));
+        // The trimmer chart reads its curve at the pointer's setting.
+        let t = hover::trimmer_text(&view, tank.trimmer_setting * 100.0);
+        let shown: f64 = t
+            .lines()
+            .nth(1)
+            .expect("a resonance line")
+            .trim_start_matches("resonance ")
+            .trim_end_matches(" MHz")
+            .parse()
+            .expect("MHz");
+        assert!((shown * 1e3 - exact * 1e-3).abs() <= 1.0, "{t}");
+    }
 }

@@ -27,6 +27,22 @@ fn readout(harness: &Harness<'_, App>, name: &str) -> String {
     text[at + 1].clone()
 }
 
+/// The row of the inductance chart for the method called `name`, as read by assistive tools:
+/// "Rosa round wire 52.31 nH (drives the resonance)".
+fn model_row(harness: &Harness<'_, App>, name: &str) -> String {
+    let prefix = format!("{name} ");
+    screen_text(harness)
+        .into_iter()
+        .find(|t| t.starts_with(&prefix) && t.contains(" nH"))
+        .unwrap_or_else(|| panic!("no row for {name:?} in the inductance chart"))
+}
+
+/// The inductance the chart shows for the method called `name`, nH.
+fn model_nh(harness: &Harness<'_, App>, name: &str) -> f64 {
+    let row = model_row(harness, name);
+    number(row.trim_start_matches(name))
+}
+
 /// The leading number of a figure such as "98.712 MHz" or "+35.2 kHz".
 fn number(figure: &str) -> f64 {
     let head: String = figure
@@ -66,8 +82,13 @@ fn demo_recipe_opens_with_every_readout_in_its_unit() {
     assert!(readout(&harness, "Self-resonance, lumped").ends_with(" MHz"));
     assert!(readout(&harness, "Self-resonance, helical").ends_with(" MHz"));
     assert!(readout(&harness, "Wire to cut").ends_with(" mm"));
-    assert!(readout(&harness, "» Rosa round wire").ends_with(" nH"));
-    assert!(readout(&harness, "Spread of the models").ends_with(" %"));
+    assert!(model_row(&harness, "Rosa round wire").ends_with(" nH (drives the resonance)"));
+    assert!(
+        screen_text(&harness)
+            .iter()
+            .any(|t| t.starts_with("Spread ") && t.contains(" %")),
+        "no spread of the models on screen"
+    );
     assert!(readout(&harness, "Offset from target").contains(" kHz"));
     assert_no_nan(&harness);
 }
@@ -421,8 +442,8 @@ fn a_custom_list_of_channels_can_be_typed() {
 fn another_inductance_model_can_drive_the_resonance() {
     let mut harness = workbench();
     let before = resonance_mhz(&harness);
-    let sheet = number(&readout(&harness, "Nagaoka current sheet"));
-    let round_wire = number(&readout(&harness, "» Rosa round wire"));
+    let sheet = model_nh(&harness, "Nagaoka current sheet");
+    let round_wire = model_nh(&harness, "Rosa round wire");
     harness
         .get_by_role_and_label(Role::ComboBox, "Inductance model")
         .click();
@@ -432,7 +453,8 @@ fn another_inductance_model_can_drive_the_resonance() {
         .click();
     harness.run();
     // The chosen model is marked, and its (larger) inductance lowers the resonance.
-    assert_eq!(number(&readout(&harness, "» Nagaoka current sheet")), sheet);
+    assert!(model_row(&harness, "Nagaoka current sheet").ends_with("(drives the resonance)"));
+    assert_eq!(model_nh(&harness, "Nagaoka current sheet"), sheet);
     assert!(sheet > round_wire);
     let after = resonance_mhz(&harness);
     assert!(
@@ -514,7 +536,8 @@ fn clicking_the_spacing_chart_sets_the_gap_when_the_gap_is_given() {
 #[test]
 fn hovering_a_figure_names_its_method() {
     let mut harness = workbench();
-    harness.get_by_label("» Rosa round wire").hover();
+    let row = model_row(&harness, "Rosa round wire");
+    harness.get_by_label(&row).hover();
     harness.run();
     // Tooltips wait for the pointer to rest; let time pass.
     for _ in 0..60 {

@@ -133,8 +133,8 @@ pub fn sweep_text(s: &ImpedanceSweep, lead_length: f64) -> String {
     );
     let _ = writeln!(
         out,
-        "first parallel self-resonance  {:.2} MHz",
-        s.self_resonance * MHZ
+        "first parallel self-resonance  {}",
+        crate::tuning::digits::self_resonance(s.self_resonance)
     );
     if let Some(p) = &s.operating {
         let _ = writeln!(

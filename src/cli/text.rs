@@ -1,6 +1,8 @@
 //! The readable report of an [`Analysis`].
 
 use crate::model::{Analysis, InductanceModel};
+use crate::tuning::apparent::apparent_inductance;
+use crate::tuning::digits;
 
 /// A plain-text report with units, one figure a line.
 pub fn analysis_report(a: &Analysis) -> String {
@@ -63,9 +65,18 @@ pub fn analysis_report(a: &Analysis) -> String {
     }
     line(format!("  leads (both)       {:>10.2} nH", i.leads * 1e9));
     line(format!(
-        "  total              {:>10.2} nH   apparent at resonance {:.2} nH",
-        a.total_inductance * 1e9,
-        a.apparent_inductance * 1e9
+        "  total              {:>10.2} nH",
+        a.total_inductance * 1e9
+    ));
+    line(format!(
+        "  apparent           {}",
+        match apparent_inductance(a) {
+            Ok(l) => format!(
+                "{:>10.2} nH   at the resonance, L/(1 - (f/f_self)^2)",
+                l * 1e9
+            ),
+            Err(why) => why.reason().to_owned(),
+        }
     ));
     line("Capacitance".to_owned());
     line(format!(
@@ -83,16 +94,16 @@ pub fn analysis_report(a: &Analysis) -> String {
     ));
     line("Resonance".to_owned());
     line(format!(
-        "  tank               {:>10.4} MHz",
-        a.resonance * 1e-6
+        "  tank               {:>10} MHz",
+        digits::mhz_plain(a.resonance)
     ));
     line(format!(
-        "  self, lumped       {:>10.0} MHz",
-        a.self_resonance.lumped * 1e-6
+        "  self, lumped       {:>14}",
+        digits::self_resonance(a.self_resonance.lumped)
     ));
     line(format!(
-        "  self, helical line {:>10.0} MHz",
-        a.self_resonance.helical * 1e-6
+        "  self, helical line {:>14}",
+        digits::self_resonance(a.self_resonance.helical)
     ));
     line("Loss".to_owned());
     line(format!(

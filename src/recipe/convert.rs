@@ -72,6 +72,7 @@ pub(crate) fn to_file_form(r: &Recipe) -> RecipeFile {
                 },
             },
             channel_mhz: Scaled::from_si(r.target.channel),
+            on_channel_within_khz: r.target.tolerance.map(Scaled::from_si),
         },
         bench_log: r
             .bench_log
@@ -152,6 +153,7 @@ pub(crate) fn from_file_form(sheet: RecipeFile) -> Recipe {
     let target = Target {
         plan,
         channel: sheet.aim.channel_mhz.si(),
+        tolerance: sheet.aim.on_channel_within_khz.map(Scaled::si),
     };
     let bench_log = sheet
         .bench_log

@@ -14,6 +14,18 @@ pub struct Target {
     pub plan: BandPlan,
     /// The channel centre, hertz.
     pub channel: f64,
+    /// "On channel" means within ± this of the channel centre, hertz; `None`: the plan's
+    /// default, the practice of its service ([`BandPlan::default_tolerance`]).
+    pub tolerance: Option<f64>,
+}
+
+impl Target {
+    /// The on-channel tolerance judged against, hertz: the user's, else the plan's default.
+    pub fn tolerance(&self) -> f64 {
+        self.tolerance
+            .filter(|t| t.is_finite() && *t > 0.0)
+            .unwrap_or_else(|| self.plan.default_tolerance())
+    }
 }
 
 /// One measurement at the bench.
@@ -111,6 +123,7 @@ impl Recipe {
             target: Target {
                 plan: BandPlan::UsFm,
                 channel: 98.7e6,
+                tolerance: None,
             },
             bench_log: Vec::new(),
         }

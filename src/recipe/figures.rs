@@ -73,10 +73,11 @@ pub fn figures(recipe: &Recipe) -> Result<Figures, InputError> {
         &conditions,
         &recipe.target.plan,
         recipe.target.channel,
-        recipe.target.plan.default_tolerance(),
+        recipe.target.tolerance(),
     );
     let line = inverse_square_line(&recipe.tank, &readings);
-    let aim = Aim::new(recipe.target.plan.clone(), Some(recipe.target.channel));
+    let aim = Aim::new(recipe.target.plan.clone(), Some(recipe.target.channel))
+        .with_tolerance(recipe.target.tolerance());
     let verdict = judge(&coil, &tank, &conditions, &aim);
     Ok(Figures {
         line,

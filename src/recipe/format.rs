@@ -41,6 +41,9 @@ fn doc_comments() -> Field {
             );
         });
         top.field("aim").build_fields(|aim| {
+            aim.field("on_channel_within_khz").with_doc(
+                "On channel within +/- this many kHz of the centre; leave it out for the plan's default.",
+            );
             aim.field("plan").with_doc(
                 "UsFm, Fm100kHz, JapanFmWide, JapanFm, TwoMetreRegion1, TwoMetreRegion2, TwoMetreRegion2Step20kHz, TwoMetreRegion3 or OwnList(channels_mhz: [..]).",
             );

@@ -11,6 +11,10 @@ use crate::tuning::BandPlan;
 
 /// Frequencies a recipe may name, MHz: wider than any VHF tank, narrow enough to catch typos.
 pub const FREQUENCY_MHZ: (f64, f64) = (1.0, 3000.0);
+/// On-channel tolerances a recipe may set, kHz: from 0.1 kHz (finer than a free-running LC
+/// oscillator holds for a minute; common practice) to 1000 kHz (past that, "on channel" says
+/// nothing in any VHF service).
+pub const TOLERANCE_KHZ: (f64, f64) = (0.1, 1000.0);
 /// Longest name accepted, characters.
 pub const NAME_MAX: usize = 200;
 /// Largest instrument error accepted, ppm.
@@ -64,6 +68,20 @@ pub fn check_frequency_mhz(value: f64, what: &str) -> Result<(), String> {
     }
     if !(lo..=hi).contains(&value) {
         return Err(format!("{what} {value} MHz is outside {lo}–{hi} MHz"));
+    }
+    Ok(())
+}
+
+/// Whether `khz` is an on-channel tolerance a recipe may set ([`TOLERANCE_KHZ`]).
+pub fn check_tolerance_khz(khz: f64) -> Result<(), String> {
+    let (lo, hi) = TOLERANCE_KHZ;
+    if !khz.is_finite() {
+        return Err("the on-channel tolerance is not a number".to_owned());
+    }
+    if !(lo..=hi).contains(&khz) {
+        return Err(format!(
+            "the on-channel tolerance ±{khz} kHz is outside ±{lo}–{hi} kHz"
+        ));
     }
     Ok(())
 }
@@ -191,6 +209,16 @@ pub fn judge(r: &Recipe) -> Result<(), Refusal> {
     }
     check_frequency_mhz(r.target.channel / 1e6, "the target channel")
         .map_err(|reason| Refusal::new("aim.channel_mhz", "channel_mhz", 0, reason))?;
+    if let Some(t) = r.target.tolerance {
+        check_tolerance_khz(t / 1e3).map_err(|reason| {
+            Refusal::new(
+                "aim.on_channel_within_khz",
+                "on_channel_within_khz",
+                0,
+                reason,
+            )
+        })?;
+    }
     for (i, reading) in r.bench_log.iter().enumerate() {
         check_reading(reading, i)?;
     }

@@ -26,6 +26,8 @@ pub type Millimetres = Scaled<3>;
 pub type Picofarads = Scaled<12>;
 /// Megahertz.
 pub type Megahertz = Scaled<-6>;
+/// Kilohertz.
+pub type Kilohertz = Scaled<-3>;
 /// Percent of a 0–1 fraction.
 pub type Percent = Scaled<2>;
 
@@ -332,6 +334,10 @@ pub struct AimSheet {
     pub plan: PlanName,
     /// Channel centre, MHz.
     pub channel_mhz: Megahertz,
+    /// "On channel" means within ± this many kHz of the centre; absent: the plan's default
+    /// (its service's practice). Added after schema 1 was first written: older files omit it.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub on_channel_within_khz: Option<Kilohertz>,
 }
 
 /// Band plans.

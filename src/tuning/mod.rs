@@ -7,6 +7,7 @@
 //! these functions and have no copies of their own.
 
 pub mod advice;
+pub mod apparent;
 pub mod bands;
 pub mod buildable;
 pub mod channel_list;

@@ -31,6 +31,10 @@ const RIGHT_DEFAULT: f32 = 440.0;
 const RIGHT_MIN: f32 = 360.0;
 const RIGHT_SHARE: f32 = 0.34;
 
+/// Window height from which the readouts start open, points: below it they start folded so
+/// that the verdict, the target and the bench log all show without scrolling (1280×720).
+const READOUTS_OPEN_HEIGHT: f32 = 860.0;
+
 const UNDO: KeyboardShortcut = KeyboardShortcut::new(Modifiers::COMMAND, Key::Z);
 const REDO: KeyboardShortcut =
     KeyboardShortcut::new(Modifiers::COMMAND.plus(Modifiers::SHIFT), Key::Z);
@@ -445,10 +449,12 @@ impl App {
             .default_size(RIGHT_DEFAULT.min(right_max))
             .size_range(RIGHT_MIN..=right_max)
             .show(ui, |ui| {
-                egui::ScrollArea::both().show(ui, |ui| {
+                // Wrap, never scroll sideways: every line fits the column's width.
+                egui::ScrollArea::vertical().show(ui, |ui| {
                     verdict::show(ui, evaluation);
                     ui.add_space(8.0);
-                    readouts::show(ui, evaluation, unit);
+                    let tall = ui.ctx().content_rect().height() >= READOUTS_OPEN_HEIGHT;
+                    readouts::show(ui, evaluation, unit, tall);
                     ui.add_space(8.0);
                     target_panel.show(ui, &mut recipe.target, evaluation, unit, commands);
                     ui.add_space(8.0);

@@ -5,7 +5,10 @@
 //! a chart returns the value under the pointer for the caller to apply.
 
 mod cache;
+pub mod hover;
+pub mod legend;
 mod spacing;
+pub mod ticks;
 mod trimmer;
 
 use crate::model::{Coil, Tank};
@@ -75,7 +78,7 @@ pub struct ChartView<'a> {
 
 impl ChartView<'_> {
     /// A coil length in metres as the spacing chart's x value (display units).
-    pub(crate) fn x_of_length(&self, length: f64) -> f64 {
+    pub fn x_of_length(&self, length: f64) -> f64 {
         match self.axis {
             SpacingAxis::Length => self.unit.from_metres(length),
             SpacingAxis::Gap => self.unit.from_metres(self.coil.gap_for_length(length)),
@@ -83,7 +86,7 @@ impl ChartView<'_> {
     }
 
     /// The spacing chart's x value (display units) as a coil length in metres.
-    pub(crate) fn length_of_x(&self, x: f64) -> f64 {
+    pub fn length_of_x(&self, x: f64) -> f64 {
         match self.axis {
             SpacingAxis::Length => self.unit.to_metres(x),
             SpacingAxis::Gap => self.coil.length_for_gap(self.unit.to_metres(x)),
@@ -251,22 +254,10 @@ pub(crate) fn pointer_x<R>(
 }
 
 /// A chart that holds still: no pan, zoom or scroll (a drag sets a value instead), a crosshair,
-/// a small legend in `corner`, resonance in MHz up the side and `x_label` along the bottom.
-pub(crate) fn still_plot(
-    id: &str,
-    corner: egui_plot::Corner,
-    x_label: String,
-) -> egui_plot::Plot<'static> {
-    egui_plot::Plot::new(id)
-        .legend(
-            egui_plot::Legend::default()
-                .position(corner)
-                .text_style(egui::TextStyle::Small)
-                .follow_insertion_order(true)
-                .color_conflict_handling(egui_plot::ColorConflictHandling::PickFirst),
-        )
-        .x_axis_label(x_label)
-        .y_axis_label("resonance (MHz)")
+/// no legend inside (each chart draws its own above it: [`legend`]), resonance in MHz up the
+/// side and `x_label` along the bottom, both axes at 1–2–5 steps ([`ticks`]).
+pub(crate) fn still_plot<'a>(id: &str, x_label: String) -> egui_plot::Plot<'a> {
+    let plot = egui_plot::Plot::new(id)
         .allow_drag(false)
         .allow_zoom(false)
         .allow_scroll(false)
@@ -274,28 +265,8 @@ pub(crate) fn still_plot(
         .allow_double_click_reset(false)
         .allow_axis_zoom_drag(false)
         .show_crosshair(true)
-        .min_size(egui::vec2(160.0, 120.0))
-}
-
-/// Hover text: the item's name (if the pointer is near one), the resonance, then `x_text`.
-pub(crate) fn hover_text(
-    pos: &egui_plot::HoverPosition<'_>,
-    x_text: impl Fn(f64) -> String,
-) -> String {
-    let (name, p) = match pos {
-        egui_plot::HoverPosition::NearDataPoint {
-            plot_name,
-            position,
-            ..
-        } => (*plot_name, *position),
-        egui_plot::HoverPosition::Elsewhere { position } => ("", *position),
-    };
-    let head = if name.is_empty() {
-        String::new()
-    } else {
-        format!("{name}\n")
-    };
-    format!("{head}{:.3} MHz\n{}", p.y, x_text(p.x))
+        .min_size(egui::vec2(160.0, 120.0));
+    ticks::nice_axes(plot, x_label, "resonance (MHz)")
 }
 
 /// Bench readings as points at (`x_of(reading)`, measured MHz).
@@ -333,8 +304,10 @@ pub(crate) fn target_channel(plot_ui: &mut egui_plot::PlotUi<'_>, view: &ChartVi
             .color(palette::TARGET)
             .width(1.0),
     );
+    // Spans are left unnamed: egui_plot would write the name inside the band, cut short;
+    // the legend above the chart names them.
     plot_ui.span(
-        egui_plot::Span::new("target channel", band_lo..=band_hi)
+        egui_plot::Span::new("", band_lo..=band_hi)
             .axis(egui_plot::Axis::Y)
             .fill(palette::target_fill())
             .border_color(palette::TARGET.gamma_multiply(0.6))
@@ -354,7 +327,9 @@ pub(crate) fn aeronautical_band(plot_ui: &mut egui_plot::PlotUi<'_>, y_mhz: (f64
         return;
     }
     plot_ui.span(
-        egui_plot::Span::new(AERONAUTICAL_BAND_LABEL, lo..=hi)
+        // Unnamed: egui_plot would write the name inside the band, cut short ("aer…"); the
+        // legend above the chart names it.
+        egui_plot::Span::new("", lo..=hi)
             .axis(egui_plot::Axis::Y)
             .fill(palette::aeronautical_fill())
             .border_color(palette::AERONAUTICAL.gamma_multiply(0.7))

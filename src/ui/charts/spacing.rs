@@ -1,11 +1,12 @@
 //! Resonance against spacing, one curve per trimmer setting.
 
 use super::{
-    ChartView, aeronautical_band, held_bounds, hover_text, palette, pointer_x, present_marker,
+    ChartView, aeronautical_band, held_bounds, hover, legend, palette, pointer_x, present_marker,
     reading_points, still_plot, target_channel,
 };
+use crate::tuning::sweep::SpacingCurve;
 use eframe::egui;
-use egui_plot::{Corner, Line, LineStyle, PlotPoints, Span, VLine};
+use egui_plot::{Line, LineStyle, PlotPoints, Span, VLine};
 
 /// Accessible name of the chart.
 pub const SPACING_CHART_LABEL: &str = "spacing chart";
@@ -33,25 +34,13 @@ pub fn spacing_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
     let hold_id = ui.make_persistent_id("tankwright spacing chart bounds");
     let bounds = held_bounds(ui, hold_id, [x_lo, x_long, y_lo, y_hi]);
 
-    let unit = view.unit;
-    let axis = view.axis;
-    let decimals = unit.decimals();
-    let suffix = unit.suffix();
-    let spacing_name = axis.label();
+    let plot = spacing_plot(view);
+    legend::show(
+        ui,
+        &legend::spacing_entries(view, &visuals, (bounds[2], bounds[3])),
+    );
 
-    let plot = still_plot(
-        "tankwright spacing chart",
-        Corner::RightBottom,
-        format!("{spacing_name} ({suffix})"),
-    )
-    .label_formatter(move |pos| {
-        Some(hover_text(pos, |x| {
-            format!("{spacing_name} {x:.decimals$} {suffix}")
-        }))
-    });
-
-    // Items are added in legend order read from the bottom (the legend sits in the lower right
-    // corner and stacks upward); each name's first item gives its legend colour.
+    // The legend is drawn above the chart (legend.rs); keep its entries in step with the items.
     let response = plot.show(ui, |plot_ui| {
         plot_ui.set_plot_bounds_x(bounds[0]..=bounds[1]);
         plot_ui.set_plot_bounds_y(bounds[2]..=bounds[3]);
@@ -64,7 +53,7 @@ pub fn spacing_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
                 .style(LineStyle::dashed_loose()),
         );
         plot_ui.span(
-            Span::new("turns touching", (bounds[0].min(x_touch))..=x_touch)
+            Span::new("", (bounds[0].min(x_touch))..=x_touch)
                 .fill(palette::touching_fill(&visuals))
                 .border_width(0.0),
         );
@@ -85,6 +74,7 @@ pub fn spacing_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
                     .width(1.8),
             );
         }
+        curve_labels(plot_ui, view, &visuals, bounds[1]);
 
         if let Some(before) = view.uncalibrated {
             let present = view.tank.trimmer_setting;
@@ -127,4 +117,63 @@ pub fn spacing_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
     );
     let hi = hi.min(crate::model::limits::LENGTH_MAX);
     Some(length.clamp(lo, hi.max(lo)))
+}
+
+/// The plot itself: still axes at 1–2–5 steps in the user's unit, and hover text giving each
+/// curve's resonance at the pointer's length ([`hover::spacing_text`]).
+fn spacing_plot<'a>(view: &'a ChartView<'a>) -> egui_plot::Plot<'a> {
+    still_plot(
+        "tankwright spacing chart",
+        format!("{} ({})", view.axis.label(), view.unit.suffix()),
+    )
+    .label_formatter(move |pos| Some(hover::with_marker(pos, |x| hover::spacing_text(view, x))))
+}
+
+/// Each curve's trimmer setting written at its last point inside the chart ("25 %"), in the
+/// curve's colour, so the curves can be told apart without the legend; where curves run too
+/// close for two labels, the lower one's is left out (the legend's ramp still tells them).
+fn curve_labels(
+    plot_ui: &mut egui_plot::PlotUi<'_>,
+    view: &ChartView<'_>,
+    visuals: &egui::Visuals,
+    x_max: f64,
+) {
+    /// Height of a label, points (small text), and the least gap between two.
+    const ROOM: f32 = 12.0;
+    let mut ends: Vec<(f32, [f64; 2], &SpacingCurve)> = view
+        .cache
+        .spacing_curves()
+        .iter()
+        .filter_map(|curve| {
+            let end = curve
+                .points
+                .iter()
+                .rev()
+                .map(|p| [view.x_of_length(p[0]), p[1] * 1e-6])
+                .find(|p| p[0] <= x_max && p[1].is_finite())?;
+            let y = plot_ui
+                .screen_from_plot(egui_plot::PlotPoint::new(end[0], end[1]))
+                .y;
+            Some((y, end, curve))
+        })
+        .collect();
+    ends.sort_by(|a, b| a.0.total_cmp(&b.0));
+    let mut last_y = f32::NEG_INFINITY;
+    for (y, end, curve) in ends {
+        if y - last_y < ROOM {
+            continue;
+        }
+        last_y = y;
+        plot_ui.text(
+            egui_plot::Text::new(
+                "",
+                egui_plot::PlotPoint::new(end[0], end[1]),
+                egui::RichText::new(format!("{:.0} %", curve.setting * 100.0))
+                    .small()
+                    .strong()
+                    .color(palette::trimmer(visuals, curve.setting)),
+            )
+            .anchor(egui::Align2::RIGHT_BOTTOM),
+        );
+    }
 }

@@ -1,11 +1,11 @@
 //! Resonance against trimmer setting at the present spacing.
 
 use super::{
-    ChartView, aeronautical_band, held_bounds, hover_text, palette, pointer_x, present_marker,
+    ChartView, aeronautical_band, held_bounds, hover, legend, palette, pointer_x, present_marker,
     reading_points, still_plot, target_channel,
 };
 use eframe::egui;
-use egui_plot::{Corner, Line, PlotPoints};
+use egui_plot::{Line, PlotPoints};
 
 /// Accessible name of the chart.
 pub const TRIMMER_CHART_LABEL: &str = "trimmer chart";
@@ -19,15 +19,27 @@ pub fn trimmer_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
     let hold_id = ui.make_persistent_id("tankwright trimmer chart bounds");
     let bounds = held_bounds(ui, hold_id, [-2.0, 102.0, y_lo, y_hi]);
 
-    let plot = still_plot(
-        "tankwright trimmer chart",
-        Corner::RightTop,
-        "trimmer setting (%)".to_owned(),
-    )
-    .label_formatter(|pos| Some(hover_text(pos, |x| format!("trimmer {x:.1} %"))));
+    let plot = still_plot("tankwright trimmer chart", "trimmer setting (%)".to_owned())
+        .label_formatter(|pos| Some(hover::with_marker(pos, |x| hover::trimmer_text(view, x))));
+    // Readings at the present length only: at another length they lie on another curve.
+    let here = view.coil.length();
+    let same_length: Vec<_> = view
+        .readings
+        .iter()
+        .copied()
+        .filter(|r| (r.length - here).abs() <= 1e-6)
+        .collect();
+    legend::show(
+        ui,
+        &legend::trimmer_entries(
+            view,
+            &visuals,
+            (bounds[2], bounds[3]),
+            !same_length.is_empty(),
+        ),
+    );
 
-    // Items are added in legend order (the legend sits in the upper right corner); each name's
-    // first item gives its legend colour.
+    // The legend is drawn above the chart (legend.rs); keep its entries in step with the items.
     let response = plot.show(ui, |plot_ui| {
         plot_ui.set_plot_bounds_x(bounds[0]..=bounds[1]);
         plot_ui.set_plot_bounds_y(bounds[2]..=bounds[3]);
@@ -39,14 +51,6 @@ pub fn trimmer_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
         );
         target_channel(plot_ui, view);
         aeronautical_band(plot_ui, (bounds[2], bounds[3]));
-        // Readings at the present length only: at another length they lie on another curve.
-        let here = view.coil.length();
-        let same_length: Vec<_> = view
-            .readings
-            .iter()
-            .copied()
-            .filter(|r| (r.length - here).abs() <= 1e-6)
-            .collect();
         let at_length = ChartView {
             readings: &same_length,
             ..*view

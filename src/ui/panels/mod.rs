@@ -3,6 +3,8 @@
 
 pub mod audio;
 pub mod bench;
+pub mod channel_picker;
+pub mod model_dots;
 pub mod readouts;
 pub mod stray;
 pub mod tank;

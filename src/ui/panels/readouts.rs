@@ -1,12 +1,14 @@
 //! The readouts: every figure of the analysis with its unit, method and cautions, or the
 //! reason the input was refused.
 
-use super::heading;
-use crate::model::{Analysis, InductanceModel, InputError, WarningTopic};
+use super::{heading, model_dots};
+use crate::model::{Analysis, InputError, WarningTopic};
+use crate::tuning::apparent::apparent_inductance;
+use crate::tuning::digits;
 use crate::ui::evaluation::Evaluation;
 use crate::ui::theme;
-use crate::ui::units::{LengthUnit, mhz, nh, pf};
-use crate::ui::widgets::{Readout, caution_mark};
+use crate::ui::units::{LengthUnit, nh, pf};
+use crate::ui::widgets::{Readout, caution_mark, cautions_line};
 use eframe::egui::{self, RichText};
 
 /// Inductance in nanohenries with its unit.
@@ -19,17 +21,23 @@ fn show_pf(farads: f64) -> String {
     format!("{:.2} pF", pf(farads))
 }
 
-/// Frequency in megahertz with its unit.
-fn show_mhz(hertz: f64) -> String {
-    format!("{:.3} MHz", mhz(hertz))
-}
+/// Heading of the readouts (and the name of their fold).
+pub const READOUTS_HEADING: &str = "Readouts";
 
-/// Show the readouts for the present recipe, or why it was refused.
-pub fn show(ui: &mut egui::Ui, evaluation: &Evaluation, unit: LengthUnit) {
-    heading(ui, "Readouts");
+/// Show the readouts for the present recipe under a fold (open to begin with when `open`),
+/// or, never folded, why the recipe was refused.
+pub fn show(ui: &mut egui::Ui, evaluation: &Evaluation, unit: LengthUnit, open: bool) {
     match evaluation.current() {
-        Ok(figures) => figures_rows(ui, &figures.analysis, unit),
-        Err(error) => refusal(ui, error),
+        Ok(figures) => {
+            egui::CollapsingHeader::new(RichText::new(READOUTS_HEADING).heading())
+                .id_salt("readouts")
+                .default_open(open)
+                .show(ui, |ui| figures_rows(ui, &figures.analysis, unit));
+        }
+        Err(error) => {
+            heading(ui, READOUTS_HEADING);
+            refusal(ui, error);
+        }
     }
 }
 
@@ -66,7 +74,7 @@ fn refusal(ui: &mut egui::Ui, error: &InputError) {
 fn figures_rows(ui: &mut egui::Ui, a: &Analysis, unit: LengthUnit) {
     Readout::new(
         "Resonance",
-        show_mhz(a.resonance),
+        digits::mhz(a.resonance),
         "1/(2π√(LC)) with the driving model's inductance plus the leads and the total \
          capacitance, iterated until the frequency-dependent terms settle",
     )
@@ -75,41 +83,11 @@ fn figures_rows(ui: &mut egui::Ui, a: &Analysis, unit: LengthUnit) {
     .show(ui);
 
     ui.add_space(4.0);
-    ui.label(RichText::new("Inductance of the coil (without leads)").strong());
-    for model in InductanceModel::ALL {
-        let value = a.inductance.by_model(model).map(show_nh);
-        let driving = model == a.model;
-        let name = if driving {
-            format!("» {}", model.label())
-        } else {
-            model.label().to_owned()
-        };
-        let mut row = Readout::new(
-            &name,
-            value.unwrap_or_else(|| "not computed".to_owned()),
-            model.method(),
-        )
-        .emphasis(driving)
-        .indent(!driving);
-        if model == InductanceModel::Wheeler1928 {
-            row = row.warnings(a.warnings_about(WarningTopic::Inductance));
-        }
-        row.show(ui);
+    ui.label(RichText::new("Inductance of the coil (without leads), by method").strong());
+    model_dots::show(ui, a);
+    for warning in a.warnings_about(WarningTopic::Inductance) {
+        cautions_line(ui, &warning.message);
     }
-    Readout::new(
-        "Rosa round wire, DC",
-        show_nh(a.inductance.round_wire_low_freq),
-        "Rosa's round-wire correction with the current spread evenly through the wire (low \
-         frequency), for comparison",
-    )
-    .indent(true)
-    .show(ui);
-    Readout::new(
-        "Spread of the models",
-        format!("{:.1} %", a.inductance.spread() * 100.0),
-        "Largest minus smallest of the models above, as a share of the round-wire value",
-    )
-    .show(ui);
     Readout::new(
         "Leads",
         show_nh(a.inductance.leads),
@@ -124,13 +102,15 @@ fn figures_rows(ui: &mut egui::Ui, a: &Analysis, unit: LengthUnit) {
         "The driving model's coil inductance plus both leads",
     )
     .show(ui);
-    Readout::new(
-        "Apparent inductance",
-        show_nh(a.apparent_inductance),
-        "L/(1 − (f/f_self)²) with the lumped self-resonance: what a bridge would read across \
-         the coil at the resonance",
-    )
-    .show(ui);
+    let apparent_note = "L/(1 − (f/f_self)²) with the lumped self-resonance: what a bridge \
+                         would read across the coil at the resonance";
+    match apparent_inductance(a) {
+        Ok(l) => Readout::new("Apparent inductance", show_nh(l), apparent_note).show(ui),
+        Err(why) => {
+            Readout::new("Apparent inductance", "not shown".to_owned(), apparent_note).show(ui);
+            ui.add(egui::Label::new(RichText::new(why.reason()).small().weak()).wrap());
+        }
+    }
 
     ui.add_space(4.0);
     Readout::new(
@@ -150,13 +130,13 @@ fn figures_rows(ui: &mut egui::Ui, a: &Analysis, unit: LengthUnit) {
     .show(ui);
     Readout::new(
         "Self-resonance, lumped",
-        show_mhz(a.self_resonance.lumped),
+        digits::self_resonance(a.self_resonance.lumped),
         "1/(2π√(L·C_self)) with Medhurst's self-capacitance: the usual first estimate",
     )
     .show(ui);
     Readout::new(
         "Self-resonance, helical",
-        show_mhz(a.self_resonance.helical),
+        digits::self_resonance(a.self_resonance.helical),
         "Half-wave resonance of the helix as a slow-wave line with the Kandoian–Sichak \
          velocity factor",
     )

@@ -1,9 +1,9 @@
 //! The target: band plan and channel, and where the coil stands against it.
 
+use super::channel_picker::ChannelPicker;
 use super::{Command, heading, target_figures};
 use crate::recipe::Target;
 use crate::tuning::BandPlan;
-use crate::tuning::bands::us_fm_channel_number;
 use crate::ui::evaluation::Evaluation;
 use crate::ui::theme;
 use crate::ui::units::{LengthUnit, mhz};
@@ -19,14 +19,6 @@ pub fn show_mhz(hz: f64) -> String {
         trimmed.to_owned()
     };
     format!("{trimmed} MHz")
-}
-
-/// A channel as listed: frequency, and its number on the US FM raster.
-fn channel_name(plan: &BandPlan, hz: f64) -> String {
-    match (plan, us_fm_channel_number(hz)) {
-        (BandPlan::UsFm, Some(n)) => format!("{} (channel {n})", show_mhz(hz)),
-        _ => show_mhz(hz),
-    }
 }
 
 /// Parse a list of MHz values separated by commas, semicolons or spaces, into hertz.
@@ -57,11 +49,12 @@ fn format_mhz_list(list: &[f64]) -> String {
         .join(", ")
 }
 
-/// The target panel's own state: the custom list as typed.
+/// The target panel's own state: the custom list as typed, the channel picker's field.
 #[derive(Default)]
 pub struct TargetPanel {
     custom_text: String,
     custom_problem: Option<String>,
+    channel_picker: ChannelPicker,
 }
 
 impl TargetPanel {
@@ -177,21 +170,16 @@ impl TargetPanel {
                     {
                         target.channel = *c;
                     }
-                    egui::ComboBox::from_id_salt("channel")
-                        .selected_text(channel_name(&target.plan, target.channel))
-                        .width(wide - 60.0)
-                        .height(320.0)
-                        .show_ui(ui, |ui| {
-                            for &c in channels {
-                                ui.selectable_value(
-                                    &mut target.channel,
-                                    c,
-                                    channel_name(&target.plan, c),
-                                );
-                            }
-                        })
-                        .response
-                        .labelled_by(label.id);
+                    if let Some(c) = self.channel_picker.show(
+                        ui,
+                        label.id,
+                        &target.plan,
+                        channels,
+                        target.channel,
+                        wide - 60.0,
+                    ) {
+                        target.channel = c;
+                    }
                     if ui
                         .add_enabled(higher.is_some(), egui::Button::new("›"))
                         .on_hover_text("Next channel up")
@@ -203,9 +191,82 @@ impl TargetPanel {
                     }
                 });
                 ui.end_row();
+
+                tolerance_row(ui, target);
+                ui.end_row();
             });
+        ui.add(egui::Label::new(RichText::new(tolerance_note(target)).small().weak()).wrap());
         if let Some(problem) = &self.custom_problem {
             ui.label(RichText::new(problem).color(theme::refusal(ui)));
         }
+    }
+}
+
+/// Accessible name (and label) of the on-channel tolerance field.
+pub const TOLERANCE_LABEL: &str = "On channel within ±";
+
+/// The on-channel tolerance: the user's, in kHz, or the plan's default (its service's
+/// practice, [`BandPlan::default_tolerance`]); a button goes back to the default.
+fn tolerance_row(ui: &mut egui::Ui, target: &mut crate::recipe::Target) {
+    let (lo, hi) = crate::recipe::rules::TOLERANCE_KHZ;
+    let label = ui.label(TOLERANCE_LABEL).on_hover_text(TOLERANCE_NOTE);
+    ui.horizontal(|ui| {
+        let mut khz = target.tolerance() * 1e-3;
+        let field = ui
+            .add(
+                egui::DragValue::new(&mut khz)
+                    .range(lo..=hi)
+                    .speed(0.1)
+                    .fixed_decimals(1)
+                    .suffix(" kHz")
+                    .update_while_editing(false),
+            )
+            .labelled_by(label.id)
+            .on_hover_text(TOLERANCE_NOTE);
+        if field.changed() && khz.is_finite() {
+            // Rounded to the field's 0.1 kHz before it reaches the recipe.
+            let hz = ((khz.clamp(lo, hi) * 10.0).round() / 10.0) * 1e3;
+            if (hz - target.tolerance()).abs() > 0.5 {
+                target.tolerance = Some(hz);
+            }
+        }
+        let default = target.plan.default_tolerance();
+        if ui
+            .add_enabled(
+                target.tolerance.is_some(),
+                egui::Button::new("Plan default"),
+            )
+            .on_hover_text(format!(
+                "Back to the plan's default, ±{:.1} kHz (common practice)",
+                default * 1e-3
+            ))
+            .clicked()
+        {
+            target.tolerance = None;
+        }
+    });
+}
+
+/// Hover note of the tolerance field.
+const TOLERANCE_NOTE: &str = "The resonance counts as on channel when it lies within this of the \
+     channel centre. Your choice; the default follows the service's practice (FM broadcast \
+     ±15 kHz, 2 m FM ±2.5 kHz, any other list ±10 kHz: common practice), never the spacing \
+     of the channels.";
+
+/// Where the tolerance comes from, in words.
+fn tolerance_note(target: &crate::recipe::Target) -> String {
+    let default = target.plan.default_tolerance() * 1e-3;
+    let service = target
+        .plan
+        .service()
+        .map_or("a list in no known band", |s| s.label());
+    match target.tolerance {
+        None => format!(
+            "±{default:.1} kHz is the default for {service} (common practice); type your own."
+        ),
+        Some(_) => format!(
+            "Your own tolerance; the default for {service} is ±{default:.1} kHz (common \
+             practice)."
+        ),
     }
 }

@@ -29,15 +29,15 @@ pub fn show(
         theme::caution(ui)
     };
     let side = if on_channel {
-        "within the channel"
+        "on channel"
     } else if t.offset > 0.0 {
         "above"
     } else {
         "below"
     };
     let note = format!(
-        "Resonance minus the channel centre, by the {} model; within the channel means within \
-         ±{:.1} kHz of it",
+        "Resonance minus the channel centre, by the {} model; on channel means within ±{:.1} \
+         kHz of it (the tolerance set below the channel)",
         if figures.calibrated() {
             "calibrated"
         } else {

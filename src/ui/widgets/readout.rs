@@ -104,7 +104,8 @@ impl<'a> Readout<'a> {
             if let Some(colour) = colour {
                 text = text.color(colour);
             }
-            ui.label(text).on_hover_ui(|ui| {
+            // Wrapped in what is left of the row: a long figure never runs past the panel.
+            ui.add(egui::Label::new(text).wrap()).on_hover_ui(|ui| {
                 ui.label(method);
                 if let Some(more) = more {
                     ui.label(more());
