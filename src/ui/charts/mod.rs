@@ -6,6 +6,7 @@
 
 mod cache;
 mod spacing;
+mod spread_band;
 mod trimmer;
 
 use crate::model::{Coil, Tank};
@@ -16,6 +17,7 @@ use eframe::egui::{self, Color32};
 pub use cache::{ChartCache, SETTINGS};
 
 pub use spacing::{SPACING_CHART_LABEL, spacing_chart};
+pub use spread_band::{BAND_BEFORE_LABEL, BAND_CALIBRATED_LABEL};
 pub use trimmer::{TRIMMER_CHART_LABEL, trimmer_chart};
 
 /// Which spacing figure the x axis shows.
