@@ -231,3 +231,221 @@ fn batch_crosses_every_medhurst_segment() {
         assert!(ld_first < 0.1 || ld_last > 50.0, "{ld_first}–{ld_last}");
     }
 }
+
+/// A bench calibration scales the driving inductance (coil and leads); the batch path scales it
+/// as the per-point path does, so the calibrated charts and bands equal it within 1e-9 too.
+#[test]
+fn batch_honours_the_calibrated_inductance_scale() {
+    let mut columns = SweepColumns::default();
+    let c = coil(6e-3, 1e-3, 5.0, 8e-3, 5e-3);
+    for scale in [0.93, 1.0, 1.07] {
+        let cond = Conditions {
+            inductance_scale: scale,
+            ..Conditions::default()
+        };
+        let lengths = lengths_for(&c, 200, 20e-3);
+        let mut out = vec![0.0; lengths.len()];
+        let path = resonance_over_lengths(&c, 20e-12, &cond, &lengths, &mut out, &mut columns);
+        assert_eq!(path, BatchPath::Columns);
+        for (&l, &f) in lengths.iter().zip(&out) {
+            let want = resonance_of(&c.with_length(l).unwrap(), 20e-12, &cond);
+            assert!(
+                ((f - want) / want).abs() < 1e-9,
+                "scale {scale} l {l}: {f} vs {want}"
+            );
+        }
+        let caps: Vec<f64> = (0..50).map(|i| 5e-12 + 0.5e-12 * i as f64).collect();
+        let mut out = vec![0.0; caps.len()];
+        resonance_over_capacitances(&c, &cond, &caps, &mut out, &mut columns);
+        for (&cap, &f) in caps.iter().zip(&out) {
+            let want = resonance_of(&c, cap, &cond);
+            assert!(
+                ((f - want) / want).abs() < 1e-9,
+                "scale {scale} C {cap}: {f} vs {want}"
+            );
+        }
+    }
+}
+
+/// The spacing chart's sweep runs on the batch path: every point equals the per-point path
+/// within 1e-9 (its own stop), at each trimmer setting, calibrated or not.
+#[test]
+fn spacing_sweep_equals_the_per_point_path() {
+    use tankwright::model::{FeedbackDivider, Tank};
+    use tankwright::tuning::sweep::spacing_sweep;
+    let c = coil(6e-3, 1e-3, 5.0, 8e-3, 5e-3);
+    let tank = Tank {
+        fixed: 6.8e-12,
+        trimmer_min: 2e-12,
+        trimmer_max: 10e-12,
+        trimmer_setting: 0.5,
+        stray: 6e-12,
+        feedback: Some(FeedbackDivider {
+            upper: 10e-12,
+            lower: 22e-12,
+        }),
+    };
+    for scale in [1.0, 1.04] {
+        let cond = Conditions {
+            inductance_scale: scale,
+            ..Conditions::default()
+        };
+        let curves = spacing_sweep(&c, &tank, &cond, &[0.0, 0.5, 1.0], (5e-3, 16e-3), 240);
+        assert_eq!(curves.len(), 3);
+        for curve in &curves {
+            assert_eq!(curve.points.len(), 240);
+            let cap = tank.external_capacitance_at(curve.setting);
+            for &[l, f] in &curve.points {
+                let want = resonance_of(&c.with_length(l).unwrap(), cap, &cond);
+                assert!(((f - want) / want).abs() < 1e-9, "l {l}: {f} vs {want}");
+            }
+        }
+    }
+}
+
+/// The chart's band is linear propagation over the lengths through the batch path: at each
+/// length it is the point spread's linear band (whose σ the Monte Carlo draws hold in
+/// `monte_carlo_and_linear_propagation_agree`). Bound: the two paths agree within 1e-9 f, and
+/// each slope is a difference over 2h = 2e-3 of the input's bound, so a slope may differ by
+/// 1e-9 f/h and its share of σ (× bound/√3) by 1e-9 f/(1e-3·√3) ≈ 5.8e-7 f; six inputs and the
+/// factor 1.96 give at most 7e-6 f on an edge.
+#[test]
+fn linear_band_is_the_point_spread_at_every_length() {
+    use tankwright::tuning::spread::linear_band;
+    let c = coil(6e-3, 1e-3, 5.0, 8e-3, 5e-3);
+    let cond = Conditions::default();
+    let lengths = lengths_for(&c, 12, 20e-3);
+    // Start beyond the close-wound length, where the turns and wire can move both ways.
+    let lengths = &lengths[2..];
+    let band = linear_band(&c, &TANK, &cond, &demo_tolerances(), lengths);
+    for [l, lo, hi] in band {
+        let point = spread(
+            &c.with_length(l).unwrap(),
+            &TANK,
+            &cond,
+            &demo_tolerances(),
+            0,
+            1,
+        );
+        let (want_lo, want_hi) = point.linear_band;
+        let bound = 7e-6 * point.nominal;
+        assert!((lo - want_lo).abs() < bound, "l {l}: {lo} vs {want_lo}");
+        assert!((hi - want_hi).abs() < bound, "l {l}: {hi} vs {want_hi}");
+        // Both contain the nominal.
+        assert!(lo < point.nominal && point.nominal < hi);
+    }
+}
+
+/// A normal draw (Box–Muller) from two uniform ones.
+fn normal(rng: &mut rand_xoshiro::Xoshiro256PlusPlus) -> f64 {
+    use rand_core::Rng;
+    let unit = |rng: &mut rand_xoshiro::Xoshiro256PlusPlus| {
+        ((rng.next_u64() >> 11) as f64 + 0.5) * (1.0 / (1u64 << 53) as f64)
+    };
+    let (u, v) = (unit(rng), unit(rng));
+    (-2.0 * u.ln()).sqrt() * (2.0 * std::f64::consts::PI * v).cos()
+}
+
+/// After a calibration the band is what the fit's errors leave (linear propagation of the
+/// fit's covariance, Press et al. 2007 §15.4–15.5): refitting many noisy copies of the same
+/// readings scatters the calibrated prediction at another length by the band's σ. Three
+/// readings at three trimmer settings (the fit separates inductance from capacitance), 20 ppm
+/// counter error; 300 refits give σ to about 1/√(2·299) ≈ 4 % (one standard error), so the
+/// check allows three, 12 %.
+#[test]
+fn calibrated_band_matches_the_scatter_of_refits() {
+    use rand_core::SeedableRng;
+    use tankwright::model::Tank;
+    use tankwright::tuning::fit::{Reading, fit};
+    use tankwright::tuning::spread::calibrated_band;
+    let c = coil(6e-3, 1e-3, 5.0, 8e-3, 5e-3);
+    let cond = Conditions::default();
+    let tank = Tank {
+        fixed: 6.8e-12,
+        trimmer_min: 2e-12,
+        trimmer_max: 10e-12,
+        trimmer_setting: 0.5,
+        stray: 3e-12,
+        feedback: None,
+    };
+    // The build as it really is: 1.5 pF more than the model, 3 % more inductance.
+    let truth_tank = Tank {
+        stray: tank.stray + 1.5e-12,
+        ..tank
+    };
+    let truth = Conditions {
+        inductance_scale: 1.03,
+        ..cond
+    };
+    let ppm = 20.0;
+    let exact: Vec<Reading> = [0.0, 0.5, 1.0]
+        .iter()
+        .map(|&s| Reading {
+            measured: resonance_of(&c, truth_tank.external_capacitance_at(s), &truth),
+            length: c.length(),
+            trimmer_setting: s,
+            added_capacitance: 0.0,
+            error_ppm: Some(ppm),
+        })
+        .collect();
+    let at = 12e-3;
+    let predict = |f: &tankwright::tuning::fit::Fit| {
+        resonance_of(
+            &c.with_length(at).unwrap(),
+            f.calibration.tank(&tank).external_capacitance(),
+            &f.calibration.conditions(&cond),
+        )
+    };
+    let exact_fit = fit(&c, &tank, &cond, &exact).unwrap();
+    assert!(exact_fit.inductance_scale_error.is_some(), "s is fitted");
+    let band = calibrated_band(
+        &c,
+        exact_fit.calibration.tank(&tank).external_capacitance(),
+        &exact_fit.calibration.conditions(&cond),
+        &exact_fit,
+        &[at],
+    );
+    let [_, lo, hi] = band[0];
+    let centre = predict(&exact_fit);
+    assert!(lo < centre && centre < hi);
+    let sigma_band = (hi - lo) / (2.0 * 1.96);
+
+    let mut rng = rand_xoshiro::Xoshiro256PlusPlus::seed_from_u64(5);
+    let n = 300;
+    let predictions: Vec<f64> = (0..n)
+        .map(|_| {
+            let noisy: Vec<Reading> = exact
+                .iter()
+                .map(|r| Reading {
+                    measured: r.measured * (1.0 + ppm * 1e-6 * normal(&mut rng)),
+                    ..*r
+                })
+                .collect();
+            predict(&fit(&c, &tank, &cond, &noisy).unwrap())
+        })
+        .collect();
+    let mean = predictions.iter().sum::<f64>() / n as f64;
+    let sigma =
+        (predictions.iter().map(|p| (p - mean).powi(2)).sum::<f64>() / (n - 1) as f64).sqrt();
+    let ratio = sigma / sigma_band;
+    assert!(
+        (ratio - 1.0).abs() < 0.12,
+        "σ of refits {sigma} Hz vs band σ {sigma_band} Hz"
+    );
+    // And the calibrated band is far narrower than the spread before measurement.
+    let before = spread(
+        &c.with_length(at).unwrap(),
+        &TankParts {
+            fixed: tank.fixed,
+            other: tank.external_capacitance() - tank.fixed - tank.stray,
+        },
+        &cond,
+        &Tolerances {
+            stray: Span::new(1e-12, 3e-12, 6e-12),
+            ..demo_tolerances()
+        },
+        0,
+        1,
+    );
+    assert!(hi - lo < 0.1 * (before.linear_band.1 - before.linear_band.0));
+}

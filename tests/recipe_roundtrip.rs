@@ -4,8 +4,9 @@ use proptest::prelude::*;
 use std::path::Path;
 use tankwright::model::{Coating, Gauge, InductanceModel, WireSpec, evaluate};
 use tankwright::recipe::schema::{
-    AimSheet, CoatingName, CoilSheet, ConditionsSheet, DiameterMm, DividerSheet, ModelName,
-    PlanName, ReadingSheet, RecipeFile, Scaled, SpacingMm, TankSheet, WireSize,
+    AimSheet, BuildingMethod, CoatingName, CoilSheet, ConditionsSheet, DiameterMm, DividerSheet,
+    ModelName, PlanName, ReadingSheet, RecipeFile, Scaled, SpacingMm, StraySheet, TankSheet,
+    WireSize,
 };
 use tankwright::recipe::{self, Recipe, demos, format, store};
 
@@ -260,6 +261,29 @@ fn file_strategy(
         }),
     ];
     let model = proptest::sample::select(InductanceModel::ALL.to_vec()).prop_map(ModelName);
+    let method = prop_oneof![
+        Just(BuildingMethod::CopperClad),
+        Just(BuildingMethod::GroundPlaneBoard),
+        Just(BuildingMethod::Stripboard),
+        Just(BuildingMethod::Perfboard),
+        Just(BuildingMethod::Breadboard),
+    ];
+    let stray_estimate = (
+        method,
+        num(0.0, 20.0),
+        num(0.0, 1.0),
+        num(0.0, 1.0),
+        num(0.0, 0.1),
+        num(0.0, 1.0),
+    )
+        .prop_map(|(m, cap, former, length, wire, turns)| StraySheet {
+            building_method: m,
+            capacitor_tolerance_percent: Scaled::from_file_units(cap),
+            former_tolerance_mm: mm(former),
+            length_tolerance_mm: mm(length),
+            wire_tolerance_mm: mm(wire),
+            turns_tolerance: turns,
+        });
     let reading = (
         num(30.0, 500.0),
         num(0.5, 100.0),
@@ -285,11 +309,11 @@ fn file_strategy(
         tank,
         (num(-20.0, 80.0), model, any::<bool>()),
         plan,
-        (num(30.0, 500.0), proptest::option::of(num(0.1, 1000.0))),
+        (num(30.0, 500.0), proptest::option::of(num(0.1, 1000.0)), stray_estimate),
         proptest::collection::vec(reading, 0..4),
     )
         .prop_map(
-            |(name, notes, coil, tank, (t, m, fs), plan, (channel, within), bench_log)| {
+            |(name, notes, coil, tank, (t, m, fs), plan, (channel, within, stray_estimate), bench_log)| {
                 RecipeFile {
                     schema: 1,
                     name,
@@ -307,6 +331,7 @@ fn file_strategy(
                         on_channel_within_khz: within.map(Scaled::from_file_units),
                     },
                     bench_log,
+                    stray_estimate,
                 }
             },
         )
@@ -395,4 +420,63 @@ proptest! {
         let back = format::from_text(&format::to_text(&r)).unwrap();
         prop_assert_eq!(back, r);
     }
+}
+
+/// The stray estimate's building method and tolerances (added after the first files were
+/// written): a file without them opens with the usual figures and is written back without
+/// them; other figures are written under `stray_estimate` and read back exactly.
+#[test]
+fn stray_estimate_settings_round_trip_and_old_files_get_the_usual_ones() {
+    use tankwright::recipe::StraySettings;
+    use tankwright::tuning::construction::Construction;
+    let old = format::to_text(&Recipe::demo());
+    assert!(
+        !old.contains("stray_estimate"),
+        "the usual figures are not written"
+    );
+    let read = format::from_text(&old).unwrap();
+    assert_eq!(read.stray_estimate, StraySettings::default());
+
+    let mut r = demo_with_log();
+    r.stray_estimate.construction = Construction::Breadboard;
+    r.stray_estimate.tolerances.former_diameter = 0.05e-3;
+    r.stray_estimate.tolerances.length = 0.3e-3;
+    r.stray_estimate.tolerances.wire_diameter = 0.005e-3;
+    r.stray_estimate.tolerances.turns = 0.5;
+    r.stray_estimate.tolerances.fixed_fraction = 0.02;
+    let text = format::to_text(&r);
+    for needle in [
+        "building_method: Breadboard",
+        "capacitor_tolerance_percent: 2.0",
+        "former_tolerance_mm: 0.05",
+        "length_tolerance_mm: 0.3",
+        "wire_tolerance_mm: 0.005",
+        "turns_tolerance: 0.5",
+    ] {
+        assert!(text.contains(needle), "missing {needle} in\n{text}");
+    }
+    assert_eq!(format::from_text(&text).unwrap(), r);
+
+    // A file giving only some of them keeps the usual figures for the rest.
+    let partial = old.replace(
+        "bench_log:",
+        "stray_estimate: StrayEstimate(building_method: Perfboard),\n    bench_log:",
+    );
+    assert_ne!(partial, old, "the demo text has a bench_log field");
+    let read = format::from_text(&partial).unwrap();
+    assert_eq!(read.stray_estimate.construction, Construction::Perfboard);
+    assert_eq!(
+        read.stray_estimate.tolerances,
+        StraySettings::default().tolerances
+    );
+
+    // A tolerance out of range is refused naming its field, and the file still opens as written.
+    let bad = old.replace(
+        "bench_log:",
+        "stray_estimate: StrayEstimate(turns_tolerance: -1.0),\n    bench_log:",
+    );
+    let err = format::from_text(&bad).unwrap_err();
+    assert!(err.to_string().contains("turns_tolerance"), "{err}");
+    let opened = format::read_text(&bad).unwrap();
+    assert_eq!(opened.recipe.stray_estimate.tolerances.turns, -1.0);
 }

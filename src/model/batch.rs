@@ -169,7 +169,9 @@ fn medhurst_factor(t: &MedhurstColumns, x: f64, ln_x: f64) -> f64 {
 /// The parts of the driving inductance that do not change along a sweep.
 #[derive(Clone, Copy, Debug)]
 struct Shared {
-    /// µ0·N²/12: the current sheet is this × bracket/(l²·M).
+    /// The conditions' inductance scale, already in every inductance below.
+    inductance_scale: f64,
+    /// µ0·N²/12 (scaled): the current sheet is this × bracket/(l²·M).
     sheet_scale: f64,
     /// Rosa's µ0·a·N (zero when the current sheet drives: no correction).
     rosa_scale: f64,
@@ -191,13 +193,21 @@ fn shared(shape: &Shape, conditions: &Conditions) -> Option<Shared> {
         _ => return None,
     };
     let (d, n, w) = (shape.mean_diameter, shape.turns, shape.wire_bare);
+    // The driving inductance (coil and leads) is scaled as a whole, as the per-point path
+    // does (a bench calibration's inductance scale).
+    let scale = conditions.inductance_scale;
     let lead = leads::straight_wire_inductance_limits(shape.lead_length, 0.5 * w);
-    let rosa_scale = if rosa { MU_0 * 0.5 * d * n } else { 0.0 };
-    let leads_surface = 2.0 * lead[0];
-    let slope = (0.25 * rosa_scale + 2.0 * (lead[1] - lead[0])).abs();
+    let rosa_scale = if rosa {
+        scale * MU_0 * 0.5 * d * n
+    } else {
+        0.0
+    };
+    let leads_surface = scale * 2.0 * lead[0];
+    let slope = (0.25 * rosa_scale + scale * 2.0 * (lead[1] - lead[0])).abs();
     let resistivity = copper::resistivity(conditions.temperature_c);
     Some(Shared {
-        sheet_scale: MU_0 / 12.0 * n * n,
+        inductance_scale: scale,
+        sheet_scale: scale * MU_0 / 12.0 * n * n,
         rosa_scale,
         k_s_offset: 1.5 - (2.0 / (n * w)).ln(),
         k_m: round_wire::k_m(n),
@@ -379,7 +389,7 @@ pub fn resonance_over_capacitances(
     // Everything but the capacitance is shared: one sheet, one self-capacitance.
     let d = shape.mean_diameter;
     let l = coil.length();
-    let sheet = crate::physics::nagaoka::sheet(d, l, shape.turns).inductance;
+    let sheet = s.inductance_scale * crate::physics::nagaoka::sheet(d, l, shape.turns).inductance;
     let ln_l = l.ln();
     let l0 = sheet - s.rosa_scale * (s.k_s_offset - ln_l + s.k_m) + s.leads_surface;
     let self_capacitance = medhurst::self_capacitance(d, l / d);

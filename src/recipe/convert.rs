@@ -1,15 +1,18 @@
 //! The one place where the file's units (mm, pF, MHz, percent) meet the model's SI units. A
 //! parsed file is judged afterwards, by the same rules as the window (`rules.rs`).
 
-use super::document::{BenchEntry, Recipe, Target};
+use super::document::{BenchEntry, Recipe, StraySettings, Target};
 use super::schema::{
-    AimSheet, CoatingName, CoilSheet, ConditionsSheet, DiameterMm, DividerSheet, ModelName,
-    PlanName, ReadingSheet, RecipeFile, SCHEMA, Scaled, SpacingMm, TankSheet, WireSize,
+    AimSheet, BuildingMethod, CoatingName, CoilSheet, ConditionsSheet, DiameterMm, DividerSheet,
+    ModelName, PlanName, ReadingSheet, RecipeFile, SCHEMA, Scaled, SpacingMm, StraySheet,
+    TankSheet, WireSize,
 };
 use crate::model::{
     Coating, Conditions, DiameterSpec, FeedbackDivider, Gauge, SpacingSpec, Tank, Winding, WireSpec,
 };
 use crate::tuning::BandPlan;
+use crate::tuning::construction::Construction;
+use crate::tuning::spread::BuildTolerances;
 
 /// The file form of a recipe.
 pub(crate) fn to_file_form(r: &Recipe) -> RecipeFile {
@@ -87,6 +90,46 @@ pub(crate) fn to_file_form(r: &Recipe) -> RecipeFile {
                 note: e.note.clone(),
             })
             .collect(),
+        stray_estimate: stray_sheet(&r.stray_estimate),
+    }
+}
+
+/// The file form of the stray estimate's settings.
+pub(crate) fn stray_sheet(s: &StraySettings) -> StraySheet {
+    let t = &s.tolerances;
+    StraySheet {
+        building_method: match s.construction {
+            Construction::CopperClad => BuildingMethod::CopperClad,
+            Construction::GroundPlaneBoard => BuildingMethod::GroundPlaneBoard,
+            Construction::Stripboard => BuildingMethod::Stripboard,
+            Construction::Perfboard => BuildingMethod::Perfboard,
+            Construction::Breadboard => BuildingMethod::Breadboard,
+        },
+        capacitor_tolerance_percent: Scaled::from_si(t.fixed_fraction),
+        former_tolerance_mm: Scaled::from_si(t.former_diameter),
+        length_tolerance_mm: Scaled::from_si(t.length),
+        wire_tolerance_mm: Scaled::from_si(t.wire_diameter),
+        turns_tolerance: t.turns,
+    }
+}
+
+/// The stray estimate's settings a file gives.
+fn stray_settings(s: &StraySheet) -> StraySettings {
+    StraySettings {
+        construction: match s.building_method {
+            BuildingMethod::CopperClad => Construction::CopperClad,
+            BuildingMethod::GroundPlaneBoard => Construction::GroundPlaneBoard,
+            BuildingMethod::Stripboard => Construction::Stripboard,
+            BuildingMethod::Perfboard => Construction::Perfboard,
+            BuildingMethod::Breadboard => Construction::Breadboard,
+        },
+        tolerances: BuildTolerances {
+            former_diameter: s.former_tolerance_mm.si(),
+            length: s.length_tolerance_mm.si(),
+            wire_diameter: s.wire_tolerance_mm.si(),
+            turns: s.turns_tolerance,
+            fixed_fraction: s.capacitor_tolerance_percent.si(),
+        },
     }
 }
 
@@ -176,5 +219,6 @@ pub(crate) fn from_file_form(sheet: RecipeFile) -> Recipe {
         conditions,
         target,
         bench_log,
+        stray_estimate: stray_settings(&sheet.stray_estimate),
     }
 }

@@ -5,7 +5,9 @@ use crate::model::{
     Winding, WireSpec,
 };
 use crate::tuning::BandPlan;
+use crate::tuning::construction::Construction;
 use crate::tuning::fit::Reading;
+use crate::tuning::spread::BuildTolerances;
 
 /// The channel a recipe aims at.
 #[derive(Clone, Debug, PartialEq)]
@@ -47,6 +49,25 @@ pub struct BenchEntry {
     pub note: String,
 }
 
+/// The stray estimate's inputs and the builder's tolerances, kept with the recipe so the window
+/// shows the same estimate and spread when the recipe is opened again.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct StraySettings {
+    /// How the circuit is built (fills the estimate's layout).
+    pub construction: Construction,
+    /// The winding's and the fixed capacitor's tolerances.
+    pub tolerances: BuildTolerances,
+}
+
+impl Default for StraySettings {
+    fn default() -> Self {
+        Self {
+            construction: Construction::CopperClad,
+            tolerances: BuildTolerances::HAND_WOUND,
+        }
+    }
+}
+
 /// A coil recipe: the winding, the tank it works in, its target, and what was measured.
 #[derive(Clone, Debug, PartialEq)]
 pub struct Recipe {
@@ -64,6 +85,8 @@ pub struct Recipe {
     pub target: Target,
     /// Measurements, oldest first.
     pub bench_log: Vec<BenchEntry>,
+    /// The stray estimate's building method and the tolerances of the spread.
+    pub stray_estimate: StraySettings,
 }
 
 impl BenchEntry {
@@ -126,6 +149,7 @@ impl Recipe {
                 tolerance: None,
             },
             bench_log: Vec::new(),
+            stray_estimate: StraySettings::default(),
         }
     }
 }

@@ -50,6 +50,9 @@ fn doc_comments() -> Field {
         });
         top.field("bench_log")
             .with_doc("Measurements, oldest first.");
+        top.field("stray_estimate").with_doc(
+            "building_method: CopperClad, GroundPlaneBoard, Stripboard, Perfboard or Breadboard; the tolerances are ± bounds.",
+        );
     });
     root
 }

@@ -4,13 +4,15 @@
 //! (mm, pF, MHz, percent), `convert` the one place the two meet, `format` the text (RON) with
 //! line-and-column errors, `rules` what a recipe must meet (for the loader and the window
 //! alike), `store` the atomic save, `demos` the compiled-in demo recipes, and `figures` every
-//! figure of a recipe (the one function the window and the commands call). This
+//! figure of a recipe (the one function the window and the commands call), `expectation` where
+//! the build can be expected to land (stray estimate, spread, calibrated band). This
 //! layer is the only one that touches the disk.
 
 mod convert;
 mod decimal;
 pub mod demos;
 pub mod document;
+pub mod expectation;
 pub mod figures;
 pub mod format;
 pub mod load;
@@ -19,7 +21,8 @@ pub mod schema;
 pub mod store;
 
 pub use demos::demos;
-pub use document::{BenchEntry, Recipe, Target};
+pub use document::{BenchEntry, Recipe, StraySettings, Target};
+pub use expectation::{Expectation, expectation};
 pub use figures::{Figures, figures};
 pub use format::Opened;
 pub use load::{LoadError, LoadErrorKind};

@@ -8,6 +8,7 @@
 use super::document::{BenchEntry, Recipe};
 use crate::model::Field;
 use crate::tuning::BandPlan;
+use crate::tuning::spread::BuildTolerances;
 
 /// Frequencies a recipe may name, MHz: wider than any VHF tank, narrow enough to catch typos.
 pub const FREQUENCY_MHZ: (f64, f64) = (1.0, 3000.0);
@@ -28,6 +29,14 @@ pub const READINGS_MAX: usize = 500;
 /// Most channels an own channel list holds. The busiest built-in plan (FM on 100 kHz steps)
 /// has 201; the channel picker lists them all, so tens of thousands made the window crawl.
 pub const CHANNELS_MAX: usize = 500;
+
+/// Largest winding tolerance the spread takes, ± mm (a former, length or wire off by more is
+/// another coil).
+pub const TOLERANCE_MM_MAX: f64 = 5.0;
+/// Largest turns tolerance, ± turns.
+pub const TURNS_TOLERANCE_MAX: f64 = 2.0;
+/// Largest fixed-capacitor tolerance, ± percent.
+pub const CAPACITOR_TOLERANCE_PERCENT_MAX: f64 = 50.0;
 
 /// A rule a recipe breaks: the field in file terms (e.g. `bench_log[2].measured_mhz`), which
 /// occurrence of its key in the file the field is (for pointing at its line), and why.
@@ -183,6 +192,60 @@ pub fn check_channels(channels_hz: &[f64]) -> Result<(), Refusal> {
     Ok(())
 }
 
+/// The spread's tolerances by the recipe rules: each a number from 0 to its limit. The
+/// key names the file's field (`stray_estimate.<key>`).
+pub fn check_tolerances(t: &BuildTolerances) -> Result<(), Refusal> {
+    let mm = TOLERANCE_MM_MAX;
+    let items = [
+        (
+            "former_tolerance_mm",
+            "former tolerance",
+            t.former_diameter * 1e3,
+            mm,
+            "mm",
+        ),
+        (
+            "length_tolerance_mm",
+            "length tolerance",
+            t.length * 1e3,
+            mm,
+            "mm",
+        ),
+        (
+            "wire_tolerance_mm",
+            "wire tolerance",
+            t.wire_diameter * 1e3,
+            mm,
+            "mm",
+        ),
+        (
+            "turns_tolerance",
+            "turns tolerance",
+            t.turns,
+            TURNS_TOLERANCE_MAX,
+            "turns",
+        ),
+        (
+            "capacitor_tolerance_percent",
+            "capacitor tolerance",
+            t.fixed_fraction * 100.0,
+            CAPACITOR_TOLERANCE_PERCENT_MAX,
+            "%",
+        ),
+    ];
+    for (key, what, value, max, unit) in items {
+        if !value.is_finite() || !(0.0..=max).contains(&value) {
+            return Err(Refusal::new(
+                format!("stray_estimate.{key}"),
+                key,
+                0,
+                format!("{what} {value} {unit} is outside 0–{max} {unit}"),
+            ));
+        }
+    }
+    Ok(())
+}
+
 /// Judge a whole recipe: the first rule it breaks, or `Ok`. The loader, the saver and the
 /// window all call this one function.
 pub fn judge(r: &Recipe) -> Result<(), Refusal> {
@@ -222,7 +285,7 @@ pub fn judge(r: &Recipe) -> Result<(), Refusal> {
     for (i, reading) in r.bench_log.iter().enumerate() {
         check_reading(reading, i)?;
     }
-    Ok(())
+    check_tolerances(&r.stray_estimate.tolerances)
 }
 
 /// The file field (and its key in the text) a model field comes from.

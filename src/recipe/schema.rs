@@ -128,6 +128,57 @@ pub struct RecipeFile {
     /// Bench measurements, oldest first.
     #[serde(default)]
     pub bench_log: Vec<ReadingSheet>,
+    /// The stray estimate's building method and the spread's tolerances (absent: the usual
+    /// hand-wound figures on copper-clad board; not written while they are those).
+    #[serde(default, skip_serializing_if = "StraySheet::is_usual")]
+    pub stray_estimate: StraySheet,
+}
+
+/// The stray estimate's inputs and the builder's tolerances.
+#[derive(Clone, Copy, Debug, PartialEq, Serialize, Deserialize)]
+#[serde(rename = "StrayEstimate", deny_unknown_fields, default)]
+pub struct StraySheet {
+    /// How the circuit is built.
+    pub building_method: BuildingMethod,
+    /// The fixed capacitor's tolerance, ± percent.
+    pub capacitor_tolerance_percent: Percent,
+    /// The former's diameter, ± mm.
+    pub former_tolerance_mm: Millimetres,
+    /// The coil length as set, ± mm.
+    pub length_tolerance_mm: Millimetres,
+    /// The bare wire's diameter, ± mm.
+    pub wire_tolerance_mm: Millimetres,
+    /// Turns as counted, ± turns.
+    pub turns_tolerance: f64,
+}
+
+impl StraySheet {
+    /// Whether these are the usual figures (then the file leaves them out).
+    pub fn is_usual(&self) -> bool {
+        *self == Self::default()
+    }
+}
+
+impl Default for StraySheet {
+    fn default() -> Self {
+        super::convert::stray_sheet(&super::document::StraySettings::default())
+    }
+}
+
+/// Ways of building the circuit (see `tuning::construction`).
+#[derive(Clone, Copy, Debug, Default, PartialEq, Eq, Serialize, Deserialize)]
+pub enum BuildingMethod {
+    /// Copper-clad board, parts over the plane.
+    #[default]
+    CopperClad,
+    /// A printed board with a ground plane.
+    GroundPlaneBoard,
+    /// Stripboard.
+    Stripboard,
+    /// Perforated board, point to point.
+    Perfboard,
+    /// A solderless breadboard.
+    Breadboard,
 }
 
 /// The winding as the builder knows it.

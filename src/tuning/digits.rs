@@ -77,6 +77,11 @@ pub fn offset(hz: f64) -> String {
     }
 }
 
+/// A width (a spread, never signed) in the offset's units: "450.0 kHz", "1.234 MHz".
+pub fn width(hz: f64) -> String {
+    offset(hz.abs()).trim_start_matches('+').to_owned()
+}
+
 /// A length in millimetres with `decimals` decimals: "8.00 mm", never "-0.00 mm".
 pub fn mm(metres: f64, decimals: usize) -> String {
     format!("{} mm", fixed(metres * 1e3, decimals))

@@ -240,6 +240,9 @@ pub struct Fit {
     pub extra_capacitance_error: f64,
     /// Standard error of the scale factor; `None` when the scale was held at 1.
     pub inductance_scale_error: Option<f64>,
+    /// Covariance of the extra capacitance and the scale factor, farads (the off-diagonal of
+    /// the same (JᵀWJ)⁻¹, scaled alike; 0 when the scale was held at 1).
+    pub covariance: f64,
     /// Measured minus calibrated model for each reading, hertz (oldest first).
     pub residuals: Vec<f64>,
     /// Each reading's standard error, hertz.
@@ -370,6 +373,7 @@ pub fn fit(
         },
         extra_capacitance_error: solution.errors[0].unwrap_or(f64::NAN),
         inductance_scale_error: solution.errors[1],
+        covariance: solution.covariance,
         residuals,
         sigmas,
         readings_used: prepared.len(),
@@ -422,6 +426,8 @@ fn stray_alone(p: &Prepared, conditions: &Conditions) -> Option<f64> {
 struct Solution {
     params: [f64; 2],
     errors: [Option<f64>; 2],
+    /// Covariance of the two parameters (0 when the scale is held).
+    covariance: f64,
 }
 
 /// Gauss–Newton on (ΔC, s), or on ΔC alone with s = 1 when `with_scale` is false.
@@ -494,16 +500,23 @@ fn gauss_newton(
     } else {
         1.0
     };
-    let errors = if with_scale {
+    let (errors, covariance) = if with_scale {
         let det = normal[0][0] * normal[1][1] - normal[0][1] * normal[1][0];
-        [
-            Some((inflate * normal[1][1] / det).sqrt()),
-            Some((inflate * normal[0][0] / det).sqrt()),
-        ]
+        (
+            [
+                Some((inflate * normal[1][1] / det).sqrt()),
+                Some((inflate * normal[0][0] / det).sqrt()),
+            ],
+            -inflate * normal[0][1] / det,
+        )
     } else {
-        [Some((inflate / normal[0][0]).sqrt()), None]
+        ([Some((inflate / normal[0][0]).sqrt()), None], 0.0)
     };
-    Some(Solution { params: p, errors })
+    Some(Solution {
+        params: p,
+        errors,
+        covariance,
+    })
 }
 
 /// The bench builder's straight line: 1/f² against the external capacitance of the readings

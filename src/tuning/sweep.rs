@@ -1,5 +1,6 @@
 //! Sweeps of the resonance for the charts.
 
+use crate::model::batch::{SweepColumns, resonance_over_lengths};
 use crate::model::{Coil, Conditions, Tank, evaluate::resonance_of};
 
 /// Resonance against coil length at one trimmer setting.
@@ -15,7 +16,8 @@ pub struct SpacingCurve {
 ///
 /// `lengths` is the (shortest, longest) coil length in metres, kept within what the coil can be
 /// wound to ([`Coil::shortest_length`] to the model's longest). `samples` points per curve,
-/// evenly spaced in length; a length the model refuses gives NaN (none does inside that range).
+/// evenly spaced in length, each curve computed in one call of the batch path
+/// ([`resonance_over_lengths`]: equal to the per-point path within 1e-9, tests/batch_spread.rs).
 pub fn spacing_sweep(
     coil: &Coil,
     tank: &Tank,
@@ -30,19 +32,17 @@ pub fn spacing_sweep(
         .max(lo * 1.001)
         .min(crate::model::limits::LENGTH_MAX);
     let n = samples.max(2);
+    let lengths: Vec<f64> = (0..n)
+        .map(|i| lo + (hi - lo) * i as f64 / (n - 1) as f64)
+        .collect();
+    let mut columns = SweepColumns::default();
+    let mut out = vec![0.0; n];
     settings
         .iter()
         .map(|&setting| {
             let c_ext = tank.external_capacitance_at(setting);
-            let points = (0..n)
-                .map(|i| {
-                    let l = lo + (hi - lo) * i as f64 / (n - 1) as f64;
-                    let f = coil
-                        .with_length(l)
-                        .map_or(f64::NAN, |c| resonance_of(&c, c_ext, conditions));
-                    [l, f]
-                })
-                .collect();
+            resonance_over_lengths(coil, c_ext, conditions, &lengths, &mut out, &mut columns);
+            let points = lengths.iter().zip(&out).map(|(&l, &f)| [l, f]).collect();
             SpacingCurve { setting, points }
         })
         .collect()

@@ -206,6 +206,12 @@ impl App {
         self.evaluation.current().ok()
     }
 
+    /// Where the build can be expected to land (the stray estimate, the spread and the band on
+    /// the spacing chart), for the figures on screen.
+    pub fn expectation(&self) -> Option<&crate::recipe::Expectation> {
+        self.evaluation.expectation()
+    }
+
     /// The same window asking for file paths through `asker` (tests answer instead of a
     /// system dialog).
     pub fn with_path_asker(mut self, asker: Box<dyn crate::ui::files::PathAsker>) -> Self {
@@ -416,15 +422,11 @@ impl App {
                     egui::CollapsingHeader::new("Where the stray comes from")
                         .default_open(false)
                         .show(ui, |ui| {
-                            let latest = evaluation.latest();
-                            let self_capacitance =
-                                latest.map_or(0.0, |f| f.uncalibrated.self_capacitance);
                             if let Some(stray) = stray_panel.show(
                                 ui,
-                                coil.as_ref(),
-                                self_capacitance,
-                                &recipe.tank,
-                                &recipe.conditions,
+                                &mut recipe.stray_estimate,
+                                evaluation.expectation(),
+                                recipe.tank.stray,
                             ) {
                                 recipe.tank.stray = stray;
                             }

@@ -1,13 +1,16 @@
 //! What the window shows, computed from the recipe only when the recipe changes.
 //!
-//! The engine does the work ([`crate::recipe::figures()`], `tuning::sweep`); this is the one place
-//! that keeps its answers between frames — the figures (calibrated once there are bench
-//! readings), the target figures, the advice and the charts' sweeps — so an idle frame computes
+//! The engine does the work ([`crate::recipe::figures()`], [`crate::recipe::expectation()`],
+//! `tuning::sweep`); this is the one place that keeps its answers between frames — the figures
+//! (calibrated once there are bench readings), the target figures, the advice, the charts'
+//! sweeps and the spread band around the present curve — so an idle frame computes
 //! nothing, and the sweeps are always those of the figures shown (the same coil, tank and
 //! conditions).
 
 use crate::model::InputError;
-use crate::recipe::{BenchEntry, Figures, Recipe, Target, figures};
+use crate::recipe::{
+    BenchEntry, Expectation, Figures, Recipe, StraySettings, Target, expectation, figures,
+};
 use crate::tuning::BandPlan;
 use crate::ui::charts::ChartCache;
 
@@ -19,6 +22,7 @@ struct Inputs {
     conditions: crate::model::Conditions,
     target: Target,
     bench_log: Vec<BenchEntry>,
+    stray: StraySettings,
 }
 
 impl Inputs {
@@ -29,6 +33,7 @@ impl Inputs {
             conditions: recipe.conditions,
             target: recipe.target.clone(),
             bench_log: recipe.bench_log.clone(),
+            stray: recipe.stray_estimate,
         }
     }
 
@@ -39,6 +44,7 @@ impl Inputs {
             && self.conditions == recipe.conditions
             && self.target == recipe.target
             && self.bench_log == recipe.bench_log
+            && self.stray == recipe.stray_estimate
     }
 }
 
@@ -51,6 +57,7 @@ pub struct Evaluation {
     channels: Vec<f64>,
     sweeps: ChartCache,
     uncalibrated_sweeps: ChartCache,
+    expectation: Option<Expectation>,
 }
 
 impl Evaluation {
@@ -65,9 +72,29 @@ impl Evaluation {
             channels: recipe.target.plan.channels(),
             sweeps: ChartCache::default(),
             uncalibrated_sweeps: ChartCache::default(),
+            expectation: None,
         };
         evaluation.refresh_sweeps();
+        evaluation.refresh_expectation(recipe);
         evaluation
+    }
+
+    /// What to expect of the build, for the figures shown (kept with the last valid ones
+    /// while the recipe is refused); its band goes to the spacing chart's sweeps, over the
+    /// same lengths as the curves.
+    fn refresh_expectation(&mut self, recipe: &Recipe) {
+        let Ok(f) = &self.current else {
+            return;
+        };
+        let lengths: Vec<f64> = self
+            .sweeps
+            .spacing_curves()
+            .first()
+            .map(|c| c.points.iter().map(|p| p[0]).collect())
+            .unwrap_or_default();
+        let e = expectation(recipe, f, &lengths);
+        self.sweeps.set_band(e.band.clone(), e.calibrated);
+        self.expectation = Some(e);
     }
 
     /// Bring the sweeps up to the figures shown (a no-op when they already match).
@@ -104,7 +131,15 @@ impl Evaluation {
         }
         self.inputs = inputs;
         self.refresh_sweeps();
+        self.refresh_expectation(recipe);
         true
+    }
+
+    /// Where the build can be expected to land (the stray estimate, the spread before any
+    /// measurement, the band after a calibration), for the figures [`latest`](Self::latest)
+    /// returns.
+    pub fn expectation(&self) -> Option<&Expectation> {
+        self.expectation.as_ref()
     }
 
     /// The charts' sweeps for the figures [`latest`](Self::latest) returns (calibrated once

@@ -16,6 +16,8 @@ pub struct ChartCache {
     range: (f64, f64),
     spacing: Vec<SpacingCurve>,
     trimmer: Vec<[f64; 2]>,
+    band: Vec<[f64; 3]>,
+    band_calibrated: bool,
 }
 
 impl ChartCache {
@@ -65,6 +67,19 @@ impl ChartCache {
     /// Resonance against coil length, one curve per setting in 0/25/50/75/100 %.
     pub fn spacing_curves(&self) -> &[SpacingCurve] {
         &self.spacing
+    }
+
+    /// Keep the spread band around the present curve: (length in metres, low and high hertz),
+    /// and whether it is what a bench calibration leaves (set by the evaluation, which
+    /// computes it once per change of the recipe).
+    pub(crate) fn set_band(&mut self, band: Vec<[f64; 3]>, calibrated: bool) {
+        self.band = band;
+        self.band_calibrated = calibrated;
+    }
+
+    /// The spread band around the present curve and whether it is after a calibration.
+    pub fn spread_band(&self) -> (&[[f64; 3]], bool) {
+        (&self.band, self.band_calibrated)
     }
 
     /// Resonance against trimmer setting at the present length: (setting 0–1, hertz).

@@ -8,6 +8,7 @@ mod cache;
 pub mod hover;
 pub mod legend;
 mod spacing;
+mod spread_band;
 pub mod ticks;
 mod trimmer;
 
@@ -19,6 +20,7 @@ use eframe::egui::{self, Color32};
 pub use cache::{ChartCache, SETTINGS};
 
 pub use spacing::{SPACING_CHART_LABEL, spacing_chart};
+pub use spread_band::{BAND_BEFORE_LABEL, BAND_CALIBRATED_LABEL};
 pub use trimmer::{TRIMMER_CHART_LABEL, trimmer_chart};
 
 /// Which spacing figure the x axis shows.

@@ -60,6 +60,7 @@ pub fn spacing_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
 
         target_channel(plot_ui, view);
         aeronautical_band(plot_ui, (bounds[2], bounds[3]));
+        super::spread_band::spread_band(plot_ui, view);
 
         for curve in view.cache.spacing_curves().iter().rev() {
             let name = format!("trimmer {:.0} %", curve.setting * 100.0);

@@ -1,28 +1,19 @@
 //! Where the missing picofarads come from: the stray estimate part by part for a building
-//! method, the total with its range, the frequency window that range leaves, and an action that
-//! puts the typical stray into the tank.
+//! method, the total with its range, the frequency window that range leaves, the spread the
+//! builder's tolerances add, the fitted stray beside the estimate once bench readings exist,
+//! and an action that puts the typical stray into the tank.
 //!
-//! The estimate is the engine's (`tuning::stray`, the same inputs as `evaluate --construction`);
-//! it is recomputed only when the coil, tank or building method changes.
+//! The figures are the engine's, computed once per change of the recipe by
+//! [`crate::recipe::expectation()`] (the same estimate as `evaluate --construction`); the
+//! building method and the tolerances are kept in the recipe (`stray_estimate`).
 
-use crate::model::{Coil, Conditions, Tank};
+use crate::recipe::rules::check_tolerances;
+use crate::recipe::{Expectation, StraySettings};
 use crate::tuning::construction::Construction;
-use crate::tuning::spread::{Spread, TankParts, Tolerances, spread};
-use crate::tuning::stray::{
-    Role, Span, StrayEstimate, estimate_stray, frequency_window, inputs_for,
-};
+use crate::tuning::digits;
+use crate::tuning::stray::{Role, Span};
+use crate::ui::widgets::Quantity;
 use eframe::egui;
-
-/// The fixed capacitor's tolerance assumed here (common practice: ±5 % ceramic).
-const FIXED_TOLERANCE: f64 = 0.05;
-
-/// Winding tolerances of a hand-wound coil (common practice): the former ±0.1 mm, the length
-/// as set ±0.2 mm, the wire ±0.01 mm, the turns counted to a quarter.
-const WINDING: (f64, f64, f64, f64) = (0.1e-3, 0.2e-3, 0.01e-3, 0.25);
-
-/// Monte Carlo draws for the spread (at least 1000; the band agrees with linear propagation,
-/// tests/batch_spread.rs).
-const DRAWS: usize = 1000;
 
 /// Accessible name of the building-method picker.
 pub const CONSTRUCTION_LABEL: &str = "Building method";
@@ -30,81 +21,70 @@ pub const CONSTRUCTION_LABEL: &str = "Building method";
 /// Accessible name of the action that applies the estimate.
 pub const APPLY_STRAY_LABEL: &str = "Use the typical stray";
 
-type Key = (Coil, Tank, Conditions, f64, Construction);
+/// Name of the row with the stray the bench readings imply.
+pub const FITTED_LABEL: &str = "fitted from the bench";
 
-/// The panel's own state: the building method and the last estimate.
+/// Name of the row with the difference between the fitted stray and the estimate.
+pub const DIFFERENCE_LABEL: &str = "fitted less estimate";
+
+/// Names of the tolerance fields.
+pub const FORMER_TOLERANCE_LABEL: &str = "Former ±";
+/// See [`FORMER_TOLERANCE_LABEL`].
+pub const LENGTH_TOLERANCE_LABEL: &str = "Length ±";
+/// See [`FORMER_TOLERANCE_LABEL`].
+pub const WIRE_TOLERANCE_LABEL: &str = "Wire ±";
+/// See [`FORMER_TOLERANCE_LABEL`].
+pub const TURNS_TOLERANCE_LABEL: &str = "Turns ±";
+/// See [`FORMER_TOLERANCE_LABEL`].
+pub const CAPACITOR_TOLERANCE_LABEL: &str = "Fixed capacitor ±";
+
+/// The panel's own state: why the last tolerance typed was refused, if it was.
 #[derive(Default)]
 pub struct StrayPanel {
-    construction: Option<Construction>,
-    cached: Option<(Key, StrayEstimate, Span, Spread)>,
+    refusal: Option<String>,
+}
+
+/// A tolerance in millimetres (the slider to ±0.5 mm; any number may be typed).
+fn mm<'a>(label: &'a str, value: &'a mut f64, note: &'a str) -> Quantity<'a> {
+    Quantity::new(label, value, 1e-3, 0.0..=0.5)
+        .decimals(2)
+        .suffix("mm")
+        .note(note)
+}
+
+fn pf(s: Span) -> String {
+    format!(
+        "{:.2} ({:.2}–{:.2}) pF",
+        s.typical * 1e12,
+        s.low * 1e12,
+        s.high * 1e12
+    )
 }
 
 impl StrayPanel {
-    /// Show the estimate for `coil` (with its `self_capacitance`) in `tank`; returns the stray
-    /// to put into the tank when the user applies it.
+    /// Show the estimate in `expectation` (for the recipe's `settings`, which the picker and
+    /// the tolerance fields edit); `entered_stray` is the tank's stray as entered, farads.
+    /// Returns the stray to put into the tank when the user applies the estimate.
     pub fn show(
         &mut self,
         ui: &mut egui::Ui,
-        coil: Option<&Coil>,
-        self_capacitance: f64,
-        tank: &Tank,
-        conditions: &Conditions,
+        settings: &mut StraySettings,
+        expectation: Option<&Expectation>,
+        entered_stray: f64,
     ) -> Option<f64> {
-        let construction = *self.construction.get_or_insert(Construction::CopperClad);
         let label = ui.label(CONSTRUCTION_LABEL);
-        let mut picked = construction;
         egui::ComboBox::from_id_salt("tankwright construction")
-            .selected_text(picked.label())
+            .selected_text(settings.construction.label())
             .show_ui(ui, |ui| {
                 for c in Construction::ALL {
-                    ui.selectable_value(&mut picked, c, c.label());
+                    ui.selectable_value(&mut settings.construction, c, c.label());
                 }
             })
             .response
             .labelled_by(label.id);
-        self.construction = Some(picked);
-        let coil = coil?;
-        // The estimate replaces the stray as entered, so it is made without it (applying it
-        // then changes nothing here).
-        let without_guess = Tank {
-            stray: 0.0,
-            ..*tank
-        };
-        let key = (*coil, without_guess, *conditions, self_capacitance, picked);
-        if self.cached.as_ref().is_none_or(|(k, _, _, _)| *k != key) {
-            let inputs = inputs_for(
-                coil,
-                &without_guess,
-                self_capacitance,
-                FIXED_TOLERANCE,
-                Some(picked),
-            );
-            let estimate = estimate_stray(&inputs);
-            let window = frequency_window(coil, conditions, &estimate);
-            let tolerances = Tolerances {
-                former_diameter: WINDING.0,
-                length: WINDING.1,
-                wire_diameter: WINDING.2,
-                turns: WINDING.3,
-                fixed_fraction: FIXED_TOLERANCE,
-                stray: estimate.stray_term(),
-            };
-            let parts = TankParts {
-                fixed: tank.fixed,
-                other: without_guess.external_capacitance() - tank.fixed,
-            };
-            let spread = spread(coil, &parts, conditions, &tolerances, DRAWS, 1);
-            self.cached = Some((key, estimate, window, spread));
-        }
-        let (_, estimate, window, spread) = self.cached.as_ref()?;
-        let pf = |s: Span| {
-            format!(
-                "{:.2} ({:.2}–{:.2}) pF",
-                s.typical * 1e12,
-                s.low * 1e12,
-                s.high * 1e12
-            )
-        };
+        self.tolerances(ui, settings);
+        let e = expectation?;
+        let estimate = &e.estimate;
         egui::Grid::new("tankwright stray parts")
             .striped(true)
             .num_columns(2)
@@ -120,26 +100,59 @@ impl StrayPanel {
                 ui.label("across the coil in all");
                 ui.label(pf(estimate.total()));
                 ui.end_row();
+                if let Some(f) = e.fitted {
+                    ui.label(FITTED_LABEL).on_hover_text(
+                        "the stray as entered plus the capacitance the bench calibration \
+                         found beyond the model, with its standard error",
+                    );
+                    ui.label(format!("{:.2} ± {:.2} pF", f.value * 1e12, f.error * 1e12));
+                    ui.end_row();
+                    ui.label(DIFFERENCE_LABEL);
+                    ui.label(format!(
+                        "{} pF ({} the estimate's range)",
+                        digits::signed(f.difference * 1e12, 2),
+                        if f.within_estimate {
+                            "within"
+                        } else {
+                            "outside"
+                        }
+                    ));
+                    ui.end_row();
+                }
             });
+        let w = e.window;
         ui.add(
             egui::Label::new(format!(
-                "Expect {:.3}–{:.3} MHz before the first measurement (typical {:.3} MHz).",
-                window.low * 1e-6,
-                window.high * 1e-6,
-                window.typical * 1e-6
+                "Expect {} from the estimate alone (typical {}).",
+                digits::mhz_range(w.low, w.high),
+                digits::mhz(w.typical)
             ))
             .wrap(),
         );
+        let (lo, hi) = e.before.expected;
         ui.add(
             egui::Label::new(format!(
-                "With the winding's own tolerances too (former ±0.1 mm, length ±0.2 mm, wire \
-                 ±0.01 mm, turns to a quarter, fixed capacitor ±5 %): expect {:.3}–{:.3} MHz \
-                 (95 % of {DRAWS} draws).",
-                spread.expected.0 * 1e-6,
-                spread.expected.1 * 1e-6
+                "With the winding's own tolerances too, and the estimate's range around the \
+                 stray as entered ({:.2} pF): expect {} before the first measurement, a spread \
+                 of {} (95 % of {} draws).",
+                entered_stray * 1e12,
+                digits::mhz_range(lo, hi),
+                digits::width(hi - lo),
+                crate::recipe::expectation::DRAWS
             ))
             .wrap(),
         );
+        if e.calibrated {
+            let (lo, hi) = e.expected;
+            ui.add(
+                egui::Label::new(format!(
+                    "After the bench calibration: expect {}, a spread of {} (the fit's errors).",
+                    digits::mhz_range(lo, hi),
+                    digits::width(hi - lo)
+                ))
+                .wrap(),
+            );
+        }
         let typical = estimate.stray_term().typical;
         ui.button(APPLY_STRAY_LABEL)
             .on_hover_text(format!(
@@ -148,5 +161,63 @@ impl StrayPanel {
             ))
             .clicked()
             .then_some(typical)
+    }
+
+    /// The builder's tolerances, each refused (and kept as it was) by the recipe rules when
+    /// out of range, with the reason on a row of its own.
+    fn tolerances(&mut self, ui: &mut egui::Ui, settings: &mut StraySettings) {
+        let before = settings.tolerances;
+        let t = &mut settings.tolerances;
+        let mut changed = false;
+        changed |= mm(
+            FORMER_TOLERANCE_LABEL,
+            &mut t.former_diameter,
+            "how far the former's diameter may be from its figure",
+        )
+        .show(ui)
+        .changed();
+        changed |= mm(
+            LENGTH_TOLERANCE_LABEL,
+            &mut t.length,
+            "how closely the coil's length is set",
+        )
+        .show(ui)
+        .changed();
+        changed |= Quantity::new(WIRE_TOLERANCE_LABEL, &mut t.wire_diameter, 1e-3, 0.0..=0.1)
+            .decimals(3)
+            .suffix("mm")
+            .note("how far the bare wire may be from its nominal diameter")
+            .show(ui)
+            .changed();
+        changed |= Quantity::new(TURNS_TOLERANCE_LABEL, &mut t.turns, 1.0, 0.0..=1.0)
+            .decimals(2)
+            .step(0.05)
+            .note("turns as counted: a quarter when counted to a quarter turn")
+            .show(ui)
+            .changed();
+        changed |= Quantity::new(
+            CAPACITOR_TOLERANCE_LABEL,
+            &mut t.fixed_fraction,
+            0.01,
+            0.0..=20.0,
+        )
+        .decimals(1)
+        .suffix("%")
+        .note("the fixed capacitor's tolerance")
+        .show(ui)
+        .changed();
+        if changed {
+            match check_tolerances(t) {
+                Ok(()) => self.refusal = None,
+                Err(r) => {
+                    *t = before;
+                    self.refusal = Some(format!("Not taken: {}", r.reason));
+                }
+            }
+        }
+        // Always a row, so nothing moves when a value is refused.
+        let text = egui::RichText::new(self.refusal.as_deref().unwrap_or(" "))
+            .color(crate::ui::theme::refusal(ui));
+        ui.add(egui::Label::new(text).wrap());
     }
 }

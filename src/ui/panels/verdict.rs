@@ -5,7 +5,8 @@
 //! sheet prints.
 
 use super::heading;
-use crate::recipe::Figures;
+use crate::recipe::{Expectation, Figures};
+use crate::tuning::digits;
 use crate::tuning::verdict::Verdict;
 use crate::ui::evaluation::Evaluation;
 use crate::ui::theme;
@@ -19,7 +20,7 @@ pub const VERDICT_HEADING: &str = "Verdict";
 pub fn show(ui: &mut egui::Ui, evaluation: &Evaluation) {
     if let Ok(figures) = evaluation.current() {
         heading(ui, VERDICT_HEADING);
-        block(ui, figures);
+        block(ui, figures, evaluation.expectation());
     }
 }
 
@@ -61,7 +62,26 @@ pub fn buildable_text(verdict: &Verdict) -> &'static str {
     }
 }
 
-fn block(ui: &mut egui::Ui, figures: &Figures) {
+/// The spread line: where the build can be expected to land at the present coil, with the
+/// spread's width, before the first measurement or after the calibration.
+pub fn expectation_text(e: &Expectation) -> String {
+    let (lo, hi) = e.expected;
+    if e.calibrated {
+        format!(
+            "Expect {} now (a spread of {}, from the fit's errors)",
+            digits::mhz_range(lo, hi),
+            digits::width(hi - lo)
+        )
+    } else {
+        format!(
+            "Expect {} before the first measurement (a spread of {})",
+            digits::mhz_range(lo, hi),
+            digits::width(hi - lo)
+        )
+    }
+}
+
+fn block(ui: &mut egui::Ui, figures: &Figures, expectation: Option<&Expectation>) {
     let v = &figures.verdict;
     let good = theme::on_target(ui);
     let caution = theme::caution(ui);
@@ -87,6 +107,9 @@ fn block(ui: &mut egui::Ui, figures: &Figures) {
         line(ui, format!("Caution: {}", flag.text), Some(caution), false);
     }
     line(ui, calibration_text(figures), None, false);
+    if let Some(e) = expectation {
+        line(ui, expectation_text(e), None, false);
+    }
     ui.add_space(2.0);
     line(ui, format!("Next: {}", v.next_step()), None, true);
 }
