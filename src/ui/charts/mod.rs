@@ -5,6 +5,7 @@
 //! a chart returns the value under the pointer for the caller to apply.
 
 mod cache;
+pub mod impedance;
 mod spacing;
 mod trimmer;
 

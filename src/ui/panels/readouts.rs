@@ -2,8 +2,10 @@
 //! reason the input was refused.
 
 use super::heading;
-use crate::model::{Analysis, InductanceModel, InputError, WarningTopic};
+use crate::model::{InductanceModel, InputError, WarningTopic};
+use crate::tuning::field_tank::{InductanceSource, leading};
 use crate::ui::evaluation::Evaluation;
+use crate::ui::field_worker::FieldWorker;
 use crate::ui::theme;
 use crate::ui::units::{LengthUnit, mhz, nh, pf};
 use crate::ui::widgets::{Readout, caution_mark};
@@ -24,11 +26,17 @@ fn show_mhz(hertz: f64) -> String {
     format!("{:.3} MHz", mhz(hertz))
 }
 
-/// Show the readouts for the present recipe, or why it was refused.
-pub fn show(ui: &mut egui::Ui, evaluation: &Evaluation, unit: LengthUnit) {
+/// Word after the resonance when the field solution drives it.
+pub const FIELD_SOLVED: &str = "field-solved";
+/// Word after the resonance when the classical estimate is shown.
+pub const ESTIMATE: &str = "estimate";
+
+/// Show the readouts for the present recipe, or why it was refused; the resonance and the
+/// apparent inductance come from the field solution once `field` has it.
+pub fn show(ui: &mut egui::Ui, evaluation: &Evaluation, unit: LengthUnit, field: &FieldWorker) {
     heading(ui, "Readouts");
     match evaluation.current() {
-        Ok(figures) => figures_rows(ui, &figures.analysis, unit),
+        Ok(figures) => figures_rows(ui, figures, unit, field),
         Err(error) => refusal(ui, error),
     }
 }
@@ -63,17 +71,54 @@ fn refusal(ui: &mut egui::Ui, error: &InputError) {
         });
 }
 
-fn figures_rows(ui: &mut egui::Ui, a: &Analysis, unit: LengthUnit) {
+fn figures_rows(
+    ui: &mut egui::Ui,
+    figures: &crate::recipe::Figures,
+    unit: LengthUnit,
+    field: &FieldWorker,
+) {
+    let a = &figures.analysis;
+    let solved = field.ready().map(|r| &r.tank);
+    let lead = leading(a, solved, figures.calibrated());
+    let (word, how) = match lead.source {
+        InductanceSource::FieldSolved => (
+            FIELD_SOLVED,
+            "The coil solved from its own currents (thin-wire method of moments): the tank \
+             resonates where the coil's terminal reactance X meets the capacitance, \
+             f = 1/(2π√((X/ω)·C)), solved self-consistently; the self-capacitance is inside X"
+                .to_owned(),
+        ),
+        InductanceSource::Classical => (
+            ESTIMATE,
+            format!(
+                "Classical estimate: 1/(2π√(LC)) with the driving model's inductance plus the \
+                 leads and the total capacitance (Medhurst's self-capacitance added). {}",
+                match (field.is_working(), &lead.why_classical) {
+                    (true, _) if !figures.calibrated() => {
+                        "The field solution is being computed.".to_owned()
+                    }
+                    (_, Some(why)) => format!("Why: {why}."),
+                    _ => String::new(),
+                }
+            ),
+        ),
+    };
     Readout::new(
         "Resonance",
-        show_mhz(a.resonance),
-        "1/(2π√(LC)) with the driving model's inductance plus the leads and the total \
-         capacitance, iterated until the frequency-dependent terms settle",
+        show_mhz(lead.resonance),
+        "The tank's resonance: field-solved when the field solution is ready, else the \
+         classical estimate (hover the word after the figure)",
     )
     .emphasis(true)
+    .note(word, how)
+    .more(move || {
+        format!(
+            "Classical estimate {}",
+            show_mhz(a.resonance)
+        )
+    })
     .warnings(a.warnings_about(WarningTopic::Band))
     .show(ui);
-
     ui.add_space(4.0);
     ui.label(RichText::new("Inductance of the coil (without leads)").strong());
     for model in InductanceModel::ALL {
@@ -126,10 +171,20 @@ fn figures_rows(ui: &mut egui::Ui, a: &Analysis, unit: LengthUnit) {
     .show(ui);
     Readout::new(
         "Apparent inductance",
-        show_nh(a.apparent_inductance),
-        "L/(1 − (f/f_self)²) with the lumped self-resonance: what a bridge would read across \
-         the coil at the resonance",
+        show_nh(lead.apparent_inductance),
+        match lead.source {
+            InductanceSource::FieldSolved => {
+                "X/ω of the field solution at the resonance (coil, leads and the path beneath \
+                 it): what a bridge would read across the terminals"
+            }
+            InductanceSource::Classical => {
+                "L/(1 − (f/f_self)²) with the lumped self-resonance: what a bridge would read \
+                 across the coil at the resonance"
+            }
+        },
     )
+    .note(word, "Where the figure comes from: as for the resonance")
+    .more(move || format!("Classical estimate {}", show_nh(a.apparent_inductance)))
     .show(ui);
 
     ui.add_space(4.0);
@@ -153,6 +208,21 @@ fn figures_rows(ui: &mut egui::Ui, a: &Analysis, unit: LengthUnit) {
         show_mhz(a.self_resonance.lumped),
         "1/(2π√(L·C_self)) with Medhurst's self-capacitance: the usual first estimate",
     )
+    .show(ui);
+    Readout::new(
+        "Self-resonance, field",
+        match solved {
+            Some(Ok(f)) => show_mhz(f.self_resonance),
+            Some(Err(_)) => "not available".to_owned(),
+            None => "being computed".to_owned(),
+        },
+        "First parallel self-resonance at the terminals from the field solution (the wire, its \
+         leads and the path beneath the coil)",
+    )
+    .more(move || match solved {
+        Some(Err(e)) => e.to_string(),
+        _ => String::new(),
+    })
     .show(ui);
     Readout::new(
         "Self-resonance, helical",
