@@ -45,13 +45,16 @@ impl FieldTank {
 /// temperature with the field solution.
 ///
 /// # Formula
-/// With φ(f) = ln(ω²·C·L_app(f)), the resonance is φ = 0. Below the self-resonance X/ω rises
-/// with f, so φ rises and has one root there. The fixed-point step f' = f·e^(−φ(f)/2)
-/// (= 1/(2π√(L_app(f)·C))) lands on the far side of the root from any f (L_app(f) below the
-/// root's value gives f' above the root, and the other way round), so a start and its step
-/// bracket the root; the Illinois variant of regula falsi on ln f (Dowell and Jarratt, BIT 11,
-/// 1971) then closes the bracket to [`TOLERANCE`]. The start is the classical resonance,
-/// clamped below the field-solved self-resonance. Usually four to six impedance evaluations.
+/// With φ(f) = ln(ω²·C·L_app(f)), the resonance is φ = 0. On ln f, φ rises with slope
+/// 2 + d ln L_app/d ln f, which is above 2 where the self-resonance makes X/ω climb, and only
+/// a little below 2 at the low end, where the wire's internal inductance falls (at most as
+/// f^(−1/2) on a fraction of L), so φ has one root below the self-resonance. From the start
+/// (the classical resonance, clamped below the field-solved self-resonance) the fixed-point
+/// step f' = f·e^(−φ(f)/2) = 1/(2π√(L_app(f)·C)) moves towards the root: past it where X/ω
+/// rises with f, short of it where it falls; secant steps through the last two points follow
+/// until φ changes sign, and the Illinois variant of regula falsi on ln f (Dowell and Jarratt,
+/// BIT 11, 1971) closes the bracket to [`TOLERANCE`]. Usually four to eight impedance
+/// evaluations.
 ///
 /// The bench calibration's inductance scale, fitted to the classical model, is not applied
 /// here: see [`leading`].
@@ -94,60 +97,74 @@ pub fn field_tank(
     };
     let top = self_resonance.ln();
     let start = classical.min(0.9 * self_resonance).ln();
-    let (g0, mut z_last) = phi(start)?;
-    let mut last = start;
-    let step = (start - 0.5 * g0).min(top - 1e-9);
-    let (mut lo, mut g_lo, mut hi, mut g_hi);
-    if g0.abs() <= 2.0 * TOLERANCE {
-        lo = start;
-        hi = start;
-    } else {
-        let (g1, z1) = phi(step)?;
-        last = step;
-        z_last = z1;
-        if g0 < 0.0 {
-            (lo, g_lo, hi, g_hi) = (start, g0, step, g1);
-        } else {
-            (lo, g_lo, hi, g_hi) = (step, g1, start, g0);
-        }
-        if g_lo > 0.0 || g_hi < 0.0 {
-            // Not a bracket: only if X/ω fell with frequency somewhere below the
-            // self-resonance, which a coil's reactance does not do.
-            return Err(FieldError::NoResonance);
-        }
-        let mut side = 0i32;
-        for _ in 0..60 {
-            if hi - lo <= TOLERANCE {
-                break;
+    let (g0, z0) = phi(start)?;
+    let (mut last, mut z_last) = (start, z0);
+    let (mut lo, mut hi) = (start, start);
+    if g0.abs() > 2.0 * TOLERANCE {
+        // Bracket: the fixed-point step, then secant steps through the last two points
+        // until φ changes sign (or lands on the root).
+        let (mut a, mut ga) = (start, g0);
+        let mut b = (start - 0.5 * g0).min(top - 1e-9);
+        let (mut gb, zb) = phi(b)?;
+        (last, z_last) = (b, zb);
+        let mut tries = 0;
+        while ga.signum() == gb.signum() && gb.abs() > 2.0 * TOLERANCE {
+            tries += 1;
+            if tries > 40 {
+                return Err(FieldError::NoResonance);
             }
-            // Regula falsi where φ is finite, else halve the bracket.
-            let x = if g_hi.is_finite() {
-                (lo * g_hi - hi * g_lo) / (g_hi - g_lo)
+            let next = if gb.is_finite() && gb != ga {
+                b - gb * (b - a) / (gb - ga)
             } else {
-                0.5 * (lo + hi)
+                b - 0.5 * gb
             };
-            let (g, z) = phi(x)?;
-            last = x;
-            z_last = z;
-            if g.abs() <= 2.0 * TOLERANCE {
-                lo = x;
-                hi = x;
-                break;
-            }
-            if g < 0.0 {
-                lo = x;
-                g_lo = g;
-                if side == -1 {
-                    g_hi *= 0.5;
-                }
-                side = -1;
+            (a, ga) = (b, gb);
+            b = next.min(top - 1e-9);
+            let (g, z) = phi(b)?;
+            gb = g;
+            (last, z_last) = (b, z);
+        }
+        if gb.abs() <= 2.0 * TOLERANCE {
+            (lo, hi) = (b, b);
+        } else {
+            let (mut g_lo, mut g_hi);
+            if gb > 0.0 {
+                (lo, g_lo, hi, g_hi) = (a, ga, b, gb);
             } else {
-                hi = x;
-                g_hi = g;
-                if side == 1 {
-                    g_lo *= 0.5;
+                (lo, g_lo, hi, g_hi) = (b, gb, a, ga);
+            }
+            let mut side = 0i32;
+            for _ in 0..60 {
+                if hi - lo <= TOLERANCE {
+                    break;
                 }
-                side = 1;
+                // Regula falsi where φ is finite, else halve the bracket.
+                let x = if g_hi.is_finite() {
+                    (lo * g_hi - hi * g_lo) / (g_hi - g_lo)
+                } else {
+                    0.5 * (lo + hi)
+                };
+                let (g, z) = phi(x)?;
+                (last, z_last) = (x, z);
+                if g.abs() <= 2.0 * TOLERANCE {
+                    (lo, hi) = (x, x);
+                    break;
+                }
+                if g < 0.0 {
+                    lo = x;
+                    g_lo = g;
+                    if side == -1 {
+                        g_hi *= 0.5;
+                    }
+                    side = -1;
+                } else {
+                    hi = x;
+                    g_hi = g;
+                    if side == 1 {
+                        g_lo *= 0.5;
+                    }
+                    side = 1;
+                }
             }
         }
     }
