@@ -192,5 +192,8 @@ fn evaluate_keeps_working_when_the_field_solution_refuses() {
     // The classical figures lead, and say so.
     assert_eq!(v["resonance_source"], "classical");
     assert_eq!(v["resonance_mhz"], v["resonance_mhz_classical"]);
-    assert_eq!(v["inductance_nh"]["apparent"], v["inductance_nh"]["apparent_classical"]);
+    assert_eq!(
+        v["inductance_nh"]["apparent"],
+        v["inductance_nh"]["apparent_classical"]
+    );
 }

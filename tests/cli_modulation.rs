@@ -126,9 +126,7 @@ fn modulation_block_from_numbers_or_model_line() {
     assert!((num(m, &["junction_pf"]) - cj).abs() < 1e-12);
     assert!(num(&v, &["resonance_mhz"]) < num(&plain, &["resonance_mhz"]));
     // The modulation block works on the classical model: its carrier is that resonance.
-    assert!(
-        num(&v, &["resonance_mhz_classical"]) < num(&plain, &["resonance_mhz_classical"])
-    );
+    assert!(num(&v, &["resonance_mhz_classical"]) < num(&plain, &["resonance_mhz_classical"]));
     assert!((num(m, &["carrier_mhz"]) - num(&v, &["resonance_mhz_classical"])).abs() < 1e-9);
     let up = num(m, &["deviation_up_khz"]);
     let down = num(m, &["deviation_down_khz"]);

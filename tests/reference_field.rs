@@ -18,14 +18,14 @@
 use std::f64::consts::PI;
 use std::fmt::Write as _;
 use std::process::Command;
+use tankwright::model::{
+    Coating, Coil, Conditions, DiameterSpec, Gauge, SpacingSpec, Winding, WireSpec, wire_coil,
+};
 use tankwright::physics::constants::SPEED_OF_LIGHT;
 use tankwright::physics::copper::{internal_impedance, resistivity, skin_depth};
 use tankwright::physics::field::{Feed, FieldModel, WireCoil};
 use tankwright::physics::filament::{coaxial_mutual_inductance, ring_self_inductance};
 use tankwright::physics::leads::straight_wire_inductance;
-use tankwright::model::{
-    Coating, Coil, Conditions, DiameterSpec, Gauge, SpacingSpec, Winding, WireSpec, wire_coil,
-};
 use tankwright::tuning::field_tank::field_tank;
 
 const MM: f64 = 1e-3;
@@ -744,7 +744,10 @@ fn tank_resonance_meets_nec2c_reactance() {
         failed |= residual.abs() > tolerance;
     }
     println!("{report}");
-    assert!(!failed, "the tank's resonance misses nec2c's reactance:\n{report}");
+    assert!(
+        !failed,
+        "the tank's resonance misses nec2c's reactance:\n{report}"
+    );
 }
 
 #[test]

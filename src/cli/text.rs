@@ -121,7 +121,11 @@ pub fn analysis_report(a: &Analysis) -> String {
 
 /// The field solution's lines for the report: the tank's resonance with the field-solved
 /// apparent inductance and which figure leads (see [`crate::tuning::field_tank::leading`]).
-pub fn field_report(a: &Analysis, field: &Result<FieldTank, FieldError>, calibrated: bool) -> String {
+pub fn field_report(
+    a: &Analysis,
+    field: &Result<FieldTank, FieldError>,
+    calibrated: bool,
+) -> String {
     let lead = leading(a, Some(field), calibrated);
     let mut s = String::from("Field solution (the wire solved from its own currents)\n");
     match field {

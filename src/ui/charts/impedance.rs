@@ -215,9 +215,8 @@ pub fn impedance_section(ui: &mut egui::Ui, figures: Option<&Figures>, field: &F
         }
         markers(plot_ui);
     });
-    ohms.response.widget_info(|| {
-        egui::WidgetInfo::labeled(egui::Role::Figure, true, IMPEDANCE_CHART_LABEL)
-    });
+    ohms.response
+        .widget_info(|| egui::WidgetInfo::labeled(egui::Role::Figure, true, IMPEDANCE_CHART_LABEL));
 
     let q = log_plot("tankwright q chart", "Q", "", 0.7 * height).show(ui, |plot_ui| {
         let quality = |z: &Complex64| z.im / z.re;

@@ -111,12 +111,7 @@ fn figures_rows(
     )
     .emphasis(true)
     .note(word, how)
-    .more(move || {
-        format!(
-            "Classical estimate {}",
-            show_mhz(a.resonance)
-        )
-    })
+    .more(move || format!("Classical estimate {}", show_mhz(a.resonance)))
     .warnings(a.warnings_about(WarningTopic::Band))
     .show(ui);
     ui.add_space(4.0);
