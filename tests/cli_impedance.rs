@@ -189,4 +189,11 @@ fn evaluate_keeps_working_when_the_field_solution_refuses() {
     let note = v["field_solution_note"].as_str().expect("a note");
     assert!(note.contains("leads shorter"), "{note}");
     assert!(v["inductance_nh"]["apparent"].as_f64().is_some());
+    // The classical figures lead, and say so.
+    assert_eq!(v["resonance_source"], "classical");
+    assert_eq!(v["resonance_mhz"], v["resonance_mhz_classical"]);
+    assert_eq!(
+        v["inductance_nh"]["apparent"],
+        v["inductance_nh"]["apparent_classical"]
+    );
 }

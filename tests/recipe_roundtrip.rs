@@ -309,11 +309,24 @@ fn file_strategy(
         tank,
         (num(-20.0, 80.0), model, any::<bool>()),
         plan,
-        (num(30.0, 500.0), proptest::option::of(num(0.1, 1000.0)), stray_estimate),
+        (
+            num(30.0, 500.0),
+            proptest::option::of(num(0.1, 1000.0)),
+            stray_estimate,
+        ),
         proptest::collection::vec(reading, 0..4),
     )
         .prop_map(
-            |(name, notes, coil, tank, (t, m, fs), plan, (channel, within, stray_estimate), bench_log)| {
+            |(
+                name,
+                notes,
+                coil,
+                tank,
+                (t, m, fs),
+                plan,
+                (channel, within, stray_estimate),
+                bench_log,
+            )| {
                 RecipeFile {
                     schema: 1,
                     name,

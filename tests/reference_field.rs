@@ -18,11 +18,15 @@
 use std::f64::consts::PI;
 use std::fmt::Write as _;
 use std::process::Command;
+use tankwright::model::{
+    Coating, Coil, Conditions, DiameterSpec, Gauge, SpacingSpec, Winding, WireSpec, wire_coil,
+};
 use tankwright::physics::constants::SPEED_OF_LIGHT;
 use tankwright::physics::copper::{internal_impedance, resistivity, skin_depth};
 use tankwright::physics::field::{Feed, FieldModel, WireCoil};
 use tankwright::physics::filament::{coaxial_mutual_inductance, ring_self_inductance};
 use tankwright::physics::leads::straight_wire_inductance;
+use tankwright::tuning::field_tank::field_tank;
 
 const MM: f64 = 1e-3;
 
@@ -370,10 +374,14 @@ fn terminal_pole_is_the_natural_mode() {
 
 #[test]
 fn doubling_the_segments_moves_the_self_resonance_under_half_a_percent() {
-    // The convergence requirement, on a coil with leads and an isolated one.
+    // The convergence requirement, on a coil with leads, an isolated one, and the
+    // demo coil on long leads (30 and 50 mm, cut in graded segments: see
+    // `physics::field::geometry`), where doubling also halves the longest straight segment.
     for c in [
         coil(10.0, 5.0, 2.0, 1.0, 5.0),
         coil(6.0, 3.0, 1.6, 0.8, 0.0),
+        coil(7.0, 5.0, 1.6, 1.0, 30.0),
+        coil(7.0, 5.0, 1.6, 1.0, 50.0),
     ] {
         let n = c.segments_per_turn();
         let once = ours(&c, n, Feed::Terminals);
@@ -661,4 +669,109 @@ fn classical_apparent_inductance_rise_bias_as_measured() {
         lo >= 1.32 && hi <= 1.93,
         "the classical rise's bias moved:\n{report}"
     );
+}
+
+// ---------------------------------------------------------------- the tank
+
+/// The model's coil for the same wire as [`coil`] (mean diameter, length N·p, bare wire).
+fn model_coil(d_mm: f64, turns: f64, pitch_mm: f64, wire_mm: f64, lead_mm: f64) -> Coil {
+    Coil::from_winding(&Winding {
+        diameter: DiameterSpec::Mean(d_mm * MM),
+        wire: WireSpec {
+            gauge: Gauge::Metric(wire_mm * MM),
+            coating: Coating::Bare,
+        },
+        turns,
+        spacing: SpacingSpec::Length(turns * pitch_mm * MM),
+        lead_length: lead_mm * MM,
+    })
+    .expect("a valid coil")
+}
+
+#[test]
+fn tank_resonance_meets_nec2c_reactance() {
+    // The tank's field-solved resonance f (tuning::field_tank) is where the coil's terminal
+    // reactance meets the capacitance: ω²·C·(X/ω) = 1. Here X comes from nec2c at our f
+    // (Burke and Poggio 1981; the deck as in `apparent_inductance_at_vhf_agrees_with_nec2c`,
+    // whose leads nec2c cuts into uniform segments as long as the source gap, an independent
+    // check of our graded leads). The residual ω²·C·X_nec/ω − 1 is the relative difference of
+    // the two reactances, held to the same tolerance as X/ω there: the two solutions'
+    // convergence spreads. Coils of our own choosing, 22 pF (an FM tank), leads 5 and 30 mm.
+    let mut report = String::new();
+    let mut failed = false;
+    //
+    // Not checked here, measured on this branch: the demo coil (D 7 mm, 1 mm wire, 8 mm long)
+    // gives X/ω 104.4 nH (5 mm leads) and 133.5 nH (30 mm leads) against nec2c's 112.3 and
+    // 142.7 nH, 7.6 % and 6.9 % apart, beyond both spreads. Its mean diameter is only seven wire
+    // diameters: nec2c's helix segments are then 2.7 and 1.4 wire radii long at 16 and 32 a
+    // turn, where its thin-wire kernel is outside its stated range (Burke and Poggio 1981,
+    // Part III), and ours 4 radii. The disagreement does not depend on the leads (the same
+    // with 5 and 30 mm) nor on the graded cut of the leads (uniform segments give the same
+    // 133.511 nH): it is the fat-wire limit of both codes, left open.
+    for (d, n, p, w, lead) in [
+        (10.0, 5.0, 2.0, 1.0, 5.0),
+        (10.0, 5.0, 2.0, 1.0, 30.0),
+        (10.0, 5.0, 2.0, 0.6, 30.0),
+    ] {
+        let c = coil(d, n, p, w, lead);
+        let model = model_coil(d, n, p, w, lead);
+        assert_eq!(wire_coil(&model, 20.0), c, "the same wire");
+        let capacitance = 22e-12;
+        let tank = field_tank(&model, capacitance, &Conditions::default()).expect("solves");
+        let f = tank.resonance;
+        let omega = 2.0 * PI * f;
+        // Our own X/ω at f is the tank's apparent inductance, and meets the condition to the
+        // solver's tolerance.
+        let own = ours_inductance(&c, c.segments_per_turn(), f);
+        assert!((own / tank.apparent_inductance - 1.0).abs() < 1e-12);
+        assert!((omega * omega * capacitance * own - 1.0).abs() < 3e-9);
+        let nec = nec_converged(false, |per| nec::impedance(&c, per, f).1 / omega);
+        let o = ours_converged(&c, |per| ours_inductance(&c, per, f));
+        let residual = omega * omega * capacitance * nec.value - 1.0;
+        let tolerance = (nec.spread + o.spread) / nec.value;
+        writeln!(
+            report,
+            "{} with 22 pF: f {:.4} MHz, X/ω ours {:.3} nH, nec2c {:.3} nH; ω²C·X_nec/ω − 1 = {:+.3} % (tolerance {:.3} %)",
+            describe(&c),
+            f * 1e-6,
+            own * 1e9,
+            nec.value * 1e9,
+            100.0 * residual,
+            100.0 * tolerance
+        )
+        .expect("string");
+        failed |= nec.spread > 0.05 * nec.value || o.spread > 0.03 * o.value;
+        failed |= residual.abs() > tolerance;
+    }
+    println!("{report}");
+    assert!(
+        !failed,
+        "the tank's resonance misses nec2c's reactance:\n{report}"
+    );
+}
+
+#[test]
+fn tank_resonance_settles_below_the_self_resonance_for_any_capacitance() {
+    // The self-consistent solution (fixed-point step to bracket, then regula falsi on ln f)
+    // from 0.2 pF, where the tank sits near the coil's own resonance and X/ω climbs steeply,
+    // to 1 nF: always below the self-resonance, self-consistent to 1e-9, and falling as C
+    // rises (an identity of the resonance condition).
+    let model = model_coil(7.0, 5.0, 1.6, 1.0, 5.0);
+    let c = wire_coil(&model, 20.0);
+    let mut last = f64::INFINITY;
+    for capacitance in [0.2e-12, 1e-12, 5e-12, 22e-12, 100e-12, 1e-9] {
+        let tank = field_tank(&model, capacitance, &Conditions::default()).expect("solves");
+        let f = tank.resonance;
+        assert!(f < tank.self_resonance && f < last, "{capacitance}: {f}");
+        let omega = 2.0 * PI * f;
+        let x = ours_inductance(&c, c.segments_per_turn(), f);
+        assert!(
+            (omega * omega * capacitance * x - 1.0).abs() < 3e-9,
+            "{capacitance}: {} after {} evaluations",
+            omega * omega * capacitance * x - 1.0,
+            tank.evaluations
+        );
+        assert!(tank.evaluations <= 40, "{}", tank.evaluations);
+        last = f;
+    }
 }

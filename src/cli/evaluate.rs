@@ -217,17 +217,16 @@ pub fn run_evaluate(words: Vec<String>) -> Result<String, String> {
     let coil = crate::model::Coil::from_winding(&req.winding)
         .map_err(|e| format!("invalid input: {e}"))?;
     let verdict = judge(&coil, &req.tank, &req.conditions, &req.aim);
+    // The field-solved tank (a few milliseconds; see tuning::field_tank).
+    let field = crate::tuning::field_tank::field_tank(
+        &analysis.coil,
+        analysis.external_capacitance,
+        &req.conditions,
+    );
     Ok(if req.json {
         let mut object = super::json::analysis_json(&analysis);
         super::verdict::add_verdict_json(&mut object, &verdict, &analysis);
-        super::json::add_field_solution(
-            &mut object,
-            crate::tuning::impedance::field_solution(
-                &analysis.coil,
-                req.conditions.temperature_c,
-                analysis.resonance,
-            ),
-        );
+        super::json::add_field_solution(&mut object, &analysis, &field, false);
         more.add_json(&mut object);
         let mut s = object.to_string();
         s.push('\n');
@@ -236,6 +235,7 @@ pub fn run_evaluate(words: Vec<String>) -> Result<String, String> {
         let mut s = super::verdict::verdict_lines(&verdict).join("\n");
         s.push_str("\n\n");
         s.push_str(&super::text::analysis_report(&analysis));
+        s.push_str(&super::text::field_report(&analysis, &field, false));
         s.push_str(&more.text());
         s
     })

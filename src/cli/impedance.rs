@@ -63,12 +63,20 @@ pub fn run_impedance(words: Vec<String>) -> Result<String, String> {
     if let Some(word) = args.positional.first() {
         return Err(format!("unexpected word '{word}'"));
     }
-    // The classical evaluation validates the coil, tank and conditions, and gives the tank's
-    // operating frequency when the tank has a capacitance.
+    // The classical evaluation validates the coil, tank and conditions; the tank's operating
+    // frequency, when it has a capacitance, is the one `evaluate` leads with: field-solved
+    // (tuning::field_tank), else classical.
     let analysis = crate::model::evaluate(&req.winding, &req.tank, &req.conditions)
         .map_err(|e| format!("invalid input: {e}"))?;
     let coil = Coil::from_winding(&req.winding).map_err(|e| format!("invalid input: {e}"))?;
-    let operating = (req.tank.external_capacitance() > 0.0).then_some(analysis.resonance);
+    let operating = (req.tank.external_capacitance() > 0.0).then(|| {
+        let field = crate::tuning::field_tank::field_tank(
+            &coil,
+            analysis.external_capacitance,
+            &req.conditions,
+        );
+        crate::tuning::field_tank::leading(&analysis, Some(&field), false).resonance
+    });
     let sweep = impedance_sweep(
         &coil,
         req.conditions.temperature_c,

@@ -1,7 +1,8 @@
 //! The machine-readable form of an [`Analysis`], in display units named in the keys.
 
 use crate::model::{Analysis, InductanceModel};
-use crate::physics::field::{FieldError, FieldSolution};
+use crate::physics::field::FieldError;
+use crate::tuning::field_tank::{FieldTank, leading};
 use serde_json::{Value, json};
 
 const NH: f64 = 1e9;
@@ -67,20 +68,32 @@ pub fn analysis_json(a: &Analysis) -> Value {
     })
 }
 
-/// Put the field solution into an [`analysis_json`] object: `self_resonance_mhz.field_solved`
-/// (the first parallel self-resonance at the terminals, leads as given), and
-/// `inductance_nh.apparent` from the field solution's X/ω at the operating frequency, the
-/// classical figure kept as `inductance_nh.apparent_classical`. When the field solution
-/// refuses the coil, `field_solved` is null, `apparent` stays classical and
+/// Put the field solution into an [`analysis_json`] object and let it drive the tank:
+/// `resonance_mhz` and `inductance_nh.apparent` are the field-solved tank's (the resonance
+/// solved self-consistently with X/ω, see [`crate::tuning::field_tank::field_tank`]) when the
+/// field solution is available, the classical figures otherwise; `resonance_source` says which
+/// (`field_solved` or `classical`), and the classical figures are always kept as
+/// `resonance_mhz_classical` and `inductance_nh.apparent_classical`.
+/// `self_resonance_mhz.field_solved` is the first parallel self-resonance at the terminals
+/// (leads as given). When the field solution refuses the coil, `field_solved` is null and
 /// `field_solution_note` says why.
-pub fn add_field_solution(v: &mut Value, field: Result<FieldSolution, FieldError>) {
-    let classical = v["inductance_nh"]["apparent"].clone();
-    v["inductance_nh"]["apparent_classical"] = classical;
+pub fn add_field_solution(
+    v: &mut Value,
+    a: &Analysis,
+    field: &Result<FieldTank, FieldError>,
+    calibrated: bool,
+) {
+    let lead = leading(a, Some(field), calibrated);
+    v["inductance_nh"]["apparent_classical"] = json!(a.apparent_inductance * NH);
+    v["resonance_mhz_classical"] = json!(a.resonance * MHZ);
+    v["resonance_mhz"] = json!(lead.resonance * MHZ);
+    v["inductance_nh"]["apparent"] = json!(lead.apparent_inductance * NH);
+    v["resonance_source"] = json!(lead.source.json_name());
     match field {
         Ok(f) => {
             v["self_resonance_mhz"]["field_solved"] = json!(f.self_resonance * MHZ);
-            v["inductance_nh"]["apparent"] = json!(f.apparent_inductance * NH);
             v["field_series_resistance_ohm"] = json!(f.series_resistance);
+            v["field_q"] = json!(f.q());
             v["field_segments"] = json!(f.segments);
         }
         Err(e) => {

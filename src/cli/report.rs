@@ -51,6 +51,13 @@ pub fn build_report(r: &Recipe) -> Result<String, String> {
     let mut text = out.join("\n");
     text.push('\n');
     text.push_str(&super::analysis_report(&a));
+    // The field-solved tank of the recipe as written (a calibrated model keeps the lead).
+    let field = crate::tuning::field_tank::field_tank(
+        &f.coil,
+        f.uncalibrated.external_capacitance,
+        &r.conditions,
+    );
+    text.push_str(&super::text::field_report(&a, &field, f.calibrated()));
     Ok(text)
 }
 

@@ -1,8 +1,10 @@
 //! The readable report of an [`Analysis`].
 
 use crate::model::{Analysis, InductanceModel};
+use crate::physics::field::FieldError;
 use crate::tuning::apparent::apparent_inductance;
 use crate::tuning::digits;
+use crate::tuning::field_tank::{FieldTank, InductanceSource, leading};
 
 /// A plain-text report with units, one figure a line.
 pub fn analysis_report(a: &Analysis) -> String {
@@ -124,6 +126,47 @@ pub fn analysis_report(a: &Analysis) -> String {
         for w in &a.warnings {
             line(format!("  - {}", w.message));
         }
+    }
+    s
+}
+
+/// The field solution's lines for the report: the tank's resonance with the field-solved
+/// apparent inductance and which figure leads (see [`crate::tuning::field_tank::leading`]).
+pub fn field_report(
+    a: &Analysis,
+    field: &Result<FieldTank, FieldError>,
+    calibrated: bool,
+) -> String {
+    let lead = leading(a, Some(field), calibrated);
+    let mut s = String::from("Field solution (the wire solved from its own currents)\n");
+    match field {
+        Ok(f) => {
+            s.push_str(&format!(
+                "  tank               {:>10.4} MHz   apparent inductance {:.2} nH (X/omega)\n",
+                f.resonance * 1e-6,
+                f.apparent_inductance * 1e9
+            ));
+            s.push_str(&format!(
+                "  self-resonance     {:>10.0} MHz   (first parallel, at the terminals)\n",
+                f.self_resonance * 1e-6
+            ));
+            s.push_str(&format!(
+                "  series resistance  {:>10.4} ohm   Q {:.0} (skin effect and radiation only)\n",
+                f.series_resistance,
+                f.q()
+            ));
+            s.push_str(&format!("  segments           {:>10}\n", f.segments));
+        }
+        Err(e) => s.push_str(&format!("  not available: {e}\n")),
+    }
+    match (lead.source, lead.why_classical) {
+        (InductanceSource::FieldSolved, _) => {
+            s.push_str("  the field-solved resonance leads; the classical one is above\n");
+        }
+        (InductanceSource::Classical, why) => s.push_str(&format!(
+            "  the classical resonance leads ({})\n",
+            why.unwrap_or_default()
+        )),
     }
     s
 }

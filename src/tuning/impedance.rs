@@ -105,3 +105,26 @@ pub fn field_solution(
     let wire = wire_coil(coil, temperature_c);
     FieldModel::new(&wire, wire.segments_per_turn(), Feed::Terminals)?.solve(operating_frequency)
 }
+
+/// The classical estimate of the coil's terminal impedance at `frequency` hertz, for drawing
+/// beside the field solution: the analysis's inductance (coil by the driving model plus the
+/// leads) in series with its AC resistance, scaled to `frequency` by the round wire's
+/// skin-effect ratio (the proximity factor held), with Medhurst's self-capacitance across both.
+///
+/// # Formula
+/// Z = (R + jωL)/(1 − ω²LC_self + jωRC_self), the lumped equivalent whose pole is the lumped
+/// self-resonance 1/(2π√(L·C_self)); R(f) = R_ac·k(f)/k(f₀), k the resistance ratio of the
+/// Bessel internal impedance (see [`crate::physics::copper::internal_impedance`]) and f₀ the
+/// analysis's resonance. L keeps its value at f₀ (its internal-inductance part changes by well
+/// under 1 % over the chart).
+pub fn classical_impedance(a: &crate::model::Analysis, frequency: f64) -> Complex64 {
+    use crate::physics::copper::{internal_impedance, skin_depth};
+    let radius = 0.5 * a.coil.wire_bare();
+    let ratio = internal_impedance(radius / skin_depth(a.resistivity, frequency)).resistance_ratio;
+    let r = a.ac_resistance * ratio / a.skin_resistance_ratio;
+    let omega = 2.0 * std::f64::consts::PI * frequency;
+    let l = a.total_inductance;
+    let c = a.self_capacitance;
+    let series = Complex64::new(r, omega * l);
+    series / Complex64::new(1.0 - omega * omega * l * c, omega * r * c)
+}

@@ -14,6 +14,7 @@ pub mod channel_list;
 pub mod construction;
 pub mod digits;
 pub mod drift;
+pub mod field_tank;
 pub mod fit;
 pub mod impedance;
 pub mod modulation;

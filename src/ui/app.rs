@@ -5,6 +5,7 @@ use crate::recipe::Recipe;
 use crate::ui::bench_log::{BenchLogAction, BenchLogPanel};
 use crate::ui::cautions;
 use crate::ui::evaluation::Evaluation;
+use crate::ui::field_worker::FieldRequest;
 use crate::ui::files::{FileAction, FileDesk, FileDeskMemory, Notice};
 use crate::ui::panels::tank::TankPanel;
 use crate::ui::panels::target::TargetPanel;
@@ -62,6 +63,8 @@ pub struct App {
     recovery: Option<Recovery>,
     /// Test-only helpers given on the command line.
     driver: Option<crate::ui::replay::Driver>,
+    /// The field solution, computed off the frame.
+    field: crate::ui::field_worker::FieldWorker,
 }
 
 impl App {
@@ -132,6 +135,7 @@ impl App {
         let files = FileDesk::new(FileDeskMemory::default(), &recipe);
         Self {
             evaluation: Evaluation::new(&recipe),
+            field: Default::default(),
             recipe,
             preferences: Preferences::default(),
             history: History::default(),
@@ -243,6 +247,7 @@ impl App {
             self.shown_title = title;
         }
         self.evaluation.refresh(&self.recipe);
+        self.ask_field_solution(&ctx);
 
         let mut commands = Vec::new();
         let mut file_actions = Vec::new();
@@ -279,8 +284,26 @@ impl App {
         if self.evaluation.refresh(&self.recipe) {
             ctx.request_repaint();
         }
+        self.ask_field_solution(&ctx);
         self.recovery_ui(&ctx);
         self.keep();
+    }
+
+    /// Hand the present coil to the field worker (a no-op when it has not changed) and take
+    /// its answer if one has come.
+    fn ask_field_solution(&mut self, ctx: &egui::Context) {
+        let request = self.evaluation.current().ok().map(|f| FieldRequest {
+            coil: f.coil,
+            external_capacitance: f.uncalibrated.external_capacitance,
+            conditions: self.recipe.conditions,
+        });
+        self.field.ask(request, ctx);
+        self.field.poll();
+    }
+
+    /// The field solution of the present coil, once the worker has it.
+    pub fn field_solution(&self) -> Option<&crate::ui::field_worker::FieldResult> {
+        self.field.ready()
     }
 
     /// Ask about a recovered working copy that differs from the file asked for.
@@ -370,6 +393,7 @@ impl App {
             target_panel,
             bench_log,
             files,
+            field,
             ..
         } = self;
         let mut file_action = None;
@@ -456,7 +480,17 @@ impl App {
                     verdict::show(ui, evaluation);
                     ui.add_space(8.0);
                     let tall = ui.ctx().content_rect().height() >= READOUTS_OPEN_HEIGHT;
-                    readouts::show(ui, evaluation, unit, tall);
+                    readouts::show(ui, evaluation, unit, tall, field);
+                    ui.add_space(8.0);
+                    egui::CollapsingHeader::new("Impedance of the coil")
+                        .default_open(false)
+                        .show(ui, |ui| {
+                            crate::ui::charts::impedance::impedance_section(
+                                ui,
+                                evaluation.current().ok(),
+                                field,
+                            );
+                        });
                     ui.add_space(8.0);
                     target_panel.show(ui, &mut recipe.target, evaluation, unit, commands);
                     ui.add_space(8.0);

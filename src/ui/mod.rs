@@ -6,6 +6,7 @@ pub mod cautions;
 pub mod charts;
 pub mod coil_view;
 pub mod evaluation;
+pub mod field_worker;
 pub mod files;
 pub mod panels;
 pub mod preferences;

@@ -6,6 +6,7 @@
 
 mod cache;
 pub mod hover;
+pub mod impedance;
 pub mod legend;
 mod spacing;
 mod spread_band;

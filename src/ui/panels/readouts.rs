@@ -2,10 +2,12 @@
 //! reason the input was refused.
 
 use super::{heading, model_dots};
-use crate::model::{Analysis, InputError, WarningTopic};
+use crate::model::{InputError, WarningTopic};
 use crate::tuning::apparent::apparent_inductance;
 use crate::tuning::digits;
+use crate::tuning::field_tank::{InductanceSource, leading};
 use crate::ui::evaluation::Evaluation;
+use crate::ui::field_worker::FieldWorker;
 use crate::ui::theme;
 use crate::ui::units::{LengthUnit, nh, pf};
 use crate::ui::widgets::{Readout, caution_mark, cautions_line};
@@ -24,15 +26,27 @@ fn show_pf(farads: f64) -> String {
 /// Heading of the readouts (and the name of their fold).
 pub const READOUTS_HEADING: &str = "Readouts";
 
+/// Word after the resonance when the field solution drives it.
+pub const FIELD_SOLVED: &str = "field-solved";
+/// Word after the resonance when the classical estimate is shown.
+pub const ESTIMATE: &str = "estimate";
+
 /// Show the readouts for the present recipe under a fold (open to begin with when `open`),
-/// or, never folded, why the recipe was refused.
-pub fn show(ui: &mut egui::Ui, evaluation: &Evaluation, unit: LengthUnit, open: bool) {
+/// or, never folded, why the recipe was refused; the resonance and the apparent inductance
+/// come from the field solution once `field` has it.
+pub fn show(
+    ui: &mut egui::Ui,
+    evaluation: &Evaluation,
+    unit: LengthUnit,
+    open: bool,
+    field: &FieldWorker,
+) {
     match evaluation.current() {
         Ok(figures) => {
             egui::CollapsingHeader::new(RichText::new(READOUTS_HEADING).heading())
                 .id_salt("readouts")
                 .default_open(open)
-                .show(ui, |ui| figures_rows(ui, &figures.analysis, unit));
+                .show(ui, |ui| figures_rows(ui, figures, unit, field));
         }
         Err(error) => {
             heading(ui, READOUTS_HEADING);
@@ -71,17 +85,49 @@ fn refusal(ui: &mut egui::Ui, error: &InputError) {
         });
 }
 
-fn figures_rows(ui: &mut egui::Ui, a: &Analysis, unit: LengthUnit) {
+fn figures_rows(
+    ui: &mut egui::Ui,
+    figures: &crate::recipe::Figures,
+    unit: LengthUnit,
+    field: &FieldWorker,
+) {
+    let a = &figures.analysis;
+    let solved = field.ready().map(|r| &r.tank);
+    let lead = leading(a, solved, figures.calibrated());
+    let (word, how) = match lead.source {
+        InductanceSource::FieldSolved => (
+            FIELD_SOLVED,
+            "The coil solved from its own currents (thin-wire method of moments): the tank \
+             resonates where the coil's terminal reactance X meets the capacitance, \
+             f = 1/(2π√((X/ω)·C)), solved self-consistently; the self-capacitance is inside X"
+                .to_owned(),
+        ),
+        InductanceSource::Classical => (
+            ESTIMATE,
+            format!(
+                "Classical estimate: 1/(2π√(LC)) with the driving model's inductance plus the \
+                 leads and the total capacitance (Medhurst's self-capacitance added). {}",
+                match (field.is_working(), &lead.why_classical) {
+                    (true, _) if !figures.calibrated() => {
+                        "The field solution is being computed.".to_owned()
+                    }
+                    (_, Some(why)) => format!("Why: {why}."),
+                    _ => String::new(),
+                }
+            ),
+        ),
+    };
     Readout::new(
         "Resonance",
-        digits::mhz(a.resonance),
-        "1/(2π√(LC)) with the driving model's inductance plus the leads and the total \
-         capacitance, iterated until the frequency-dependent terms settle",
+        digits::mhz(lead.resonance),
+        "The tank's resonance: field-solved when the field solution is ready, else the \
+         classical estimate (hover the word after the figure)",
     )
     .emphasis(true)
+    .note(word, how)
+    .more(move || format!("Classical estimate {}", digits::mhz(a.resonance)))
     .warnings(a.warnings_about(WarningTopic::Band))
     .show(ui);
-
     ui.add_space(4.0);
     ui.label(RichText::new("Inductance of the coil (without leads), by method").strong());
     model_dots::show(ui, a);
@@ -102,13 +148,31 @@ fn figures_rows(ui: &mut egui::Ui, a: &Analysis, unit: LengthUnit) {
         "The driving model's coil inductance plus both leads",
     )
     .show(ui);
-    let apparent_note = "L/(1 − (f/f_self)²) with the lumped self-resonance: what a bridge \
-                         would read across the coil at the resonance";
-    match apparent_inductance(a) {
-        Ok(l) => Readout::new("Apparent inductance", show_nh(l), apparent_note).show(ui),
-        Err(why) => {
-            Readout::new("Apparent inductance", "not shown".to_owned(), apparent_note).show(ui);
-            ui.add(egui::Label::new(RichText::new(why.reason()).small().weak()).wrap());
+    match lead.source {
+        InductanceSource::FieldSolved => Readout::new(
+            "Apparent inductance",
+            show_nh(lead.apparent_inductance),
+            "X/ω of the field solution at the resonance (coil, leads and the path beneath it): \
+             what a bridge would read across the terminals",
+        )
+        .note(word, "Where the figure comes from: as for the resonance")
+        .more(move || match apparent_inductance(a) {
+            Ok(l) => format!("Classical estimate {}", show_nh(l)),
+            Err(why) => format!("Classical estimate not shown: {}", why.reason()),
+        })
+        .show(ui),
+        InductanceSource::Classical => {
+            let note = "L/(1 − (f/f_self)²) with the lumped self-resonance: what a bridge would \
+                        read across the coil at the resonance";
+            match apparent_inductance(a) {
+                Ok(l) => Readout::new("Apparent inductance", show_nh(l), note)
+                    .note(word, "Where the figure comes from: as for the resonance")
+                    .show(ui),
+                Err(why) => {
+                    Readout::new("Apparent inductance", "not shown".to_owned(), note).show(ui);
+                    ui.add(egui::Label::new(RichText::new(why.reason()).small().weak()).wrap());
+                }
+            }
         }
     }
 
@@ -133,6 +197,21 @@ fn figures_rows(ui: &mut egui::Ui, a: &Analysis, unit: LengthUnit) {
         digits::self_resonance(a.self_resonance.lumped),
         "1/(2π√(L·C_self)) with Medhurst's self-capacitance: the usual first estimate",
     )
+    .show(ui);
+    Readout::new(
+        "Self-resonance, field",
+        match solved {
+            Some(Ok(f)) => digits::self_resonance(f.self_resonance),
+            Some(Err(_)) => "not available".to_owned(),
+            None => "being computed".to_owned(),
+        },
+        "First parallel self-resonance at the terminals from the field solution (the wire, its \
+         leads and the path beneath the coil)",
+    )
+    .more(move || match solved {
+        Some(Err(e)) => e.to_string(),
+        _ => String::new(),
+    })
     .show(ui);
     Readout::new(
         "Self-resonance, helical",

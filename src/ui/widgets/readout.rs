@@ -23,6 +23,7 @@ pub struct Readout<'a> {
     colour: Option<egui::Color32>,
     indent: bool,
     more: Option<Box<dyn FnOnce() -> String + 'a>>,
+    note: Option<(String, String)>,
 }
 
 impl<'a> Readout<'a> {
@@ -37,6 +38,7 @@ impl<'a> Readout<'a> {
             colour: None,
             indent: false,
             more: None,
+            note: None,
         }
     }
 
@@ -64,6 +66,12 @@ impl<'a> Readout<'a> {
         self
     }
 
+    /// A short word after the figure (such as where it comes from), with its hover note.
+    pub fn note(mut self, word: impl Into<String>, hover: impl Into<String>) -> Self {
+        self.note = Some((word.into(), hover.into()));
+        self
+    }
+
     /// Show the number in this colour (e.g. on target or off it).
     pub fn colour(mut self, colour: egui::Color32) -> Self {
         self.colour = Some(colour);
@@ -81,6 +89,7 @@ impl<'a> Readout<'a> {
             colour,
             indent,
             more,
+            note,
         } = self;
         ui.horizontal(|ui| {
             // A fixed-width name column without a child ui per row (cheap on idle frames).
@@ -111,6 +120,10 @@ impl<'a> Readout<'a> {
                     ui.label(more());
                 }
             });
+            if let Some((word, hover)) = note {
+                ui.label(RichText::new(word).small().weak())
+                    .on_hover_text(hover);
+            }
             if !warnings.is_empty() {
                 let all: Vec<&str> = warnings.iter().map(|w| w.message.as_str()).collect();
                 caution_mark(ui).on_hover_text(all.join("\n\n"));

@@ -1,0 +1,251 @@
+//! The tank's resonance with the coil's field-solved apparent inductance, and which figure
+//! leads: the field solution when it is available, the classical engine's otherwise.
+//!
+//! The classical engine ([`crate::model::evaluate`]) puts Medhurst's self-capacitance beside
+//! the quasi-static inductance. The field solution ([`crate::physics::field`]) gives the
+//! coil's whole terminal reactance X(f) (helix, leads and the closing path, with the wire's own
+//! capacitance and the propagation along it), so the tank across the external capacitance C
+//! resonates where the terminal susceptances cancel: ω·C = 1/X(ω), i.e.
+//! f = 1/(2π√(L_app(f)·C)) with L_app = X/ω. The self-capacitance is then not added again.
+//! The window and the headless commands both call [`field_tank`] and [`leading`].
+
+use crate::model::{Analysis, Coil, Conditions, wire_coil};
+use crate::physics::field::{Feed, FieldError, FieldModel};
+use std::f64::consts::PI;
+
+/// Relative tolerance on the field-solved tank resonance (0.1 Hz at 100 MHz).
+pub const TOLERANCE: f64 = 1e-9;
+
+/// The tank solved with the field-solved apparent inductance.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct FieldTank {
+    /// Resonance of the coil across the external capacitance, hertz.
+    pub resonance: f64,
+    /// Apparent inductance X/ω at that resonance, henries (coil, leads and closing path).
+    pub apparent_inductance: f64,
+    /// Series resistance Re Z there, ohms (skin effect and radiation; no proximity effect).
+    pub series_resistance: f64,
+    /// The coil's first parallel self-resonance at the terminals, hertz.
+    pub self_resonance: f64,
+    /// Segments the wire was cut into.
+    pub segments: usize,
+    /// Impedance evaluations the resonance took (after the self-resonance's search).
+    pub evaluations: usize,
+}
+
+impl FieldTank {
+    /// Unloaded Q of the coil there, X/R (optimistic: no proximity effect, see
+    /// [`crate::physics::field`]).
+    pub fn q(&self) -> f64 {
+        2.0 * PI * self.resonance * self.apparent_inductance / self.series_resistance
+    }
+}
+
+/// Solve the tank of `coil` across `external_capacitance` farads at the conditions'
+/// temperature with the field solution.
+///
+/// # Formula
+/// With φ(f) = ln(ω²·C·L_app(f)), the resonance is φ = 0. On ln f, φ rises with slope
+/// 2 + d ln L_app/d ln f, which is above 2 where the self-resonance makes X/ω climb, and only
+/// a little below 2 at the low end, where the wire's internal inductance falls (at most as
+/// f^(−1/2) on a fraction of L), so φ has one root below the self-resonance. From the start
+/// (the classical resonance, clamped below the field-solved self-resonance) the fixed-point
+/// step f' = f·e^(−φ(f)/2) = 1/(2π√(L_app(f)·C)) moves towards the root: past it where X/ω
+/// rises with f, short of it where it falls; secant steps through the last two points follow
+/// until φ changes sign, and the Illinois variant of regula falsi on ln f (Dowell and Jarratt,
+/// BIT 11, 1971) closes the bracket to [`TOLERANCE`]. Usually four to eight impedance
+/// evaluations.
+///
+/// The bench calibration's inductance scale, fitted to the classical model, is not applied
+/// here: see [`leading`].
+pub fn field_tank(
+    coil: &Coil,
+    external_capacitance: f64,
+    conditions: &Conditions,
+) -> Result<FieldTank, FieldError> {
+    let wire = wire_coil(coil, conditions.temperature_c);
+    let model = FieldModel::new(&wire, wire.segments_per_turn(), Feed::Terminals)?;
+    if !(external_capacitance.is_finite() && external_capacitance > 0.0) {
+        return Err(FieldError::Geometry(
+            "no capacitance across the coil: the tank would be the coil's own self-resonance"
+                .to_owned(),
+        ));
+    }
+    let self_resonance = model.first_resonance()?;
+    let classical = crate::model::evaluate::resonance_of(
+        coil,
+        external_capacitance,
+        &Conditions {
+            inductance_scale: 1.0,
+            ..*conditions
+        },
+    );
+    let mut evaluations = 0;
+    // φ at ln f, with the impedance there.
+    let mut phi = |ln_f: f64| -> Result<(f64, num_complex::Complex64), FieldError> {
+        let f = ln_f.exp();
+        let z = model.impedance(f)?;
+        evaluations += 1;
+        let omega = 2.0 * PI * f;
+        // X ≤ 0 only at or above the self-resonance: treat it as far above the root.
+        let value = if z.im > 0.0 {
+            (omega * external_capacitance * z.im).ln()
+        } else {
+            f64::INFINITY
+        };
+        Ok((value, z))
+    };
+    let top = self_resonance.ln();
+    let start = classical.min(0.9 * self_resonance).ln();
+    let (g0, z0) = phi(start)?;
+    let (mut last, mut z_last) = (start, z0);
+    let (mut lo, mut hi) = (start, start);
+    if g0.abs() > 2.0 * TOLERANCE {
+        // Bracket: the fixed-point step, then secant steps through the last two points
+        // until φ changes sign (or lands on the root).
+        let (mut a, mut ga) = (start, g0);
+        let mut b = (start - 0.5 * g0).min(top - 1e-9);
+        let (mut gb, zb) = phi(b)?;
+        (last, z_last) = (b, zb);
+        let mut tries = 0;
+        while ga.signum() == gb.signum() && gb.abs() > 2.0 * TOLERANCE {
+            tries += 1;
+            if tries > 40 {
+                return Err(FieldError::NoResonance);
+            }
+            let next = if gb.is_finite() && gb != ga {
+                b - gb * (b - a) / (gb - ga)
+            } else {
+                b - 0.5 * gb
+            };
+            (a, ga) = (b, gb);
+            b = next.min(top - 1e-9);
+            let (g, z) = phi(b)?;
+            gb = g;
+            (last, z_last) = (b, z);
+        }
+        if gb.abs() <= 2.0 * TOLERANCE {
+            (lo, hi) = (b, b);
+        } else {
+            let (mut g_lo, mut g_hi);
+            if gb > 0.0 {
+                (lo, g_lo, hi, g_hi) = (a, ga, b, gb);
+            } else {
+                (lo, g_lo, hi, g_hi) = (b, gb, a, ga);
+            }
+            let mut side = 0i32;
+            for _ in 0..60 {
+                if hi - lo <= TOLERANCE {
+                    break;
+                }
+                // Regula falsi where φ is finite, else halve the bracket.
+                let x = if g_hi.is_finite() {
+                    (lo * g_hi - hi * g_lo) / (g_hi - g_lo)
+                } else {
+                    0.5 * (lo + hi)
+                };
+                let (g, z) = phi(x)?;
+                (last, z_last) = (x, z);
+                if g.abs() <= 2.0 * TOLERANCE {
+                    (lo, hi) = (x, x);
+                    break;
+                }
+                if g < 0.0 {
+                    lo = x;
+                    g_lo = g;
+                    if side == -1 {
+                        g_hi *= 0.5;
+                    }
+                    side = -1;
+                } else {
+                    hi = x;
+                    g_hi = g;
+                    if side == 1 {
+                        g_lo *= 0.5;
+                    }
+                    side = 1;
+                }
+            }
+        }
+    }
+    let ln_f = 0.5 * (lo + hi);
+    let z = if ln_f == last {
+        z_last
+    } else {
+        evaluations += 1;
+        model.impedance(ln_f.exp())?
+    };
+    let resonance = ln_f.exp();
+    Ok(FieldTank {
+        resonance,
+        apparent_inductance: z.im / (2.0 * PI * resonance),
+        series_resistance: z.re,
+        self_resonance,
+        segments: model.segments(),
+        evaluations,
+    })
+}
+
+/// Which inductance drives the tank's resonance.
+#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+pub enum InductanceSource {
+    /// The field solution's X/ω, solved at the resonance it gives.
+    FieldSolved,
+    /// The classical engine: the driving model's inductance with Medhurst's self-capacitance.
+    Classical,
+}
+
+impl InductanceSource {
+    /// Name in the JSON (`resonance_source`).
+    pub fn json_name(self) -> &'static str {
+        match self {
+            InductanceSource::FieldSolved => "field_solved",
+            InductanceSource::Classical => "classical",
+        }
+    }
+}
+
+/// The tank's resonance as shown and reported.
+#[derive(Clone, Debug, PartialEq)]
+pub struct Leading {
+    /// Resonance, hertz.
+    pub resonance: f64,
+    /// Apparent inductance at it, henries.
+    pub apparent_inductance: f64,
+    /// Where both come from.
+    pub source: InductanceSource,
+    /// Why the classical figure leads, when it does.
+    pub why_classical: Option<String>,
+}
+
+/// The figure that leads: the field-solved tank when there is one, else the classical
+/// analysis with the reason.
+///
+/// A model calibrated on bench readings (an inductance scale or extra capacitance fitted to
+/// the classical model; `calibrated`) keeps the classical figure: the readings hold it, and the
+/// fit's corrections belong to that model.
+pub fn leading(
+    analysis: &Analysis,
+    field: Option<&Result<FieldTank, FieldError>>,
+    calibrated: bool,
+) -> Leading {
+    let classical = |why: String| Leading {
+        resonance: analysis.resonance,
+        apparent_inductance: analysis.apparent_inductance,
+        source: InductanceSource::Classical,
+        why_classical: Some(why),
+    };
+    if calibrated {
+        return classical("calibrated on the bench readings".to_owned());
+    }
+    match field {
+        Some(Ok(f)) => Leading {
+            resonance: f.resonance,
+            apparent_inductance: f.apparent_inductance,
+            source: InductanceSource::FieldSolved,
+            why_classical: None,
+        },
+        Some(Err(e)) => classical(e.to_string()),
+        None => classical("field solution not yet available".to_owned()),
+    }
+}

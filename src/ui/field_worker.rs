@@ -1,0 +1,193 @@
+//! The field solution off the frame: a thread of its own solves the coil from its own currents
+//! (the tank's resonance with the field-solved apparent inductance, and the impedance sweep
+//! for the chart) while the window shows the classical estimate; the answer replaces the
+//! estimate when it arrives.
+//!
+//! Each change of the coil, tank capacitance or conditions starts a new generation. A
+//! solution asked for under an older generation is dropped: the thread skips queued requests
+//! that are no longer the newest, checks again between its two parts, and the window ignores
+//! any answer whose generation is not the present one. The thread ends when the window drops
+//! the worker (its request channel closes).
+
+use crate::model::{Coil, Conditions};
+use crate::physics::field::FieldError;
+use crate::tuning::field_tank::{FieldTank, field_tank};
+use crate::tuning::impedance::{ImpedanceSweep, impedance_sweep};
+use eframe::egui;
+use std::sync::Arc;
+use std::sync::atomic::{AtomicU64, Ordering};
+use std::sync::mpsc::{Receiver, Sender, channel};
+
+/// Frequencies in the chart's sweep (log-spaced from 1 MHz to past the self-resonance).
+pub const SWEEP_POINTS: usize = 80;
+
+/// What the field solution is asked for.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct FieldRequest {
+    /// The coil as built (validated).
+    pub coil: Coil,
+    /// Everything across the coil except its own capacitance, farads.
+    pub external_capacitance: f64,
+    /// Temperature (and the rest, for the classical start).
+    pub conditions: Conditions,
+}
+
+/// The answer for one request.
+#[derive(Clone, Debug, PartialEq)]
+pub struct FieldResult {
+    /// What was solved.
+    pub request: FieldRequest,
+    /// The tank with the field-solved apparent inductance.
+    pub tank: Result<FieldTank, FieldError>,
+    /// Z(f) from 1 MHz to past the self-resonance, with the tank's resonance as the operating
+    /// frequency.
+    pub sweep: Result<ImpedanceSweep, FieldError>,
+}
+
+impl FieldRequest {
+    /// Solve it here (the worker thread's work; also what the headless figures compute).
+    pub fn solve(&self) -> FieldResult {
+        let tank = field_tank(&self.coil, self.external_capacitance, &self.conditions);
+        let sweep = self.sweep(tank.as_ref().ok().map(|t| t.resonance));
+        FieldResult {
+            request: *self,
+            tank,
+            sweep,
+        }
+    }
+
+    fn sweep(&self, operating: Option<f64>) -> Result<ImpedanceSweep, FieldError> {
+        impedance_sweep(
+            &self.coil,
+            self.conditions.temperature_c,
+            None,
+            None,
+            SWEEP_POINTS,
+            operating,
+        )
+    }
+}
+
+struct Job {
+    generation: u64,
+    request: FieldRequest,
+    repaint: egui::Context,
+}
+
+struct Done {
+    generation: u64,
+    result: FieldResult,
+}
+
+/// The window's side of the worker thread.
+#[derive(Default)]
+pub struct FieldWorker {
+    generation: u64,
+    newest: Arc<AtomicU64>,
+    asked: Option<FieldRequest>,
+    channel: Option<(Sender<Job>, Receiver<Done>)>,
+    ready: Option<FieldResult>,
+    failed_to_start: bool,
+}
+
+impl FieldWorker {
+    /// Ask for `request` (None: nothing to solve, e.g. the input is refused). A request equal
+    /// to the last one asked is a no-op; any other starts a new generation and drops what is
+    /// shown or in flight.
+    pub fn ask(&mut self, request: Option<FieldRequest>, ctx: &egui::Context) {
+        if request == self.asked {
+            return;
+        }
+        self.generation += 1;
+        self.newest.store(self.generation, Ordering::SeqCst);
+        self.asked = request;
+        self.ready = None;
+        let Some(request) = request else {
+            return;
+        };
+        let job = Job {
+            generation: self.generation,
+            request,
+            repaint: ctx.clone(),
+        };
+        if self.channel.is_none() {
+            self.channel = self.start();
+        }
+        let sent = self
+            .channel
+            .as_ref()
+            .is_some_and(|(jobs, _)| jobs.send(job).is_ok());
+        if !sent {
+            // No thread (it could not be started, or it stopped): the estimate stays shown.
+            self.channel = None;
+            self.failed_to_start = true;
+        }
+    }
+
+    fn start(&mut self) -> Option<(Sender<Job>, Receiver<Done>)> {
+        let (jobs, inbox) = channel::<Job>();
+        let (outbox, done) = channel::<Done>();
+        let newest = Arc::clone(&self.newest);
+        std::thread::Builder::new()
+            .name("tankwright field solution".to_owned())
+            .spawn(move || work(&inbox, &outbox, &newest))
+            .ok()
+            .map(|_| (jobs, done))
+    }
+
+    /// Take any answers the thread has sent; keep the one for the present generation.
+    pub fn poll(&mut self) {
+        let Some((_, done)) = &self.channel else {
+            return;
+        };
+        while let Ok(d) = done.try_recv() {
+            if d.generation == self.generation && Some(d.result.request) == self.asked {
+                self.ready = Some(d.result);
+            }
+        }
+    }
+
+    /// The field solution of the present request, once it has arrived.
+    pub fn ready(&self) -> Option<&FieldResult> {
+        self.ready.as_ref()
+    }
+
+    /// True while a solution for the present request is being computed.
+    pub fn is_working(&self) -> bool {
+        self.asked.is_some() && self.ready.is_none() && !self.failed_to_start
+    }
+}
+
+/// The thread: take the newest request, solve it unless a newer one has come, send it back.
+fn work(inbox: &Receiver<Job>, outbox: &Sender<Done>, newest: &AtomicU64) {
+    while let Ok(mut job) = inbox.recv() {
+        while let Ok(newer) = inbox.try_recv() {
+            job = newer;
+        }
+        let stale = || job.generation != newest.load(Ordering::SeqCst);
+        if stale() {
+            continue;
+        }
+        let r = &job.request;
+        let tank = field_tank(&r.coil, r.external_capacitance, &r.conditions);
+        if stale() {
+            continue;
+        }
+        let sweep = r.sweep(tank.as_ref().ok().map(|t| t.resonance));
+        let result = FieldResult {
+            request: *r,
+            tank,
+            sweep,
+        };
+        if outbox
+            .send(Done {
+                generation: job.generation,
+                result,
+            })
+            .is_err()
+        {
+            break;
+        }
+        job.repaint.request_repaint();
+    }
+}
