@@ -4,6 +4,7 @@ use crate::model::Analysis;
 use crate::recipe::Recipe;
 use crate::ui::bench_log::{BenchLogAction, BenchLogPanel};
 use crate::ui::cautions;
+use crate::ui::charts::modulation::{ModulationSweeps, modulation_charts};
 use crate::ui::evaluation::Evaluation;
 use crate::ui::files::{FileAction, FileDesk, FileDeskMemory, Notice};
 use crate::ui::panels::tank::TankPanel;
@@ -17,6 +18,9 @@ use crate::ui::undo::History;
 use crate::ui::widgets::LABEL_WIDTH;
 use crate::ui::working_copy::{self, Keeper, Recovery, RecoveryChoice, SessionStateRef};
 use eframe::egui::{self, Key, KeyboardShortcut, Modifiers};
+
+/// The collapsible section (inside "Audio and drift") holding the modulation charts.
+pub const MODULATION_CHARTS: &str = "Modulation charts";
 
 /// Seconds a change must rest before it becomes an undo step (the undoer's default), plus a
 /// little, so a frame runs then.
@@ -200,6 +204,11 @@ impl App {
     /// is valid.
     pub fn figures(&self) -> Option<&crate::recipe::Figures> {
         self.evaluation.current().ok()
+    }
+
+    /// The modulation charts' data as last drawn (empty until "Audio and drift" is opened).
+    pub fn modulation_sweeps(&self) -> &ModulationSweeps {
+        self.evaluation.modulation_sweeps_shown()
     }
 
     /// The same window asking for file paths through `asker` (tests answer instead of a
@@ -437,6 +446,18 @@ impl App {
                                 &recipe.conditions,
                                 tolerance,
                             );
+                            egui::CollapsingHeader::new(MODULATION_CHARTS)
+                                .default_open(true)
+                                .show(ui, |ui| {
+                                    let inputs = audio_panel.inputs();
+                                    if let Some(sweeps) = evaluation.modulation_sweeps(
+                                        &recipe.tank,
+                                        &recipe.conditions,
+                                        &inputs,
+                                    ) {
+                                        modulation_charts(ui, sweeps);
+                                    }
+                                });
                         });
                 });
             });

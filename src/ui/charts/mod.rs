@@ -1,10 +1,12 @@
-//! Live charts of the resonance against spacing and trimmer setting.
+//! Live charts of the resonance against spacing and trimmer setting, and the modulation charts
+//! (carrier against bias, deviation against audio level) in [`modulation`].
 //!
 //! The sweeps are computed into a [`ChartCache`] only when the coil, tank or conditions change;
 //! drawing borrows them through a [`ChartView`] and never changes the model. A click or drag on
 //! a chart returns the value under the pointer for the caller to apply.
 
 mod cache;
+pub mod modulation;
 mod spacing;
 mod trimmer;
 
