@@ -1,7 +1,10 @@
 //! Modulation and drift in the window: the deviation shown is the engine's figure for the
 //! junction law and levels set, and the drift budget's worst case changes with the fixed
-//! capacitor's temperature class. The figures themselves are checked against ngspice and the
-//! standard's table in tests/reference_junction.rs and tests/reference_stray.rs.
+//! capacitor's temperature class and with the changes budgeted for; the two modulation charts
+//! are shown and move the way the junction's law says; a pasted SPICE `.model` line fills the
+//! law or is refused with a message, keeping what was typed. The figures themselves are
+//! checked against ngspice and the standard's table in tests/reference_junction.rs and
+//! tests/reference_stray.rs.
 
 mod common;
 
@@ -10,13 +13,20 @@ use egui_kittest::Harness;
 use egui_kittest::kittest::Queryable;
 use tankwright::model::Coil;
 use tankwright::physics::junction::JunctionLaw;
+use tankwright::tuning::modulation::Service;
 use tankwright::tuning::modulation::{ModulationInputs, Modulator, modulation};
 use tankwright::ui::App;
-use tankwright::ui::panels::audio::CLASS_LABEL;
+use tankwright::ui::app::MODULATION_CHARTS;
+use tankwright::ui::charts::modulation::{
+    CARRIER_BIAS_CHART_LABEL, DEVIATION_CHART_LABEL, ModulationSweeps,
+};
+use tankwright::ui::panels::audio::{
+    CLASS_LABEL, MODEL_TEXT_LABEL, PASTE_SECTION, USE_MODEL_BUTTON,
+};
 
 fn workbench() -> Harness<'static, App> {
     let mut harness = Harness::builder()
-        .with_size(egui::vec2(1400.0, 1600.0))
+        .with_size(egui::vec2(1400.0, 2800.0))
         .build_eframe(|cc| App::new(cc));
     harness.run();
     harness.get_by_label("Audio and drift").click();
@@ -72,4 +82,217 @@ fn the_deviation_shown_is_the_engines_and_drift_follows_the_capacitor_class() {
     harness.run();
     let after = line_starting(&harness, "±");
     assert_ne!(before, after, "the worst case follows the capacitor class");
+}
+
+/// The engine's modulation of the window's recipe for a collector–base law, bias and audio.
+fn engine(harness: &Harness<'_, App>, law: JunctionLaw, bias_v: f64, audio_peak_v: f64) -> String {
+    let recipe = harness.state().recipe().clone();
+    let coil = Coil::from_winding(&recipe.winding).unwrap();
+    let m = modulation(
+        &coil,
+        recipe.tank.external_capacitance(),
+        &recipe.conditions,
+        &ModulationInputs {
+            modulator: Modulator {
+                law,
+                coupling: None,
+            },
+            bias_v,
+            audio_peak_v,
+            audio_max_hz: 15e3,
+        },
+    );
+    format!(
+        "deviation +{:.1} / −{:.1} kHz",
+        m.deviation_up * 1e-3,
+        m.deviation_down * 1e-3
+    )
+}
+
+#[test]
+fn the_drift_table_follows_the_changes_budgeted_for() {
+    let mut harness = workbench();
+    let before = line_starting(&harness, "±");
+    set(&mut harness, "Hand near the coil", 2.0);
+    let after = line_starting(&harness, "±");
+    assert_ne!(
+        before, after,
+        "a larger hand capacitance changes the worst case"
+    );
+    assert!(
+        screen_text(&harness).iter().any(|t| t == "+2.00 pF"),
+        "the hand's change is shown"
+    );
+}
+
+/// The charts' data as the window last drew them.
+fn sweeps(harness: &Harness<'_, App>) -> &ModulationSweeps {
+    harness.state().modulation_sweeps()
+}
+
+/// Physics the charts must show (the depletion law C = Cj0/(1 + V/φ)^m, e.g. S. M. Sze,
+/// "Physics of Semiconductor Devices", 2nd ed. 1981, §2.3, with f = 1/(2π√(LC))):
+/// - more reverse bias, less junction capacitance, a higher carrier (the curve rises);
+/// - the law flattens as the bias rises (|dC/dV| = m·C/(φ + V)), so the same audio gives less
+///   deviation at a higher bias;
+/// - f(V) is concave (d²f/dV² < 0 whenever (m + 1)·C_tank > 1.5·m·C_j, true for m < 2 since
+///   C_tank ≥ C_j), so the downward peak deviation exceeds the upward one;
+/// - the deviation grows with the audio's peak.
+#[test]
+fn modulation_charts_are_shown_and_move_with_the_bias() {
+    let mut harness = workbench();
+    assert!(
+        harness.query_by_label(MODULATION_CHARTS).is_some(),
+        "the charts' section is there"
+    );
+    harness.get_by_label(CARRIER_BIAS_CHART_LABEL);
+    harness.get_by_label(DEVIATION_CHART_LABEL);
+
+    set(&mut harness, "Reverse bias", 3.0);
+    set(&mut harness, "Audio peak", 0.2);
+    let s = sweeps(&harness);
+    assert_eq!(s.inputs().map(|i| i.bias_v), Some(3.0));
+    let curve = s.carrier_over_bias().to_vec();
+    assert!(curve.len() > 50);
+    for w in curve.windows(2) {
+        assert!(
+            w[1][0] > w[0][0] && w[1][1] > w[0][1],
+            "carrier rises with bias: {w:?}"
+        );
+    }
+    let low_bias = *s.present().unwrap();
+    let deviation = s.deviation_over_audio().to_vec();
+    for w in deviation.windows(2) {
+        assert!(
+            w[1][1] > w[0][1] && w[1][2] > w[0][2],
+            "deviation grows: {w:?}"
+        );
+        assert!(
+            w[1][2] > w[1][1],
+            "down exceeds up on a concave f(V): {w:?}"
+        );
+    }
+    // The audio axis reaches the service's limit (the range is chosen for it).
+    let limit = Service::for_carrier(low_bias.carrier).peak_deviation_limit();
+    let last = deviation.last().unwrap();
+    assert!(last[1].max(last[2]) >= limit, "{last:?} vs {limit}");
+    // The present carrier lies on the curve: the batch sweep at the bias equals the point.
+    let on_curve = curve
+        .iter()
+        .min_by(|a, b| (a[0] - 3.0).abs().total_cmp(&(b[0] - 3.0).abs()))
+        .unwrap();
+    let step = curve[1][0] - curve[0][0];
+    let slope =
+        (curve[curve.len() - 1][1] - curve[0][1]) / (curve[curve.len() - 1][0] - curve[0][0]);
+    assert!((on_curve[0] - 3.0).abs() <= step);
+    assert!(
+        (on_curve[1] - low_bias.carrier).abs() <= 10.0 * slope.abs() * step,
+        "{on_curve:?} vs {}",
+        low_bias.carrier
+    );
+
+    set(&mut harness, "Reverse bias", 6.0);
+    let high_bias = *sweeps(&harness).present().unwrap();
+    assert!(
+        high_bias.carrier > low_bias.carrier,
+        "carrier rises with reverse bias"
+    );
+    assert!(
+        high_bias.deviation_up + high_bias.deviation_down
+            < low_bias.deviation_up + low_bias.deviation_down,
+        "the law is flatter at the higher bias"
+    );
+}
+
+#[test]
+fn sweeps_are_recomputed_only_when_their_inputs_change() {
+    let recipe = tankwright::recipe::Recipe::demo();
+    let coil = Coil::from_winding(&recipe.winding).unwrap();
+    let mut inputs = ModulationInputs {
+        modulator: Modulator {
+            law: JunctionLaw::new(3.5e-12, 0.75, 0.33),
+            coupling: None,
+        },
+        bias_v: 4.5,
+        audio_peak_v: 0.1,
+        audio_max_hz: 15e3,
+    };
+    let mut s = ModulationSweeps::default();
+    assert!(s.refresh(&coil, &recipe.tank, &recipe.conditions, &inputs));
+    assert!(!s.refresh(&coil, &recipe.tank, &recipe.conditions, &inputs));
+    inputs.bias_v = 5.0;
+    assert!(s.refresh(&coil, &recipe.tank, &recipe.conditions, &inputs));
+}
+
+fn paste(harness: &mut Harness<'_, App>, text: &str) {
+    if harness.query_by_label(MODEL_TEXT_LABEL).is_none() {
+        harness.get_by_label(PASTE_SECTION).click();
+        harness.run();
+    }
+    harness
+        .get_by_label(MODEL_TEXT_LABEL)
+        .set_text_value_accesskit(text);
+    harness.run();
+    harness.get_by_label(USE_MODEL_BUTTON).click();
+    harness.run();
+}
+
+/// An invented varactor's model on two lines (continuation), with scale suffixes and
+/// parameters outside the capacitance law; the law's numbers go into the fields and the
+/// figures follow (the reader itself is checked in tests/reference_junction.rs).
+#[test]
+fn a_pasted_model_fills_the_law_and_lists_what_it_ignores() {
+    let mut harness = workbench();
+    let text = ".model LHV1 D(IS=2f RS=0.6 CJO=12.5p VJ=0.68\n+ M=0.44 TT=3n BV=30)";
+    paste(&mut harness, text);
+    let value = |label: &str| {
+        harness
+            .get_by_label(label)
+            .accesskit_node()
+            .numeric_value()
+            .unwrap()
+    };
+    approx::assert_relative_eq!(value("Junction Cj0"), 12.5, max_relative = 1e-12);
+    approx::assert_relative_eq!(value("Junction potential"), 0.68, max_relative = 1e-12);
+    approx::assert_relative_eq!(value("Grading exponent"), 0.44, max_relative = 1e-12);
+    let note = line_starting(&harness, "Read LHV1");
+    assert!(
+        note.contains("Ignored (no part in the capacitance law): IS, RS, TT, BV."),
+        "{note}"
+    );
+    let expected = engine(&harness, JunctionLaw::new(12.5e-12, 0.68, 0.44), 4.5, 0.1);
+    let line = line_starting(&harness, "Carrier ");
+    assert!(line.contains(&expected), "{line} vs {expected}");
+}
+
+/// A line the reader refuses, and one whose numbers the fields cannot hold: a message, the
+/// fields as they were, and the text kept.
+#[test]
+fn a_bad_model_line_is_refused_and_nothing_is_lost() {
+    let mut harness = workbench();
+    let before = line_starting(&harness, "Carrier ");
+    for (text, says) in [
+        (".model Q1 JFET(CGS=2p)", "type JFET has no junction law"),
+        (
+            ".model V9 D(CJO=2n VJ=0.7 M=0.5)",
+            "CJO = 2000 pF is outside",
+        ),
+        ("CJO=10p VJ=0.7", "does not start with .model"),
+    ] {
+        paste(&mut harness, text);
+        let message = line_starting(&harness, "Not read: ");
+        assert!(message.contains(says), "{text}: {message}");
+        assert_eq!(
+            line_starting(&harness, "Carrier "),
+            before,
+            "{text}: fields unchanged"
+        );
+        let kept = harness.get_by_label(MODEL_TEXT_LABEL).value();
+        assert_eq!(kept.as_deref(), Some(text), "the text is kept");
+        let cj0 = harness
+            .get_by_label("Junction Cj0")
+            .accesskit_node()
+            .numeric_value();
+        assert_eq!(cj0, Some(3.5));
+    }
 }

@@ -4,6 +4,7 @@ use crate::model::Analysis;
 use crate::recipe::Recipe;
 use crate::ui::bench_log::{BenchLogAction, BenchLogPanel};
 use crate::ui::cautions;
+use crate::ui::charts::modulation::{ModulationSweeps, modulation_charts};
 use crate::ui::evaluation::Evaluation;
 use crate::ui::field_worker::FieldRequest;
 use crate::ui::files::{FileAction, FileDesk, FileDeskMemory, Notice};
@@ -18,6 +19,9 @@ use crate::ui::undo::History;
 use crate::ui::widgets::LABEL_WIDTH;
 use crate::ui::working_copy::{self, Keeper, Recovery, RecoveryChoice, SessionStateRef};
 use eframe::egui::{self, Key, KeyboardShortcut, Modifiers};
+
+/// The collapsible section (inside "Audio and drift") holding the modulation charts.
+pub const MODULATION_CHARTS: &str = "Modulation charts";
 
 /// Seconds a change must rest before it becomes an undo step (the undoer's default), plus a
 /// little, so a frame runs then.
@@ -214,6 +218,11 @@ impl App {
     /// the spacing chart), for the figures on screen.
     pub fn expectation(&self) -> Option<&crate::recipe::Expectation> {
         self.evaluation.expectation()
+    }
+
+    /// The modulation charts' data as last drawn (empty until "Audio and drift" is opened).
+    pub fn modulation_sweeps(&self) -> &ModulationSweeps {
+        self.evaluation.modulation_sweeps_shown()
     }
 
     /// The same window asking for file paths through `asker` (tests answer instead of a
@@ -467,6 +476,18 @@ impl App {
                                 &recipe.conditions,
                                 tolerance,
                             );
+                            egui::CollapsingHeader::new(MODULATION_CHARTS)
+                                .default_open(true)
+                                .show(ui, |ui| {
+                                    let inputs = audio_panel.inputs();
+                                    if let Some(sweeps) = evaluation.modulation_sweeps(
+                                        &recipe.tank,
+                                        &recipe.conditions,
+                                        &inputs,
+                                    ) {
+                                        modulation_charts(ui, sweeps);
+                                    }
+                                });
                         });
                 });
             });

@@ -13,6 +13,7 @@ use crate::recipe::{
 };
 use crate::tuning::BandPlan;
 use crate::ui::charts::ChartCache;
+use crate::ui::charts::modulation::ModulationSweeps;
 
 /// Inputs the figures were computed from.
 #[derive(Clone, PartialEq)]
@@ -58,6 +59,7 @@ pub struct Evaluation {
     sweeps: ChartCache,
     uncalibrated_sweeps: ChartCache,
     expectation: Option<Expectation>,
+    modulation_sweeps: ModulationSweeps,
 }
 
 impl Evaluation {
@@ -73,6 +75,7 @@ impl Evaluation {
             sweeps: ChartCache::default(),
             uncalibrated_sweeps: ChartCache::default(),
             expectation: None,
+            modulation_sweeps: ModulationSweeps::default(),
         };
         evaluation.refresh_sweeps();
         evaluation.refresh_expectation(recipe);
@@ -153,6 +156,27 @@ impl Evaluation {
         self.latest()
             .filter(|f| f.calibrated())
             .map(|_| &self.uncalibrated_sweeps)
+    }
+
+    /// The modulation charts' sweeps for the junction `inputs` across `tank` (the tank as
+    /// given, without the junction) on the coil shown, recomputed only when the coil, tank,
+    /// conditions or inputs change. Kept apart from [`refresh`](Self::refresh): the junction's
+    /// inputs are the audio panel's, not the recipe's. `None` while there is no valid coil.
+    pub fn modulation_sweeps(
+        &mut self,
+        tank: &crate::model::Tank,
+        conditions: &crate::model::Conditions,
+        inputs: &crate::tuning::modulation::ModulationInputs,
+    ) -> Option<&ModulationSweeps> {
+        let coil = self.latest()?.coil;
+        self.modulation_sweeps
+            .refresh(&coil, tank, conditions, inputs);
+        Some(&self.modulation_sweeps)
+    }
+
+    /// The modulation charts' sweeps as last computed (for tests and captures).
+    pub fn modulation_sweeps_shown(&self) -> &ModulationSweeps {
+        &self.modulation_sweeps
     }
 
     /// The figures for the recipe as it stands, or the reason it was refused.

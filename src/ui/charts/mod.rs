@@ -1,4 +1,5 @@
-//! Live charts of the resonance against spacing and trimmer setting.
+//! Live charts of the resonance against spacing and trimmer setting, and the modulation charts
+//! (carrier against bias, deviation against audio level) in [`modulation`].
 //!
 //! The sweeps are computed into a [`ChartCache`] only when the coil, tank or conditions change;
 //! drawing borrows them through a [`ChartView`] and never changes the model. A click or drag on
@@ -8,6 +9,7 @@ mod cache;
 pub mod hover;
 pub mod impedance;
 pub mod legend;
+pub mod modulation;
 mod spacing;
 mod spread_band;
 pub mod ticks;

@@ -7,32 +7,63 @@
 
 use crate::model::{Coil, Conditions, Tank};
 use crate::physics::dielectric_class::{CLASSES, TemperatureClass};
-use crate::physics::junction::JunctionLaw;
-use crate::tuning::drift::{DriftBudget, DriftInputs, DriftTank, drift_budget};
+use crate::physics::junction::{DEFAULT_FORWARD_KNEE, JunctionLaw};
+use crate::tuning::drift::{DriftBudget, DriftInputs, DriftSource, DriftTank, drift_budget};
 use crate::tuning::modulation::{
     Modulation, ModulationInputs, ModulationVerdict, Modulator, Service, judge, modulation,
 };
+use crate::tuning::spice_model::{DeviceType, JunctionModel, parse_model};
 use eframe::egui;
 
 /// Accessible name of the fixed capacitor's class picker.
 pub const CLASS_LABEL: &str = "Fixed capacitor class";
+/// Accessible name of the box a SPICE `.model` line is pasted into.
+pub const MODEL_TEXT_LABEL: &str = "SPICE .model text";
+/// The button that reads the pasted `.model` line into the junction's fields.
+pub const USE_MODEL_BUTTON: &str = "Use this model";
+/// The collapsible section holding the paste box.
+pub const PASTE_SECTION: &str = "Paste a SPICE .model line";
 
-/// The panel's inputs, in display units, and the last results.
-pub struct AudioPanel {
+/// The junction fields' ranges (what a pasted model must fall in): Cj0 in pF, φ in volts, m.
+const CJ0_PF_RANGE: (f64, f64) = (0.1, 1000.0);
+const VJ_RANGE: (f64, f64) = (0.1, 3.0);
+const M_RANGE: (f64, f64) = (0.05, 4.0);
+
+/// What the user sets in the panel, in display units.
+#[derive(Clone, Copy, Debug, PartialEq)]
+struct Settings {
     cj0_pf: f64,
     vj: f64,
     m: f64,
+    /// SPICE's FC, from a pasted model (else SPICE's default).
+    forward_knee: f64,
     bias_v: f64,
     audio_peak_v: f64,
+    audio_max_khz: f64,
     coupling_pf: f64,
     class: TemperatureClass,
+    supply_v: f64,
+    supply_change_v: f64,
+    temperature_change_k: f64,
+    hand_pf: f64,
+    load_pf: f64,
+}
+
+/// The panel's inputs and the last results.
+pub struct AudioPanel {
+    settings: Settings,
+    /// The `.model` text as typed or pasted (never cleared by the panel).
+    model_text: String,
+    /// What became of the last "Use this model": a summary, or why it was refused.
+    model_note: Option<Result<String, String>>,
     cached: Option<(Key, Results)>,
 }
 
-type Key = (Coil, Tank, Conditions, [f64; 6], &'static str, f64);
+type Key = (Coil, Tank, Conditions, Settings, f64);
 
 struct Results {
     modulation: Modulation,
+    service: Service,
     verdict: ModulationVerdict,
     drift: DriftBudget,
 }
@@ -40,15 +71,28 @@ struct Results {
 impl Default for AudioPanel {
     fn default() -> Self {
         // A small-signal VHF transistor's collector–base junction (common practice: a few pF
-        // at zero bias, φ ≈ 0.75 V, m ≈ 0.33), biased at 4.5 V from a 9 V battery.
+        // at zero bias, φ ≈ 0.75 V, m ≈ 0.33), biased at 4.5 V from a 9 V battery; the drift
+        // budget's changes: the battery running down to 7 V, 20 K warmer, a hand (1 pF) and a
+        // load change (0.5 pF) near the coil (common practice).
         Self {
-            cj0_pf: 3.5,
-            vj: 0.75,
-            m: 0.33,
-            bias_v: 4.5,
-            audio_peak_v: 0.1,
-            coupling_pf: 0.0,
-            class: CLASSES[1],
+            settings: Settings {
+                cj0_pf: 3.5,
+                vj: 0.75,
+                m: 0.33,
+                forward_knee: DEFAULT_FORWARD_KNEE,
+                bias_v: 4.5,
+                audio_peak_v: 0.1,
+                audio_max_khz: 15.0,
+                coupling_pf: 0.0,
+                class: CLASSES[1],
+                supply_v: 9.0,
+                supply_change_v: -2.0,
+                temperature_change_k: 20.0,
+                hand_pf: 1.0,
+                load_pf: 0.5,
+            },
+            model_text: String::new(),
+            model_note: None,
             cached: None,
         }
     }
@@ -67,7 +111,158 @@ fn number(ui: &mut egui::Ui, label: &str, value: &mut f64, range: (f64, f64), su
     ui.end_row();
 }
 
+/// `value` inside `range`, or a sentence saying it is not.
+fn in_range(name: &str, value: f64, range: (f64, f64), unit: &str) -> Result<(), String> {
+    if (range.0..=range.1).contains(&value) {
+        Ok(())
+    } else {
+        Err(format!(
+            "{name} = {}{unit} is outside the {}–{}{unit} the junction fields take",
+            short(value),
+            range.0,
+            range.1
+        ))
+    }
+}
+
+/// A number to four decimals without trailing zeros ("12.5", "2000").
+fn short(value: f64) -> String {
+    let text = format!("{value:.4}");
+    text.trim_end_matches('0').trim_end_matches('.').to_owned()
+}
+
+/// Check a parsed model against the fields' ranges and describe it in a sentence.
+fn describe(model: &JunctionModel) -> Result<String, String> {
+    let law = &model.law;
+    let (cj, vj, m, what) = match model.device {
+        DeviceType::Diode => ("CJO", "VJ", "M", "diode"),
+        DeviceType::Npn => (
+            "CJC",
+            "VJC",
+            "MJC",
+            "NPN transistor, collector–base junction",
+        ),
+        DeviceType::Pnp => (
+            "CJC",
+            "VJC",
+            "MJC",
+            "PNP transistor, collector–base junction",
+        ),
+    };
+    in_range(cj, law.cj0 * 1e12, CJ0_PF_RANGE, " pF")?;
+    in_range(vj, law.contact_potential, VJ_RANGE, " V")?;
+    in_range(m, law.grading, M_RANGE, "")?;
+    let mut text = format!(
+        "Read {} ({what}): Cj0 {} pF, potential {} V, exponent {}, FC {}.",
+        model.name,
+        short(law.cj0 * 1e12),
+        short(law.contact_potential),
+        short(law.grading),
+        short(law.forward_knee)
+    );
+    if !model.defaulted.is_empty() {
+        text.push_str(&format!(
+            " Not given, SPICE's default used: {}.",
+            model.defaulted.join(", ")
+        ));
+    }
+    if model.ignored.is_empty() {
+        text.push_str(" No other parameters.");
+    } else {
+        text.push_str(&format!(
+            " Ignored (no part in the capacitance law): {}.",
+            model.ignored.join(", ")
+        ));
+    }
+    Ok(text)
+}
+
+impl Settings {
+    fn modulator(&self) -> Modulator {
+        Modulator {
+            law: JunctionLaw {
+                forward_knee: self.forward_knee,
+                ..JunctionLaw::new(self.cj0_pf * 1e-12, self.vj, self.m)
+            },
+            coupling: (self.coupling_pf > 0.0).then_some(self.coupling_pf * 1e-12),
+        }
+    }
+
+    fn inputs(&self) -> ModulationInputs {
+        ModulationInputs {
+            modulator: self.modulator(),
+            bias_v: self.bias_v,
+            audio_peak_v: self.audio_peak_v,
+            audio_max_hz: self.audio_max_khz * 1e3,
+        }
+    }
+}
+
 impl AudioPanel {
+    /// The junction, its bias and the audio as the engine takes them (the charts use these).
+    pub fn inputs(&self) -> ModulationInputs {
+        self.settings.inputs()
+    }
+
+    /// Read the pasted `.model` text into the junction's fields, or say why not (the text and
+    /// the fields are left as they were).
+    fn use_model(&mut self) {
+        let read = parse_model(&self.model_text)
+            .map_err(|e| e.to_string())
+            .and_then(|model| describe(&model).map(|text| (model.law, text)));
+        self.model_note = Some(match read {
+            Ok((law, text)) => {
+                let s = &mut self.settings;
+                s.cj0_pf = law.cj0 * 1e12;
+                s.vj = law.contact_potential;
+                s.m = law.grading;
+                s.forward_knee = law.forward_knee;
+                Ok(text)
+            }
+            Err(e) => Err(format!(
+                "Not read: {e}. The junction's fields are unchanged; the text is kept for \
+                 correcting."
+            )),
+        });
+    }
+
+    /// The paste box, its button and what became of the last attempt.
+    fn paste_ui(&mut self, ui: &mut egui::Ui) {
+        egui::CollapsingHeader::new(PASTE_SECTION)
+            .default_open(false)
+            .show(ui, |ui| {
+                let l = ui.label(MODEL_TEXT_LABEL);
+                ui.add(
+                    egui::TextEdit::multiline(&mut self.model_text)
+                        .hint_text(".model NAME D(CJO=… VJ=… M=…)")
+                        .desired_rows(3)
+                        .desired_width(f32::INFINITY)
+                        .font(egui::TextStyle::Monospace),
+                )
+                .labelled_by(l.id);
+                ui.weak(
+                    "A diode (CJO, VJ, M) or a transistor's collector–base junction (CJC, VJC, \
+                     MJC); lines starting with + continue it.",
+                );
+                if ui.button(USE_MODEL_BUTTON).clicked() {
+                    self.use_model();
+                }
+                match &self.model_note {
+                    Some(Ok(text)) => {
+                        ui.add(egui::Label::new(text.as_str()).wrap());
+                    }
+                    Some(Err(text)) => {
+                        let colour = ui.visuals().error_fg_color;
+                        ui.add(
+                            egui::Label::new(egui::RichText::new(text.as_str()).color(colour))
+                                .wrap(),
+                        );
+                    }
+                    None => {}
+                }
+            });
+    }
+
     /// Show the junction inputs, the modulation and the drift budget for `coil` in `tank`,
     /// judged against a channel `tolerance` (± hertz).
     pub fn show(
@@ -78,86 +273,58 @@ impl AudioPanel {
         conditions: &Conditions,
         tolerance: f64,
     ) {
+        let s = &mut self.settings;
         egui::Grid::new("tankwright junction inputs")
             .num_columns(2)
             .show(ui, |ui| {
-                number(ui, "Junction Cj0", &mut self.cj0_pf, (0.1, 200.0), " pF");
-                number(ui, "Junction potential", &mut self.vj, (0.2, 1.5), " V");
-                number(ui, "Grading exponent", &mut self.m, (0.1, 0.9), "");
-                number(ui, "Reverse bias", &mut self.bias_v, (0.0, 30.0), " V");
-                number(ui, "Audio peak", &mut self.audio_peak_v, (0.0, 5.0), " V");
+                number(ui, "Junction Cj0", &mut s.cj0_pf, CJ0_PF_RANGE, " pF");
+                number(ui, "Junction potential", &mut s.vj, VJ_RANGE, " V");
+                number(ui, "Grading exponent", &mut s.m, M_RANGE, "");
+                number(ui, "Reverse bias", &mut s.bias_v, (0.0, 30.0), " V");
+                number(ui, "Audio peak", &mut s.audio_peak_v, (0.0, 5.0), " V");
+                number(
+                    ui,
+                    "Highest audio frequency",
+                    &mut s.audio_max_khz,
+                    (0.1, 100.0),
+                    " kHz",
+                );
                 number(
                     ui,
                     "Coupling capacitor",
-                    &mut self.coupling_pf,
+                    &mut s.coupling_pf,
                     (0.0, 100.0),
                     " pF",
                 );
-                let l = ui.label(CLASS_LABEL);
-                egui::ComboBox::from_id_salt("tankwright fixed class")
-                    .selected_text(format!("{} ({})", self.class.code, self.class.trade_name))
-                    .show_ui(ui, |ui| {
-                        for c in CLASSES {
-                            let text = format!("{} ({})", c.code, c.trade_name);
-                            ui.selectable_value(&mut self.class, c, text);
-                        }
-                    })
-                    .response
-                    .labelled_by(l.id);
-                ui.end_row();
             });
         ui.weak("Coupling 0 pF: the junction sits straight across the tank.");
+        self.paste_ui(ui);
         let Some(coil) = coil else {
             return;
         };
-        let key: Key = (
-            *coil,
-            *tank,
-            *conditions,
-            [
-                self.cj0_pf,
-                self.vj,
-                self.m,
-                self.bias_v,
-                self.audio_peak_v,
-                self.coupling_pf,
-            ],
-            self.class.code,
-            tolerance,
-        );
+        let key: Key = (*coil, *tank, *conditions, self.settings, tolerance);
         if self.cached.as_ref().is_none_or(|(k, _)| *k != key) {
-            let modulator = Modulator {
-                law: JunctionLaw::new(self.cj0_pf * 1e-12, self.vj, self.m),
-                coupling: (self.coupling_pf > 0.0).then_some(self.coupling_pf * 1e-12),
-            };
+            let s = &self.settings;
+            let inputs = s.inputs();
             let other = tank.external_capacitance();
-            let m = modulation(
-                coil,
-                other,
-                conditions,
-                &ModulationInputs {
-                    modulator,
-                    bias_v: self.bias_v,
-                    audio_peak_v: self.audio_peak_v,
-                    audio_max_hz: 15e3,
-                },
-            );
-            let verdict = judge(&m, Service::for_carrier(m.carrier));
+            let m = modulation(coil, other, conditions, &inputs);
+            let service = Service::for_carrier(m.carrier);
+            let verdict = judge(&m, service);
             let drift = drift_budget(
                 coil,
                 &DriftTank {
                     fixed: tank.fixed,
                     other: other - tank.fixed,
-                    junction: Some((modulator, self.bias_v)),
+                    junction: Some((inputs.modulator, s.bias_v)),
                 },
                 conditions,
                 &DriftInputs {
-                    supply_v: 9.0,
-                    supply_change_v: -2.0,
-                    temperature_change_k: 20.0,
-                    fixed_class: self.class,
-                    hand: 1e-12,
-                    load: 0.5e-12,
+                    supply_v: s.supply_v,
+                    supply_change_v: s.supply_change_v,
+                    temperature_change_k: s.temperature_change_k,
+                    fixed_class: s.class,
+                    hand: s.hand_pf * 1e-12,
+                    load: s.load_pf * 1e-12,
                     channel_tolerance: tolerance,
                 },
             );
@@ -165,6 +332,7 @@ impl AudioPanel {
                 key,
                 Results {
                     modulation: m,
+                    service,
                     verdict,
                     drift,
                 },
@@ -180,10 +348,13 @@ impl AudioPanel {
         wrap(
             ui,
             format!(
-                "Carrier {:.3} MHz with the junction at {:.2} pF; deviation +{:.1} / −{:.1} kHz, \
-                 {:.1} kHz per volt, second harmonic {:.2} %, Carson bandwidth {:.0} kHz.",
+                "Carrier {:.3} MHz with the junction at {:.2} pF ({:.2} pF at the audio's upper \
+                 peak, {:.2} pF at its lower); deviation +{:.1} / −{:.1} kHz, {:.1} kHz per \
+                 volt, second harmonic {:.2} %, Carson bandwidth {:.0} kHz.",
                 m.carrier * 1e-6,
                 m.junction_at_bias * 1e12,
+                m.junction_at_high_bias * 1e12,
+                m.junction_at_low_bias * 1e12,
                 m.deviation_up * 1e-3,
                 m.deviation_down * 1e-3,
                 m.sensitivity * 1e-3,
@@ -191,21 +362,100 @@ impl AudioPanel {
                 m.carson_bandwidth * 1e-3
             ),
         );
-        for advice in &r.verdict.advice {
+        let v = &r.verdict;
+        wrap(
+            ui,
+            format!(
+                "Judged against {}: the larger peak is {:.0} % of the limit ({}); Carson's \
+                 bandwidth {} the {:.0} kHz channel.",
+                r.service.label(),
+                v.deviation_ratio * 100.0,
+                if v.deviation_ok { "within" } else { "over" },
+                if v.bandwidth_ok {
+                    "fits"
+                } else {
+                    "spills out of"
+                },
+                r.service.channel_width() * 1e-3
+            ),
+        );
+        for advice in &v.advice {
             wrap(ui, advice.clone());
         }
+        ui.add(
+            egui::Label::new(
+                egui::RichText::new(
+                    "More deviation: a higher audio level, a larger coupling capacitor or less \
+                     bias (the law is steeper near 0 V); less: the reverse.",
+                )
+                .weak(),
+            )
+            .wrap(),
+        );
         ui.add_space(4.0);
-        ui.strong("Drift budget (9 V battery to 7 V, +20 K, a hand, a load)");
+        self.drift_ui(ui, tolerance);
+    }
+
+    /// The drift budget: the changes (editable), each cause's shift, the worst case and the
+    /// verdict with its remedies.
+    fn drift_ui(&mut self, ui: &mut egui::Ui, tolerance: f64) {
+        ui.strong("Drift budget");
+        let s = &mut self.settings;
+        egui::Grid::new("tankwright drift changes")
+            .num_columns(2)
+            .show(ui, |ui| {
+                number(ui, "Supply voltage", &mut s.supply_v, (1.0, 30.0), " V");
+                number(
+                    ui,
+                    "Supply change",
+                    &mut s.supply_change_v,
+                    (-30.0, 30.0),
+                    " V",
+                );
+                number(
+                    ui,
+                    "Temperature change",
+                    &mut s.temperature_change_k,
+                    (-80.0, 80.0),
+                    " K",
+                );
+                let l = ui.label(CLASS_LABEL);
+                egui::ComboBox::from_id_salt("tankwright fixed class")
+                    .selected_text(format!("{} ({})", s.class.code, s.class.trade_name))
+                    .show_ui(ui, |ui| {
+                        for c in CLASSES {
+                            let text = format!("{} ({})", c.code, c.trade_name);
+                            ui.selectable_value(&mut s.class, c, text);
+                        }
+                    })
+                    .response
+                    .labelled_by(l.id);
+                ui.end_row();
+                number(ui, "Hand near the coil", &mut s.hand_pf, (0.0, 10.0), " pF");
+                number(ui, "Load change", &mut s.load_pf, (-10.0, 10.0), " pF");
+            });
+        let Some((_, r)) = &self.cached else {
+            return;
+        };
+        let wrap = |ui: &mut egui::Ui, text: String| {
+            ui.add(egui::Label::new(text).wrap());
+        };
         egui::Grid::new("tankwright drift")
             .striped(true)
-            .num_columns(2)
+            .num_columns(3)
             .show(ui, |ui| {
                 for line in &r.drift.lines {
                     ui.label(line.source.label());
+                    ui.label(change_text(line.source, line.change));
                     ui.label(format!("{:+.1} kHz", line.shift * 1e-3));
                     ui.end_row();
                 }
+                ui.label("all at once");
+                ui.label("");
+                ui.label(format!("{:+.1} kHz", r.drift.total * 1e-3));
+                ui.end_row();
                 ui.strong("worst case");
+                ui.label("");
                 ui.strong(format!("±{:.1} kHz", r.drift.worst_case * 1e-3));
                 ui.end_row();
             });
@@ -222,5 +472,13 @@ impl AudioPanel {
         for remedy in &r.drift.remedies {
             wrap(ui, format!("Remedy: {remedy}"));
         }
+    }
+}
+
+/// A drift line's change as shown: volts, kelvin or picofarads.
+fn change_text(source: DriftSource, change: f64) -> String {
+    match source.unit() {
+        "F" => format!("{:+.2} pF", change * 1e12),
+        unit => format!("{change:+.1} {unit}"),
     }
 }
