@@ -13,6 +13,7 @@ pub mod channel_list;
 pub mod construction;
 pub mod digits;
 pub mod drift;
+pub mod expectation;
 pub mod fit;
 pub mod impedance;
 pub mod modulation;

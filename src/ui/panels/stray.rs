@@ -7,22 +7,10 @@
 
 use crate::model::{Coil, Conditions, Tank};
 use crate::tuning::construction::Construction;
-use crate::tuning::spread::{Spread, TankParts, Tolerances, spread};
-use crate::tuning::stray::{
-    Role, Span, StrayEstimate, estimate_stray, frequency_window, inputs_for,
-};
+use crate::tuning::expectation::{DRAWS, TOLERANCES_IN_WORDS, expect_before_measuring};
+use crate::tuning::spread::Spread;
+use crate::tuning::stray::{Role, Span, StrayEstimate};
 use eframe::egui;
-
-/// The fixed capacitor's tolerance assumed here (common practice: ±5 % ceramic).
-const FIXED_TOLERANCE: f64 = 0.05;
-
-/// Winding tolerances of a hand-wound coil (common practice): the former ±0.1 mm, the length
-/// as set ±0.2 mm, the wire ±0.01 mm, the turns counted to a quarter.
-const WINDING: (f64, f64, f64, f64) = (0.1e-3, 0.2e-3, 0.01e-3, 0.25);
-
-/// Monte Carlo draws for the spread (at least 1000; the band agrees with linear propagation,
-/// tests/batch_spread.rs).
-const DRAWS: usize = 1000;
 
 /// Accessible name of the building-method picker.
 pub const CONSTRUCTION_LABEL: &str = "Building method";
@@ -72,28 +60,8 @@ impl StrayPanel {
         };
         let key = (*coil, without_guess, *conditions, self_capacitance, picked);
         if self.cached.as_ref().is_none_or(|(k, _, _, _)| *k != key) {
-            let inputs = inputs_for(
-                coil,
-                &without_guess,
-                self_capacitance,
-                FIXED_TOLERANCE,
-                Some(picked),
-            );
-            let estimate = estimate_stray(&inputs);
-            let window = frequency_window(coil, conditions, &estimate);
-            let tolerances = Tolerances {
-                former_diameter: WINDING.0,
-                length: WINDING.1,
-                wire_diameter: WINDING.2,
-                turns: WINDING.3,
-                fixed_fraction: FIXED_TOLERANCE,
-                stray: estimate.stray_term(),
-            };
-            let parts = TankParts {
-                fixed: tank.fixed,
-                other: without_guess.external_capacitance() - tank.fixed,
-            };
-            let spread = spread(coil, &parts, conditions, &tolerances, DRAWS, 1);
+            let e = expect_before_measuring(coil, tank, conditions, self_capacitance, picked);
+            let (estimate, window, spread) = (e.estimate, e.window, e.spread);
             self.cached = Some((key, estimate, window, spread));
         }
         let (_, estimate, window, spread) = self.cached.as_ref()?;
@@ -132,9 +100,8 @@ impl StrayPanel {
         );
         ui.add(
             egui::Label::new(format!(
-                "With the winding's own tolerances too (former ±0.1 mm, length ±0.2 mm, wire \
-                 ±0.01 mm, turns to a quarter, fixed capacitor ±5 %): expect {:.3}–{:.3} MHz \
-                 (95 % of {DRAWS} draws).",
+                "With the winding's own tolerances too ({TOLERANCES_IN_WORDS}): expect \
+                 {:.3}–{:.3} MHz (95 % of {DRAWS} draws).",
                 spread.expected.0 * 1e-6,
                 spread.expected.1 * 1e-6
             ))
