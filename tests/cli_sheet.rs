@@ -61,7 +61,11 @@ fn sheet_writes_a_pdf_and_chart_writes_svg_and_png() {
     let svg = dir.path().join("spacing.SVG");
     let o = run(&["chart", &recipe, "--kind", "spacing", "--out", s(&svg)]);
     assert!(o.status.success(), "{}", stderr(&o));
-    assert!(std::fs::read_to_string(&svg).expect("text").contains("<svg"));
+    assert!(
+        std::fs::read_to_string(&svg)
+            .expect("text")
+            .contains("<svg")
+    );
     let png = dir.path().join("trimmer.png");
     let o = run(&["chart", &recipe, "--kind=trimmer", "--out", s(&png)]);
     assert!(o.status.success(), "{}", stderr(&o));
@@ -82,22 +86,52 @@ fn sheet_mistakes_are_named_and_leave_nothing() {
     refused(&["sheet"], "needs a recipe file", d, &[]);
     refused(&["sheet", &recipe], "needs --out", d, &[]);
     refused(&["sheet", &recipe, "--out"], "--out needs a value", d, &[]);
-    refused(&["sheet", &recipe, &recipe, "--out", s(&out)], "one recipe file", d, &[]);
-    refused(&["sheet", &recipe, "--out", s(&out), "--colour", "red"], "unknown flag --colour", d, &[]);
+    refused(
+        &["sheet", &recipe, &recipe, "--out", s(&out)],
+        "one recipe file",
+        d,
+        &[],
+    );
+    refused(
+        &["sheet", &recipe, "--out", s(&out), "--colour", "red"],
+        "unknown flag --colour",
+        d,
+        &[],
+    );
     let html = d.join("sheet.html");
     refused(&["sheet", &recipe, "--out", s(&html)], ".pdf", d, &[]);
     let none = d.join("sheet");
-    refused(&["sheet", &recipe, "--out", s(&none)], "cannot tell the format", d, &[]);
+    refused(
+        &["sheet", &recipe, "--out", s(&none)],
+        "cannot tell the format",
+        d,
+        &[],
+    );
     let missing = d.join("no_such_recipe.ron");
-    refused(&["sheet", s(&missing), "--out", s(&out)], "no_such_recipe.ron", d, &[]);
+    refused(
+        &["sheet", s(&missing), "--out", s(&out)],
+        "no_such_recipe.ron",
+        d,
+        &[],
+    );
     let folder: PathBuf = d.join("no_such_folder").join("sheet.pdf");
-    refused(&["sheet", &recipe, "--out", s(&folder)], "could not save", d, &[]);
+    refused(
+        &["sheet", &recipe, "--out", s(&folder)],
+        "could not save",
+        d,
+        &[],
+    );
 
     // A broken recipe: the message gives the place, and an earlier sheet stays as it was.
     let broken = d.join("broken.ron");
     std::fs::write(&broken, "TankwrightRecipe(schema: 1, name: \"x\"").expect("write");
     std::fs::write(&out, b"the earlier sheet").expect("write");
-    refused(&["sheet", s(&broken), "--out", s(&out)], "broken.ron", d, &["broken.ron", "sheet.pdf"]);
+    refused(
+        &["sheet", s(&broken), "--out", s(&out)],
+        "broken.ron",
+        d,
+        &["broken.ron", "sheet.pdf"],
+    );
     assert_eq!(std::fs::read(&out).expect("read"), b"the earlier sheet");
 }
 
@@ -107,9 +141,19 @@ fn chart_mistakes_are_named_and_leave_nothing() {
     let d = dir.path();
     let recipe = asset("lantern_hill_bench_oscillator.ron");
     let svg = d.join("c.svg");
-    refused(&["chart", &recipe, "--kind", "smith", "--out", s(&svg)], "--kind is one of spacing, trimmer", d, &[]);
+    refused(
+        &["chart", &recipe, "--kind", "smith", "--out", s(&svg)],
+        "--kind is one of spacing, trimmer",
+        d,
+        &[],
+    );
     let jpg = d.join("c.jpg");
-    refused(&["chart", &recipe, "--out", s(&jpg)], ".svg or .png", d, &[]);
+    refused(
+        &["chart", &recipe, "--out", s(&jpg)],
+        ".svg or .png",
+        d,
+        &[],
+    );
     refused(&["chart", &recipe], "needs --out", d, &[]);
 }
 
@@ -117,6 +161,12 @@ fn chart_mistakes_are_named_and_leave_nothing() {
 fn the_usage_names_the_hand_out_commands() {
     let o = run(&["help"]);
     let text = String::from_utf8_lossy(&o.stdout);
-    assert!(text.contains("tankwright sheet FILE --out OUT.pdf"), "{text}");
-    assert!(text.contains("tankwright chart FILE [--kind spacing|trimmer]"), "{text}");
+    assert!(
+        text.contains("tankwright sheet FILE --out OUT.pdf"),
+        "{text}"
+    );
+    assert!(
+        text.contains("tankwright chart FILE [--kind spacing|trimmer]"),
+        "{text}"
+    );
 }

@@ -17,6 +17,10 @@ use tankwright::tuning::digits;
 
 /// The path of `program` on PATH; `None` (with a note) where it is missing, except under CI
 /// (the `CI` variable), where `.ci/setup` installs it and its absence is a failure.
+#[expect(
+    clippy::print_stderr,
+    reason = "a skipped reference check says so, as tests/window_kill.rs does"
+)]
 fn tool(program: &str) -> Option<PathBuf> {
     let found = std::env::var_os("PATH").and_then(|paths| {
         std::env::split_paths(&paths)
@@ -123,8 +127,14 @@ fn the_build_sheet_reads_back_with_the_recipes_figures_and_renders_non_blank() {
             digits::fixed(g.gap() * 1e3, 2)
         ),
         format!("former {} mm", digits::fixed(g.former_diameter() * 1e3, 3)),
-        drills.metric.expect("a 6 mm former has a metric drill").label,
-        format!("{} mm (the helix and both leads)", digits::fixed(g.wire_length() * 1e3, 0)),
+        drills
+            .metric
+            .expect("a 6 mm former has a metric drill")
+            .label,
+        format!(
+            "{} mm (the helix and both leads)",
+            digits::fixed(g.wire_length() * 1e3, 0)
+        ),
         format!("{} MHz", digits::channel_mhz(recipe.target.channel)),
         format!("predicted now {}", digits::mhz(f.target.resonance)),
         "Bench readings".to_owned(),
@@ -132,10 +142,16 @@ fn the_build_sheet_reads_back_with_the_recipes_figures_and_renders_non_blank() {
         "trimmer 100 %".to_owned(),
     ];
     for e in expected.iter().map(String::as_str).chain(BENCH_COLUMNS) {
-        assert!(text.contains(e), "'{e}' is not in the extracted text:\n{text}");
+        assert!(
+            text.contains(e),
+            "'{e}' is not in the extracted text:\n{text}"
+        );
     }
     for (heading, _) in tankwright::cautions::NOTE {
-        assert!(text.contains(heading), "caution '{heading}' missing:\n{text}");
+        assert!(
+            text.contains(heading),
+            "caution '{heading}' missing:\n{text}"
+        );
     }
 
     let prefix = dir.path().join("page");
@@ -157,12 +173,21 @@ fn the_build_sheet_reads_back_with_the_recipes_figures_and_renders_non_blank() {
         let (mean, sigma) = luma_stats(&img);
         // A blank page is all white (mean 255, σ 0); a printed page of text is mostly white
         // with dark strokes.
-        assert!(mean < 250.0 && sigma > 12.0, "page {page} looks blank: {mean} {sigma}");
+        assert!(
+            mean < 250.0 && sigma > 12.0,
+            "page {page} looks blank: {mean} {sigma}"
+        );
     }
     // The chart page carries the drawn curves and the present coil.
     let chart = image::open(dir.path().join("page-2.png")).expect("page 2");
-    assert!(pixels_near(&chart, AMBER, 40) > 30, "no 100 % curve on the chart page");
-    assert!(pixels_near(&chart, BLUE, 40) > 5, "no present-coil mark on the chart page");
+    assert!(
+        pixels_near(&chart, AMBER, 40) > 30,
+        "no 100 % curve on the chart page"
+    );
+    assert!(
+        pixels_near(&chart, BLUE, 40) > 5,
+        "no present-coil mark on the chart page"
+    );
 }
 
 #[test]
@@ -174,7 +199,10 @@ fn recorded_readings_fill_the_bench_table() {
     let pdf = dir.path().join("sheet.pdf");
     let recipe = demo_with_a_reading();
     write_sheet(&recipe, &pdf).expect("written");
-    let text = squeeze(&run(&pdftotext, &["-layout", pdf.to_str().expect("utf-8"), "-"]));
+    let text = squeeze(&run(
+        &pdftotext,
+        &["-layout", pdf.to_str().expect("utf-8"), "-"],
+    ));
     let e = &recipe.bench_log[0];
     for expected in [
         digits::fixed(e.measured * 1e-6, 4),
@@ -243,15 +271,30 @@ fn the_spacing_chart_svg_holds_every_curve_rising_with_the_length() {
     let f = figures(&recipe).expect("valid");
     let data = chart_data(ChartKind::Spacing, &recipe, &f);
     let (lines, texts) = polylines(&svg, 100);
-    assert_eq!(lines.len(), data.curves.len(), "one drawn line per trimmer setting");
+    assert_eq!(
+        lines.len(),
+        data.curves.len(),
+        "one drawn line per trimmer setting"
+    );
     for line in &lines {
         // Spreading the same turns lowers the inductance (Nagaoka's coefficient falls as the
         // coil lengthens), so the resonance rises: screen y falls as x grows.
         let (first, last) = (line[0], line[line.len() - 1]);
-        assert!(last.0 > first.0 + 500.0, "the curve spans the chart: {first:?} {last:?}");
-        assert!(last.1 < first.1, "frequency rises with length: {first:?} {last:?}");
+        assert!(
+            last.0 > first.0 + 500.0,
+            "the curve spans the chart: {first:?} {last:?}"
+        );
+        assert!(
+            last.1 < first.1,
+            "frequency rises with length: {first:?} {last:?}"
+        );
     }
-    for label in ["trimmer 0 %", "trimmer 100 %", "resonance (MHz)", "turns touching"] {
+    for label in [
+        "trimmer 0 %",
+        "trimmer 100 %",
+        "resonance (MHz)",
+        "turns touching",
+    ] {
         assert!(texts.contains(label), "'{label}' not in the SVG text");
     }
 }
@@ -276,12 +319,18 @@ fn the_chart_pngs_decode_at_their_size_and_are_not_blank() {
     let recipe = demo_with_a_reading();
     for kind in ChartKind::ALL {
         let png = chart_bytes(&recipe, kind, Path::new("x.png")).expect("drawn");
-        let img = image::load_from_memory_with_format(&png, image::ImageFormat::Png)
-            .expect("a PNG");
+        let img =
+            image::load_from_memory_with_format(&png, image::ImageFormat::Png).expect("a PNG");
         assert_eq!(img.dimensions(), CHART_SIZE);
         let (mean, sigma) = luma_stats(&img);
-        assert!(mean < 252.0 && sigma > 10.0, "{kind:?} looks blank: {mean} {sigma}");
-        assert!(pixels_near(&img, BLUE, 30) > 40, "{kind:?}: no present mark");
+        assert!(
+            mean < 252.0 && sigma > 10.0,
+            "{kind:?} looks blank: {mean} {sigma}"
+        );
+        assert!(
+            pixels_near(&img, BLUE, 30) > 40,
+            "{kind:?}: no present mark"
+        );
         if kind == ChartKind::Spacing {
             assert!(pixels_near(&img, AMBER, 30) > 500, "no 100 % curve");
         }

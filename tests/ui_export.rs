@@ -33,7 +33,10 @@ impl PathAsker for Scripted {
         self.asked
             .borrow_mut()
             .push(format!("{what} as {suggested} (.{ext})"));
-        self.answers.borrow_mut().pop_front().unwrap_or(Picked::Cancelled)
+        self.answers
+            .borrow_mut()
+            .pop_front()
+            .unwrap_or(Picked::Cancelled)
     }
 }
 
@@ -75,7 +78,8 @@ fn every_export_writes_its_file_where_the_dialog_says() {
     let asked = asker.asked.borrow().clone();
     assert_eq!(asked.len(), 5, "{asked:?}");
     assert!(
-        asked[0].starts_with("the build sheet and worksheet as ") && asked[0].ends_with("_sheet.pdf (.pdf)"),
+        asked[0].starts_with("the build sheet and worksheet as ")
+            && asked[0].ends_with("_sheet.pdf (.pdf)"),
         "{asked:?}"
     );
     let read = |name: &str| std::fs::read(dir.path().join(name)).expect(name);
@@ -88,7 +92,10 @@ fn every_export_writes_its_file_where_the_dialog_says() {
         assert_eq!((img.width(), img.height()), CHART_SIZE);
     }
     let text = screen_text(&harness).join("\n");
-    assert!(text.contains("exported the trimmer chart (PNG) to"), "{text}");
+    assert!(
+        text.contains("exported the trimmer chart (PNG) to"),
+        "{text}"
+    );
 }
 
 #[test]
@@ -108,12 +115,24 @@ fn without_a_dialog_the_typed_path_exports_and_a_bad_one_is_explained() {
     type_path(&mut harness, &wrong);
     let text = screen_text(&harness).join("\n");
     assert!(text.contains(".svg or .png"), "{text}");
-    assert!(harness.query_by_label("Export the spacing chart (SVG)").is_some());
+    assert!(
+        harness
+            .query_by_label("Export the spacing chart (SVG)")
+            .is_some()
+    );
     assert!(!wrong.exists());
     let target = dir.path().join("typed.svg");
     type_path(&mut harness, &target);
-    assert!(std::fs::read_to_string(&target).expect("written").contains("<svg"));
-    assert!(harness.query_by_label("Export the spacing chart (SVG)").is_none());
+    assert!(
+        std::fs::read_to_string(&target)
+            .expect("written")
+            .contains("<svg")
+    );
+    assert!(
+        harness
+            .query_by_label("Export the spacing chart (SVG)")
+            .is_none()
+    );
 }
 
 /// Type `path` into the prompt's field and press its button.

@@ -7,7 +7,11 @@ use crate::recipe::store;
 use std::path::Path;
 
 /// The recipe file and the `--out` path of a hand-out command.
-fn file_and_out<'a>(args: &'a Args, command: &str, usage: &str) -> Result<(&'a str, &'a str), String> {
+fn file_and_out<'a>(
+    args: &'a Args,
+    command: &str,
+    usage: &str,
+) -> Result<(&'a str, &'a str), String> {
     let out = args.text("out");
     let file = match args.positional.as_slice() {
         [one] => one.as_str(),
@@ -34,7 +38,8 @@ pub fn run_sheet(words: Vec<String>) -> Result<String, String> {
 
 /// Run `chart` on the words after the subcommand; Ok(what was written) or Err(message).
 pub fn run_chart(words: Vec<String>) -> Result<String, String> {
-    const USAGE: &str = "tankwright chart RECIPE.ron --kind spacing|trimmer --out FILE.svg|FILE.png";
+    const USAGE: &str =
+        "tankwright chart RECIPE.ron --kind spacing|trimmer --out FILE.svg|FILE.png";
     let args = Args::parse(words, &[]).map_err(|e| e.to_string())?;
     let (file, out) = file_and_out(&args, "chart", USAGE)?;
     let kind = match args.text("kind") {

@@ -109,7 +109,11 @@ impl ChartData {
             .curves
             .iter()
             .flat_map(|c| c.points.iter().map(|p| p.1))
-            .chain(self.channel.into_iter().flat_map(|c| [c.edges.0, c.edges.1]))
+            .chain(
+                self.channel
+                    .into_iter()
+                    .flat_map(|c| [c.edges.0, c.edges.1]),
+            )
             .chain(self.readings.iter().map(|r| r.1));
         let (lo, hi) = min_max(ys);
         let margin = 0.06 * (hi - lo).max(0.5);
@@ -193,7 +197,7 @@ pub fn chart_data(kind: ChartKind, recipe: &Recipe, f: &Figures) -> ChartData {
                 title,
                 x_label: "trimmer setting (%)",
                 curves: vec![Curve {
-                    label: format!("at {:.2} mm", here * 1e3),
+                    label: format!("resonance at {:.2} mm", here * 1e3),
                     setting: 0.5,
                     points: finite(points.iter().map(|p| (p[0] * 100.0, p[1] * 1e-6))),
                 }],

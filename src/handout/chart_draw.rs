@@ -64,6 +64,7 @@ pub fn draw<DB: DrawingBackend>(
         .axis_style(BLACK.stroke_width(px(1.0)))
         .x_labels(10)
         .y_labels(8)
+        .max_light_lines(2)
         .draw()
         .map_err(fail)?;
 
@@ -100,7 +101,7 @@ pub fn draw<DB: DrawingBackend>(
             ))
             .map_err(fail)?
             .label(format!(
-                "target channel {}",
+                "target channel {} MHz",
                 crate::tuning::digits::channel_mhz(channel.centre * 1e6)
             ))
             .legend(legend_line(ink::TARGET, px(2.0)));
@@ -133,9 +134,11 @@ pub fn draw<DB: DrawingBackend>(
     }
     if !data.readings.is_empty() {
         chart
-            .draw_series(data.readings.iter().map(|&(x, y)| {
-                TriangleMarker::new((x, y), px(6.0) as i32, ink::READING.filled())
-            }))
+            .draw_series(
+                data.readings.iter().map(|&(x, y)| {
+                    TriangleMarker::new((x, y), px(6.0) as i32, ink::READING.filled())
+                }),
+            )
             .map_err(fail)?
             .label("bench readings")
             .legend(move |(x, y)| {

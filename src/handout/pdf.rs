@@ -193,7 +193,13 @@ impl Pages<'_> {
             cut: false,
         };
         w.y += 18.0;
-        w.text_at(MARGIN, w.y, 17.0, &format!("Build sheet: {}", sheet.name), black());
+        w.text_at(
+            MARGIN,
+            w.y,
+            17.0,
+            &format!("Build sheet: {}", sheet.name),
+            black(),
+        );
         let full = PAGE.0 - 2.0 * MARGIN;
         w.paragraph(MARGIN, full, BODY, &sheet.basis, &shade(0x55, 0x55, 0x55));
         if !sheet.notes.is_empty() {
@@ -241,7 +247,13 @@ impl Pages<'_> {
         };
         let full = PAGE.0 - 2.0 * MARGIN;
         w.y += 18.0;
-        w.text_at(MARGIN, w.y, 17.0, "How spacing moves the frequency", black());
+        w.text_at(
+            MARGIN,
+            w.y,
+            17.0,
+            "How spacing moves the frequency",
+            black(),
+        );
         w.paragraph(
             MARGIN,
             full,
@@ -292,7 +304,13 @@ impl Pages<'_> {
         };
         let full = PAGE.0 - 2.0 * MARGIN;
         w.y += 18.0;
-        w.text_at(MARGIN, w.y, 17.0, &format!("Worksheet: {}", sheet.name), black());
+        w.text_at(
+            MARGIN,
+            w.y,
+            17.0,
+            &format!("Worksheet: {}", sheet.name),
+            black(),
+        );
         w.y += 22.0;
         w.text_at(
             MARGIN,
@@ -322,7 +340,13 @@ impl Pages<'_> {
                     w.text_at(x + 3.0, y + 12.0, 8.5, &fitted, black());
                 }
                 if r >= 1 && c == 0 && sheet.readings.get(r - 1).is_none() {
-                    w.text_at(x + 3.0, y + 12.0, 8.5, &r.to_string(), shade(0x99, 0x99, 0x99));
+                    w.text_at(
+                        x + 3.0,
+                        y + 12.0,
+                        8.5,
+                        &r.to_string(),
+                        shade(0x99, 0x99, 0x99),
+                    );
                 }
                 x += width * full;
             }

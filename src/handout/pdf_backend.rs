@@ -14,8 +14,8 @@ use krilla::surface::Surface;
 use krilla::text::{Font, TextDirection};
 use plotters_backend::text_anchor::{HPos, VPos};
 use plotters_backend::{
-    BackendColor, BackendCoord, BackendStyle, BackendTextStyle, DrawingBackend,
-    DrawingErrorKind, FontTransform,
+    BackendColor, BackendCoord, BackendStyle, BackendTextStyle, DrawingBackend, DrawingErrorKind,
+    FontTransform,
 };
 
 /// Drawing never fails on a krilla surface; the type only satisfies plotters.
@@ -136,7 +136,11 @@ impl DrawingBackend for PdfBackend<'_, '_> {
         style: &S,
     ) -> Result<(), DrawingErrorKind<NoError>> {
         let pb = Self::polyline([from, to], false);
-        self.paint(pb, None, Some(Self::stroke(style.color(), style.stroke_width())));
+        self.paint(
+            pb,
+            None,
+            Some(Self::stroke(style.color(), style.stroke_width())),
+        );
         Ok(())
     }
 
@@ -147,13 +151,23 @@ impl DrawingBackend for PdfBackend<'_, '_> {
         style: &S,
         fill: bool,
     ) -> Result<(), DrawingErrorKind<NoError>> {
-        let (l, t) = (upper_left.0.min(bottom_right.0), upper_left.1.min(bottom_right.1));
-        let (r, b) = (upper_left.0.max(bottom_right.0), upper_left.1.max(bottom_right.1));
+        let (l, t) = (
+            upper_left.0.min(bottom_right.0),
+            upper_left.1.min(bottom_right.1),
+        );
+        let (r, b) = (
+            upper_left.0.max(bottom_right.0),
+            upper_left.1.max(bottom_right.1),
+        );
         let pb = Self::polyline([(l, t), (r, t), (r, b), (l, b)], true);
         if fill {
             self.paint(pb, Some(Self::fill(style.color())), None);
         } else {
-            self.paint(pb, None, Some(Self::stroke(style.color(), style.stroke_width())));
+            self.paint(
+                pb,
+                None,
+                Some(Self::stroke(style.color(), style.stroke_width())),
+            );
         }
         Ok(())
     }
@@ -164,7 +178,11 @@ impl DrawingBackend for PdfBackend<'_, '_> {
         style: &S,
     ) -> Result<(), DrawingErrorKind<NoError>> {
         let pb = Self::polyline(path, false);
-        self.paint(pb, None, Some(Self::stroke(style.color(), style.stroke_width())));
+        self.paint(
+            pb,
+            None,
+            Some(Self::stroke(style.color(), style.stroke_width())),
+        );
         Ok(())
     }
 
@@ -198,7 +216,11 @@ impl DrawingBackend for PdfBackend<'_, '_> {
         if fill {
             self.paint(pb, Some(Self::fill(style.color())), None);
         } else {
-            self.paint(pb, None, Some(Self::stroke(style.color(), style.stroke_width())));
+            self.paint(
+                pb,
+                None,
+                Some(Self::stroke(style.color(), style.stroke_width())),
+            );
         }
         Ok(())
     }

@@ -119,8 +119,12 @@ fn wire_words(recipe: &Recipe, f: &Figures) -> String {
     };
     let coating = match recipe.winding.wire.coating {
         Coating::Bare => "bare copper".to_owned(),
-        Coating::EnamelGrade1 => format!("enamel grade 1, {:.3} mm overall", g.wire_overall() * 1e3),
-        Coating::EnamelGrade2 => format!("enamel grade 2, {:.3} mm overall", g.wire_overall() * 1e3),
+        Coating::EnamelGrade1 => {
+            format!("enamel grade 1, {:.3} mm overall", g.wire_overall() * 1e3)
+        }
+        Coating::EnamelGrade2 => {
+            format!("enamel grade 2, {:.3} mm overall", g.wire_overall() * 1e3)
+        }
     };
     format!("{size}, {coating}")
 }
@@ -130,7 +134,13 @@ fn drill_words(f: &Figures) -> Option<String> {
     let words: Vec<String> = [drills.metric, drills.inch]
         .into_iter()
         .flatten()
-        .map(|d| format!("{} ({} mm from the former)", d.label, digits::signed(d.difference * 1e3, 2)))
+        .map(|d| {
+            format!(
+                "{} ({} mm from the former)",
+                d.label,
+                digits::signed(d.difference * 1e3, 2)
+            )
+        })
         .collect();
     (!words.is_empty()).then(|| words.join(" or "))
 }
@@ -205,7 +215,10 @@ fn tank_rows(recipe: &Recipe) -> Vec<Row> {
     }
     rows.push(row(
         "across the coil",
-        format!("{} (without its self-capacitance)", pf(t.external_capacitance())),
+        format!(
+            "{} (without its self-capacitance)",
+            pf(t.external_capacitance())
+        ),
     ));
     rows
 }
@@ -222,16 +235,21 @@ fn target_rows(recipe: &Recipe, f: &Figures) -> Vec<Row> {
         row("band plan", recipe.target.plan.label().to_string()),
         row(
             "target channel",
-            format!("{} MHz{number}, on channel within ±{} kHz", digits::channel_mhz(t.channel), digits::fixed(t.tolerance * 1e-3, 0)),
+            format!(
+                "{} MHz{number}, on channel within ±{} kHz",
+                digits::channel_mhz(t.channel),
+                digits::fixed(t.tolerance * 1e-3, 0)
+            ),
         ),
         row(
             "predicted now",
-            format!("{}, offset {}", digits::mhz(t.resonance), digits::offset(t.offset)),
+            format!(
+                "{}, offset {}",
+                digits::mhz(t.resonance),
+                digits::offset(t.offset)
+            ),
         ),
-        row(
-            "trimmer reaches",
-            digits::mhz_range(t.window.0, t.window.1),
-        ),
+        row("trimmer reaches", digits::mhz_range(t.window.0, t.window.1)),
     ];
     rows.push(match &t.length_for_target {
         Ok(l) => row(
@@ -255,7 +273,10 @@ fn target_rows(recipe: &Recipe, f: &Figures) -> Vec<Row> {
     }
     rows.push(row(
         "stretching moves it",
-        format!("{} kHz per mm", digits::fixed(t.stretch_sensitivity * 1e-6, 0)),
+        format!(
+            "{} kHz per mm",
+            digits::fixed(t.stretch_sensitivity * 1e-6, 0)
+        ),
     ));
     rows
 }
@@ -272,18 +293,19 @@ fn expect_lines(recipe: &Recipe, f: &Figures) -> Vec<String> {
     let s = e.estimate.stray_term();
     vec![
         format!(
-            "Stray estimated for {} building: {} ({}–{}); it leaves the resonance at {} \
-             (typical {}).",
-            construction.label().to_lowercase(),
+            "A {} build typically adds {} of stray ({}–{} pF) where this recipe has {} \
+             entered; with that estimate instead the resonance would be {} (typical {}).",
+            construction.label(),
             pf(s.typical),
             digits::fixed(s.low * 1e12, 2),
             digits::fixed(s.high * 1e12, 2),
+            pf(recipe.tank.stray),
             digits::mhz_range(e.window.low, e.window.high),
             digits::mhz(e.window.typical)
         ),
         format!(
-            "With the winding's own tolerances too ({TOLERANCES_IN_WORDS}): expect {} before \
-             the first measurement (95 % of {DRAWS} simulated builds).",
+            "With that estimate and the winding's own tolerances ({TOLERANCES_IN_WORDS}): \
+             expect {} before the first measurement (95 % of {DRAWS} simulated builds).",
             digits::mhz_range(e.spread.expected.0, e.spread.expected.1)
         ),
     ]

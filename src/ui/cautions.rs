@@ -5,9 +5,9 @@ use crate::ui::theme;
 use crate::ui::widgets::caution_mark;
 use eframe::egui::{self, RichText};
 
+use crate::cautions::NOTE;
 /// The line shown at the foot of the main screen (the shared text).
 pub use crate::cautions::ONE_LINE;
-use crate::cautions::NOTE;
 
 /// Label of the button that opens the full note.
 pub const OPEN_LABEL: &str = "Cautions…";
