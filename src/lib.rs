@@ -5,6 +5,7 @@
 //! - [`model`]: the coil and tank as a builder gives them, validated, and `evaluate()`;
 //! - [`tuning`]: sweeps for charts, sensitivities, solving for a target channel, band plans;
 //! - [`recipe`]: the saved document and its file format (the only layer that touches the disk);
+//! - [`handout`]: the printed build sheet and worksheet (PDF) and the charts (SVG, PNG);
 //! - [`cli`]: the headless commands;
 //! - [`ui`]: the eframe window (the only layer that imports egui).
 //!
@@ -12,7 +13,9 @@
 //! (enforced here; `clippy.toml` exempts `#[cfg(test)]` code).
 #![warn(clippy::unwrap_used, clippy::expect_used)]
 
+pub mod cautions;
 pub mod cli;
+pub mod handout;
 pub mod model;
 pub mod physics;
 pub mod recipe;

@@ -34,6 +34,14 @@ fn main() -> ExitCode {
             args.remove(0);
             finish(tankwright::cli::run_report(args))
         }
+        Some("sheet") => {
+            args.remove(0);
+            finish(tankwright::cli::run_sheet(args))
+        }
+        Some("chart") => {
+            args.remove(0);
+            finish(tankwright::cli::run_chart(args))
+        }
         Some("solve") => {
             args.remove(0);
             finish(tankwright::cli::run_solve(args))

@@ -1,11 +1,12 @@
-//! The headless commands: `evaluate` (from flags or `--recipe FILE`), `impedance` and
-//! `report FILE`.
+//! The headless commands: `evaluate` (from flags or `--recipe FILE`), `impedance`,
+//! `report FILE`, and the hand-outs `sheet` and `chart`.
 //!
 //! Everything here returns strings; `main.rs` prints them and sets the exit code.
 
 mod args;
 mod bench;
 mod evaluate;
+mod handout;
 mod impedance;
 mod json;
 mod recipe_args;
@@ -17,6 +18,7 @@ mod verdict;
 pub use args::{ArgError, Args};
 pub use bench::{run_fit, run_solve};
 pub use evaluate::{EvaluateRequest, run_evaluate};
+pub use handout::{run_chart, run_sheet};
 pub use impedance::run_impedance;
 pub use json::analysis_json;
 pub use report::{build_report, run_report};
@@ -60,6 +62,10 @@ usage:
   tankwright evaluate FLAGS [--json]      print every figure for one coil
   tankwright evaluate --recipe FILE [--json]   the same for a saved recipe
   tankwright report FILE                  a recipe as a build sheet, then every figure
+  tankwright sheet FILE --out OUT.pdf     the printable build sheet, spacing chart and
+                                          apprentice's worksheet (PDF)
+  tankwright chart FILE [--kind spacing|trimmer] --out OUT.svg|OUT.png
+                                          one chart as SVG or PNG (default: spacing)
   tankwright solve --recipe FILE [--target-mhz F] [--trimmer-pct P] [--json]
                                           the coil and trimmer that land the target
   tankwright fit --recipe FILE [--json]   the calibration the recipe's bench readings imply

@@ -42,11 +42,7 @@ pub fn build_report(r: &Recipe) -> Result<String, String> {
     target_lines(r, &f, &mut out);
     bench_lines(r, &f, &mut out);
     out.push(String::new());
-    out.push(
-        "Caution: an oscillator on these frequencies can radiate. Keep it screened and into a \
-         dummy load; transmitting needs a licence and follows your local rules."
-            .to_owned(),
-    );
+    out.push(format!("Caution: {}", crate::cautions::ONE_LINE));
     out.push(String::new());
     let mut text = out.join("\n");
     text.push('\n');

@@ -69,6 +69,20 @@ impl BuildTolerances {
             stray,
         }
     }
+
+    /// The tolerances in a builder's words, display units (the build sheet and the stray
+    /// panel name them the same way): "former ±0.10 mm, length ±0.20 mm, wire ±0.010 mm,
+    /// turns ±0.25, fixed capacitor ±5 %".
+    pub fn in_words(&self) -> String {
+        format!(
+            "former ±{:.2} mm, length ±{:.2} mm, wire ±{:.3} mm, turns ±{}, fixed capacitor ±{} %",
+            self.former_diameter * 1e3,
+            self.length * 1e3,
+            self.wire_diameter * 1e3,
+            self.turns,
+            self.fixed_fraction * 100.0
+        )
+    }
 }
 
 impl Default for BuildTolerances {

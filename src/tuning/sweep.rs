@@ -3,6 +3,20 @@
 use crate::model::batch::{SweepColumns, resonance_over_lengths};
 use crate::model::{Coil, Conditions, Tank, evaluate::resonance_of};
 
+/// Trimmer settings the spacing chart draws a curve for (the window and the hand-outs).
+pub const CHART_SETTINGS: [f64; 5] = [0.0, 0.25, 0.5, 0.75, 1.0];
+
+/// Points per chart curve: about one or two per horizontal pixel of a panel-sized chart.
+pub const CHART_SAMPLES: usize = 240;
+
+/// The lengths a spacing chart sweeps for `coil` when nothing holds its axis: close-wound
+/// (turns touching) to the longest length proposed, or 1.5 × the present length if longer.
+pub fn chart_length_range(coil: &Coil) -> (f64, f64) {
+    let lo = coil.shortest_length();
+    let hi = coil.longest_proposed_length().max(1.5 * coil.length());
+    (lo, hi)
+}
+
 /// Resonance against coil length at one trimmer setting.
 #[derive(Clone, Debug, PartialEq)]
 pub struct SpacingCurve {

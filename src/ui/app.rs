@@ -419,6 +419,7 @@ impl App {
                 ui.menu_button("Recipe", |ui| {
                     file_action = files.menu_ui(ui, recipe);
                 });
+                ui.menu_button("Export", |ui| files.export_menu_ui(ui, recipe));
             });
         });
         if files.notice.is_some() {

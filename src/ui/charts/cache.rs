@@ -1,13 +1,13 @@
 //! Sweep results kept between frames, recomputed only when the coil, tank or conditions change.
 
 use crate::model::{Coil, Conditions, Tank};
-use crate::tuning::sweep::{SpacingCurve, spacing_sweep, trimmer_sweep};
+use crate::tuning::sweep::{SpacingCurve, chart_length_range, spacing_sweep, trimmer_sweep};
 
-/// Trimmer settings the spacing chart draws a curve for.
-pub const SETTINGS: [f64; 5] = [0.0, 0.25, 0.5, 0.75, 1.0];
+/// Trimmer settings the spacing chart draws a curve for (shared with the hand-outs).
+pub use crate::tuning::sweep::CHART_SETTINGS as SETTINGS;
 
-/// Points per curve: about one or two per horizontal pixel of a panel-sized chart.
-pub(crate) const SAMPLES: usize = 240;
+/// Points per curve (shared with the hand-outs).
+pub(crate) use crate::tuning::sweep::CHART_SAMPLES as SAMPLES;
 
 /// Sweep results plus the inputs they were computed from; recomputed only when those change.
 #[derive(Default)]
@@ -45,8 +45,7 @@ impl ChartCache {
     /// The upper end is kept while only the length changes and it still leaves room both ways,
     /// so that dragging the spacing does not rescale the axis under the pointer every frame.
     fn length_range(&self, coil: &Coil) -> (f64, f64) {
-        let lo = coil.shortest_length();
-        let wanted = coil.longest_proposed_length().max(1.5 * coil.length());
+        let (lo, wanted) = chart_length_range(coil);
         let same_winding = self
             .inputs
             .is_some_and(|(old, _, _)| same_winding(&old, coil));

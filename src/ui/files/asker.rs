@@ -21,6 +21,12 @@ pub trait PathAsker {
     fn open(&mut self, folder: &Path) -> Picked;
     /// Where to save, starting in `folder` with `suggested` as the file name.
     fn save(&mut self, folder: &Path, suggested: &str) -> Picked;
+    /// Where to write an export (`what`, in words, a file ending in `.extension`), starting in
+    /// `folder` with `suggested` as the file name. By default asked like a save.
+    fn export(&mut self, folder: &Path, suggested: &str, what: &str, extension: &str) -> Picked {
+        let _ = (what, extension);
+        self.save(folder, suggested)
+    }
 }
 
 /// Why the typed-path field is shown instead of a dialog.
@@ -75,6 +81,21 @@ impl PathAsker for SystemAsker {
             rfd::FileDialog::new()
                 .set_title("Save the recipe")
                 .add_filter("recipe", &["ron"])
+                .set_directory(folder)
+                .set_file_name(suggested)
+                .save_file()
+        })
+    }
+
+    fn export(&mut self, folder: &Path, suggested: &str, what: &str, extension: &str) -> Picked {
+        let folder = folder.to_path_buf();
+        let suggested = suggested.to_owned();
+        let title = format!("Export {what}");
+        let extension = extension.to_owned();
+        self.ask(move || {
+            rfd::FileDialog::new()
+                .set_title(title)
+                .add_filter(extension.to_uppercase(), &[extension.as_str()])
                 .set_directory(folder)
                 .set_file_name(suggested)
                 .save_file()

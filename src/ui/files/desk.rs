@@ -45,6 +45,7 @@ pub(super) enum Intent {
 pub(super) enum Purpose {
     Open,
     SaveAs,
+    Export(super::export::Export),
 }
 
 /// The fallback path field, shown when no system dialog can be.
@@ -150,14 +151,14 @@ impl FileDesk {
         self.pending.is_some() || self.prompt.is_some()
     }
 
-    fn tell(&mut self, text: impl Into<String>) {
+    pub(super) fn tell(&mut self, text: impl Into<String>) {
         self.notice = Some(Notice {
             text: text.into(),
             is_error: false,
         });
     }
 
-    fn warn(&mut self, text: impl Into<String>) {
+    pub(super) fn warn(&mut self, text: impl Into<String>) {
         self.notice = Some(Notice {
             text: text.into(),
             is_error: true,

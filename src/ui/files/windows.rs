@@ -118,8 +118,9 @@ impl FileDesk {
         let listed = listed.to_path_buf();
         let files = recipes_in(&listed);
         let (title, verb) = match prompt.purpose {
-            Purpose::Open => ("Open a recipe", "Open"),
-            Purpose::SaveAs => ("Save the recipe", "Save"),
+            Purpose::Open => ("Open a recipe".to_owned(), "Open"),
+            Purpose::SaveAs => ("Save the recipe".to_owned(), "Save"),
+            Purpose::Export(e) => (format!("Export {}", e.what()), "Write the file"),
         };
         let error = self
             .notice
@@ -162,8 +163,12 @@ impl FileDesk {
             }
             ui.add_space(6.0);
             if let Some(existing) = &prompt.replace {
+                let with = match prompt.purpose {
+                    Purpose::Export(_) => "this export",
+                    Purpose::Open | Purpose::SaveAs => "this recipe",
+                };
                 ui.label(format!(
-                    "{} already exists. Replace it with this recipe?",
+                    "{} already exists. Replace it with {with}?",
                     existing.display()
                 ));
                 ui.horizontal(|ui| {
@@ -191,10 +196,14 @@ impl FileDesk {
             return None;
         }
         // Typing after the question was asked withdraws it.
+        let typed_path = |text: &str| match prompt.purpose {
+            Purpose::Export(e) => e.with_extension(PathBuf::from(text.trim())),
+            Purpose::Open | Purpose::SaveAs => with_ron_extension(PathBuf::from(text.trim())),
+        };
         if prompt
             .replace
             .as_ref()
-            .is_some_and(|p| *p != with_ron_extension(PathBuf::from(prompt.text.trim())))
+            .is_some_and(|p| *p != typed_path(&prompt.text))
         {
             prompt.replace = None;
         }
@@ -209,7 +218,7 @@ impl FileDesk {
         let path = PathBuf::from(prompt.text.trim());
         if prompt.text.trim().is_empty() || path.is_dir() {
             self.notice = Some(super::Notice {
-                text: "type the path of a recipe file, not a folder".to_owned(),
+                text: "type the path of a file, not a folder".to_owned(),
                 is_error: true,
             });
             self.prompt = Some(prompt);
@@ -243,6 +252,23 @@ impl FileDesk {
                     self.prompt = Some(prompt);
                     None
                 }
+            }
+            Purpose::Export(export) => {
+                let path = export.with_extension(path);
+                if !replace && std::fs::symlink_metadata(&path).is_ok() {
+                    prompt.replace = Some(path);
+                    self.prompt = Some(prompt);
+                    return None;
+                }
+                if self.write_export(export, doc, &path) {
+                    if let Some(dir) = path.parent().filter(|d| !d.as_os_str().is_empty()) {
+                        self.memory.folder = dir.to_path_buf();
+                    }
+                } else {
+                    prompt.replace = None;
+                    self.prompt = Some(prompt);
+                }
+                None
             }
         }
     }
