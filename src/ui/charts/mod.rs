@@ -5,6 +5,7 @@
 //! a chart returns the value under the pointer for the caller to apply.
 
 mod cache;
+mod overlay;
 mod spacing;
 mod trimmer;
 
@@ -14,6 +15,7 @@ use crate::ui::units::LengthUnit;
 use eframe::egui::{self, Color32};
 
 pub use cache::{ChartCache, SETTINGS};
+pub use overlay::{ChartOverlay, OverlayKind};
 
 pub use spacing::{SPACING_CHART_LABEL, spacing_chart};
 pub use trimmer::{TRIMMER_CHART_LABEL, trimmer_chart};
@@ -71,6 +73,8 @@ pub struct ChartView<'a> {
     pub axis: SpacingAxis,
     /// Unit of the x axis.
     pub unit: LengthUnit,
+    /// Muted extra curves on the spacing chart (the teaching bench's ghost and reference).
+    pub overlays: &'a [ChartOverlay],
 }
 
 impl ChartView<'_> {

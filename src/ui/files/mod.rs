@@ -7,9 +7,11 @@ mod desk;
 mod folder;
 mod memory;
 mod menu;
+mod reference;
 mod windows;
 
 pub use asker::{NO_DIALOG, PathAsker, Picked, SystemAsker};
 pub use desk::{FileAction, FileDesk, Notice};
 pub use folder::{default_folder, recipes_in, suggested_file_name};
 pub use memory::{FileDeskMemory, RECENT_MAX};
+pub use reference::{ReferencePick, read_reference};
