@@ -114,7 +114,10 @@ fn the_sweep_stretches_the_coil_and_the_readouts_follow() {
     assert!(l_after < l_before, "inductance {l_before} → {l_after} nH");
     assert!(f_after > f_before, "frequency {f_before} → {f_after} MHz");
     let shown = harness.state().teaching().shown().expect("shown").clone();
-    assert_eq!(readout(&harness, FREQUENCY_LABEL), digits::mhz(shown.analysis.resonance));
+    assert_eq!(
+        readout(&harness, FREQUENCY_LABEL),
+        digits::mhz(shown.analysis.resonance)
+    );
     let engine = {
         let mut r = original.clone();
         r.winding.spacing = SpacingSpec::Length(later);
@@ -188,7 +191,11 @@ fn a_change_to_the_recipe_leaves_a_ghost_too() {
         .get_by_role_and_label(Role::Slider, "Turns")
         .set_value_accesskit(6.0);
     harness.run();
-    let ghost = harness.state().teaching().ghost().expect("a ghost after the edit");
+    let ghost = harness
+        .state()
+        .teaching()
+        .ghost()
+        .expect("a ghost after the edit");
     approx::assert_relative_eq!(ghost.coil.turns(), 5.0);
     approx::assert_relative_eq!(ghost.coil.length(), before);
     assert!(harness.query_all_by_label(GHOST_LABEL).count() >= 1);
@@ -265,7 +272,11 @@ fn f5_switches_the_presentation_layout() {
     assert!(harness.state().teaching().presentation());
     // Fewer controls: the winding panel and the trimmer chart give way to the spacing chart,
     // the large readouts and the caption.
-    assert!(harness.query_by_role_and_label(Role::Slider, "Turns").is_none());
+    assert!(
+        harness
+            .query_by_role_and_label(Role::Slider, "Turns")
+            .is_none()
+    );
     assert!(harness.query_by_label(TRIMMER_CHART_LABEL).is_none());
     harness.get_by_label(SPACING_CHART_LABEL);
     harness.get_by_label(FREQUENCY_LABEL);
@@ -334,16 +345,57 @@ fn a_pinned_reference_stays_on_the_chart_with_its_differences() {
     assert_eq!(row("Coil length")[1..], ["8.00 mm", "9.00 mm", "-1.00 mm"]);
     let reference = harness.state().teaching().reference().expect("pinned");
     let engine = evaluate(&good.winding, &good.tank, &good.conditions).expect("valid");
-    let predicted = row("Predicted frequency");
+    let predicted = row("Predicted");
     assert_eq!(predicted[2], digits::mhz(engine.resonance));
     assert_eq!(
         predicted[3],
         digits::offset(
-            harness.state().figures().expect("valid").uncalibrated.resonance - engine.resonance
+            harness
+                .state()
+                .figures()
+                .expect("valid")
+                .uncalibrated
+                .resonance
+                - engine.resonance
         )
     );
     assert_eq!(reference.figures.analysis.resonance, engine.resonance);
-    assert_eq!(row("Measured frequency (last reading)")[1..3], ["none logged", "none logged"]);
+    assert_eq!(
+        row("Measured (last reading)")[1..3],
+        ["none logged", "none logged"]
+    );
     // Pinning never changes the recipe.
     assert_eq!(harness.state().recipe(), &original);
+}
+
+#[test]
+fn at_1280_by_720_the_presentation_keeps_its_readouts_inside_the_window() {
+    let mut harness = Harness::builder()
+        .with_size(egui::vec2(1280.0, 720.0))
+        .build_eframe(|cc| App::new(cc));
+    harness.run();
+    harness.get_by_label("View").click();
+    harness.run();
+    harness.get_by_label("Teaching bench").click();
+    harness.run();
+    // A wide list of differences must not push the panel out of the window.
+    harness.get_by_label(PIN_PRESENT_LABEL).click();
+    harness.run();
+    harness.key_press(egui::Key::F5);
+    harness.run();
+    let window = egui::Rect::from_min_size(egui::Pos2::ZERO, egui::vec2(1280.0, 720.0));
+    for label in [INDUCTANCE_LABEL, FREQUENCY_LABEL, PANEL_HEADING, "Spacing"] {
+        let rect = harness
+            .query_all_by_label(label)
+            .last()
+            .unwrap_or_else(|| panic!("{label:?} shown"))
+            .rect();
+        assert!(
+            window.contains_rect(rect),
+            "{label:?} at {rect:?} leaves the 1280×720 window"
+        );
+    }
+    // The spacing chart takes the rest of the width: at least half the window.
+    let chart = harness.get_by_label(SPACING_CHART_LABEL).rect();
+    assert!(chart.width() >= 640.0, "chart {chart:?}");
 }

@@ -194,7 +194,11 @@ pub fn coil_view_with_ghost(
 
     // Dimension: length, above the coil.
     // The body text's size, so the presentation layout's larger type reaches the drawing.
-    let font = FontId::proportional(ui.style().text_styles[&egui::TextStyle::Body].size.max(12.0));
+    let font = FontId::proportional(
+        ui.style().text_styles[&egui::TextStyle::Body]
+            .size
+            .max(12.0),
+    );
     let top = axis_y - 0.5 * coil_h;
     let dim_y = top - 10.0;
     dimension(

@@ -117,9 +117,9 @@ pub fn caption(topic: Topic, shown: &Figures, moment: &Moment, unit: LengthUnit)
                 "off the channel"
             };
             if moment.hand_held {
-                let back = moment
-                    .without_hand
-                    .map_or(String::new(), |f0| format!(" Let go and it returns to {}.", digits::mhz(f0)));
+                let back = moment.without_hand.map_or(String::new(), |f0| {
+                    format!(" Let go and it returns to {}.", digits::mhz(f0))
+                });
                 format!(
                     "A hand near the coil adds about {:.1} pF to the stray (common practice: \
                      1–2 pF): total capacitance {:.2} pF, so the carrier drops to {f}, {} from \
@@ -198,9 +198,14 @@ mod tests {
         assert!(spacing.contains(&format!("{:.1} nH", nh(shown.analysis.total_inductance))));
         assert!(spacing.contains(&digits::mhz(shown.analysis.resonance)));
         let ceiling = caption(Topic::Ceiling, &shown, &moment, unit);
-        assert!(ceiling.contains(&digits::self_resonance(shown.analysis.self_resonance.lower())));
+        assert!(ceiling.contains(&digits::self_resonance(
+            shown.analysis.self_resonance.lower()
+        )));
         let c = caption(Topic::Capacitance, &shown, &moment, unit);
-        assert!(c.contains(&format!("{:.2} pF in all", pf(shown.analysis.total_capacitance))));
+        assert!(c.contains(&format!(
+            "{:.2} pF in all",
+            pf(shown.analysis.total_capacitance)
+        )));
         for topic in Topic::ALL {
             let text = caption(topic, &shown, &moment, unit);
             assert!(!text.contains("NaN") && !text.contains("inf"), "{text}");

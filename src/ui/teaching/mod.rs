@@ -190,8 +190,11 @@ impl Teaching {
         }
         let time = ctx.input(|i| i.time);
         if let Some(shown) = self.display.as_ref().and_then(Evaluation::latest) {
-            self.ghost
-                .observe(time, ghost::Snapshot::of(shown), std::mem::take(&mut self.discrete));
+            self.ghost.observe(
+                time,
+                ghost::Snapshot::of(shown),
+                std::mem::take(&mut self.discrete),
+            );
         }
     }
 

@@ -3,12 +3,12 @@
 //! differences. In the presentation layout the finer controls are left out.
 
 use super::captions::{self, Moment, Topic};
-use crate::ui::files::ReferencePick;
 use super::sweep::{self, STEP_COARSE, STEP_FINE};
 use super::{HAND_BUTTON_LABEL, HAND_RANGE, Teaching};
 use crate::recipe::{Figures, Recipe};
 use crate::tuning::digits;
 use crate::ui::evaluation::Evaluation;
+use crate::ui::files::ReferencePick;
 use crate::ui::files::{FileDesk, read_reference};
 use crate::ui::panels::capacitance_quantity;
 use crate::ui::theme;
@@ -86,8 +86,6 @@ pub(super) fn show(
         ui.label("Nothing here changes the recipe.");
     }
     ui.add_space(6.0);
-    readouts(ui, &shown);
-    ui.add_space(6.0);
 
     // The sweep and the steps.
     ui.horizontal_wrapped(|ui| {
@@ -159,19 +157,35 @@ pub(super) fn show(
     }
     ui.add_space(6.0);
 
+    readouts(ui, &shown);
+    ui.add_space(6.0);
+
     // The caption.
     let moment = Moment {
         hand_held: teaching.hand.held,
         hand: teaching.hand.capacitance,
-        without_hand: teaching.hand.held.then(|| {
-            teaching
-                .ghost
-                .ghost()
-                .filter(|g| g.coil == shown.coil)
-                .map(|g| g.resonance)
-        }).flatten(),
+        without_hand: teaching
+            .hand
+            .held
+            .then(|| {
+                teaching
+                    .ghost
+                    .ghost()
+                    .filter(|g| g.coil == shown.coil)
+                    .map(|g| g.resonance)
+            })
+            .flatten(),
     };
     let followed = captions::follow(&shown, &moment);
+    let topic = teaching.topic.unwrap_or(followed);
+    // Room for the longest caption, so the controls below do not jump as the figures change.
+    let line = ui.style().text_styles[&egui::TextStyle::Body].size * 1.3;
+    egui::Frame::group(ui.style()).show(ui, |ui| {
+        ui.set_width(ui.available_width());
+        ui.set_min_height(8.0 * line);
+        ui.label(RichText::new(topic.name()).strong());
+        ui.label(captions::caption(topic, &shown, &moment, unit));
+    });
     ui.horizontal_wrapped(|ui| {
         if ui
             .selectable_label(teaching.topic.is_none(), "Follow the demonstration")
@@ -185,12 +199,6 @@ pub(super) fn show(
                 teaching.topic = Some(topic);
             }
         }
-    });
-    let topic = teaching.topic.unwrap_or(followed);
-    egui::Frame::group(ui.style()).show(ui, |ui| {
-        ui.set_width(ui.available_width());
-        ui.label(RichText::new(topic.name()).strong());
-        ui.label(captions::caption(topic, &shown, &moment, unit));
     });
     ui.add_space(6.0);
 
@@ -323,22 +331,27 @@ fn reference_ui(
     egui::CollapsingHeader::new(DIFFERENCES_HEADING)
         .default_open(true)
         .show(ui, |ui| {
-            egui::Grid::new("teaching differences")
-                .num_columns(4)
-                .striped(true)
+            // Its own horizontal scroll, so a wide list never widens the panel.
+            egui::ScrollArea::horizontal()
+                .id_salt("teaching differences scroll")
                 .show(ui, |ui| {
-                    ui.strong("");
-                    ui.strong("This recipe");
-                    ui.strong("Reference");
-                    ui.strong("Difference");
-                    ui.end_row();
-                    for row in rows {
-                        ui.label(row.quantity);
-                        ui.label(row.present);
-                        ui.label(row.reference);
-                        ui.label(row.change);
-                        ui.end_row();
-                    }
+                    egui::Grid::new("teaching differences")
+                        .num_columns(4)
+                        .striped(true)
+                        .show(ui, |ui| {
+                            ui.strong("");
+                            ui.strong("This recipe");
+                            ui.strong("Reference");
+                            ui.strong("Difference");
+                            ui.end_row();
+                            for row in rows {
+                                ui.label(row.quantity);
+                                ui.label(row.present);
+                                ui.label(row.reference);
+                                ui.label(row.change);
+                                ui.end_row();
+                            }
+                        });
                 });
         });
 }

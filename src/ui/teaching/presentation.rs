@@ -17,8 +17,9 @@ pub const TYPE_SCALE: f32 = 1.6;
 pub fn enlarge(style: &mut egui::Style) {
     for (text_style, font) in &mut style.text_styles {
         let scale = match text_style {
-            // The legend and hover use the small size: it grows most, to stay legible.
-            TextStyle::Small => TYPE_SCALE * 1.25,
+            // The legend and hover use the small size: grown less, so the legend does not
+            // cover the curves.
+            TextStyle::Small => TYPE_SCALE * 0.85,
             _ => TYPE_SCALE,
         };
         font.size *= scale;

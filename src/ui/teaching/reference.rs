@@ -34,8 +34,8 @@ pub fn legend_name(name: &str) -> String {
 impl Reference {
     /// Pin `recipe` as `name`; refused, with the engine's reason, if its coil or tank is.
     pub fn new(name: String, recipe: Recipe) -> Result<Self, String> {
-        let figures = figures(&recipe)
-            .map_err(|e| format!("the reference cannot be evaluated: {e}"))?;
+        let figures =
+            figures(&recipe).map_err(|e| format!("the reference cannot be evaluated: {e}"))?;
         let coil = figures.coil;
         let curve = spacing_sweep(
             &coil,
@@ -131,17 +131,19 @@ impl Reference {
                 format!("{} pF", digits::signed(pf(ta.stray - tb.stray), 1)),
             ),
             Difference::new(
-                "Predicted frequency",
+                "Predicted",
                 digits::mhz(present.uncalibrated.resonance),
                 digits::mhz(self.figures.uncalibrated.resonance),
-                digits::offset(present.uncalibrated.resonance - self.figures.uncalibrated.resonance),
+                digits::offset(
+                    present.uncalibrated.resonance - self.figures.uncalibrated.resonance,
+                ),
             ),
         ];
         let measured = |r: &Recipe| r.bench_log.last().map(|e| e.measured);
         let (ma, mb) = (measured(recipe), measured(&self.recipe));
         let shown = |m: Option<f64>| m.map_or_else(|| "none logged".to_owned(), digits::mhz);
         rows.push(Difference::new(
-            "Measured frequency (last reading)",
+            "Measured (last reading)",
             shown(ma),
             shown(mb),
             match (ma, mb) {
@@ -157,11 +159,7 @@ fn wire(c: &Coil) -> String {
     if c.is_bare() {
         format!("bare {:.2} mm", c.wire_bare() * 1e3)
     } else {
-        format!(
-            "{:.2} mm, {:.3} mm over enamel",
-            c.wire_bare() * 1e3,
-            c.wire_overall() * 1e3
-        )
+        format!("enamelled {:.2} mm", c.wire_bare() * 1e3)
     }
 }
 
@@ -229,7 +227,10 @@ mod tests {
         longer.winding.turns += 1.0;
         let present = figures(&longer).expect("valid");
         let rows = pinned.differences(&longer, &present, LengthUnit::Millimetres);
-        let turns = rows.iter().find(|r| r.quantity == "Turns").expect("turns row");
+        let turns = rows
+            .iter()
+            .find(|r| r.quantity == "Turns")
+            .expect("turns row");
         assert_eq!(turns.change, "+1.00");
     }
 }
