@@ -221,6 +221,7 @@ fn chart_harness(axis: SpacingAxis) -> Harness<'static, ChartState> {
                     resonance_hz: analysis.resonance,
                     axis: s.axis,
                     unit: LengthUnit::Millimetres,
+                    overlays: &[],
                 };
                 let (spacing, setting) = ui
                     .vertical(|ui| {
@@ -326,6 +327,7 @@ fn charts_draw_before_the_first_refresh() {
                 resonance_hz: f64::NAN,
                 axis: SpacingAxis::Gap,
                 unit: LengthUnit::Inches,
+                overlays: &[],
             };
             ui.columns(2, |c| {
                 let _ = spacing_chart(&mut c[0], &view);

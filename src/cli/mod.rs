@@ -56,8 +56,10 @@ const USAGE: &str = "\
 tankwright — workbench for hand-wound air-core VHF coils
 
 usage:
-  tankwright [--screenshot FILE.png] [--theme light|dark]
-                                          open the window (the last working copy, or the demo)
+  tankwright [--screenshot FILE.png] [--theme light|dark] [--presentation]
+                                          open the window (the last working copy, or the demo);
+                                          --presentation starts in the teaching bench's
+                                          presentation layout (F5 switches it)
   tankwright FILE.ron                     open the window on a saved recipe
   tankwright evaluate FLAGS [--json]      print every figure for one coil
   tankwright evaluate --recipe FILE [--json]   the same for a saved recipe

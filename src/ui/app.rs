@@ -69,6 +69,8 @@ pub struct App {
     driver: Option<crate::ui::replay::Driver>,
     /// The field solution, computed off the frame.
     field: crate::ui::field_worker::FieldWorker,
+    /// The teaching bench (shows a derived copy of the recipe; never changes it).
+    teaching: crate::ui::teaching::Teaching,
 }
 
 impl App {
@@ -156,6 +158,7 @@ impl App {
             keeper: None,
             recovery: None,
             driver: None,
+            teaching: Default::default(),
         }
     }
 
@@ -243,6 +246,16 @@ impl App {
         self.preferences
     }
 
+    /// The teaching bench.
+    pub fn teaching(&self) -> &crate::ui::teaching::Teaching {
+        &self.teaching
+    }
+
+    /// The teaching bench, to switch it or pin a reference from outside the window (tests).
+    pub fn teaching_mut(&mut self) -> &mut crate::ui::teaching::Teaching {
+        &mut self.teaching
+    }
+
     /// Draw one frame of the whole window into `ui` (the root ui of the viewport).
     pub fn show(&mut self, ui: &mut egui::Ui) {
         let ctx = ui.ctx().clone();
@@ -257,6 +270,10 @@ impl App {
         }
         self.evaluation.refresh(&self.recipe);
         self.ask_field_solution(&ctx);
+        self.teaching.update(&ctx, &self.recipe, &self.evaluation);
+        if self.teaching.presentation() {
+            crate::ui::teaching::presentation::enlarge(ui.style_mut());
+        }
 
         let mut commands = Vec::new();
         let mut file_actions = Vec::new();
@@ -294,6 +311,7 @@ impl App {
             ctx.request_repaint();
         }
         self.ask_field_solution(&ctx);
+        self.teaching.settle(&ctx, &self.recipe, &self.evaluation);
         self.recovery_ui(&ctx);
         self.keep();
     }
@@ -403,6 +421,7 @@ impl App {
             bench_log,
             files,
             field,
+            teaching,
             ..
         } = self;
         let mut file_action = None;
@@ -415,12 +434,18 @@ impl App {
             theme: preferences.theme,
         };
         egui::Panel::top("top_bar").show(ui, |ui| {
-            top_bar::show(ui, &bar, commands, |ui| {
-                ui.menu_button("Recipe", |ui| {
-                    file_action = files.menu_ui(ui, recipe);
-                });
-                ui.menu_button("Export", |ui| files.export_menu_ui(ui, recipe));
-            });
+            top_bar::show(
+                ui,
+                &bar,
+                commands,
+                |ui| {
+                    ui.menu_button("Recipe", |ui| {
+                        file_action = files.menu_ui(ui, recipe);
+                    });
+                    ui.menu_button("Export", |ui| files.export_menu_ui(ui, recipe));
+                },
+                |ui| teaching.view_menu(ui),
+            );
         });
         if files.notice.is_some() {
             egui::Panel::bottom("file_notice").show(ui, |ui| files.notice_ui(ui));
@@ -436,11 +461,15 @@ impl App {
         let width = ui.available_width();
         let left_max = (width * LEFT_SHARE).max(LEFT_MIN);
         let right_max = (width * RIGHT_SHARE).max(RIGHT_MIN);
+        // The presentation layout leaves the controls out; the teaching bench takes the right.
+        let mut left_open = !teaching.presentation();
+        let mut right_open = !teaching.is_on();
         egui::Panel::left("winding_and_tank")
             .resizable(true)
+            .drag_to_open(false)
             .default_size(LEFT_DEFAULT.min(left_max))
             .size_range(LEFT_MIN..=left_max)
-            .show(ui, |ui| {
+            .show_collapsible(ui, &mut left_open, |ui| {
                 egui::ScrollArea::both().show(ui, |ui| {
                     // Label column, slider, number field: the slider takes what is left.
                     ui.spacing_mut().slider_width =
@@ -492,11 +521,26 @@ impl App {
                         });
                 });
             });
+        let mut teaching_open = teaching.is_on();
+        egui::Panel::right("teaching_bench")
+            .resizable(true)
+            .drag_to_open(false)
+            .default_size(RIGHT_DEFAULT.min(right_max))
+            .size_range(RIGHT_MIN..=right_max.max(RIGHT_DEFAULT))
+            .show_collapsible(ui, &mut teaching_open, |ui| {
+                egui::ScrollArea::vertical().show(ui, |ui| {
+                    let keep = teaching.panel(ui, recipe, evaluation, unit, files);
+                    if let Some(length) = keep {
+                        commands.push(Command::SetLength(length));
+                    }
+                });
+            });
         egui::Panel::right("readouts_and_target")
             .resizable(true)
+            .drag_to_open(false)
             .default_size(RIGHT_DEFAULT.min(right_max))
             .size_range(RIGHT_MIN..=right_max)
-            .show(ui, |ui| {
+            .show_collapsible(ui, &mut right_open, |ui| {
                 // Wrap, never scroll sideways: every line fits the column's width.
                 egui::ScrollArea::vertical().show(ui, |ui| {
                     verdict::show(ui, evaluation);
@@ -545,12 +589,15 @@ impl App {
                 });
             });
         egui::CentralPanel::default().show(ui, |ui| {
+            let mut overlays = Vec::new();
+            let (shown, extras) = teaching.centre(evaluation, &mut overlays);
             bench::show(
                 ui,
-                evaluation,
+                shown,
                 &recipe.bench_log,
                 recipe.winding.spacing,
                 unit,
+                &extras,
                 commands,
             );
         });
@@ -566,7 +613,9 @@ impl App {
                 self.history.redo(&mut self.recipe);
             }
             Command::SetLength(length) => {
-                if let Some(coil) = self.evaluation.latest().map(|f| f.coil) {
+                if let Some(coil) = self.evaluation.latest().map(|f| f.coil)
+                    && !self.teaching.take_length(length, &coil)
+                {
                     winding::set_length(&mut self.recipe.winding, &coil, length);
                 }
             }

@@ -45,6 +45,17 @@ struct Layout {
 /// (right-hand) end can be dragged to stretch or squeeze: returns the new length (metres) while
 /// dragging, never below the coil's shortest length nor beyond the longest the model accepts.
 pub fn coil_view(ui: &mut egui::Ui, coil: &Coil, unit: LengthUnit) -> Option<f64> {
+    coil_view_with_ghost(ui, coil, None, unit)
+}
+
+/// [`coil_view`] with `ghost`, the coil before the last change, drawn faint behind it (its
+/// wire's centre line in a muted colour, and its free end marked "before").
+pub fn coil_view_with_ghost(
+    ui: &mut egui::Ui,
+    coil: &Coil,
+    ghost: Option<&Coil>,
+    unit: LengthUnit,
+) -> Option<f64> {
     let g = coil;
     let touching_length = coil.shortest_length();
     let width = ui.available_width().max(120.0);
@@ -52,7 +63,8 @@ pub fn coil_view(ui: &mut egui::Ui, coil: &Coil, unit: LengthUnit) -> Option<f64
     let outer = g.mean_diameter() + wire;
     let lead = g.lead_length().max(0.0);
     // Fit the coil (with room to stretch), both leads and the wire's own thickness.
-    let span = g.length() * (1.0 + STRETCH_ROOM) + 2.0 * lead + wire;
+    let longest = ghost.map_or(g.length(), |c| c.length().max(g.length()));
+    let span = longest * (1.0 + STRETCH_ROOM) + 2.0 * lead + wire;
     let fit_w = (width - 2.0 * MARGIN).max(40.0) / span.max(1e-6) as f32;
     // Within the height given (the dimension lines need their room), up to a sensible size.
     let budget =
@@ -141,6 +153,9 @@ pub fn coil_view(ui: &mut egui::Ui, coil: &Coil, unit: LengthUnit) -> Option<f64
             painter.line(path.to_vec(), Stroke::new(bare_px, inner_c));
         }
     };
+    if let Some(before) = ghost {
+        crate::ui::teaching::ghost::draw_coil(&painter, before, (layout.origin_x, axis_y), s);
+    }
     for path in &back {
         stroke_path(path, back_enamel, back_copper);
     }
@@ -178,7 +193,12 @@ pub fn coil_view(ui: &mut egui::Ui, coil: &Coil, unit: LengthUnit) -> Option<f64
     );
 
     // Dimension: length, above the coil.
-    let font = FontId::proportional(12.0);
+    // The body text's size, so the presentation layout's larger type reaches the drawing.
+    let font = FontId::proportional(
+        ui.style().text_styles[&egui::TextStyle::Body]
+            .size
+            .max(12.0),
+    );
     let top = axis_y - 0.5 * coil_h;
     let dim_y = top - 10.0;
     dimension(

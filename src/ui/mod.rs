@@ -12,6 +12,7 @@ pub mod panels;
 pub mod preferences;
 mod replay;
 mod screenshot;
+pub mod teaching;
 pub mod theme;
 pub mod undo;
 pub mod units;
@@ -31,6 +32,8 @@ pub const WINDOW_SIZE: [f32; 2] = [1400.0, 900.0];
 struct WindowArgs {
     screenshot: Option<PathBuf>,
     theme: Option<theme::Theme>,
+    /// Start in the teaching bench's presentation layout.
+    presentation: bool,
     /// Test only: an edit replayed once the window has drawn (`--replay-edit turns=6.5`).
     replay: Option<replay::Edit>,
     /// Test only: print what the window shows once it has settled, then close.
@@ -60,10 +63,11 @@ fn parse_args(args: Vec<String>) -> Result<WindowArgs, String> {
                 out.replay = Some(replay::Edit::parse(&edit)?);
             }
             "--print-shown" => out.print_shown = true,
+            "--presentation" => out.presentation = true,
             other => {
                 return Err(format!(
-                    "unknown option '{}': the window takes --screenshot FILE.png and \
-                     --theme light|dark (see 'tankwright help')",
+                    "unknown option '{}': the window takes --screenshot FILE.png, \
+                     --theme light|dark and --presentation (see 'tankwright help')",
                     crate::cli::clean(other)
                 ));
             }
@@ -119,6 +123,7 @@ fn open(file: Option<PathBuf>, args: Vec<String>) -> Result<(), String> {
     let WindowArgs {
         screenshot,
         theme,
+        presentation,
         replay,
         print_shown,
     } = args;
@@ -137,6 +142,9 @@ fn open(file: Option<PathBuf>, args: Vec<String>) -> Result<(), String> {
             };
             if let Some(theme) = theme {
                 app.set_theme(theme);
+            }
+            if presentation {
+                app.teaching_mut().set_presentation(true);
             }
             if let Some(path) = screenshot {
                 app.capture_on_start(screenshot::ScreenshotJob::new(path, job_outcome));

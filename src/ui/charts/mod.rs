@@ -10,6 +10,7 @@ pub mod hover;
 pub mod impedance;
 pub mod legend;
 pub mod modulation;
+mod overlay;
 mod spacing;
 mod spread_band;
 pub mod ticks;
@@ -21,6 +22,7 @@ use crate::ui::units::LengthUnit;
 use eframe::egui::{self, Color32};
 
 pub use cache::{ChartCache, SETTINGS};
+pub use overlay::{ChartOverlay, OverlayKind};
 
 pub use spacing::{SPACING_CHART_LABEL, spacing_chart};
 pub use spread_band::{BAND_BEFORE_LABEL, BAND_CALIBRATED_LABEL};
@@ -79,6 +81,8 @@ pub struct ChartView<'a> {
     pub axis: SpacingAxis,
     /// Unit of the x axis.
     pub unit: LengthUnit,
+    /// Muted extra curves on the spacing chart (the teaching bench's ghost and reference).
+    pub overlays: &'a [ChartOverlay],
 }
 
 impl ChartView<'_> {

@@ -8,6 +8,7 @@ mod export;
 mod folder;
 mod memory;
 mod menu;
+mod reference;
 mod windows;
 
 pub use asker::{NO_DIALOG, PathAsker, Picked, SystemAsker};
@@ -15,3 +16,4 @@ pub use desk::{FileAction, FileDesk, Notice};
 pub use export::Export;
 pub use folder::{default_folder, recipes_in, suggested_file_name};
 pub use memory::{FileDeskMemory, RECENT_MAX};
+pub use reference::{ReferencePick, read_reference};

@@ -4,7 +4,7 @@ use super::Command;
 use crate::model::SpacingSpec;
 use crate::recipe::BenchEntry;
 use crate::ui::charts::{self, ChartView, ReadingMark, SpacingAxis};
-use crate::ui::coil_view::coil_view;
+use crate::ui::coil_view::coil_view_with_ghost;
 use crate::ui::evaluation::Evaluation;
 use crate::ui::theme;
 use crate::ui::units::LengthUnit;
@@ -15,6 +15,17 @@ const SIDE_BY_SIDE_WIDTH: f32 = 560.0;
 /// Share of the centre's height given to the coil drawing.
 const DRAWING_SHARE: f32 = 0.36;
 
+/// What the teaching bench adds to the centre (nothing by default).
+#[derive(Default)]
+pub struct Extras<'a> {
+    /// The coil before the last change, drawn faint behind the present one.
+    pub ghost: Option<&'a crate::model::Coil>,
+    /// Muted curves on the spacing chart.
+    pub overlays: &'a [charts::ChartOverlay],
+    /// Show the spacing chart alone, full width (the presentation layout).
+    pub spacing_only: bool,
+}
+
 /// Show the drawing and charts; what the user drags is returned as commands.
 pub fn show(
     ui: &mut egui::Ui,
@@ -22,6 +33,7 @@ pub fn show(
     readings: &[BenchEntry],
     spacing: SpacingSpec,
     unit: LengthUnit,
+    extras: &Extras<'_>,
     commands: &mut Vec<Command>,
 ) {
     let Some(figures) = evaluation.latest() else {
@@ -42,7 +54,7 @@ pub fn show(
     let drawing_height = (ui.available_height() * DRAWING_SHARE).max(160.0);
     let drawn = ui
         .allocate_ui(egui::vec2(width, drawing_height), |ui| {
-            coil_view(ui, &figures.coil, unit)
+            coil_view_with_ghost(ui, &figures.coil, extras.ghost, unit)
         })
         .inner;
     if let Some(length) = drawn {
@@ -72,9 +84,14 @@ pub fn show(
             SpacingSpec::Gap(_) => SpacingAxis::Gap,
         },
         unit,
+        overlays: extras.overlays,
     };
     let chart_height = ui.available_height();
-    let (spacing_pick, trimmer_pick) = if ui.available_width() >= SIDE_BY_SIDE_WIDTH {
+    let (spacing_pick, trimmer_pick) = if extras.spacing_only {
+        let size = egui::vec2(width, chart_height);
+        let pick = ui.allocate_ui(size, |ui| charts::spacing_chart(ui, &view));
+        (pick.inner, None)
+    } else if ui.available_width() >= SIDE_BY_SIDE_WIDTH {
         ui.columns(2, |columns| {
             let size = egui::vec2(columns[0].available_width(), chart_height);
             (

@@ -25,12 +25,14 @@ const UNDO_KEYS: &str = "Ctrl+Z";
 const REDO_KEYS: &str = "Ctrl+Shift+Z";
 
 /// Show the menu bar and the tool row beneath it. `recipe_menu` draws the first menu of the
-/// bar (the "Recipe" menu: new, open…, save, save as…), supplied by the app.
+/// bar (the "Recipe" menu: new, open…, save, save as…), supplied by the app; `view_more`
+/// draws the end of the View menu (the teaching bench's entries).
 pub fn show(
     ui: &mut egui::Ui,
     state: &BarState<'_>,
     commands: &mut Vec<Command>,
     recipe_menu: impl FnOnce(&mut egui::Ui),
+    view_more: impl FnOnce(&mut egui::Ui),
 ) {
     egui::MenuBar::new().ui(ui, |ui| {
         recipe_menu(ui);
@@ -67,6 +69,8 @@ pub fn show(
                     commands.push(Command::SetUnit(unit));
                 }
             }
+            ui.separator();
+            view_more(ui);
         });
         ui.separator();
         ui.label(egui::RichText::new(state.recipe_name).strong());
