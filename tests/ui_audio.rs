@@ -10,7 +10,7 @@ mod common;
 
 use common::screen_text;
 use egui_kittest::Harness;
-use egui_kittest::kittest::Queryable;
+use egui_kittest::kittest::{NodeT, Queryable};
 use tankwright::model::Coil;
 use tankwright::physics::junction::JunctionLaw;
 use tankwright::tuning::modulation::Service;
@@ -126,7 +126,7 @@ fn the_drift_table_follows_the_changes_budgeted_for() {
 }
 
 /// The charts' data as the window last drew them.
-fn sweeps(harness: &Harness<'_, App>) -> &ModulationSweeps {
+fn sweeps<'a>(harness: &'a Harness<'_, App>) -> &'a ModulationSweeps {
     harness.state().modulation_sweeps()
 }
 

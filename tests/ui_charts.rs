@@ -515,6 +515,7 @@ fn hover_reads_the_curves_at_the_pointers_length() {
             resonance_hz: exact,
             axis,
             unit,
+            overlays: &[],
         };
         let x = view.x_of_length(coil.length());
         let text = hover::spacing_text(&view, x);

@@ -96,7 +96,7 @@ fn assert_no_nan(harness: &Harness<'_, App>) {
 
 #[test]
 fn demo_recipe_opens_with_every_readout_in_its_unit() {
-    let harness = workbench();
+    let mut harness = workbench();
     let f = resonance_mhz(&mut harness);
     // The demo aims at 98.7 MHz; the engine lands it in the FM broadcast band.
     assert!((88.0..108.0).contains(&f), "demo resonance {f} MHz");
