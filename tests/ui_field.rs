@@ -12,7 +12,7 @@ use std::time::{Duration, Instant};
 use tankwright::tuning::field_tank::field_tank;
 use tankwright::ui::App;
 use tankwright::ui::charts::impedance::Q_NOTE;
-use tankwright::ui::panels::readouts::{ESTIMATE, FIELD_SOLVED};
+use tankwright::ui::panels::readouts::{BEING_COMPUTED, FIELD_RESONANCE, MODEL, READOUTS_HEADING};
 
 fn workbench(size: egui::Vec2) -> Harness<'static, App> {
     let mut harness = Harness::builder()
@@ -32,11 +32,11 @@ fn readout_with_mark(harness: &Harness<'_, App>, name: &str) -> (String, String)
     (text[at + 1].clone(), text[at + 2].clone())
 }
 
-/// Run frames until the resonance is marked field-solved (the worker thread's time, not a
+/// Run frames until the field-solved resonance is shown (the worker thread's time, not a
 /// timing check: the bound only stops a hung test).
 fn wait_for_field(harness: &mut Harness<'_, App>) {
     let start = Instant::now();
-    while readout_with_mark(harness, "Resonance").1 != FIELD_SOLVED {
+    while readout_with_mark(harness, FIELD_RESONANCE).0 == BEING_COMPUTED {
         assert!(
             start.elapsed() < Duration::from_secs(120),
             "the field solution never arrived"
@@ -63,26 +63,42 @@ fn headless_mhz(harness: &Harness<'_, App>) -> String {
 fn a_change_shows_the_estimate_until_the_field_solution_replaces_it() {
     let mut harness = workbench(egui::vec2(1400.0, 900.0));
     wait_for_field(&mut harness);
-    let (shown, _) = readout_with_mark(&harness, "Resonance");
-    assert_eq!(shown, headless_mhz(&harness));
+    let (shown, _) = readout_with_mark(&harness, FIELD_RESONANCE);
+    let first = headless_mhz(&harness);
+    assert!(
+        shown.starts_with(&format!("{first} (")),
+        "{shown} vs {first}"
+    );
+    // The model's resonance leads, beside it: the figure the verdict uses.
+    let (model, mark) = readout_with_mark(&harness, "Resonance");
+    assert_eq!(mark, MODEL);
+    let classical = harness.state().analysis().expect("valid").resonance;
+    assert_eq!(model, format!("{:.3} MHz", classical * 1e-6));
 
     harness
         .get_by_role_and_label(Role::Slider, "Turns")
         .set_value_accesskit(6.0);
-    // The frame that applies the change asks for a new solution; the next one shows the
-    // classical estimate of the new coil, marked as such.
+    // The frame that applies the change asks for a new solution; the next one says it is
+    // being computed, and the model's figure is already the new coil's.
     harness.step();
     harness.step();
     assert_eq!(harness.state().recipe().winding.turns, 6.0);
-    let (estimate, mark) = readout_with_mark(&harness, "Resonance");
-    assert_eq!(mark, ESTIMATE);
+    assert_eq!(
+        readout_with_mark(&harness, FIELD_RESONANCE).0,
+        BEING_COMPUTED
+    );
+    let (estimate, _) = readout_with_mark(&harness, "Resonance");
     let classical = harness.state().analysis().expect("valid").resonance;
     assert_eq!(estimate, format!("{:.3} MHz", classical * 1e-6));
 
     wait_for_field(&mut harness);
-    let (solved, _) = readout_with_mark(&harness, "Resonance");
-    assert_eq!(solved, headless_mhz(&harness));
-    assert_ne!(solved, estimate, "the field solution moves the figure");
+    let (solved, _) = readout_with_mark(&harness, FIELD_RESONANCE);
+    let second = headless_mhz(&harness);
+    assert!(
+        solved.starts_with(&format!("{second} (")),
+        "{solved} vs {second}"
+    );
+    assert_ne!(first, second, "the field solution follows the coil");
     let result = harness.state().field_solution().expect("ready");
     assert_eq!(result.request.coil.turns(), 6.0);
 }
@@ -101,13 +117,20 @@ fn a_solution_for_a_coil_that_has_changed_is_dropped() {
     wait_for_field(&mut harness);
     let result = harness.state().field_solution().expect("ready");
     assert_eq!(result.request.coil.turns(), 7.0);
-    let (solved, _) = readout_with_mark(&harness, "Resonance");
-    assert_eq!(solved, headless_mhz(&harness));
+    let (solved, _) = readout_with_mark(&harness, FIELD_RESONANCE);
+    let headless = headless_mhz(&harness);
+    assert!(
+        solved.starts_with(&format!("{headless} (")),
+        "{solved} vs {headless}"
+    );
 }
 
 #[test]
 fn the_impedance_chart_opens_inside_a_small_window() {
     let mut harness = workbench(egui::vec2(1280.0, 720.0));
+    // On a short screen the readouts start folded: open them as a user would.
+    harness.get_by_label(READOUTS_HEADING).click();
+    harness.run();
     wait_for_field(&mut harness);
     // The section sits under the readouts: scroll the right column to it, open it, and
     // bring its charts into view.

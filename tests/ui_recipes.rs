@@ -96,6 +96,9 @@ fn a_bench_reading_gives_the_stretch_to_the_target() {
         .get_by_label("Measured frequency")
         .set_value_accesskit(97.5);
     harness.run();
+    // The bench log sits below the readouts: bring it into view first, as a user scrolls.
+    harness.get_by_label("Record reading").scroll_to_me();
+    harness.run();
     harness.get_by_label("Record reading").click();
     harness.run();
     let log = &harness.state().recipe().bench_log;
@@ -105,6 +108,10 @@ fn a_bench_reading_gives_the_stretch_to_the_target() {
     assert!(text.contains("stretch the coil by"), "{text}");
     assert!(text.contains("beyond the model"), "{text}");
 
+    harness
+        .get_by_label(tankwright::ui::bench_log::APPLY_ADVICE_LABEL)
+        .scroll_to_me();
+    harness.run();
     harness
         .get_by_label(tankwright::ui::bench_log::APPLY_ADVICE_LABEL)
         .click();

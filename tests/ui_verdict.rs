@@ -423,6 +423,18 @@ fn the_tolerance_field_moves_the_on_channel_verdict_at_its_boundary() {
 #[test]
 fn each_method_keeps_its_hover_note_in_the_inductance_chart() {
     let mut harness = window(1400.0, 1000.0);
+    // Let the field solution arrive first, so the rows above stay put while the pointer rests
+    // (the bound only stops a hung test).
+    let start = std::time::Instant::now();
+    while harness.state().field_solution().is_none() {
+        assert!(
+            start.elapsed().as_secs() < 120,
+            "the field solution never arrived"
+        );
+        std::thread::sleep(std::time::Duration::from_millis(5));
+        harness.step();
+    }
+    harness.run();
     let analysis = harness.state().analysis().expect("valid").clone();
     let rows = dots(&analysis);
     assert_eq!(rows.len(), InductanceModel::ALL.len() + 1);
@@ -431,6 +443,8 @@ fn each_method_keeps_its_hover_note_in_the_inductance_chart() {
             .iter()
             .find(|d| d.name == model.label())
             .expect("every method has a row");
+        harness.get_by_label(&row_text(row)).scroll_to_me();
+        harness.run();
         harness.get_by_label(&row_text(row)).hover();
         harness.run();
         // Tooltips wait for the pointer to rest; let time pass.

@@ -203,10 +203,17 @@ fn the_window_holds_nothing_the_loader_would_refuse() {
         .get_by_role_and_label(Role::SpinButton, "Measured frequency")
         .set_value_accesskit(98.1);
     harness.run();
+    // The bench log sits below the readouts: bring it into view first, as a user scrolls.
+    harness.get_by_label("Record reading").scroll_to_me();
+    harness.run();
     harness.get_by_label("Record reading").click();
     harness.run();
     assert_eq!(harness.state().recipe().bench_log.len(), 1, "98.1 MHz can");
 
+    harness
+        .get_by_role_and_label(Role::ComboBox, "Band plan")
+        .scroll_to_me();
+    harness.run();
     harness
         .get_by_role_and_label(Role::ComboBox, "Band plan")
         .click();

@@ -36,11 +36,14 @@ impl NoApparent {
 
 /// The apparent inductance at the tank's resonance, henries, or why it has no meaning.
 pub fn apparent_inductance(a: &Analysis) -> Result<f64, NoApparent> {
-    if !(a.external_capacitance > 0.0) {
+    // NaN counts as no capacitance: `partial_cmp` is Some(Greater) only for a positive value.
+    if a.external_capacitance.partial_cmp(&0.0) != Some(std::cmp::Ordering::Greater) {
         return Err(NoApparent::NoExternalCapacitance);
     }
     let value = a.apparent_inductance;
-    if !(a.resonance < a.self_resonance.lumped) || !value.is_finite() || value <= 0.0 {
+    let below_self =
+        a.resonance.partial_cmp(&a.self_resonance.lumped) == Some(std::cmp::Ordering::Less);
+    if !below_self || !value.is_finite() || value <= 0.0 {
         return Err(NoApparent::AtOrAboveSelfResonance);
     }
     Ok(value)

@@ -181,6 +181,12 @@ pub fn spacing_entries(
             Swatch::Dashed(palette::UNCALIBRATED),
         ));
     }
+    // The teaching bench's ghost and pinned reference, by the names they carry.
+    out.extend(
+        view.overlays
+            .iter()
+            .map(|o| Entry::new(o.name.clone(), Swatch::Dashed(o.kind.colour()))),
+    );
     out.extend(shared(view, y_mhz, !view.readings.is_empty()));
     out
 }

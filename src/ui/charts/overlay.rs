@@ -19,7 +19,8 @@ pub enum OverlayKind {
 }
 
 impl OverlayKind {
-    fn colour(self) -> Color32 {
+    /// Its muted colour, on the chart and in the legend.
+    pub(super) fn colour(self) -> Color32 {
         match self {
             // A quiet grey-violet and a quiet teal of our own: both read on either theme.
             OverlayKind::Ghost => Color32::from_rgb(0x9a, 0x94, 0xb0),

@@ -26,14 +26,19 @@ fn show_pf(farads: f64) -> String {
 /// Heading of the readouts (and the name of their fold).
 pub const READOUTS_HEADING: &str = "Readouts";
 
-/// Word after the resonance when the field solution drives it.
-pub const FIELD_SOLVED: &str = "field-solved";
-/// Word after the resonance when the classical estimate is shown.
-pub const ESTIMATE: &str = "estimate";
+/// Name of the readout with the field-solved resonance, shown beside the model's.
+pub const FIELD_RESONANCE: &str = "Resonance, field-solved";
+/// What that readout shows while the field solution is being computed.
+pub const BEING_COMPUTED: &str = "being computed";
+/// Word after the resonance when the model is calibrated on bench readings.
+pub const CALIBRATED: &str = "calibrated";
+/// Word after the resonance when it is the model's, not yet calibrated.
+pub const MODEL: &str = "model";
 
 /// Show the readouts for the present recipe under a fold (open to begin with when `open`),
-/// or, never folded, why the recipe was refused; the resonance and the apparent inductance
-/// come from the field solution once `field` has it.
+/// or, never folded, why the recipe was refused. The resonance is the model's (calibrated once
+/// there are bench readings): the one the verdict, the charts and the advice use; the field
+/// solution's is shown beside it once `field` has it, with the difference.
 pub fn show(
     ui: &mut egui::Ui,
     evaluation: &Evaluation,
@@ -93,40 +98,60 @@ fn figures_rows(
 ) {
     let a = &figures.analysis;
     let solved = field.ready().map(|r| &r.tank);
-    let lead = leading(a, solved, figures.calibrated());
-    let (word, how) = match lead.source {
-        InductanceSource::FieldSolved => (
-            FIELD_SOLVED,
-            "The coil solved from its own currents (thin-wire method of moments): the tank \
-             resonates where the coil's terminal reactance X meets the capacitance, \
-             f = 1/(2π√((X/ω)·C)), solved self-consistently; the self-capacitance is inside X"
-                .to_owned(),
-        ),
-        InductanceSource::Classical => (
-            ESTIMATE,
+    let (word, how) = if figures.calibrated() {
+        (
+            CALIBRATED,
             format!(
-                "Classical estimate: 1/(2π√(LC)) with the driving model's inductance plus the \
-                 leads and the total capacitance (Medhurst's self-capacitance added). {}",
-                match (field.is_working(), &lead.why_classical) {
-                    (true, _) if !figures.calibrated() => {
-                        "The field solution is being computed.".to_owned()
-                    }
-                    (_, Some(why)) => format!("Why: {why}."),
-                    _ => String::new(),
-                }
+                "The model calibrated on {} bench reading(s): the fitted stray and inductance \
+                 scale applied",
+                figures.readings_used()
             ),
-        ),
+        )
+    } else {
+        (
+            MODEL,
+            "Not yet calibrated: record a bench reading to correct it".to_owned(),
+        )
     };
     Readout::new(
         "Resonance",
-        digits::mhz(lead.resonance),
-        "The tank's resonance: field-solved when the field solution is ready, else the \
-         classical estimate (hover the word after the figure)",
+        digits::mhz(a.resonance),
+        "1/(2π√(LC)) with the driving model's inductance plus the leads and the total \
+         capacitance (Medhurst's self-capacitance added), iterated until the \
+         frequency-dependent terms settle: the figure the verdict, the charts and the advice use",
     )
     .emphasis(true)
     .note(word, how)
-    .more(move || format!("Classical estimate {}", digits::mhz(a.resonance)))
     .warnings(a.warnings_about(WarningTopic::Band))
+    .show(ui);
+    let lead = leading(&figures.uncalibrated, solved, false);
+    Readout::new(
+        FIELD_RESONANCE,
+        match (solved, lead.source) {
+            (Some(Ok(_)), InductanceSource::FieldSolved) => format!(
+                "{} ({})",
+                digits::mhz(lead.resonance),
+                digits::offset(lead.resonance - a.resonance)
+            ),
+            (Some(Err(_)), _) | (Some(Ok(_)), InductanceSource::Classical) => {
+                "not available".to_owned()
+            }
+            (None, _) => BEING_COMPUTED.to_owned(),
+        },
+        "The coil solved from its own currents (thin-wire method of moments, with its leads \
+         and the path beneath it): the tank resonates where the coil's terminal reactance X \
+         meets the capacitance, f = 1/(2π√((X/ω)·C)), solved self-consistently with the \
+         self-capacitance inside X. A second opinion on the uncalibrated tank; the bench \
+         readings decide",
+    )
+    .more(move || match (solved, &lead.why_classical) {
+        (Some(Ok(_)), None) => format!(
+            "In brackets: from the model's resonance. Apparent inductance X/ω there {}",
+            show_nh(lead.apparent_inductance)
+        ),
+        (_, Some(why)) => format!("Why not: {why}."),
+        _ => String::new(),
+    })
     .show(ui);
     ui.add_space(4.0);
     ui.label(RichText::new("Inductance of the coil (without leads), by method").strong());
@@ -148,31 +173,14 @@ fn figures_rows(
         "The driving model's coil inductance plus both leads",
     )
     .show(ui);
-    match lead.source {
-        InductanceSource::FieldSolved => Readout::new(
-            "Apparent inductance",
-            show_nh(lead.apparent_inductance),
-            "X/ω of the field solution at the resonance (coil, leads and the path beneath it): \
-             what a bridge would read across the terminals",
-        )
-        .note(word, "Where the figure comes from: as for the resonance")
-        .more(move || match apparent_inductance(a) {
-            Ok(l) => format!("Classical estimate {}", show_nh(l)),
-            Err(why) => format!("Classical estimate not shown: {}", why.reason()),
-        })
-        .show(ui),
-        InductanceSource::Classical => {
-            let note = "L/(1 − (f/f_self)²) with the lumped self-resonance: what a bridge would \
-                        read across the coil at the resonance";
-            match apparent_inductance(a) {
-                Ok(l) => Readout::new("Apparent inductance", show_nh(l), note)
-                    .note(word, "Where the figure comes from: as for the resonance")
-                    .show(ui),
-                Err(why) => {
-                    Readout::new("Apparent inductance", "not shown".to_owned(), note).show(ui);
-                    ui.add(egui::Label::new(RichText::new(why.reason()).small().weak()).wrap());
-                }
-            }
+    let apparent_note = "L/(1 − (f/f_self)²) with the lumped self-resonance: what a bridge \
+                         would read across the coil at the resonance (the field solution's X/ω \
+                         is under its resonance above)";
+    match apparent_inductance(a) {
+        Ok(l) => Readout::new("Apparent inductance", show_nh(l), apparent_note).show(ui),
+        Err(why) => {
+            Readout::new("Apparent inductance", "not shown".to_owned(), apparent_note).show(ui);
+            ui.add(egui::Label::new(RichText::new(why.reason()).small().weak()).wrap());
         }
     }
 
@@ -203,7 +211,7 @@ fn figures_rows(
         match solved {
             Some(Ok(f)) => digits::self_resonance(f.self_resonance),
             Some(Err(_)) => "not available".to_owned(),
-            None => "being computed".to_owned(),
+            None => BEING_COMPUTED.to_owned(),
         },
         "First parallel self-resonance at the terminals from the field solution (the wire, its \
          leads and the path beneath the coil)",
