@@ -1,7 +1,7 @@
 //! The tank's resonance with the coil's field-solved apparent inductance, and which figure
 //! leads: the field solution when it is available, the classical engine's otherwise.
 //!
-//! The classical engine ([`crate::model::evaluate`]) puts Medhurst's self-capacitance beside
+//! The classical engine ([`crate::model::evaluate()`]) puts Medhurst's self-capacitance beside
 //! the quasi-static inductance. The field solution ([`crate::physics::field`]) gives the
 //! coil's whole terminal reactance X(f) (helix, leads and the closing path, with the wire's own
 //! capacitance and the propagation along it), so the tank across the external capacitance C

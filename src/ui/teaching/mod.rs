@@ -10,9 +10,9 @@
 //! - [`ghost`]: the coil before the last change, kept on the drawing and the chart;
 //! - [`hand`]: a hand near the coil on demand (hold H or the button);
 //! - [`captions`]: short captions in plain words, each with its figure at that moment;
-//! - [`reference`]: a known-good build pinned for comparison, and the differences;
+//! - [`mod@reference`]: a known-good build pinned for comparison, and the differences;
 //! - [`presentation`]: larger type and fewer controls for a projector (F5);
-//! - [`panel`]: the bench's own panel (controls, large readouts, captions, reference).
+//! - `panel`: the bench's own panel (controls, large readouts, captions, reference).
 
 pub mod captions;
 pub mod ghost;
