@@ -371,6 +371,27 @@ pub fn spread_band(
         .collect()
 }
 
+/// The nominal resonance at each of `lengths` (the batch path), with the sweep's columns for
+/// the perturbed sweeps that follow.
+fn nominal_over_lengths(
+    coil: &Coil,
+    external: f64,
+    conditions: &Conditions,
+    lengths: &[f64],
+) -> (Vec<f64>, SweepColumns) {
+    let mut columns = SweepColumns::default();
+    let mut nominal = vec![0.0; lengths.len()];
+    resonance_over_lengths(
+        coil,
+        external,
+        conditions,
+        lengths,
+        &mut nominal,
+        &mut columns,
+    );
+    (nominal, columns)
+}
+
 /// The spread as a band over `lengths` (metres) by linear propagation: at each length the
 /// method of [`spread`]'s linear figures (each input's standard deviation times the central
 /// difference of the resonance in it, added in quadrature; the mean moved by the stray's
@@ -386,17 +407,8 @@ pub fn linear_band(
 ) -> Vec<[f64; 3]> {
     let t = tolerances;
     let m = lengths.len();
-    let mut columns = SweepColumns::default();
     let external = tank.fixed + tank.other + t.stray.typical;
-    let mut nominal = vec![0.0; m];
-    resonance_over_lengths(
-        coil,
-        external,
-        conditions,
-        lengths,
-        &mut nominal,
-        &mut columns,
-    );
+    let (nominal, mut columns) = nominal_over_lengths(coil, external, conditions, lengths);
     let (bounds, sigmas) = (bounds(t), sigmas(t));
     let mut variance = vec![0.0; m];
     let mut slope_stray = vec![0.0; m];
@@ -462,16 +474,7 @@ pub fn calibrated_band(
     lengths: &[f64],
 ) -> Vec<[f64; 3]> {
     let m = lengths.len();
-    let mut columns = SweepColumns::default();
-    let mut nominal = vec![0.0; m];
-    resonance_over_lengths(
-        coil,
-        external,
-        conditions,
-        lengths,
-        &mut nominal,
-        &mut columns,
-    );
+    let (nominal, mut columns) = nominal_over_lengths(coil, external, conditions, lengths);
     // Steps: 0.01 pF and a millionth of the scale (the fit's own).
     const STEP_C: f64 = 1e-14;
     const STEP_S: f64 = 1e-6;

@@ -68,6 +68,15 @@ impl ChartCache {
         &self.spacing
     }
 
+    /// The spacing curve whose trimmer setting is nearest `setting` (a fraction).
+    pub fn spacing_curve_nearest(&self, setting: f64) -> Option<&SpacingCurve> {
+        self.spacing.iter().min_by(|a, b| {
+            (a.setting - setting)
+                .abs()
+                .total_cmp(&(b.setting - setting).abs())
+        })
+    }
+
     /// Keep the spread band around the present curve: (length in metres, low and high hertz),
     /// and whether it is what a bench calibration leaves (set by the evaluation, which
     /// computes it once per change of the recipe).

@@ -70,11 +70,8 @@ pub fn spacing_text(view: &ChartView<'_>, x: f64) -> String {
     }
     if let Some(before) = view.uncalibrated {
         let present = view.tank.trimmer_setting;
-        if let Some(curve) = before.spacing_curves().iter().min_by(|a, b| {
-            (a.setting - present)
-                .abs()
-                .total_cmp(&(b.setting - present).abs())
-        }) && let Some(hz) = value_at(&curve.points, length)
+        if let Some(curve) = before.spacing_curve_nearest(present)
+            && let Some(hz) = value_at(&curve.points, length)
         {
             lines.push(format!(
                 "before calibration, {:.0} %: {}",

@@ -67,7 +67,7 @@ fn hover(name: &str, x: f64, y: f64, unit: &str) -> String {
 }
 
 fn log_plot<'a>(id: &'a str, y_label: &'a str, unit: &'static str, height: f32) -> Plot<'a> {
-    Plot::new(id)
+    super::held_still(Plot::new(id))
         .height(height)
         .legend(
             Legend::default()
@@ -90,12 +90,6 @@ fn log_plot<'a>(id: &'a str, y_label: &'a str, unit: &'static str, height: f32) 
             };
             Some(hover(name, p.x, p.y, unit))
         })
-        .allow_drag(false)
-        .allow_zoom(false)
-        .allow_scroll(false)
-        .allow_boxed_zoom(false)
-        .allow_double_click_reset(false)
-        .allow_axis_zoom_drag(false)
 }
 
 /// One curve as (log10 MHz, log10 value) points, leaving out points with no finite logarithm.

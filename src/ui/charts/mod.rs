@@ -207,8 +207,28 @@ pub(crate) fn hold_bounds_while_dragging(
     });
 }
 
+/// `plot` with every pan, zoom, scroll and reset gesture turned off: every chart in the window
+/// holds still (a drag sets a value instead, where it does anything).
+pub(crate) fn held_still(plot: egui_plot::Plot<'_>) -> egui_plot::Plot<'_> {
+    plot.allow_drag(false)
+        .allow_zoom(false)
+        .allow_scroll(false)
+        .allow_boxed_zoom(false)
+        .allow_double_click_reset(false)
+        .allow_axis_zoom_drag(false)
+}
+
+/// The smallest and largest finite value of `values` (infinities when there is none).
+pub(crate) fn finite_range(values: impl Iterator<Item = f64>) -> (f64, f64) {
+    values
+        .filter(|v| v.is_finite())
+        .fold((f64::INFINITY, f64::NEG_INFINITY), |(lo, hi), v| {
+            (lo.min(v), hi.max(v))
+        })
+}
+
 /// Bounds of a y range with a margin, never empty.
-fn padded(lo: f64, hi: f64) -> (f64, f64) {
+pub(crate) fn padded(lo: f64, hi: f64) -> (f64, f64) {
     let (lo, hi) = if lo.is_finite() && hi.is_finite() && hi > lo {
         (lo, hi)
     } else if lo.is_finite() {
@@ -266,13 +286,7 @@ pub(crate) fn pointer_x<R>(
 /// no legend inside (each chart draws its own above it: [`legend`]), resonance in MHz up the
 /// side and `x_label` along the bottom, both axes at 1–2–5 steps ([`ticks`]).
 pub(crate) fn still_plot<'a>(id: &str, x_label: String) -> egui_plot::Plot<'a> {
-    let plot = egui_plot::Plot::new(id)
-        .allow_drag(false)
-        .allow_zoom(false)
-        .allow_scroll(false)
-        .allow_boxed_zoom(false)
-        .allow_double_click_reset(false)
-        .allow_axis_zoom_drag(false)
+    let plot = held_still(egui_plot::Plot::new(id))
         .show_crosshair(true)
         .min_size(egui::vec2(160.0, 120.0));
     ticks::nice_axes(plot, x_label, "resonance (MHz)")

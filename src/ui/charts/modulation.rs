@@ -124,7 +124,7 @@ fn spaced(lo: f64, hi: f64) -> Vec<f64> {
 
 /// A chart that only shows (no pan, zoom or drag), with its legend in `corner`.
 fn plain_plot(id: &str, corner: Corner, x_label: &str, y_label: &str) -> Plot<'static> {
-    Plot::new(id)
+    super::held_still(Plot::new(id))
         .legend(
             Legend::default()
                 .position(corner)
@@ -133,12 +133,6 @@ fn plain_plot(id: &str, corner: Corner, x_label: &str, y_label: &str) -> Plot<'s
         )
         .x_axis_label(x_label.to_owned())
         .y_axis_label(y_label.to_owned())
-        .allow_drag(false)
-        .allow_zoom(false)
-        .allow_scroll(false)
-        .allow_boxed_zoom(false)
-        .allow_double_click_reset(false)
-        .allow_axis_zoom_drag(false)
         .show_crosshair(true)
         .height(190.0)
         .min_size(egui::vec2(160.0, 120.0))
@@ -146,20 +140,8 @@ fn plain_plot(id: &str, corner: Corner, x_label: &str, y_label: &str) -> Plot<'s
 
 /// Range of `values` with a margin, never empty.
 fn padded(values: impl Iterator<Item = f64>) -> (f64, f64) {
-    let (lo, hi) = values
-        .filter(|v| v.is_finite())
-        .fold((f64::INFINITY, f64::NEG_INFINITY), |(lo, hi), v| {
-            (lo.min(v), hi.max(v))
-        });
-    let (lo, hi) = if hi > lo {
-        (lo, hi)
-    } else if lo.is_finite() {
-        (lo - 0.5, lo + 0.5)
-    } else {
-        (0.0, 1.0)
-    };
-    let m = 0.06 * (hi - lo);
-    (lo - m, hi + m)
+    let (lo, hi) = super::finite_range(values);
+    super::padded(lo, hi)
 }
 
 /// Name the chart for assistive tools.

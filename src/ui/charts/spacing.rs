@@ -79,11 +79,7 @@ pub fn spacing_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
 
         if let Some(before) = view.uncalibrated {
             let present = view.tank.trimmer_setting;
-            if let Some(curve) = before.spacing_curves().iter().min_by(|a, b| {
-                (a.setting - present)
-                    .abs()
-                    .total_cmp(&(b.setting - present).abs())
-            }) {
+            if let Some(curve) = before.spacing_curve_nearest(present) {
                 let points: PlotPoints<'_> = curve
                     .points
                     .iter()
