@@ -77,19 +77,29 @@ pub fn show(
         .show(ui);
     });
     // The derived figures only for a coil the engine accepts (not the last good one). The
-    // line is always there, one line high, so nothing below moves (and no field being typed
-    // into loses its place) while an input is refused.
-    let summary = match coil.filter(|_| refused.is_none()) {
-        Some(coil) => format!(
-            "Former {} · mean {} · pitch {} · wire over insulation {}",
-            unit.show(coil.former_diameter()),
-            unit.show(coil.mean_diameter()),
-            unit.show(coil.pitch()),
-            unit.show(coil.wire_overall()),
+    // two lines are always there, one line high each, so nothing below moves (and no field
+    // being typed into loses its place) while an input is refused; two short lines fit the
+    // panel's narrowest width whole.
+    let (diameters, pitch) = match coil.filter(|_| refused.is_none()) {
+        Some(coil) => (
+            format!(
+                "Former {} · mean diameter {}",
+                unit.show(coil.former_diameter()),
+                unit.show(coil.mean_diameter()),
+            ),
+            format!(
+                "Pitch {} · wire over insulation {}",
+                unit.show(coil.pitch()),
+                unit.show(coil.wire_overall()),
+            ),
         ),
-        None => "Former – · mean – · pitch – · wire over insulation – (input refused)".to_owned(),
+        None => (
+            "Former – · mean diameter – (input refused)".to_owned(),
+            "Pitch – · wire over insulation –".to_owned(),
+        ),
     };
-    ui.add(egui::Label::new(summary).truncate());
+    ui.add(egui::Label::new(diameters).truncate());
+    ui.add(egui::Label::new(pitch).truncate());
 }
 
 fn diameter_rows(
