@@ -271,20 +271,11 @@ fn batch_honours_the_calibrated_inductance_scale() {
 /// within 1e-9 (its own stop), at each trimmer setting, calibrated or not.
 #[test]
 fn spacing_sweep_equals_the_per_point_path() {
-    use tankwright::model::{FeedbackDivider, Tank};
     use tankwright::tuning::sweep::spacing_sweep;
     let c = coil(6e-3, 1e-3, 5.0, 8e-3, 5e-3);
-    let tank = Tank {
-        fixed: 6.8e-12,
-        trimmer_min: 2e-12,
-        trimmer_max: 10e-12,
-        trimmer_setting: 0.5,
-        stray: 6e-12,
-        feedback: Some(FeedbackDivider {
-            upper: 10e-12,
-            lower: 22e-12,
-        }),
-    };
+    // The demo's tank (invented data): 6.8 pF fixed, 2–10 pF trimmer at half, 6 pF stray, the
+    // 10/22 pF divider.
+    let tank = tankwright::recipe::Recipe::demo().tank;
     for scale in [1.0, 1.04] {
         let cond = Conditions {
             inductance_scale: scale,

@@ -88,7 +88,24 @@ fn shade(r: u8, g: u8, b: u8) -> Fill {
     }
 }
 
-impl Writer<'_, '_> {
+impl<'a, 'p> Writer<'a, 'p> {
+    /// A cursor at the top margin of the page drawn on `surface`.
+    fn new(surface: &'a mut Surface<'p>, font: Font, metrics: &'a Metrics) -> Self {
+        Self {
+            surface,
+            font,
+            metrics,
+            y: MARGIN,
+            cut: false,
+        }
+    }
+
+    /// The page's title, 17 pt, on the first line below the top margin.
+    fn title(&mut self, text: &str) {
+        self.y += 18.0;
+        self.text_at(MARGIN, self.y, 17.0, text, black());
+    }
+
     fn text_at(&mut self, x: f32, y: f32, em: f32, text: &str, fill: Fill) {
         self.surface.set_stroke(None);
         self.surface.set_fill(Some(fill));
@@ -185,21 +202,8 @@ impl Pages<'_> {
     fn build_sheet(&mut self, sheet: &Sheet) -> Result<(), String> {
         let mut page = self.document.start_page_with(page_settings()?);
         let mut surface = page.surface();
-        let mut w = Writer {
-            surface: &mut surface,
-            font: self.font.clone(),
-            metrics: self.metrics,
-            y: MARGIN,
-            cut: false,
-        };
-        w.y += 18.0;
-        w.text_at(
-            MARGIN,
-            w.y,
-            17.0,
-            &format!("Build sheet: {}", sheet.name),
-            black(),
-        );
+        let mut w = Writer::new(&mut surface, self.font.clone(), self.metrics);
+        w.title(&format!("Build sheet: {}", sheet.name));
         let full = PAGE.0 - 2.0 * MARGIN;
         w.paragraph(MARGIN, full, BODY, &sheet.basis, &shade(0x55, 0x55, 0x55));
         if !sheet.notes.is_empty() {
@@ -238,22 +242,9 @@ impl Pages<'_> {
     fn chart_page(&mut self, sheet: &Sheet) -> Result<(), String> {
         let mut page = self.document.start_page_with(page_settings()?);
         let mut surface = page.surface();
-        let mut w = Writer {
-            surface: &mut surface,
-            font: self.font.clone(),
-            metrics: self.metrics,
-            y: MARGIN,
-            cut: false,
-        };
+        let mut w = Writer::new(&mut surface, self.font.clone(), self.metrics);
         let full = PAGE.0 - 2.0 * MARGIN;
-        w.y += 18.0;
-        w.text_at(
-            MARGIN,
-            w.y,
-            17.0,
-            "How spacing moves the frequency",
-            black(),
-        );
+        w.title("How spacing moves the frequency");
         w.paragraph(
             MARGIN,
             full,
@@ -295,22 +286,9 @@ impl Pages<'_> {
     fn worksheet(&mut self, sheet: &Sheet) -> Result<(), String> {
         let mut page = self.document.start_page_with(page_settings()?);
         let mut surface = page.surface();
-        let mut w = Writer {
-            surface: &mut surface,
-            font: self.font.clone(),
-            metrics: self.metrics,
-            y: MARGIN,
-            cut: false,
-        };
+        let mut w = Writer::new(&mut surface, self.font.clone(), self.metrics);
         let full = PAGE.0 - 2.0 * MARGIN;
-        w.y += 18.0;
-        w.text_at(
-            MARGIN,
-            w.y,
-            17.0,
-            &format!("Worksheet: {}", sheet.name),
-            black(),
-        );
+        w.title(&format!("Worksheet: {}", sheet.name));
         w.y += 22.0;
         w.text_at(
             MARGIN,
