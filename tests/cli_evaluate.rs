@@ -69,11 +69,11 @@ fn json_has_every_key_the_issue_names() {
     }
     // Grover 1946 Table 36: K_N = 0.688423 at l/D = 1.
     assert!((v["nagaoka_coefficient"].as_f64().unwrap_or(0.0) - 0.688423).abs() < 2e-6);
-    // Thomson: f = 1/(2π√(LC)), on the classical path with the reported total L and the
-    // total capacitance (self-capacitance included).
+    // Thomson: f = 1/(2π√(LC)), with the reported total L (the model's, scaled onto the field
+    // solution) and the total capacitance (self-capacitance included).
     let l = v["inductance_nh"]["total"].as_f64().unwrap_or(0.0) * 1e-9;
     let c = v["total_capacitance_pf"].as_f64().unwrap_or(0.0) * 1e-12;
-    let f = v["resonance_mhz_classical"].as_f64().unwrap_or(0.0) * 1e6;
+    let f = v["resonance_mhz"].as_f64().unwrap_or(0.0) * 1e6;
     assert!((f * 2.0 * std::f64::consts::PI * (l * c).sqrt() - 1.0).abs() < 1e-9);
     // The resonance that leads is the field-solved one: Thomson's formula again with the
     // field's apparent inductance X/ω at that very frequency and the external capacitance

@@ -1,6 +1,10 @@
-//! The field solution in the window: computed off the frame, shown as an estimate until it
-//! arrives, then marked field-solved with the same figure the headless path gives; an
-//! in-flight solution for a coil that has since changed is dropped; the impedance chart.
+//! The field solution in the window: computed off the frame; it leads the resonance (and the
+//! verdict and advice with it) with the same figure the headless path gives; while a changed
+//! coil is solved the last factor is held; an in-flight solution for a coil that has since
+//! changed is dropped; switched off, the classical model leads; the impedance chart.
+//!
+//! These hold the window to the engine's own headless figures (`recipe::figures`); the field
+//! solution itself is checked against nec2c in tests/reference_field.rs.
 
 mod common;
 
@@ -9,10 +13,16 @@ use egui::accesskit::Role;
 use egui_kittest::Harness;
 use egui_kittest::kittest::Queryable;
 use std::time::{Duration, Instant};
-use tankwright::tuning::field_tank::field_tank;
+use tankwright::model::evaluate;
+use tankwright::recipe::{FieldBasis, FieldInput, Figures, figures, figures_with};
+use tankwright::tuning::digits;
 use tankwright::ui::App;
 use tankwright::ui::charts::impedance::Q_NOTE;
-use tankwright::ui::panels::readouts::{BEING_COMPUTED, FIELD_RESONANCE, MODEL, READOUTS_HEADING};
+use tankwright::ui::panels::readouts::{
+    CLASSICAL_RESONANCE, FIELD_RESONANCE, FIELD_SOLVED, MODEL, READOUTS_HEADING, RESONANCE,
+    SWITCHED_OFF, UPDATING,
+};
+use tankwright::ui::panels::top_bar::FIELD_SOLUTION_ENTRY;
 
 fn workbench(size: egui::Vec2) -> Harness<'static, App> {
     let mut harness = Harness::builder()
@@ -32,11 +42,11 @@ fn readout_with_mark(harness: &Harness<'_, App>, name: &str) -> (String, String)
     (text[at + 1].clone(), text[at + 2].clone())
 }
 
-/// Run frames until the field-solved resonance is shown (the worker thread's time, not a
-/// timing check: the bound only stops a hung test).
+/// Run frames until the resonance that leads is marked field-solved (the worker thread's
+/// time, not a timing check: the bound only stops a hung test).
 fn wait_for_field(harness: &mut Harness<'_, App>) {
     let start = Instant::now();
-    while readout_with_mark(harness, FIELD_RESONANCE).0 == BEING_COMPUTED {
+    while readout_with_mark(harness, RESONANCE).1 != FIELD_SOLVED {
         assert!(
             start.elapsed() < Duration::from_secs(120),
             "the field solution never arrived"
@@ -46,59 +56,68 @@ fn wait_for_field(harness: &mut Harness<'_, App>) {
     }
 }
 
-/// The headless figure for what the window holds: the same function `evaluate` calls.
-fn headless_mhz(harness: &Harness<'_, App>) -> String {
-    let app = harness.state();
-    let figures = app.figures().expect("a valid coil");
-    let tank = field_tank(
-        &figures.coil,
-        figures.uncalibrated.external_capacitance,
-        &app.recipe().conditions,
-    )
-    .expect("the demo coil solves");
-    format!("{:.3} MHz", tank.resonance * 1e-6)
+/// The headless figures for what the window holds: the same function the commands and the
+/// build sheet call, with the field solution solved there and then.
+fn headless(harness: &Harness<'_, App>) -> Figures {
+    figures(harness.state().recipe()).expect("a valid coil")
 }
 
 #[test]
-fn a_change_shows_the_estimate_until_the_field_solution_replaces_it() {
+fn a_change_holds_the_last_factor_until_the_field_solution_replaces_it() {
     let mut harness = workbench(egui::vec2(1400.0, 900.0));
     wait_for_field(&mut harness);
-    let (shown, _) = readout_with_mark(&harness, FIELD_RESONANCE);
-    let first = headless_mhz(&harness);
-    assert!(
-        shown.starts_with(&format!("{first} (")),
-        "{shown} vs {first}"
+    let first = headless(&harness);
+    let tank = *first.field.tank().expect("the demo coil solves");
+    // The resonance that leads is the field-solved tank's, the same figure the headless path
+    // gives, and the verdict and advice work on it.
+    let (shown, _) = readout_with_mark(&harness, RESONANCE);
+    assert_eq!(shown, digits::mhz(tank.resonance));
+    let app = harness.state().figures().expect("valid").clone();
+    approx::assert_relative_eq!(app.analysis.resonance, tank.resonance, max_relative = 1e-9);
+    approx::assert_relative_eq!(app.verdict.resonance, tank.resonance, max_relative = 1e-9);
+    assert_eq!(app.verdict, first.verdict);
+    // The classical model is beside it, with its difference.
+    let (classical, _) = readout_with_mark(&harness, CLASSICAL_RESONANCE);
+    let model = first.classical.resonance;
+    assert_eq!(
+        classical,
+        format!(
+            "{} ({})",
+            digits::mhz(model),
+            digits::offset(model - app.analysis.resonance)
+        )
     );
-    // The model's resonance leads, beside it: the figure the verdict uses.
-    let (model, mark) = readout_with_mark(&harness, "Resonance");
-    assert_eq!(mark, MODEL);
-    let classical = harness.state().analysis().expect("valid").resonance;
-    assert_eq!(model, format!("{:.3} MHz", classical * 1e-6));
 
     harness
         .get_by_role_and_label(Role::Slider, "Turns")
         .set_value_accesskit(6.0);
-    // The frame that applies the change asks for a new solution; the next one says it is
-    // being computed, and the model's figure is already the new coil's.
+    // The frame that applies the change asks for a new solution; until it comes, the factor
+    // found for five turns is held on the six-turn model (no jump back to the classical model).
     harness.step();
     harness.step();
     assert_eq!(harness.state().recipe().winding.turns, 6.0);
-    assert_eq!(
-        readout_with_mark(&harness, FIELD_RESONANCE).0,
-        BEING_COMPUTED
-    );
-    let (estimate, _) = readout_with_mark(&harness, "Resonance");
-    let classical = harness.state().analysis().expect("valid").resonance;
-    assert_eq!(estimate, format!("{:.3} MHz", classical * 1e-6));
+    let held = harness.state().figures().expect("valid").clone();
+    if let FieldBasis::Held { scale } = held.field {
+        let (estimate, mark) = readout_with_mark(&harness, RESONANCE);
+        assert_eq!(mark, UPDATING);
+        assert_eq!(scale, first.field.scale());
+        let expected = figures_with(harness.state().recipe(), FieldInput::Held(scale))
+            .expect("valid")
+            .analysis
+            .resonance;
+        assert_eq!(estimate, digits::mhz(expected));
+    } else {
+        // The worker answered within those two frames: it must be the six-turn coil's.
+        let now = headless(&harness);
+        assert!(held.field.tank().is_some(), "{:?}", held.field);
+        assert_eq!(held.field.tank(), now.field.tank());
+    }
 
     wait_for_field(&mut harness);
-    let (solved, _) = readout_with_mark(&harness, FIELD_RESONANCE);
-    let second = headless_mhz(&harness);
-    assert!(
-        solved.starts_with(&format!("{second} (")),
-        "{solved} vs {second}"
-    );
-    assert_ne!(first, second, "the field solution follows the coil");
+    let second = headless(&harness);
+    let (solved, _) = readout_with_mark(&harness, RESONANCE);
+    assert_eq!(solved, digits::mhz(second.analysis.resonance));
+    assert_ne!(first.analysis.resonance, second.analysis.resonance);
     let result = harness.state().field_solution().expect("ready");
     assert_eq!(result.request.coil.turns(), 6.0);
 }
@@ -117,12 +136,31 @@ fn a_solution_for_a_coil_that_has_changed_is_dropped() {
     wait_for_field(&mut harness);
     let result = harness.state().field_solution().expect("ready");
     assert_eq!(result.request.coil.turns(), 7.0);
-    let (solved, _) = readout_with_mark(&harness, FIELD_RESONANCE);
-    let headless = headless_mhz(&harness);
-    assert!(
-        solved.starts_with(&format!("{headless} (")),
-        "{solved} vs {headless}"
+    let (solved, _) = readout_with_mark(&harness, RESONANCE);
+    assert_eq!(solved, digits::mhz(headless(&harness).analysis.resonance));
+}
+
+#[test]
+fn switched_off_the_classical_model_leads_and_no_worker_answer_is_used() {
+    let mut harness = workbench(egui::vec2(1400.0, 900.0));
+    wait_for_field(&mut harness);
+    harness.get_by_label("View").click();
+    harness.run();
+    harness.get_by_label(FIELD_SOLUTION_ENTRY).click();
+    harness.run();
+    harness.run();
+    assert!(!harness.state().preferences().field_solution);
+    let (shown, mark) = readout_with_mark(&harness, RESONANCE);
+    assert_eq!(mark, MODEL);
+    let r = harness.state().recipe().clone();
+    let classical = evaluate(&r.winding, &r.tank, &r.conditions).expect("valid");
+    assert_eq!(shown, digits::mhz(classical.resonance));
+    assert_eq!(
+        harness.state().figures().expect("valid").verdict.resonance,
+        classical.resonance
     );
+    assert_eq!(readout_with_mark(&harness, FIELD_RESONANCE).0, SWITCHED_OFF);
+    assert!(harness.state().field_solution().is_none());
 }
 
 #[test]

@@ -61,6 +61,7 @@ pub fn run_solve(words: Vec<String>) -> Result<String, String> {
             "trimmer_pct": p.trimmer_setting * 100.0,
             "resonance_mhz": predicted * 1e-6,
             "calibrated": f.calibrated(),
+            "resonance_source": f.field.json_name(),
             "readings_used": f.readings_used(),
             "advice": advice.to_string(),
         })
@@ -70,11 +71,13 @@ pub fn run_solve(words: Vec<String>) -> Result<String, String> {
     }
     let model = if f.calibrated() {
         format!("the model calibrated on {} reading(s)", f.readings_used())
+    } else if f.field.tank().is_some() {
+        "the field solution (no bench readings yet)".to_owned()
     } else {
-        "the model (no bench readings yet)".to_owned()
+        "the classical model (no bench readings yet)".to_owned()
     };
     Ok(format!(
-        "To land {:.3} MHz, by {model}:\n  {advice}\n  coil: {} turns, {:.3} mm long; trimmer at {:.0} %\n  predicted: {:.4} MHz\n",
+        "To land {:.3} MHz, by {model}:\n  {advice}\n  coil: {} turns, {:.3} mm long; trimmer at {:.0} %\n  predicted: {:.3} MHz\n",
         f.target.channel * 1e-6,
         p.turns,
         p.length * 1e3,

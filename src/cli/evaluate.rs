@@ -4,6 +4,7 @@ use super::args::{ArgError, Args};
 use crate::model::{
     Coating, Conditions, DiameterSpec, Gauge, InductanceModel, SpacingSpec, Tank, Winding, WireSpec,
 };
+use crate::tuning::field_tank::{FieldBasis, FieldInput};
 use crate::tuning::verdict::{Aim, judge};
 
 /// A coil, tank and conditions read from the command line.
@@ -211,22 +212,43 @@ pub fn run_evaluate(words: Vec<String>) -> Result<String, String> {
     // With a junction given, the tank's resonance includes its capacitance at the bias.
     let mut tank = req.tank;
     tank.stray += extras.junction_across_tank();
+    let classical = crate::model::evaluate(&req.winding, &tank, &req.conditions)
+        .map_err(|e| format!("invalid input: {e}"))?;
+    // The field-solved tank (a few milliseconds; see tuning::field_tank) moves the model onto
+    // itself: every figure below, the verdict's offset too, is the field-solved tank's.
+    let field = crate::tuning::field_tank::field_tank(
+        &classical.coil,
+        classical.external_capacitance,
+        &req.conditions,
+    );
+    let basis = FieldBasis::of(
+        &classical.coil,
+        classical.external_capacitance,
+        &req.conditions,
+        FieldInput::Solved(field),
+    );
+    let req = EvaluateRequest {
+        conditions: basis.conditions(&req.conditions),
+        ..req
+    };
     let analysis = crate::model::evaluate(&req.winding, &tank, &req.conditions)
         .map_err(|e| format!("invalid input: {e}"))?;
     let more = super::stray_flags::ExtraFigures::compute(&extras, &req, &analysis)?;
-    let coil = crate::model::Coil::from_winding(&req.winding)
-        .map_err(|e| format!("invalid input: {e}"))?;
-    let verdict = judge(&coil, &req.tank, &req.conditions, &req.aim);
-    // The field-solved tank (a few milliseconds; see tuning::field_tank).
-    let field = crate::tuning::field_tank::field_tank(
-        &analysis.coil,
-        analysis.external_capacitance,
-        &req.conditions,
-    );
+    let mut verdict = judge(&analysis.coil, &tank, &req.conditions, &req.aim);
+    // The channel's next step is the one instruction that lands it (as in the window).
+    if let Some(target) = req.aim.target {
+        verdict = verdict.with_advice(crate::tuning::advice::advise(
+            &analysis.coil,
+            &tank,
+            &req.conditions,
+            target,
+            req.aim.tolerance,
+        ));
+    }
     Ok(if req.json {
         let mut object = super::json::analysis_json(&analysis);
         super::verdict::add_verdict_json(&mut object, &verdict, &analysis);
-        super::json::add_field_solution(&mut object, &analysis, &field, false);
+        super::json::add_field_solution(&mut object, &classical, &basis);
         more.add_json(&mut object);
         let mut s = object.to_string();
         s.push('\n');
@@ -235,7 +257,7 @@ pub fn run_evaluate(words: Vec<String>) -> Result<String, String> {
         let mut s = super::verdict::verdict_lines(&verdict).join("\n");
         s.push_str("\n\n");
         s.push_str(&super::text::analysis_report(&analysis));
-        s.push_str(&super::text::field_report(&analysis, &field, false));
+        s.push_str(&super::text::field_report(&classical, &basis));
         s.push_str(&more.text());
         s
     })

@@ -75,7 +75,8 @@ pub fn run_impedance(words: Vec<String>) -> Result<String, String> {
             analysis.external_capacitance,
             &req.conditions,
         );
-        crate::tuning::field_tank::leading(&analysis, Some(&field), false).resonance
+        // The field-solved tank when there is one (what `evaluate` leads with).
+        field.map_or(analysis.resonance, |f| f.resonance)
     });
     let sweep = impedance_sweep(
         &coil,

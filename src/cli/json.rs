@@ -1,8 +1,7 @@
 //! The machine-readable form of an [`Analysis`], in display units named in the keys.
 
 use crate::model::{Analysis, InductanceModel};
-use crate::physics::field::FieldError;
-use crate::tuning::field_tank::{FieldTank, leading};
+use crate::tuning::field_tank::FieldBasis;
 use serde_json::{Value, json};
 
 const NH: f64 = 1e9;
@@ -68,37 +67,36 @@ pub fn analysis_json(a: &Analysis) -> Value {
     })
 }
 
-/// Put the field solution into an [`analysis_json`] object and let it drive the tank:
-/// `resonance_mhz` and `inductance_nh.apparent` are the field-solved tank's (the resonance
-/// solved self-consistently with X/ω, see [`crate::tuning::field_tank::field_tank`]) when the
-/// field solution is available, the classical figures otherwise; `resonance_source` says which
-/// (`field_solved` or `classical`), and the classical figures are always kept as
-/// `resonance_mhz_classical` and `inductance_nh.apparent_classical`.
-/// `self_resonance_mhz.field_solved` is the first parallel self-resonance at the terminals
-/// (leads as given). When the field solution refuses the coil, `field_solved` is null and
-/// `field_solution_note` says why.
-pub fn add_field_solution(
-    v: &mut Value,
-    a: &Analysis,
-    field: &Result<FieldTank, FieldError>,
-    calibrated: bool,
-) {
-    let lead = leading(a, Some(field), calibrated);
-    v["inductance_nh"]["apparent_classical"] = json!(a.apparent_inductance * NH);
-    v["resonance_mhz_classical"] = json!(a.resonance * MHZ);
-    v["resonance_mhz"] = json!(lead.resonance * MHZ);
-    v["inductance_nh"]["apparent"] = json!(lead.apparent_inductance * NH);
-    v["resonance_source"] = json!(lead.source.json_name());
-    match field {
-        Ok(f) => {
+/// Put the field solution into an [`analysis_json`] object of the driving analysis (the model
+/// moved onto the field solution, see [`crate::tuning::field_tank::FieldBasis`]), so
+/// `resonance_mhz`, the offsets and the verdict are the field-solved tank's when the field
+/// solution is available, and the classical model's otherwise. `resonance_source` says which
+/// (`field_solved` or `classical`), `field_inductance_factor` the factor on the model's
+/// inductance that meets the field solution; the classical figures are kept as
+/// `resonance_mhz_classical` and `inductance_nh.apparent_classical`; `inductance_nh.apparent`
+/// is the field solution's X/ω at the resonance. `self_resonance_mhz.field_solved` is the
+/// first parallel self-resonance at the terminals (leads as given). When the field solution
+/// refuses the coil, `field_solved` is null and `field_solution_note` says why.
+pub fn add_field_solution(v: &mut Value, classical: &Analysis, basis: &FieldBasis) {
+    v["inductance_nh"]["apparent_classical"] = json!(classical.apparent_inductance * NH);
+    v["resonance_mhz_classical"] = json!(classical.resonance * MHZ);
+    v["resonance_source"] = json!(basis.json_name());
+    v["field_inductance_factor"] = json!(basis.scale());
+    match basis {
+        FieldBasis::Solved { tank: f, .. } => {
+            v["inductance_nh"]["apparent"] = json!(f.apparent_inductance * NH);
             v["self_resonance_mhz"]["field_solved"] = json!(f.self_resonance * MHZ);
             v["field_series_resistance_ohm"] = json!(f.series_resistance);
             v["field_q"] = json!(f.q());
             v["field_segments"] = json!(f.segments);
         }
-        Err(e) => {
+        FieldBasis::Held { .. } => {
             v["self_resonance_mhz"]["field_solved"] = Value::Null;
-            v["field_solution_note"] = json!(e.to_string());
+        }
+        FieldBasis::Classical { why } => {
+            v["inductance_nh"]["apparent"] = json!(classical.apparent_inductance * NH);
+            v["self_resonance_mhz"]["field_solved"] = Value::Null;
+            v["field_solution_note"] = json!(why);
         }
     }
 }

@@ -47,13 +47,8 @@ pub fn build_report(r: &Recipe) -> Result<String, String> {
     let mut text = out.join("\n");
     text.push('\n');
     text.push_str(&super::analysis_report(&a));
-    // The field-solved tank of the recipe as written (a calibrated model keeps the lead).
-    let field = crate::tuning::field_tank::field_tank(
-        &f.coil,
-        f.uncalibrated.external_capacitance,
-        &r.conditions,
-    );
-    text.push_str(&super::text::field_report(&a, &field, f.calibrated()));
+    // The field-solved tank of the recipe as written, and how it moved the model.
+    text.push_str(&super::text::field_report(&f.classical, &f.field));
     Ok(text)
 }
 

@@ -1,10 +1,9 @@
 //! The readable report of an [`Analysis`].
 
 use crate::model::{Analysis, InductanceModel};
-use crate::physics::field::FieldError;
 use crate::tuning::apparent::apparent_inductance;
 use crate::tuning::digits;
-use crate::tuning::field_tank::{FieldTank, InductanceSource, leading};
+use crate::tuning::field_tank::FieldBasis;
 
 /// A plain-text report with units, one figure a line.
 pub fn analysis_report(a: &Analysis) -> String {
@@ -130,17 +129,12 @@ pub fn analysis_report(a: &Analysis) -> String {
     s
 }
 
-/// The field solution's lines for the report: the tank's resonance with the field-solved
-/// apparent inductance and which figure leads (see [`crate::tuning::field_tank::leading`]).
-pub fn field_report(
-    a: &Analysis,
-    field: &Result<FieldTank, FieldError>,
-    calibrated: bool,
-) -> String {
-    let lead = leading(a, Some(field), calibrated);
+/// The field solution's lines for the report: the field-solved tank and how it moved the
+/// model (see [`crate::tuning::field_tank::FieldBasis`]); `classical` is the model before it.
+pub fn field_report(classical: &Analysis, basis: &FieldBasis) -> String {
     let mut s = String::from("Field solution (the wire solved from its own currents)\n");
-    match field {
-        Ok(f) => {
+    match basis {
+        FieldBasis::Solved { tank: f, scale } => {
             s.push_str(&format!(
                 "  tank               {:>10.4} MHz   apparent inductance {:.2} nH (X/omega)\n",
                 f.resonance * 1e-6,
@@ -156,17 +150,19 @@ pub fn field_report(
                 f.q()
             ));
             s.push_str(&format!("  segments           {:>10}\n", f.segments));
+            s.push_str(&format!(
+                "  the field-solved resonance leads: the model's inductance x {scale:.4} meets \
+                 it\n  (classical model alone: {:.4} MHz)\n",
+                classical.resonance * 1e-6
+            ));
         }
-        Err(e) => s.push_str(&format!("  not available: {e}\n")),
-    }
-    match (lead.source, lead.why_classical) {
-        (InductanceSource::FieldSolved, _) => {
-            s.push_str("  the field-solved resonance leads; the classical one is above\n");
-        }
-        (InductanceSource::Classical, why) => s.push_str(&format!(
-            "  the classical resonance leads ({})\n",
-            why.unwrap_or_default()
+        FieldBasis::Held { scale } => s.push_str(&format!(
+            "  an earlier coil's factor {scale:.4} on the model's inductance is held\n"
         )),
+        FieldBasis::Classical { why } => {
+            s.push_str(&format!("  not available: {why}\n"));
+            s.push_str("  the classical resonance leads\n");
+        }
     }
     s
 }

@@ -73,7 +73,8 @@ pub fn expectation(recipe: &Recipe, figures: &Figures, lengths: &[f64]) -> Expec
     let settings = &recipe.stray_estimate;
     let coil = &figures.coil;
     let tank = &recipe.tank;
-    let conditions = &recipe.conditions;
+    // Before the bench readings: the model moved onto the field solution when there is one.
+    let conditions = &figures.uncalibrated_conditions;
     let without_entered = Tank {
         stray: 0.0,
         ..*tank

@@ -1,12 +1,24 @@
 //! Every figure of a recipe, computed once by the engine: the one function the window, the
 //! build sheet and the headless commands call, so they cannot disagree.
 //!
-//! Once the recipe holds bench readings, the calibrated model (the fit's extra capacitance and
-//! inductance scale applied; see [`crate::tuning::fit`]) drives every figure: the analysis, the
-//! target figures and the advice. The uncalibrated analysis is kept beside it.
+//! Three layers, each applied on the one before:
+//! 1. the classical model (the driving inductance method, the leads, Medhurst's
+//!    self-capacitance): [`Figures::classical`];
+//! 2. the field solution of the same coil, when there is one: the model's inductance scaled so
+//!    that the model meets the field-solved resonance at the present coil
+//!    ([`crate::tuning::field_tank::matching_scale`]), so the field solution leads the
+//!    resonance while the model keeps its shape for the charts and the advice:
+//!    [`Figures::uncalibrated`];
+//! 3. the bench readings, when there are any: the fit's extra capacitance and inductance scale
+//!    ([`crate::tuning::fit`]) on the model of step 2. One reading fixes the stray with the
+//!    field-solved inductance kept; two or more fit the inductance too.
+//!
+//! The result drives every figure: the analysis, the target figures, the verdict, the advice
+//! and (in the window) the charts.
 
 use super::document::Recipe;
 use crate::model::{Analysis, Coil, Conditions, InputError, Tank, evaluate, evaluate_coil};
+use crate::tuning::field_tank::{FieldBasis, FieldInput, field_tank};
 use crate::tuning::fit::{Fit, FitError, InverseSquareLine, fit, inverse_square_line};
 use crate::tuning::target::{TargetFigures, target_figures};
 use crate::tuning::verdict::{Aim, Verdict, judge};
@@ -18,12 +30,21 @@ pub struct Figures {
     pub coil: Coil,
     /// The tank that drives the figures (calibrated when there are readings that fit).
     pub tank: Tank,
-    /// The conditions that drive the figures (calibrated likewise).
+    /// The conditions that drive the figures (the field solution's scale on the inductance,
+    /// and the calibration's when there are readings that fit).
     pub conditions: Conditions,
     /// Every figure of the engine, calibrated when there are readings that fit.
     pub analysis: Analysis,
-    /// The model as it stands, before any calibration.
+    /// The classical model as it stands: no field solution, no bench readings.
+    pub classical: Analysis,
+    /// Before the bench readings: the classical model moved onto the field solution when there
+    /// is one (else the classical model itself).
     pub uncalibrated: Analysis,
+    /// The conditions of [`uncalibrated`](Self::uncalibrated) (the field solution's scale on
+    /// the inductance).
+    pub uncalibrated_conditions: Conditions,
+    /// What the field solution did to the figures.
+    pub field: FieldBasis,
     /// The fit of the bench readings (`None` when there are none).
     pub fit: Option<Result<Fit, FitError>>,
     /// The straight line of 1/f² against external capacitance through the readings at the
@@ -51,21 +72,52 @@ impl Figures {
     }
 }
 
-/// Every figure of `recipe`, or the refusal naming the field at fault.
+/// Every figure of `recipe`, with the field solution of its coil solved here (the headless
+/// commands and the build sheet; the window hands its worker's answer to [`figures_with`]),
+/// or the refusal naming the field at fault. A field solution that fails leaves the
+/// classical model leading, with the reason in [`Figures::field`].
 pub fn figures(recipe: &Recipe) -> Result<Figures, InputError> {
-    let uncalibrated = evaluate(&recipe.winding, &recipe.tank, &recipe.conditions)?;
-    let coil = uncalibrated.coil;
+    let classical = evaluate(&recipe.winding, &recipe.tank, &recipe.conditions)?;
+    let solved = field_tank(
+        &classical.coil,
+        recipe.tank.external_capacitance(),
+        &recipe.conditions,
+    );
+    assemble(recipe, classical, FieldInput::Solved(solved))
+}
+
+/// Every figure of `recipe` with the field solution as given, or the refusal naming the
+/// field at fault.
+pub fn figures_with(recipe: &Recipe, field: FieldInput) -> Result<Figures, InputError> {
+    let classical = evaluate(&recipe.winding, &recipe.tank, &recipe.conditions)?;
+    assemble(recipe, classical, field)
+}
+
+/// The figures on the classical analysis of a valid recipe.
+fn assemble(
+    recipe: &Recipe,
+    classical: Analysis,
+    field: FieldInput,
+) -> Result<Figures, InputError> {
+    let coil = classical.coil;
+    let external = recipe.tank.external_capacitance();
+    let basis = FieldBasis::of(&coil, external, &recipe.conditions, field);
+    let base = basis.conditions(&recipe.conditions);
+    let uncalibrated = if basis.scale() == 1.0 {
+        classical.clone()
+    } else {
+        evaluate(&recipe.winding, &recipe.tank, &base)?
+    };
     let readings = recipe.readings();
-    let fit =
-        (!readings.is_empty()).then(|| fit(&coil, &recipe.tank, &recipe.conditions, &readings));
+    let fit = (!readings.is_empty()).then(|| fit(&coil, &recipe.tank, &base, &readings));
     let (tank, conditions, analysis) = match &fit {
         Some(Ok(f)) => {
             let tank = f.calibration.tank(&recipe.tank);
-            let conditions = f.calibration.conditions(&recipe.conditions);
+            let conditions = f.calibration.conditions(&base);
             let analysis = evaluate_coil(&coil, tank.external_capacitance(), &conditions);
             (tank, conditions, analysis)
         }
-        _ => (recipe.tank, recipe.conditions, uncalibrated.clone()),
+        _ => (recipe.tank, base, uncalibrated.clone()),
     };
     let target = target_figures(
         &coil,
@@ -78,14 +130,17 @@ pub fn figures(recipe: &Recipe) -> Result<Figures, InputError> {
     let line = inverse_square_line(&recipe.tank, &readings);
     let aim = Aim::new(recipe.target.plan.clone(), Some(recipe.target.channel))
         .with_tolerance(recipe.target.tolerance());
-    let verdict = judge(&coil, &tank, &conditions, &aim);
+    let verdict = judge(&coil, &tank, &conditions, &aim).with_advice(target.advice.clone());
     Ok(Figures {
         line,
         coil,
         tank,
         conditions,
         analysis,
+        classical,
         uncalibrated,
+        uncalibrated_conditions: base,
+        field: basis,
         fit,
         target,
         verdict,

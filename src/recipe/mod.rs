@@ -20,10 +20,11 @@ pub mod rules;
 pub mod schema;
 pub mod store;
 
+pub use crate::tuning::field_tank::{FieldBasis, FieldInput};
 pub use demos::demos;
 pub use document::{BenchEntry, Recipe, StraySettings, Target};
 pub use expectation::{Expectation, expectation};
-pub use figures::{Figures, figures};
+pub use figures::{Figures, figures, figures_with};
 pub use format::Opened;
 pub use load::{LoadError, LoadErrorKind};
 pub use store::{SaveError, load, open, save};

@@ -9,7 +9,7 @@
 //! f = 1/(2π√(L_app(f)·C)) with L_app = X/ω. The self-capacitance is then not added again.
 //! The window and the headless commands both call [`field_tank`] and [`leading`].
 
-use crate::model::{Analysis, Coil, Conditions, wire_coil};
+use crate::model::{Coil, Conditions, wire_coil};
 use crate::physics::field::{Feed, FieldError, FieldModel};
 use std::f64::consts::PI;
 
@@ -186,66 +186,156 @@ pub fn field_tank(
     })
 }
 
-/// Which inductance drives the tank's resonance.
-#[derive(Clone, Copy, Debug, PartialEq, Eq)]
-pub enum InductanceSource {
-    /// The field solution's X/ω, solved at the resonance it gives.
-    FieldSolved,
-    /// The classical engine: the driving model's inductance with Medhurst's self-capacitance.
-    Classical,
-}
+/// Largest relative step the matching scale may still be taking when it is accepted.
+const SCALE_TOLERANCE: f64 = 1e-12;
 
-impl InductanceSource {
-    /// Name in the JSON (`resonance_source`).
-    pub fn json_name(self) -> &'static str {
-        match self {
-            InductanceSource::FieldSolved => "field_solved",
-            InductanceSource::Classical => "classical",
+/// The factor on the classical model's inductance that brings the model's resonance of
+/// `coil` across `external_capacitance` onto `target` hertz (the field-solved resonance of the
+/// same tank), relative to `conditions.inductance_scale`; `None` when no scale in the engine's
+/// accepted range (0.5–2 overall) does it.
+///
+/// # Method
+/// The classical resonance is f(s) = 1/(2π√(s·L(f)·(C + C_self))), where only the wire's
+/// internal inductance in L depends (weakly) on f. So f ∝ s^(−1/2) almost exactly, and the
+/// step s ← s·(f(s)/target)² is Newton's step on ln f against ln s with the slope −½; it lands
+/// within [`SCALE_TOLERANCE`] in two or three steps (at most 20 are taken).
+///
+/// Why a scale on the inductance: the field solution's X/ω holds the coil's own capacitance and
+/// the propagation along the wire; the classical model holds them as Medhurst's capacitance
+/// beside a quasi-static inductance. A factor on that inductance, solved at the present coil,
+/// moves the model onto the field solution there and keeps the model's shape (how the
+/// resonance moves with length and trimmer) for the charts and the advice, the same way a
+/// bench calibration's inductance scale does ([`crate::tuning::fit`]).
+pub fn matching_scale(
+    coil: &Coil,
+    external_capacitance: f64,
+    conditions: &Conditions,
+    target: f64,
+) -> Option<f64> {
+    if !(target.is_finite() && target > 0.0) {
+        return None;
+    }
+    let base = conditions.inductance_scale;
+    let mut s = 1.0_f64;
+    for _ in 0..20 {
+        let at = Conditions {
+            inductance_scale: base * s,
+            ..*conditions
+        };
+        let f = crate::model::evaluate::resonance_of(coil, external_capacitance, &at);
+        if !(f.is_finite() && f > 0.0) {
+            return None;
+        }
+        let next = s * (f / target).powi(2);
+        let overall = base * next;
+        if !(0.5..=2.0).contains(&overall) {
+            return None;
+        }
+        let settled = ((next - s) / s).abs() <= SCALE_TOLERANCE;
+        s = next;
+        if settled {
+            return Some(s);
         }
     }
+    None
 }
 
-/// The tank's resonance as shown and reported.
+/// The field solution handed to [`crate::recipe::figures_with`] and the headless `evaluate`.
 #[derive(Clone, Debug, PartialEq)]
-pub struct Leading {
-    /// Resonance, hertz.
-    pub resonance: f64,
-    /// Apparent inductance at it, henries.
-    pub apparent_inductance: f64,
-    /// Where both come from.
-    pub source: InductanceSource,
-    /// Why the classical figure leads, when it does.
-    pub why_classical: Option<String>,
+pub enum FieldInput {
+    /// Solved for this recipe's coil, external capacitance and conditions (what
+    /// [`field_tank`] returns for them).
+    Solved(Result<FieldTank, FieldError>),
+    /// No solution for this recipe yet: hold this scale, solved for an earlier coil (the
+    /// window, while its worker solves the present one, so the figures do not jump back to the
+    /// classical model on every step of a drag).
+    Held(f64),
+    /// No field solution: the classical model leads, for the reason given.
+    Unsolved(String),
 }
 
-/// The figure that leads: the field-solved tank when there is one, else the classical
-/// analysis with the reason.
-///
-/// A model calibrated on bench readings (an inductance scale or extra capacitance fitted to
-/// the classical model; `calibrated`) keeps the classical figure: the readings hold it, and the
-/// fit's corrections belong to that model.
-pub fn leading(
-    analysis: &Analysis,
-    field: Option<&Result<FieldTank, FieldError>>,
-    calibrated: bool,
-) -> Leading {
-    let classical = |why: String| Leading {
-        resonance: analysis.resonance,
-        apparent_inductance: analysis.apparent_inductance,
-        source: InductanceSource::Classical,
-        why_classical: Some(why),
-    };
-    if calibrated {
-        return classical("calibrated on the bench readings".to_owned());
+/// What the field solution did to the figures.
+#[derive(Clone, Debug, PartialEq)]
+pub enum FieldBasis {
+    /// The model's inductance is scaled by `scale` so that it meets `tank.resonance`, the
+    /// field-solved resonance of this recipe's tank.
+    Solved {
+        /// The field-solved tank.
+        tank: FieldTank,
+        /// The factor on the classical model's inductance.
+        scale: f64,
+    },
+    /// An earlier coil's scale, held while this coil is being solved.
+    Held {
+        /// The factor on the classical model's inductance.
+        scale: f64,
+    },
+    /// The classical model as it stands.
+    Classical {
+        /// Why the field solution is not applied.
+        why: String,
+    },
+}
+
+impl FieldBasis {
+    /// What `field` does to the model of `coil` across `external_capacitance` farads under
+    /// `conditions`: for a solution of this tank, the [`matching_scale`] that brings the model
+    /// onto it (the classical model with the reason when no scale in range does).
+    pub fn of(
+        coil: &Coil,
+        external_capacitance: f64,
+        conditions: &Conditions,
+        field: FieldInput,
+    ) -> Self {
+        match field {
+            FieldInput::Solved(Ok(tank)) => {
+                match matching_scale(coil, external_capacitance, conditions, tank.resonance) {
+                    Some(scale) => FieldBasis::Solved { tank, scale },
+                    None => FieldBasis::Classical {
+                        why: format!(
+                            "the field-solved resonance ({:.3} MHz) is further from the \
+                             model's than an inductance factor of 0.5–2 explains",
+                            tank.resonance * 1e-6
+                        ),
+                    },
+                }
+            }
+            FieldInput::Solved(Err(e)) => FieldBasis::Classical { why: e.to_string() },
+            FieldInput::Held(scale) => FieldBasis::Held { scale },
+            FieldInput::Unsolved(why) => FieldBasis::Classical { why },
+        }
     }
-    match field {
-        Some(Ok(f)) => Leading {
-            resonance: f.resonance,
-            apparent_inductance: f.apparent_inductance,
-            source: InductanceSource::FieldSolved,
-            why_classical: None,
-        },
-        Some(Err(e)) => classical(e.to_string()),
-        None => classical("field solution not yet available".to_owned()),
+
+    /// `conditions` with this basis's factor on the inductance.
+    pub fn conditions(&self, conditions: &Conditions) -> Conditions {
+        Conditions {
+            inductance_scale: conditions.inductance_scale * self.scale(),
+            ..*conditions
+        }
+    }
+
+    /// The factor on the classical model's inductance (1 for the classical model).
+    pub fn scale(&self) -> f64 {
+        match self {
+            FieldBasis::Solved { scale, .. } | FieldBasis::Held { scale } => *scale,
+            FieldBasis::Classical { .. } => 1.0,
+        }
+    }
+
+    /// The field-solved tank, when it is this recipe's.
+    pub fn tank(&self) -> Option<&FieldTank> {
+        match self {
+            FieldBasis::Solved { tank, .. } => Some(tank),
+            _ => None,
+        }
+    }
+
+    /// Name in the JSON (`resonance_source`): `field_solved`, `held` or `classical`.
+    pub fn json_name(&self) -> &'static str {
+        match self {
+            FieldBasis::Solved { .. } => "field_solved",
+            FieldBasis::Held { .. } => "held",
+            FieldBasis::Classical { .. } => "classical",
+        }
     }
 }

@@ -181,6 +181,9 @@ pub struct Verdict {
     pub image: Option<ReceiverImage>,
     /// Safety and buildability flags, most serious first.
     pub flags: Vec<Flag>,
+    /// The one instruction that lands the target, when the caller has it (see
+    /// [`Verdict::with_advice`]): the channel's next step then says exactly what to do.
+    pub advice: Option<crate::tuning::advice::Advice>,
 }
 
 impl Verdict {
@@ -230,9 +233,23 @@ impl Verdict {
         }
     }
 
-    /// What to do next, the most pressing first: touching bare turns, the aeronautical band,
-    /// leaving the band, a narrow gap, the band's edge, then the channel.
+    /// The same verdict with the instruction that lands the target (from
+    /// [`crate::tuning::advice::advise`] on the same coil, tank and conditions), so the
+    /// channel's next step is that instruction rather than a direction.
+    pub fn with_advice(mut self, advice: crate::tuning::advice::Advice) -> Self {
+        self.advice = Some(advice);
+        self
+    }
+
+    /// What to do next, lengths in millimetres (see [`next_step_in`](Self::next_step_in)).
     pub fn next_step(&self) -> String {
+        self.next_step_in(|m| format!("{:.2} mm", m * 1e3))
+    }
+
+    /// What to do next, the most pressing first: touching bare turns, the aeronautical band,
+    /// leaving the band, a narrow gap, the band's edge, then the channel: off channel, the
+    /// advice when there is one (lengths shown by `show`), else the direction to move.
+    pub fn next_step_in(&self, show: impl Fn(f64) -> String) -> String {
         let band = self.band.map_or("band", |b| b.name);
         if self.has(FlagKind::BareTurns) {
             return "Space the bare turns apart before anything else: touching turns short each \
@@ -258,6 +275,16 @@ impl Verdict {
                 "Move the trimmer's travel away from the edge of the {band}: a warming \
                  oscillator drifts"
             );
+        }
+        if self.on_channel == Some(false)
+            && let Some(advice) = &self.advice
+        {
+            let text = advice.text(show);
+            let mut chars = text.chars();
+            return chars
+                .next()
+                .map(|c| c.to_uppercase().chain(chars).collect())
+                .unwrap_or(text);
         }
         match (self.on_channel, self.offset) {
             (Some(true), _) => {
@@ -333,6 +360,7 @@ pub fn judge(coil: &Coil, tank: &Tank, conditions: &Conditions, aim: &Aim) -> Ve
             .filter(|b| b.service == Service::FmBroadcast)
             .map(|b| receiver_image(resonance, &b)),
         flags,
+        advice: None,
     }
 }
 

@@ -1,11 +1,12 @@
 //! The application: the recipe being edited, what is shown of it, and the frame loop.
 
 use crate::model::Analysis;
+use crate::recipe::FieldInput;
 use crate::recipe::Recipe;
 use crate::ui::bench_log::{BenchLogAction, BenchLogPanel};
 use crate::ui::cautions;
 use crate::ui::charts::modulation::{ModulationSweeps, modulation_charts};
-use crate::ui::evaluation::Evaluation;
+use crate::ui::evaluation::{Evaluation, FIELD_PENDING, FieldState};
 use crate::ui::field_worker::FieldRequest;
 use crate::ui::files::{FileAction, FileDesk, FileDeskMemory, Notice};
 use crate::ui::panels::tank::TankPanel;
@@ -140,7 +141,7 @@ impl App {
     pub fn with_recipe(recipe: Recipe) -> Self {
         let files = FileDesk::new(FileDeskMemory::default(), &recipe);
         Self {
-            evaluation: Evaluation::new(&recipe),
+            evaluation: Evaluation::new(&recipe, FieldInput::Unsolved(FIELD_PENDING.to_owned())),
             field: Default::default(),
             recipe,
             preferences: Preferences::default(),
@@ -174,7 +175,7 @@ impl App {
     /// figures are those of the new recipe (nothing of the old one is shown as "last good").
     pub fn set_document(&mut self, recipe: Recipe) {
         self.files.mark_opened(None, &recipe);
-        self.evaluation = Evaluation::new(&recipe);
+        self.evaluation = Evaluation::new(&recipe, FieldInput::Unsolved(FIELD_PENDING.to_owned()));
         self.recipe = recipe;
         self.history = History::default();
         self.bench_log.reset();
@@ -241,6 +242,13 @@ impl App {
         self.files.title(&self.recipe)
     }
 
+    /// The same window with the field solution switched on or off (the View menu's entry;
+    /// tests that compare the screen with the classical model switch it off).
+    pub fn with_field_solution(mut self, on: bool) -> Self {
+        self.preferences.field_solution = on;
+        self
+    }
+
     /// The view preferences.
     pub fn preferences(&self) -> Preferences {
         self.preferences
@@ -268,8 +276,7 @@ impl App {
             ctx.send_viewport_cmd(egui::ViewportCommand::Title(title.clone()));
             self.shown_title = title;
         }
-        self.evaluation.refresh(&self.recipe);
-        self.ask_field_solution(&ctx);
+        self.refresh_figures(&ctx);
         self.teaching.update(&ctx, &self.recipe, &self.evaluation);
         if self.teaching.presentation() {
             crate::ui::teaching::presentation::enlarge(ui.style_mut());
@@ -307,25 +314,30 @@ impl App {
             ctx.request_repaint_after_secs(UNDO_SETTLE_SECONDS);
         }
         // A change made this frame is computed now and shown on the next.
-        if self.evaluation.refresh(&self.recipe) {
+        if self.refresh_figures(&ctx) {
             ctx.request_repaint();
         }
-        self.ask_field_solution(&ctx);
         self.teaching.settle(&ctx, &self.recipe, &self.evaluation);
         self.recovery_ui(&ctx);
         self.keep();
     }
 
-    /// Hand the present coil to the field worker (a no-op when it has not changed) and take
-    /// its answer if one has come.
-    fn ask_field_solution(&mut self, ctx: &egui::Context) {
-        let request = self.evaluation.current().ok().map(|f| FieldRequest {
-            coil: f.coil,
-            external_capacitance: f.uncalibrated.external_capacitance,
-            conditions: self.recipe.conditions,
-        });
+    /// Hand the present coil to the field worker (a no-op when it has not changed; nothing
+    /// while the field solution is switched off or the recipe is refused), take its answer if
+    /// one has come, and bring the figures up to the recipe and the answer; true if they
+    /// changed.
+    fn refresh_figures(&mut self, ctx: &egui::Context) -> bool {
+        let on = self.preferences.field_solution;
+        let request = on.then(|| field_request(&self.recipe)).flatten();
         self.field.ask(request, ctx);
         self.field.poll();
+        let state = match (on, self.field.ready()) {
+            (false, _) => FieldState::Off,
+            (true, Some(answer)) => FieldState::Ready(&answer.tank),
+            (true, None) => FieldState::Pending,
+        };
+        let input = self.evaluation.field_input(state);
+        self.evaluation.refresh(&self.recipe, input)
     }
 
     /// The field solution of the present coil, once the worker has it.
@@ -402,7 +414,7 @@ impl App {
     /// Replace the document with one the file desk opened or made (it keeps its own record of
     /// the file): the history starts afresh.
     fn replace_document(&mut self, recipe: Recipe) {
-        self.evaluation = Evaluation::new(&recipe);
+        self.evaluation = Evaluation::new(&recipe, FieldInput::Unsolved(FIELD_PENDING.to_owned()));
         self.recipe = recipe;
         self.history = History::default();
         self.bench_log.reset();
@@ -432,6 +444,7 @@ impl App {
             can_redo: history.can_redo(recipe),
             unit,
             theme: preferences.theme,
+            field_solution: preferences.field_solution,
         };
         egui::Panel::top("top_bar").show(ui, |ui| {
             top_bar::show(
@@ -543,10 +556,10 @@ impl App {
             .show_collapsible(ui, &mut right_open, |ui| {
                 // Wrap, never scroll sideways: every line fits the column's width.
                 egui::ScrollArea::vertical().show(ui, |ui| {
-                    verdict::show(ui, evaluation);
+                    verdict::show(ui, evaluation, unit);
                     ui.add_space(8.0);
                     let tall = ui.ctx().content_rect().height() >= READOUTS_OPEN_HEIGHT;
-                    readouts::show(ui, evaluation, unit, tall, field);
+                    readouts::show(ui, evaluation, unit, tall);
                     ui.add_space(8.0);
                     egui::CollapsingHeader::new("Impedance of the coil")
                         .default_open(false)
@@ -635,6 +648,7 @@ impl App {
             Command::OpenCautions => self.cautions_open = true,
             Command::ToggleTheme => self.preferences.theme = self.preferences.theme.toggled(),
             Command::SetUnit(unit) => self.preferences.unit = unit,
+            Command::SetFieldSolution(on) => self.preferences.field_solution = on,
         }
     }
 }
@@ -687,4 +701,17 @@ fn recipe_header(ui: &mut egui::Ui, recipe: &mut Recipe) {
             )
             .on_hover_text("Notes");
         });
+}
+
+/// What the field worker is asked to solve for `recipe` (`None` when its coil or tank is
+/// refused): the coil, everything across it but its own capacitance, and the conditions as
+/// written (the field solution knows nothing of the bench readings).
+fn field_request(recipe: &Recipe) -> Option<FieldRequest> {
+    let coil = crate::model::Coil::from_winding(&recipe.winding).ok()?;
+    recipe.tank.validate().ok()?;
+    Some(FieldRequest {
+        coil,
+        external_capacitance: recipe.tank.external_capacitance(),
+        conditions: recipe.conditions,
+    })
 }

@@ -1,17 +1,26 @@
 //! What the window shows, computed from the recipe only when the recipe changes.
 //!
-//! The engine does the work ([`crate::recipe::figures()`], [`crate::recipe::expectation()`],
-//! `tuning::sweep`); this is the one place that keeps its answers between frames — the figures
-//! (calibrated once there are bench readings), the target figures, the advice, the charts'
+//! The engine does the work ([`crate::recipe::figures_with()`],
+//! [`crate::recipe::expectation()`], `tuning::sweep`); this is the one place that keeps its
+//! answers between frames — the figures (on the field solution once the worker has it,
+//! calibrated once there are bench readings), the target figures, the advice, the charts'
 //! sweeps and the spread band around the present curve — so an idle frame computes
 //! nothing, and the sweeps are always those of the figures shown (the same coil, tank and
 //! conditions).
+//!
+//! The field solution arrives from a worker thread ([`crate::ui::field_worker`]) some
+//! milliseconds after each change. Until it does, the factor it put on the model's inductance
+//! for the coil before is held ([`FieldInput::Held`]), so a drag does not flick between the
+//! classical model and the field solution on every step; the answer then replaces it.
 
 use crate::model::InputError;
+use crate::physics::field::FieldError;
 use crate::recipe::{
-    BenchEntry, Expectation, Figures, Recipe, StraySettings, Target, expectation, figures,
+    BenchEntry, Expectation, FieldBasis, FieldInput, Figures, Recipe, StraySettings, Target,
+    expectation, figures_with,
 };
 use crate::tuning::BandPlan;
+use crate::tuning::field_tank::FieldTank;
 use crate::ui::charts::ChartCache;
 use crate::ui::charts::modulation::ModulationSweeps;
 
@@ -24,11 +33,29 @@ struct Inputs {
     target: Target,
     bench_log: Vec<BenchEntry>,
     stray: StraySettings,
+    field: FieldInput,
 }
 
+/// Where the window's field solution stands for the present recipe.
+#[derive(Clone, Copy, Debug)]
+pub enum FieldState<'a> {
+    /// Switched off: the classical model leads.
+    Off,
+    /// Asked for and not yet answered (or nothing to ask: the recipe is refused).
+    Pending,
+    /// The worker's answer for the present coil, tank capacitance and conditions.
+    Ready(&'a Result<FieldTank, FieldError>),
+}
+
+/// Why the classical model leads while the field solution is switched off.
+pub const FIELD_OFF: &str = "the field solution is switched off in the View menu";
+/// Why the classical model leads while the first field solution is computed.
+pub const FIELD_PENDING: &str = "the field solution is being computed";
+
 impl Inputs {
-    fn of(recipe: &Recipe) -> Self {
+    fn of(recipe: &Recipe, field: FieldInput) -> Self {
         Self {
+            field,
             winding: recipe.winding,
             tank: recipe.tank,
             conditions: recipe.conditions,
@@ -39,8 +66,9 @@ impl Inputs {
     }
 
     /// Same inputs as `recipe`'s, compared without cloning.
-    fn is_of(&self, recipe: &Recipe) -> bool {
-        self.winding == recipe.winding
+    fn is_of(&self, recipe: &Recipe, field: &FieldInput) -> bool {
+        self.field == *field
+            && self.winding == recipe.winding
             && self.tank == recipe.tank
             && self.conditions == recipe.conditions
             && self.target == recipe.target
@@ -63,11 +91,11 @@ pub struct Evaluation {
 }
 
 impl Evaluation {
-    /// The evaluation of `recipe`.
-    pub fn new(recipe: &Recipe) -> Self {
-        let inputs = Inputs::of(recipe);
+    /// The evaluation of `recipe` with `field` (the window's first frame: pending).
+    pub fn new(recipe: &Recipe, field: FieldInput) -> Self {
+        let inputs = Inputs::of(recipe, field.clone());
         let mut evaluation = Self {
-            current: figures(recipe),
+            current: figures_with(recipe, field),
             inputs,
             last_good: None,
             plan: recipe.target.plan.clone(),
@@ -108,24 +136,40 @@ impl Evaluation {
                 self.uncalibrated_sweeps.refresh(
                     &f.coil,
                     &self.inputs.tank,
-                    &self.inputs.conditions,
+                    &f.uncalibrated_conditions,
                 );
             }
         }
     }
 
-    /// Recompute if the recipe's coil, tank, conditions, target or readings changed; true if
-    /// it did.
-    pub fn refresh(&mut self, recipe: &Recipe) -> bool {
+    /// What the figures take from the field solution in `state`: the worker's answer when it
+    /// has one; while it is pending, the factor the figures shown already carry (held); the
+    /// classical model while there is none or it is switched off.
+    pub fn field_input(&self, state: FieldState<'_>) -> FieldInput {
+        match state {
+            FieldState::Off => FieldInput::Unsolved(FIELD_OFF.to_owned()),
+            FieldState::Ready(answer) => FieldInput::Solved(answer.clone()),
+            FieldState::Pending => match self.latest().map(|f| &f.field) {
+                Some(FieldBasis::Solved { scale, .. } | FieldBasis::Held { scale }) => {
+                    FieldInput::Held(*scale)
+                }
+                _ => FieldInput::Unsolved(FIELD_PENDING.to_owned()),
+            },
+        }
+    }
+
+    /// Recompute if the recipe's coil, tank, conditions, target or readings changed, or what
+    /// the field solution gives (see [`field_input`](Self::field_input)); true if it did.
+    pub fn refresh(&mut self, recipe: &Recipe, field: FieldInput) -> bool {
         if self.plan != recipe.target.plan {
             self.channels = recipe.target.plan.channels();
             self.plan = recipe.target.plan.clone();
         }
-        if self.inputs.is_of(recipe) {
+        if self.inputs.is_of(recipe, &field) {
             return false;
         }
-        let inputs = Inputs::of(recipe);
-        let next = figures(recipe);
+        let inputs = Inputs::of(recipe, field.clone());
+        let next = figures_with(recipe, field);
         let previous = std::mem::replace(&mut self.current, next);
         match (&self.current, previous) {
             (Ok(_), _) => self.last_good = None,

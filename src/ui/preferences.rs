@@ -7,7 +7,7 @@ use crate::ui::units::LengthUnit;
 pub const PREFERENCES_KEY: &str = "tankwright.view";
 
 /// How the window shows things (kept between sessions).
-#[derive(Clone, Copy, Debug, Default, PartialEq, serde::Serialize, serde::Deserialize)]
+#[derive(Clone, Copy, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
 #[serde(default)]
 pub struct Preferences {
     /// Lengths in millimetres or inches.
@@ -15,6 +15,19 @@ pub struct Preferences {
     pub unit: LengthUnit,
     /// Light or dark.
     pub theme: Theme,
+    /// Whether the field solution of the coil leads the resonance (on by default; off, the
+    /// classical model leads and no worker runs).
+    pub field_solution: bool,
+}
+
+impl Default for Preferences {
+    fn default() -> Self {
+        Self {
+            unit: LengthUnit::default(),
+            theme: Theme::default(),
+            field_solution: true,
+        }
+    }
 }
 
 /// `LengthUnit` lives in `units.rs` without serde; stored here as a short name.
@@ -45,11 +58,16 @@ mod tests {
         let chosen = Preferences {
             unit: LengthUnit::Inches,
             theme: Theme::Light,
+            field_solution: false,
         };
         let text = ron::to_string(&chosen).expect("serialise");
         assert_eq!(ron::from_str::<Preferences>(&text), Ok(chosen));
         let older: Preferences = ron::from_str("(theme: Light)").expect("parse");
         assert_eq!(older.unit, LengthUnit::Millimetres);
         assert_eq!(older.theme, Theme::Light);
+        assert!(
+            older.field_solution,
+            "the field solution is on unless switched off"
+        );
     }
 }

@@ -7,8 +7,7 @@
 //! from the worker ([`crate::ui::field_worker`]); the classical curve is
 //! [`crate::tuning::impedance::classical_impedance`] at the same frequencies.
 
-use crate::recipe::Figures;
-use crate::tuning::field_tank::{InductanceSource, leading};
+use crate::recipe::{FieldBasis, Figures};
 use crate::tuning::impedance::{DEFAULT_FROM, PAST_RESONANCE, classical_impedance};
 use crate::ui::field_worker::FieldWorker;
 use eframe::egui::{self, Color32, RichText};
@@ -104,16 +103,62 @@ fn log_points(frequencies: &[f64], value: impl Fn(usize) -> f64) -> PlotPoints<'
         .collect()
 }
 
-/// The section: a line saying what is drawn, the ohms chart and the Q chart.
+/// The classical curve at `frequencies`, kept in the window's memory until the classical
+/// model or the frequencies change, so an idle frame with the fold open computes nothing.
+#[derive(Clone)]
+struct ClassicalCurve {
+    /// The model's figures and frequencies it was computed for.
+    key: Vec<f64>,
+    impedance: Vec<Complex64>,
+}
+
+fn classical_curve(
+    ui: &egui::Ui,
+    a: &crate::model::Analysis,
+    frequencies: &[f64],
+) -> Vec<Complex64> {
+    let id = egui::Id::unique("tankwright classical impedance");
+    let mut key = vec![
+        a.total_inductance,
+        a.self_capacitance,
+        a.dc_resistance,
+        a.ac_resistance,
+        a.resonance,
+        a.coil.length(),
+    ];
+    key.extend_from_slice(frequencies);
+    if let Some(kept) = ui.data(|d| d.get_temp::<ClassicalCurve>(id))
+        && kept.key == key
+    {
+        return kept.impedance;
+    }
+    let impedance: Vec<Complex64> = frequencies
+        .iter()
+        .map(|&f| classical_impedance(a, f))
+        .collect();
+    ui.data_mut(|d| {
+        d.insert_temp(
+            id,
+            ClassicalCurve {
+                key,
+                impedance: impedance.clone(),
+            },
+        );
+    });
+    impedance
+}
+
+/// The section: a line saying what is drawn, the ohms chart and the Q chart. The classical
+/// curve is the classical model alone ([`Figures::classical`]); the operating frequency is
+/// the resonance that drives the figures (field-solved when the field solution leads).
 pub fn impedance_section(ui: &mut egui::Ui, figures: Option<&Figures>, field: &FieldWorker) {
     let Some(figures) = figures else {
         ui.label("No coil: the input is refused (see the readouts).");
         return;
     };
-    let a = &figures.analysis;
+    let a = &figures.classical;
     let result = field.ready();
     let sweep = result.and_then(|r| r.sweep.as_ref().ok());
-    let lead = leading(a, result.map(|r| &r.tank), figures.calibrated());
     let status = match (result, sweep) {
         (Some(_), Some(s)) => format!(
             "Field solution ({} segments) solid, classical estimate dashed.",
@@ -141,17 +186,16 @@ pub fn impedance_section(ui: &mut egui::Ui, figures: Option<&Figures>, field: &F
                 .collect()
         }
     };
-    let classical: Vec<Complex64> = frequencies
-        .iter()
-        .map(|&f| classical_impedance(a, f))
-        .collect();
+    let classical = classical_curve(ui, a, &frequencies);
     let field_z: Option<Vec<Complex64>> =
         sweep.map(|s| s.points.iter().map(|p| p.impedance).collect());
 
-    let operating = (lead.resonance * 1e-6).log10();
-    let operating_name = match lead.source {
-        InductanceSource::FieldSolved => "operating frequency (field-solved)",
-        InductanceSource::Classical => "operating frequency (estimate)",
+    let operating = (figures.analysis.resonance * 1e-6).log10();
+    let operating_name = match (&figures.field, figures.calibrated()) {
+        (_, true) => "operating frequency (calibrated)",
+        (FieldBasis::Solved { .. }, false) => "operating frequency (field-solved)",
+        (FieldBasis::Held { .. }, false) => "operating frequency (updating)",
+        (FieldBasis::Classical { .. }, false) => "operating frequency (classical model)",
     };
     let field_srf = result
         .and_then(|r| r.tank.as_ref().ok())

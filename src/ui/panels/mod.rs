@@ -37,6 +37,8 @@ pub enum Command {
     ToggleTheme,
     /// Show lengths in this unit.
     SetUnit(LengthUnit),
+    /// Let the field solution lead the resonance (true) or the classical model (false).
+    SetFieldSolution(bool),
 }
 
 /// A length control in the user's unit: `range_mm` and `step_mm` are in millimetres and

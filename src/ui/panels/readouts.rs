@@ -3,11 +3,10 @@
 
 use super::{heading, model_dots};
 use crate::model::{InputError, WarningTopic};
+use crate::recipe::{FieldBasis, Figures};
 use crate::tuning::apparent::apparent_inductance;
 use crate::tuning::digits;
-use crate::tuning::field_tank::{InductanceSource, leading};
-use crate::ui::evaluation::Evaluation;
-use crate::ui::field_worker::FieldWorker;
+use crate::ui::evaluation::{Evaluation, FIELD_OFF, FIELD_PENDING};
 use crate::ui::theme;
 use crate::ui::units::{LengthUnit, nh, pf};
 use crate::ui::widgets::{Readout, caution_mark, cautions_line};
@@ -26,32 +25,38 @@ fn show_pf(farads: f64) -> String {
 /// Heading of the readouts (and the name of their fold).
 pub const READOUTS_HEADING: &str = "Readouts";
 
-/// Name of the readout with the field-solved resonance, shown beside the model's.
+/// Name of the readout that leads: the resonance that drives every figure.
+pub const RESONANCE: &str = "Resonance";
+/// Name of the readout with the field-solved resonance, shown when it does not lead.
 pub const FIELD_RESONANCE: &str = "Resonance, field-solved";
-/// What that readout shows while the field solution is being computed.
+/// Name of the readout with the classical model's resonance, shown when it does not lead.
+pub const CLASSICAL_RESONANCE: &str = "Resonance, classical model";
+/// What the field-solved readout shows while the field solution is being computed.
 pub const BEING_COMPUTED: &str = "being computed";
+/// What the field-solved readout shows while the field solution is switched off.
+pub const SWITCHED_OFF: &str = "switched off";
 /// Word after the resonance when the model is calibrated on bench readings.
 pub const CALIBRATED: &str = "calibrated";
-/// Word after the resonance when it is the model's, not yet calibrated.
+/// Word after the resonance when the field solution sets it.
+pub const FIELD_SOLVED: &str = "field-solved";
+/// Word after the resonance while the field solution of a changed coil is computed (the
+/// factor found for the coil before is held).
+pub const UPDATING: &str = "updating";
+/// Word after the resonance when it is the classical model's alone.
 pub const MODEL: &str = "model";
 
 /// Show the readouts for the present recipe under a fold (open to begin with when `open`),
-/// or, never folded, why the recipe was refused. The resonance is the model's (calibrated once
-/// there are bench readings): the one the verdict, the charts and the advice use; the field
-/// solution's is shown beside it once `field` has it, with the difference.
-pub fn show(
-    ui: &mut egui::Ui,
-    evaluation: &Evaluation,
-    unit: LengthUnit,
-    open: bool,
-    field: &FieldWorker,
-) {
+/// or, never folded, why the recipe was refused. The resonance that leads is the one the
+/// verdict, the charts and the advice use: field-solved when the field solution is there,
+/// calibrated once there are bench readings, the classical model's otherwise; the others are
+/// shown beneath it with their difference from it.
+pub fn show(ui: &mut egui::Ui, evaluation: &Evaluation, unit: LengthUnit, open: bool) {
     match evaluation.current() {
         Ok(figures) => {
             egui::CollapsingHeader::new(RichText::new(READOUTS_HEADING).heading())
                 .id_salt("readouts")
                 .default_open(open)
-                .show(ui, |ui| figures_rows(ui, figures, unit, field));
+                .show(ui, |ui| figures_rows(ui, figures, unit));
         }
         Err(error) => {
             heading(ui, READOUTS_HEADING);
@@ -90,69 +95,101 @@ fn refusal(ui: &mut egui::Ui, error: &InputError) {
         });
 }
 
-fn figures_rows(
-    ui: &mut egui::Ui,
-    figures: &crate::recipe::Figures,
-    unit: LengthUnit,
-    field: &FieldWorker,
-) {
-    let a = &figures.analysis;
-    let solved = field.ready().map(|r| &r.tank);
-    let (word, how) = if figures.calibrated() {
-        (
+/// The word after the resonance and what it means.
+fn lead_mark(figures: &Figures) -> (&'static str, String) {
+    if figures.calibrated() {
+        return (
             CALIBRATED,
             format!(
                 "The model calibrated on {} bench reading(s): the fitted stray and inductance \
-                 scale applied",
+                 factor applied",
                 figures.readings_used()
             ),
-        )
-    } else {
-        (
+        );
+    }
+    match &figures.field {
+        FieldBasis::Solved { tank, scale } => (
+            FIELD_SOLVED,
+            format!(
+                "The coil solved from its own currents (thin-wire method of moments, with its \
+                 leads and the path beneath it): the tank resonates where the terminal \
+                 reactance X meets the capacitance, f = 1/(2π√((X/ω)·C)), with X/ω = {} there. \
+                 The model's inductance × {scale:.4} meets it, so the charts and the advice \
+                 follow it. Record a bench reading to calibrate",
+                show_nh(tank.apparent_inductance)
+            ),
+        ),
+        FieldBasis::Held { scale } => (
+            UPDATING,
+            format!(
+                "The coil changed: its field solution is being computed; meanwhile the factor \
+                 × {scale:.4} found for the coil before is held on the model's inductance"
+            ),
+        ),
+        FieldBasis::Classical { why } => (
             MODEL,
-            "Not yet calibrated: record a bench reading to correct it".to_owned(),
-        )
-    };
+            format!("The classical model alone ({why}). Record a bench reading to calibrate"),
+        ),
+    }
+}
+
+fn figures_rows(ui: &mut egui::Ui, figures: &Figures, unit: LengthUnit) {
+    let a = &figures.analysis;
+    let (word, how) = lead_mark(figures);
     Readout::new(
-        "Resonance",
+        RESONANCE,
         digits::mhz(a.resonance),
-        "1/(2π√(LC)) with the driving model's inductance plus the leads and the total \
-         capacitance (Medhurst's self-capacitance added), iterated until the \
-         frequency-dependent terms settle: the figure the verdict, the charts and the advice use",
+        "The figure the verdict, the charts and the advice use: 1/(2π√(LC)) with the driving \
+         model's inductance plus the leads (scaled to the field solution when it leads, and by \
+         the calibration) and the total capacitance (Medhurst's self-capacitance added), \
+         iterated until the frequency-dependent terms settle",
     )
     .emphasis(true)
     .note(word, how)
     .warnings(a.warnings_about(WarningTopic::Band))
     .show(ui);
-    let lead = leading(&figures.uncalibrated, solved, false);
-    Readout::new(
-        FIELD_RESONANCE,
-        match (solved, lead.source) {
-            (Some(Ok(_)), InductanceSource::FieldSolved) => format!(
-                "{} ({})",
-                digits::mhz(lead.resonance),
-                digits::offset(lead.resonance - a.resonance)
+    let lead = a.resonance;
+    let beside = |f: f64| format!("{} ({})", digits::mhz(f), digits::offset(f - lead));
+    let field_leads = word == FIELD_SOLVED;
+    if !field_leads {
+        let (value, more) = match &figures.field {
+            FieldBasis::Solved { tank, .. } => (
+                beside(tank.resonance),
+                format!(
+                    "Before the bench readings; in brackets: from the resonance above. \
+                     Apparent inductance X/ω there {}",
+                    show_nh(tank.apparent_inductance)
+                ),
             ),
-            (Some(Err(_)), _) | (Some(Ok(_)), InductanceSource::Classical) => {
-                "not available".to_owned()
+            FieldBasis::Held { .. } => (BEING_COMPUTED.to_owned(), String::new()),
+            FieldBasis::Classical { why } if why == FIELD_PENDING => {
+                (BEING_COMPUTED.to_owned(), String::new())
             }
-            (None, _) => BEING_COMPUTED.to_owned(),
-        },
-        "The coil solved from its own currents (thin-wire method of moments, with its leads \
-         and the path beneath it): the tank resonates where the coil's terminal reactance X \
-         meets the capacitance, f = 1/(2π√((X/ω)·C)), solved self-consistently with the \
-         self-capacitance inside X. A second opinion on the uncalibrated tank; the bench \
-         readings decide",
-    )
-    .more(move || match (solved, &lead.why_classical) {
-        (Some(Ok(_)), None) => format!(
-            "In brackets: from the model's resonance. Apparent inductance X/ω there {}",
-            show_nh(lead.apparent_inductance)
-        ),
-        (_, Some(why)) => format!("Why not: {why}."),
-        _ => String::new(),
-    })
-    .show(ui);
+            FieldBasis::Classical { why } if why == FIELD_OFF => {
+                (SWITCHED_OFF.to_owned(), format!("{why}."))
+            }
+            FieldBasis::Classical { why } => ("not available".to_owned(), format!("Why: {why}.")),
+        };
+        Readout::new(
+            FIELD_RESONANCE,
+            value,
+            "The coil solved from its own currents (thin-wire method of moments, with its \
+             leads and the path beneath it), the tank where its terminal reactance meets the \
+             capacitance",
+        )
+        .more(move || more.clone())
+        .show(ui);
+    }
+    if field_leads || figures.calibrated() || matches!(figures.field, FieldBasis::Held { .. }) {
+        Readout::new(
+            CLASSICAL_RESONANCE,
+            beside(figures.classical.resonance),
+            "The classical model alone: the driving inductance method with the leads and \
+             Medhurst's self-capacitance, no field solution, no bench readings. In brackets: \
+             from the resonance above",
+        )
+        .show(ui);
+    }
     ui.add_space(4.0);
     ui.label(RichText::new("Inductance of the coil (without leads), by method").strong());
     model_dots::show(ui, a);
@@ -208,18 +245,16 @@ fn figures_rows(
     .show(ui);
     Readout::new(
         "Self-resonance, field",
-        match solved {
-            Some(Ok(f)) => digits::self_resonance(f.self_resonance),
-            Some(Err(_)) => "not available".to_owned(),
-            None => BEING_COMPUTED.to_owned(),
+        match &figures.field {
+            FieldBasis::Solved { tank, .. } => digits::self_resonance(tank.self_resonance),
+            FieldBasis::Held { .. } => BEING_COMPUTED.to_owned(),
+            FieldBasis::Classical { why } if why == FIELD_PENDING => BEING_COMPUTED.to_owned(),
+            FieldBasis::Classical { why } if why == FIELD_OFF => SWITCHED_OFF.to_owned(),
+            FieldBasis::Classical { .. } => "not available".to_owned(),
         },
         "First parallel self-resonance at the terminals from the field solution (the wire, its \
          leads and the path beneath the coil)",
     )
-    .more(move || match solved {
-        Some(Err(e)) => e.to_string(),
-        _ => String::new(),
-    })
     .show(ui);
     Readout::new(
         "Self-resonance, helical",

@@ -17,7 +17,12 @@ pub struct BarState<'a> {
     pub unit: LengthUnit,
     /// Present theme.
     pub theme: Theme,
+    /// Whether the field solution leads the resonance.
+    pub field_solution: bool,
 }
+
+/// The View menu's entry that lets the field solution lead the resonance.
+pub const FIELD_SOLUTION_ENTRY: &str = "Resonance from the field solution";
 
 /// Shortcut text for undo.
 const UNDO_KEYS: &str = "Ctrl+Z";
@@ -68,6 +73,19 @@ pub fn show(
                 if ui.radio(state.unit == unit, name).clicked() {
                     commands.push(Command::SetUnit(unit));
                 }
+            }
+            ui.separator();
+            let mut on = state.field_solution;
+            if ui
+                .checkbox(&mut on, FIELD_SOLUTION_ENTRY)
+                .on_hover_text(
+                    "On: the coil solved from its own currents sets the resonance, and the \
+                     model's inductance is scaled to meet it. Off: the classical model alone \
+                     (Medhurst's self-capacitance beside the driving inductance).",
+                )
+                .changed()
+            {
+                commands.push(Command::SetFieldSolution(on));
             }
             ui.separator();
             view_more(ui);

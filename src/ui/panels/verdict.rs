@@ -10,6 +10,7 @@ use crate::tuning::digits;
 use crate::tuning::verdict::Verdict;
 use crate::ui::evaluation::Evaluation;
 use crate::ui::theme;
+use crate::ui::units::LengthUnit;
 use eframe::egui::{self, Color32, RichText};
 
 /// Heading of the block (also its name for assistive tools).
@@ -17,10 +18,10 @@ pub const VERDICT_HEADING: &str = "Verdict";
 
 /// Show the verdict for the present figures; nothing when the input is refused (the readouts
 /// below say why).
-pub fn show(ui: &mut egui::Ui, evaluation: &Evaluation) {
+pub fn show(ui: &mut egui::Ui, evaluation: &Evaluation, unit: LengthUnit) {
     if let Ok(figures) = evaluation.current() {
         heading(ui, VERDICT_HEADING);
-        block(ui, figures, evaluation.expectation());
+        block(ui, figures, evaluation.expectation(), unit);
     }
 }
 
@@ -81,7 +82,12 @@ pub fn expectation_text(e: &Expectation) -> String {
     }
 }
 
-fn block(ui: &mut egui::Ui, figures: &Figures, expectation: Option<&Expectation>) {
+fn block(
+    ui: &mut egui::Ui,
+    figures: &Figures,
+    expectation: Option<&Expectation>,
+    unit: LengthUnit,
+) {
     let v = &figures.verdict;
     let good = theme::on_target(ui);
     let caution = theme::caution(ui);
@@ -111,5 +117,10 @@ fn block(ui: &mut egui::Ui, figures: &Figures, expectation: Option<&Expectation>
         line(ui, expectation_text(e), None, false);
     }
     ui.add_space(2.0);
-    line(ui, format!("Next: {}", v.next_step()), None, true);
+    line(
+        ui,
+        format!("Next: {}", v.next_step_in(|m| unit.show(m))),
+        None,
+        true,
+    );
 }

@@ -23,7 +23,10 @@ pub mod reference;
 pub mod sweep;
 
 use crate::model::Coil;
-use crate::recipe::{Figures, Recipe};
+use crate::recipe::{FieldInput, Figures, Recipe};
+
+/// Why the derived copy applies no field solution of its own.
+const CARRIED: &str = "the recipe's factor on the inductance is carried in its conditions";
 use crate::ui::charts::ChartOverlay;
 use crate::ui::evaluation::Evaluation;
 use crate::ui::panels::bench::Extras;
@@ -178,10 +181,13 @@ impl Teaching {
     /// Recompute the derived copy and follow its changes with the ghost.
     fn refresh(&mut self, ctx: &egui::Context, recipe: &Recipe, base: &Figures) {
         let derived = derive(recipe, base, self.length, self.hand.added());
+        // The derived copy carries the recipe's driving conditions, with the field solution's
+        // factor on the inductance already in them: nothing more to apply.
+        let field = || FieldInput::Unsolved(CARRIED.to_owned());
         let changed = match &mut self.display {
-            Some(display) => display.refresh(&derived),
+            Some(display) => display.refresh(&derived, field()),
             None => {
-                self.display = Some(Evaluation::new(&derived));
+                self.display = Some(Evaluation::new(&derived, field()));
                 true
             }
         };
