@@ -27,7 +27,7 @@ use tankwright::ui::panels::audio::{
 fn workbench() -> Harness<'static, App> {
     let mut harness = Harness::builder()
         .with_size(egui::vec2(1400.0, 2800.0))
-        .build_eframe(|cc| App::new(cc));
+        .build_eframe(|cc| App::new(cc).with_field_solution(false));
     harness.run();
     harness.get_by_label("Audio and drift").click();
     harness.run();

@@ -18,7 +18,7 @@ use tankwright::ui::bench_log::APPLY_ADVICE_LABEL;
 fn workbench() -> Harness<'static, App> {
     let mut harness = Harness::builder()
         .with_size(egui::vec2(1400.0, 1400.0))
-        .build_eframe(|cc| App::new(cc));
+        .build_eframe(|cc| App::new(cc).with_field_solution(false));
     harness.run();
     harness
 }

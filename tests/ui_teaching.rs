@@ -46,7 +46,11 @@ impl PathAsker for Scripted {
 fn bench(asker: Scripted) -> Harness<'static, App> {
     let mut harness = Harness::builder()
         .with_size(egui::vec2(1400.0, 1000.0))
-        .build_eframe(move |cc| App::new(cc).with_path_asker(Box::new(asker.clone())));
+        .build_eframe(move |cc| {
+            App::new(cc)
+                .with_field_solution(false)
+                .with_path_asker(Box::new(asker.clone()))
+        });
     harness.run();
     harness.get_by_label("View").click();
     harness.run();
@@ -264,7 +268,7 @@ fn holding_h_lowers_the_carrier_by_the_engines_figure_for_the_hand() {
 fn f5_switches_the_presentation_layout() {
     let mut harness = Harness::builder()
         .with_size(egui::vec2(1280.0, 720.0))
-        .build_eframe(|cc| App::new(cc));
+        .build_eframe(|cc| App::new(cc).with_field_solution(false));
     harness.run();
     assert!(harness.query_by_label(TRIMMER_CHART_LABEL).is_some());
     harness.key_press(egui::Key::F5);
@@ -374,7 +378,7 @@ fn a_pinned_reference_stays_on_the_chart_with_its_differences() {
 fn at_1280_by_720_the_presentation_keeps_its_readouts_inside_the_window() {
     let mut harness = Harness::builder()
         .with_size(egui::vec2(1280.0, 720.0))
-        .build_eframe(|cc| App::new(cc));
+        .build_eframe(|cc| App::new(cc).with_field_solution(false));
     harness.run();
     harness.get_by_label("View").click();
     harness.run();

@@ -23,10 +23,13 @@ use tankwright::ui::panels::model_dots::{dots, row_text};
 use tankwright::ui::panels::readouts::READOUTS_HEADING;
 use tankwright::ui::panels::target::TOLERANCE_LABEL;
 
+/// The window with the classical model leading (the field solution switched off), so the
+/// figures cannot change under a test when the worker answers; the field solution's own
+/// window tests are in tests/ui_field.rs.
 fn window(width: f32, height: f32) -> Harness<'static, App> {
     let mut harness = Harness::builder()
         .with_size(egui::vec2(width, height))
-        .build_eframe(|cc| App::new(cc));
+        .build_eframe(|cc| App::new(cc).with_field_solution(false));
     harness.run();
     harness
 }
@@ -422,7 +425,11 @@ fn the_tolerance_field_moves_the_on_channel_verdict_at_its_boundary() {
 
 #[test]
 fn each_method_keeps_its_hover_note_in_the_inductance_chart() {
-    let mut harness = window(1400.0, 1000.0);
+    // As the window opens: the field solution on.
+    let mut harness = Harness::builder()
+        .with_size(egui::vec2(1400.0, 1000.0))
+        .build_eframe(|cc| App::new(cc));
+    harness.run();
     // Let the field solution arrive first, so the rows above stay put while the pointer rests
     // (the bound only stops a hung test).
     let start = std::time::Instant::now();

@@ -131,7 +131,7 @@ impl Recipe {
                 trimmer_min: 2e-12,
                 trimmer_max: 10e-12,
                 trimmer_setting: 0.5,
-                stray: 5.35e-12,
+                stray: 6e-12,
                 feedback: Some(FeedbackDivider {
                     upper: 10e-12,
                     lower: 22e-12,
