@@ -168,7 +168,11 @@ fn bench_readings_show_the_fitted_stray_and_narrow_the_band() {
     let entered = harness.state().recipe().tank.stray;
     let e = harness.state().expectation().unwrap();
     let f = e.fitted.expect("a fitted stray");
-    assert!((f.value - (entered + 1.2e-12)).abs() < 0.05e-12, "{}", f.value);
+    assert!(
+        (f.value - (entered + 1.2e-12)).abs() < 0.05e-12,
+        "{}",
+        f.value
+    );
     assert!(e.calibrated);
     let width_after = band_width(harness.state());
     assert!(

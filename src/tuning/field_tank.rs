@@ -7,7 +7,14 @@
 //! capacitance and the propagation along it), so the tank across the external capacitance C
 //! resonates where the terminal susceptances cancel: ω·C = 1/X(ω), i.e.
 //! f = 1/(2π√(L_app(f)·C)) with L_app = X/ω. The self-capacitance is then not added again.
-//! The window and the headless commands both call [`field_tank`] and [`leading`].
+//!
+//! The field solution leads by moving the classical model onto it: [`matching_scale`] is the
+//! factor on the model's inductance that makes the model meet the field-solved resonance at
+//! the present coil, and [`FieldBasis`] records what was applied. The model so moved keeps its
+//! shape (how the resonance moves with length and trimmer), so the verdict, the charts, the
+//! advice and a bench calibration on top all work on one figure.
+//! [`crate::recipe::figures()`] (the headless commands, the build sheet) and the window's
+//! cached evaluation both go through [`FieldBasis::of`].
 
 use crate::model::{Coil, Conditions, wire_coil};
 use crate::physics::field::{Feed, FieldError, FieldModel};
@@ -56,8 +63,8 @@ impl FieldTank {
 /// BIT 11, 1971) closes the bracket to [`TOLERANCE`]. Usually four to eight impedance
 /// evaluations.
 ///
-/// The bench calibration's inductance scale, fitted to the classical model, is not applied
-/// here: see [`leading`].
+/// Neither the field solution's factor nor a bench calibration's is applied here: the field
+/// solution is of the wire as drawn (see [`FieldBasis`] for how it then leads).
 pub fn field_tank(
     coil: &Coil,
     external_capacitance: f64,
@@ -198,7 +205,7 @@ const SCALE_TOLERANCE: f64 = 1e-12;
 /// The classical resonance is f(s) = 1/(2π√(s·L(f)·(C + C_self))), where only the wire's
 /// internal inductance in L depends (weakly) on f. So f ∝ s^(−1/2) almost exactly, and the
 /// step s ← s·(f(s)/target)² is Newton's step on ln f against ln s with the slope −½; it lands
-/// within [`SCALE_TOLERANCE`] in two or three steps (at most 20 are taken).
+/// within 1e-12 relative in two or three steps (at most 20 are taken).
 ///
 /// Why a scale on the inductance: the field solution's X/ω holds the coil's own capacitance and
 /// the propagation along the wire; the classical model holds them as Medhurst's capacitance
