@@ -195,7 +195,10 @@ fn a_bench_reading_makes_the_verdict_calibrated() {
     assert!(figures.calibrated(), "the one reading should fit");
     assert_eq!(figures.readings_used(), 1);
     let text = screen_text(&harness);
-    assert!(text.iter().any(|t| t == "Calibrated on 1 bench reading"));
+    assert!(
+        text.iter()
+            .any(|t| t == "Calibrated on 1 bench reading (on the classical model)")
+    );
     // The verdict follows the calibrated model, as the readouts do.
     assert!(
         (figures.verdict.resonance - figures.analysis.resonance).abs() < 1.0,

@@ -512,22 +512,21 @@ impl App {
                         .show(ui, |ui| {
                             let tolerance =
                                 evaluation.latest().map_or(15e3, |f| f.target.tolerance);
-                            audio_panel.show(
-                                ui,
-                                coil.as_ref(),
-                                &recipe.tank,
-                                &recipe.conditions,
-                                tolerance,
-                            );
+                            // The tank as the figures drive it (on the field solution,
+                            // calibrated once there are readings), as `evaluate` does.
+                            let (tank, conditions) = evaluation
+                                .latest()
+                                .map_or((recipe.tank, recipe.conditions), |f| {
+                                    (f.tank, f.conditions)
+                                });
+                            audio_panel.show(ui, coil.as_ref(), &tank, &conditions, tolerance);
                             egui::CollapsingHeader::new(MODULATION_CHARTS)
                                 .default_open(true)
                                 .show(ui, |ui| {
                                     let inputs = audio_panel.inputs();
-                                    if let Some(sweeps) = evaluation.modulation_sweeps(
-                                        &recipe.tank,
-                                        &recipe.conditions,
-                                        &inputs,
-                                    ) {
+                                    if let Some(sweeps) =
+                                        evaluation.modulation_sweeps(&tank, &conditions, &inputs)
+                                    {
                                         modulation_charts(ui, sweeps);
                                     }
                                 });

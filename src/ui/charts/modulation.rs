@@ -7,13 +7,14 @@
 //! [`ModulationSweeps`] keeps them between frames; `ui::evaluation` owns it and refreshes it
 //! only when the coil, tank, conditions or the junction's inputs change.
 
+use super::legend::{self, Entry, Swatch};
 use super::palette;
 use crate::model::{Coil, Conditions, Tank};
 use crate::tuning::modulation::{
     Modulation, ModulationInputs, Service, carrier_over_bias, deviation_over_audio, modulation,
 };
 use eframe::egui;
-use egui_plot::{Corner, HLine, Legend, Line, LineStyle, Plot, PlotPoints, Points, Span, VLine};
+use egui_plot::{HLine, Line, LineStyle, Plot, PlotPoints, Points, Span, VLine};
 
 /// Accessible name of the carrier-against-bias chart.
 pub const CARRIER_BIAS_CHART_LABEL: &str = "carrier against reverse bias chart";
@@ -122,15 +123,10 @@ fn spaced(lo: f64, hi: f64) -> Vec<f64> {
     (0..SAMPLES).map(|i| lo + step * i as f64).collect()
 }
 
-/// A chart that only shows (no pan, zoom or drag), with its legend in `corner`.
-fn plain_plot(id: &str, corner: Corner, x_label: &str, y_label: &str) -> Plot<'static> {
+/// A chart that only shows (no pan, zoom or drag); its legend is drawn above it
+/// ([`super::legend`]), as on the other charts, so no entry covers a curve.
+fn plain_plot(id: &str, x_label: &str, y_label: &str) -> Plot<'static> {
     super::held_still(Plot::new(id))
-        .legend(
-            Legend::default()
-                .position(corner)
-                .text_style(egui::TextStyle::Small)
-                .follow_insertion_order(true),
-        )
         .x_axis_label(x_label.to_owned())
         .y_axis_label(y_label.to_owned())
         .show_crosshair(true)
@@ -161,9 +157,21 @@ pub fn carrier_bias_chart(ui: &mut egui::Ui, sweeps: &ModulationSweeps) {
     let (y_lo, y_hi) = padded(curve.iter().map(|p| p[1] * 1e-6));
     let x_lo = curve.first().map_or(0.0, |p| p[0]);
     let x_hi = curve.last().map_or(BIAS_AXIS_MIN_TOP, |p| p[0]);
+    let mut entries = vec![Entry::new("carrier", Swatch::Line(strong))];
+    if va > 0.0 {
+        entries.push(Entry::new(
+            "audio swing (bias ± peak)",
+            Swatch::Band(palette::target_fill()),
+        ));
+        entries.push(Entry::new(
+            "carrier at the audio's peaks",
+            Swatch::Point(palette::TARGET),
+        ));
+    }
+    entries.push(Entry::new("present bias", Swatch::Point(palette::PRESENT)));
+    legend::show(ui, &entries);
     let response = plain_plot(
         "tankwright carrier against bias",
-        Corner::RightBottom,
         "junction reverse bias (V)",
         "carrier (MHz)",
     )
@@ -238,9 +246,30 @@ pub fn deviation_chart(ui: &mut egui::Ui, sweeps: &ModulationSweeps) {
             .chain([0.0, limit_khz]),
     );
     let x_hi = curve.last().map_or(1.0, |p| p[0]);
+    let mut entries = vec![
+        Entry::new("upwards (bias + peak)", Swatch::Line(palette::PRESENT)),
+        Entry::new(
+            "downwards (bias − peak)",
+            Swatch::Line(palette::trimmer(&visuals, 1.0)),
+        ),
+        Entry::new(
+            format!("limit ±{limit_khz:.0} kHz"),
+            Swatch::Dashed(palette::AERONAUTICAL),
+        ),
+    ];
+    if vb < x_hi {
+        entries.push(Entry::new(
+            "peak = bias (forward beyond)",
+            Swatch::Dashed(palette::UNCALIBRATED),
+        ));
+    }
+    entries.push(Entry::new(
+        "present audio peak",
+        Swatch::Point(palette::READING),
+    ));
+    legend::show(ui, &entries);
     let response = plain_plot(
         "tankwright deviation against audio",
-        Corner::LeftTop,
         "audio peak at the junction (V)",
         "peak deviation (kHz)",
     )

@@ -39,18 +39,23 @@ fn line(ui: &mut egui::Ui, text: impl Into<String>, color: Option<Color32>, stro
 
 /// The calibration line: "Calibrated on N readings" or what the figures rest on.
 pub fn calibration_text(figures: &Figures) -> String {
+    let basis = match &figures.field {
+        crate::recipe::FieldBasis::Solved { .. } => "the field solution",
+        crate::recipe::FieldBasis::Held { .. } => "the field solution (updating)",
+        crate::recipe::FieldBasis::Classical { .. } => "the classical model",
+    };
     match &figures.fit {
         Some(Ok(_)) => {
             let n = figures.readings_used();
             format!(
-                "Calibrated on {n} bench reading{}",
+                "Calibrated on {n} bench reading{} (on {basis})",
                 if n == 1 { "" } else { "s" }
             )
         }
         Some(Err(_)) => {
             "Not calibrated: the bench readings could not be fitted (see the bench log)".to_owned()
         }
-        None => "Not calibrated: model only, no bench readings yet".to_owned(),
+        None => format!("Not calibrated: {basis} only, no bench readings yet"),
     }
 }
 
