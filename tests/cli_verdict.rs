@@ -213,3 +213,29 @@ fn report_leads_with_the_verdict() {
     assert_eq!(v["target_mhz"].as_f64(), Some(98.7));
     assert!(v["flags"].is_array() && v["on_channel"].is_boolean());
 }
+
+/// `evaluate --recipe` judges the channel with the recipe's own on-channel tolerance, as the
+/// window and `report` do (issue 11: the tolerance is the user's, the service's practice only
+/// by default).
+#[test]
+fn evaluate_of_a_recipe_keeps_its_on_channel_tolerance() {
+    let demo = include_str!("../assets/recipes/lantern_hill_bench_oscillator.ron");
+    // The demo tank sits about 18 kHz under 97.3 MHz: off channel by the broadcast default
+    // of ±15 kHz (common practice), on channel within the recipe's ±50 kHz.
+    let wide = demo.replace(
+        "channel_mhz: 98.7,",
+        "channel_mhz: 97.3,\n        on_channel_within_khz: Some(50.0),",
+    );
+    assert_ne!(wide, demo, "the demo's aim was found");
+    let dir = tempfile::tempdir().expect("temp dir");
+    let file = dir.path().join("wide.ron");
+    std::fs::write(&file, wide).expect("written");
+    let path = file.to_str().expect("utf-8 path");
+    let (ok, out, err) = run(&["evaluate", "--recipe", path, "--json"]);
+    assert!(ok, "{err}");
+    let v: serde_json::Value = serde_json::from_str(&out).expect("json");
+    assert_eq!(v["tolerance_khz"].as_f64(), Some(50.0));
+    let offset = v["offset_khz"].as_f64().expect("offset");
+    assert!(offset.abs() > 15.0 && offset.abs() <= 50.0, "{offset} kHz");
+    assert_eq!(v["on_channel"].as_bool(), Some(true));
+}

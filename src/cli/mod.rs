@@ -62,7 +62,8 @@ usage:
                                           presentation layout (F5 switches it)
   tankwright FILE.ron                     open the window on a saved recipe
   tankwright evaluate FLAGS [--json]      print every figure for one coil
-  tankwright evaluate --recipe FILE [--json]   the same for a saved recipe
+  tankwright evaluate --recipe FILE [--json]   the same for a saved recipe as written
+                                          (its bench readings: report, solve, fit)
   tankwright report FILE                  a recipe as a build sheet, then every figure
   tankwright sheet FILE --out OUT.pdf     the printable build sheet, spacing chart and
                                           apprentice's worksheet (PDF)

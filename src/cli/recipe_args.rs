@@ -1,4 +1,6 @@
-//! `evaluate --recipe FILE`: the coil, tank and conditions of a saved recipe instead of flags.
+//! `evaluate --recipe FILE`: the coil, tank, conditions and aim (channel and on-channel
+//! tolerance) of a saved recipe instead of flags: the recipe as written, its bench readings
+//! left to `report`, `solve` and `fit`, which calibrate on them.
 
 use super::args::Args;
 use super::evaluate::EvaluateRequest;
@@ -20,7 +22,8 @@ pub(crate) fn request_from_recipe(args: &Args, file: &str) -> Result<EvaluateReq
         aim: crate::tuning::verdict::Aim::new(
             recipe.target.plan.clone(),
             Some(recipe.target.channel),
-        ),
+        )
+        .with_tolerance(recipe.target.tolerance()),
         winding: recipe.winding,
         tank: recipe.tank,
         conditions: recipe.conditions,
