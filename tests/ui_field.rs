@@ -170,6 +170,20 @@ fn the_impedance_chart_opens_inside_a_small_window() {
     harness.get_by_label(READOUTS_HEADING).click();
     harness.run();
     wait_for_field(&mut harness);
+    // The tank comes first (the figures wait for it), the chart's sweep after it.
+    let start = Instant::now();
+    while harness
+        .state()
+        .field_solution()
+        .is_none_or(|r| r.sweep.is_none())
+    {
+        assert!(
+            start.elapsed() < Duration::from_secs(120),
+            "the sweep never arrived"
+        );
+        std::thread::sleep(Duration::from_millis(5));
+        harness.step();
+    }
     // The section sits under the readouts: scroll the right column to it, open it, and
     // bring its charts into view.
     harness.get_by_label("Impedance of the coil").scroll_to_me();

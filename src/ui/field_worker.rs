@@ -40,22 +40,12 @@ pub struct FieldResult {
     /// The tank with the field-solved apparent inductance.
     pub tank: Result<FieldTank, FieldError>,
     /// Z(f) from 1 MHz to past the self-resonance, with the tank's resonance as the operating
-    /// frequency.
-    pub sweep: Result<ImpedanceSweep, FieldError>,
+    /// frequency; `None` while it is still being computed (the tank, which the figures need,
+    /// is sent first).
+    pub sweep: Option<Result<ImpedanceSweep, FieldError>>,
 }
 
 impl FieldRequest {
-    /// Solve it here (the worker thread's work; also what the headless figures compute).
-    pub fn solve(&self) -> FieldResult {
-        let tank = field_tank(&self.coil, self.external_capacitance, &self.conditions);
-        let sweep = self.sweep(tank.as_ref().ok().map(|t| t.resonance));
-        FieldResult {
-            request: *self,
-            tank,
-            sweep,
-        }
-    }
-
     fn sweep(&self, operating: Option<f64>) -> Result<ImpedanceSweep, FieldError> {
         impedance_sweep(
             &self.coil,
@@ -135,7 +125,8 @@ impl FieldWorker {
             .map(|_| (jobs, done))
     }
 
-    /// Take any answers the thread has sent; keep the one for the present generation.
+    /// Take any answers the thread has sent; keep the newest for the present generation (the
+    /// tank alone, then the tank with its sweep).
     pub fn poll(&mut self) {
         let Some((_, done)) = &self.channel else {
             return;
@@ -173,21 +164,35 @@ fn work(inbox: &Receiver<Job>, outbox: &Sender<Done>, newest: &AtomicU64) {
         if stale() {
             continue;
         }
-        let sweep = r.sweep(tank.as_ref().ok().map(|t| t.resonance));
-        let result = FieldResult {
+        // The tank first: the figures wait for it; the chart's sweep follows.
+        let mut result = FieldResult {
             request: *r,
             tank,
-            sweep,
+            sweep: None,
         };
-        if outbox
-            .send(Done {
-                generation: job.generation,
-                result,
-            })
-            .is_err()
-        {
+        if !send(outbox, &job, result.clone()) {
             break;
         }
+        if stale() {
+            continue;
+        }
+        result.sweep = Some(r.sweep(result.tank.as_ref().ok().map(|t| t.resonance)));
+        if !send(outbox, &job, result) {
+            break;
+        }
+    }
+}
+
+/// Send `result` for `job` and wake the window; false when the window has gone.
+fn send(outbox: &Sender<Done>, job: &Job, result: FieldResult) -> bool {
+    let sent = outbox
+        .send(Done {
+            generation: job.generation,
+            result,
+        })
+        .is_ok();
+    if sent {
         job.repaint.request_repaint();
     }
+    sent
 }

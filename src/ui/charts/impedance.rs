@@ -158,19 +158,16 @@ pub fn impedance_section(ui: &mut egui::Ui, figures: Option<&Figures>, field: &F
     };
     let a = &figures.classical;
     let result = field.ready();
-    let sweep = result.and_then(|r| r.sweep.as_ref().ok());
+    let sweep = result.and_then(|r| r.sweep.as_ref()?.as_ref().ok());
     let status = match (result, sweep) {
         (Some(_), Some(s)) => format!(
             "Field solution ({} segments) solid, classical estimate dashed.",
             s.segments
         ),
-        (Some(r), None) => format!(
-            "Classical estimate only: {}.",
-            r.sweep
-                .as_ref()
-                .err()
-                .map_or_else(String::new, ToString::to_string)
-        ),
+        (Some(r), None) => match &r.sweep {
+            Some(Err(e)) => format!("Classical estimate only: {e}."),
+            _ => "Classical estimate only while the field solution's sweep is computed.".to_owned(),
+        },
         (None, _) => "Classical estimate only while the field solution is computed.".to_owned(),
     };
     ui.add(egui::Label::new(RichText::new(status).small()).wrap());
