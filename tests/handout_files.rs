@@ -208,7 +208,7 @@ fn recorded_readings_fill_the_bench_table() {
         digits::fixed(e.measured * 1e-6, 4),
         "club counter".to_owned(),
         "first light".to_owned(),
-        "calibrated on 1 bench reading".to_owned(),
+        "Calibrated on 1 bench reading".to_owned(),
     ] {
         assert!(text.contains(&expected), "'{expected}' missing:\n{text}");
     }

@@ -35,7 +35,7 @@ pub struct Sheet {
     pub name: String,
     /// Its notes (may be empty).
     pub notes: String,
-    /// What the figures rest on: the model, or the calibration on N readings.
+    /// What the figures rest on (see [`crate::recipe::Figures::basis_text`]).
     pub basis: String,
     /// The verdict in a few lines.
     pub verdict: Vec<String>,
@@ -60,14 +60,7 @@ pub struct Sheet {
 /// The sheet for `recipe`, or the reason its figures cannot be made.
 pub fn sheet(recipe: &Recipe) -> Result<Sheet, String> {
     let f = figures(recipe).map_err(|e| format!("invalid recipe: {e}"))?;
-    let basis = if f.calibrated() {
-        format!(
-            "Figures calibrated on {} bench reading(s).",
-            f.readings_used()
-        )
-    } else {
-        "Figures from the model, not yet calibrated on the bench.".to_owned()
-    };
+    let basis = format!("{}.", f.basis_text());
     let v = &f.verdict;
     let mut verdict = vec![v.channel_text(), v.safety_text(), v.next_step()];
     verdict.extend(v.flags.iter().map(|flag| format!("Caution: {}", flag.text)));

@@ -63,6 +63,31 @@ impl Figures {
         matches!(self.fit, Some(Ok(_)))
     }
 
+    /// What the figures rest on, in one line (the window's verdict and the build sheet):
+    /// "Calibrated on N bench readings (on the field solution)", or, before any, "Not
+    /// calibrated: the field solution only, no bench readings yet" (or the classical model).
+    pub fn basis_text(&self) -> String {
+        let basis = match &self.field {
+            FieldBasis::Solved { .. } => "the field solution",
+            FieldBasis::Held { .. } => "the field solution (updating)",
+            FieldBasis::Classical { .. } => "the classical model",
+        };
+        match &self.fit {
+            Some(Ok(_)) => {
+                let n = self.readings_used();
+                format!(
+                    "Calibrated on {n} bench reading{} (on {basis})",
+                    if n == 1 { "" } else { "s" }
+                )
+            }
+            Some(Err(_)) => {
+                "Not calibrated: the bench readings could not be fitted (see the bench log)"
+                    .to_owned()
+            }
+            None => format!("Not calibrated: {basis} only, no bench readings yet"),
+        }
+    }
+
     /// How many readings the calibration rests on (0 when uncalibrated).
     pub fn readings_used(&self) -> usize {
         match &self.fit {

@@ -405,9 +405,10 @@ fn fit_ui(ui: &mut egui::Ui, figures: &Figures, unit: LengthUnit) -> Option<Benc
                 fit.extra_capacitance_error * 1e12,
             ))
             .on_hover_text(
-                "Weighted least squares on the model: the extra capacitance (stray, device, \
-                 wiring) and, when readings differ in capacitance or length, the build's \
-                 inductance over the model's. Every figure on screen now uses them.",
+                "Weighted least squares on the model (moved onto the field solution when it \
+                 leads): the extra capacitance (stray, device, wiring) and, when readings differ \
+                 in capacitance or length, the build's inductance over the model's. Every \
+                 figure on screen now uses them.",
             );
             for w in &fit.warnings {
                 ui.colored_label(ui.visuals().warn_fg_color, w.to_string());

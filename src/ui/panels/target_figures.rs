@@ -62,8 +62,9 @@ pub fn show(
                 mhz(before),
                 crate::tuning::digits::offset(before - t.channel)
             ),
-            "What the model predicted before the bench readings calibrated it; every other \
-             figure and the charts use the calibrated model",
+            "What the model predicted before the bench readings calibrated it (on the field \
+             solution when it leads); every other figure and the charts use the calibrated \
+             model",
         )
         .indent(true)
         .show(ui);

@@ -37,28 +37,6 @@ fn line(ui: &mut egui::Ui, text: impl Into<String>, color: Option<Color32>, stro
     ui.add(egui::Label::new(rich).wrap());
 }
 
-/// The calibration line: "Calibrated on N readings" or what the figures rest on.
-pub fn calibration_text(figures: &Figures) -> String {
-    let basis = match &figures.field {
-        crate::recipe::FieldBasis::Solved { .. } => "the field solution",
-        crate::recipe::FieldBasis::Held { .. } => "the field solution (updating)",
-        crate::recipe::FieldBasis::Classical { .. } => "the classical model",
-    };
-    match &figures.fit {
-        Some(Ok(_)) => {
-            let n = figures.readings_used();
-            format!(
-                "Calibrated on {n} bench reading{} (on {basis})",
-                if n == 1 { "" } else { "s" }
-            )
-        }
-        Some(Err(_)) => {
-            "Not calibrated: the bench readings could not be fitted (see the bench log)".to_owned()
-        }
-        None => format!("Not calibrated: {basis} only, no bench readings yet"),
-    }
-}
-
 /// The buildability line.
 pub fn buildable_text(verdict: &Verdict) -> &'static str {
     if verdict.is_buildable() {
@@ -117,7 +95,7 @@ fn block(
     for flag in &v.flags {
         line(ui, format!("Caution: {}", flag.text), Some(caution), false);
     }
-    line(ui, calibration_text(figures), None, false);
+    line(ui, figures.basis_text(), None, false);
     if let Some(e) = expectation {
         line(ui, expectation_text(e), None, false);
     }
