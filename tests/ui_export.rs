@@ -43,7 +43,11 @@ impl PathAsker for Scripted {
 fn workbench(asker: Scripted) -> Harness<'static, App> {
     let mut harness = Harness::builder()
         .with_size(egui::vec2(1400.0, 1000.0))
-        .build_eframe(move |cc| App::new(cc).with_path_asker(Box::new(asker.clone())));
+        .build_eframe(move |cc| {
+            App::new(cc)
+                .with_field_solution(false)
+                .with_path_asker(Box::new(asker.clone()))
+        });
     harness.run();
     harness
 }

@@ -87,6 +87,14 @@ fn a_change_holds_the_last_factor_until_the_field_solution_replaces_it() {
             digits::offset(model - app.analysis.resonance)
         )
     );
+    // The apparent inductance shown is the field solution's X/ω at that resonance.
+    assert_eq!(
+        readout_with_mark(&harness, "Apparent inductance"),
+        (
+            format!("{:.1} nH", tank.apparent_inductance * 1e9),
+            FIELD_SOLVED.to_owned()
+        )
+    );
 
     harness
         .get_by_role_and_label(Role::Slider, "Turns")

@@ -9,10 +9,13 @@ use egui_kittest::kittest::Queryable;
 use tankwright::model::SpacingSpec;
 use tankwright::ui::App;
 
+/// The window with the classical model leading (the field solution switched off), so no
+/// worker's answer can move a figure or a row between two reads of a test; the field
+/// solution's window tests are in tests/ui_field.rs.
 fn workbench() -> Harness<'static, App> {
     let mut harness = Harness::builder()
         .with_size(egui::vec2(1400.0, 900.0))
-        .build_eframe(|cc| App::new(cc));
+        .build_eframe(|cc| App::new(cc).with_field_solution(false));
     harness.run();
     harness
 }

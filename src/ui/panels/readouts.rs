@@ -207,16 +207,38 @@ fn figures_rows(ui: &mut egui::Ui, figures: &Figures, unit: LengthUnit) {
     Readout::new(
         "Total inductance",
         show_nh(a.total_inductance),
-        "The driving model's coil inductance plus both leads",
+        "The driving model's coil inductance plus both leads (times the field solution's factor \
+         when it leads, and the calibration's once there are readings)",
     )
     .show(ui);
-    let apparent_note = "L/(1 − (f/f_self)²) with the lumped self-resonance: what a bridge \
-                         would read across the coil at the resonance (the field solution's X/ω \
-                         is under its resonance above)";
-    match apparent_inductance(a) {
-        Ok(l) => Readout::new("Apparent inductance", show_nh(l), apparent_note).show(ui),
-        Err(why) => {
-            Readout::new("Apparent inductance", "not shown".to_owned(), apparent_note).show(ui);
+    let classical_note = "L/(1 − (f/f_self)²) with the lumped self-resonance: what a bridge \
+                          would read across the coil at the resonance";
+    // With a field solution, its X/ω (the classical model alone beside it); without, the
+    // classical formula on the driving model (calibrated once there are readings).
+    match (figures.field.tank(), apparent_inductance(a)) {
+        (Some(tank), _) => {
+            let more = match apparent_inductance(&figures.classical) {
+                Ok(l) => format!("The classical estimate, {classical_note}: {}", show_nh(l)),
+                Err(why) => format!("The classical estimate is not shown: {}", why.reason()),
+            };
+            Readout::new(
+                "Apparent inductance",
+                show_nh(tank.apparent_inductance),
+                "X/ω at the terminals at the field-solved resonance: what a bridge would read \
+                 across the coil there (the coil, its leads and the path beneath it)",
+            )
+            .note(FIELD_SOLVED, "From the field solution")
+            .more(move || more.clone())
+            .show(ui);
+        }
+        (None, Ok(l)) => Readout::new("Apparent inductance", show_nh(l), classical_note).show(ui),
+        (None, Err(why)) => {
+            Readout::new(
+                "Apparent inductance",
+                "not shown".to_owned(),
+                classical_note,
+            )
+            .show(ui);
             ui.add(egui::Label::new(RichText::new(why.reason()).small().weak()).wrap());
         }
     }
