@@ -348,9 +348,9 @@ fn a_pinned_reference_stays_on_the_chart_with_its_differences() {
     assert_eq!(row("Turns")[1..], ["5", "6", "-1.00"]);
     assert_eq!(row("Coil length")[1..], ["8.00 mm", "9.00 mm", "-1.00 mm"]);
     let reference = harness.state().teaching().reference().expect("pinned");
-    // The pinned file's figures are the headless ones: the same function the build sheet and
-    // the commands call (with its field solution).
-    let engine = tankwright::recipe::figures(&good).expect("valid").analysis;
+    // The pinned file is evaluated on the window's footing: with the field solution switched
+    // off here, the classical model (the engine's own evaluate), like the present recipe.
+    let engine = evaluate(&good.winding, &good.tank, &good.conditions).expect("valid");
     let predicted = row("Predicted");
     assert_eq!(predicted[2], digits::mhz(engine.resonance));
     assert_eq!(

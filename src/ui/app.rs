@@ -277,6 +277,8 @@ impl App {
             self.shown_title = title;
         }
         self.refresh_figures(&ctx);
+        self.teaching
+            .set_field_solution(self.preferences.field_solution);
         self.teaching.update(&ctx, &self.recipe, &self.evaluation);
         if self.teaching.presentation() {
             crate::ui::teaching::presentation::enlarge(ui.style_mut());

@@ -64,6 +64,9 @@ pub struct Teaching {
     display: Option<Evaluation>,
     /// The last step or drag asked for a ghost whatever the time since the last change.
     discrete: bool,
+    /// The window's field-solution setting is off: a pinned reference is then evaluated on the
+    /// classical model too, so its differences compare like with like.
+    field_off: bool,
 }
 
 impl Teaching {
@@ -131,9 +134,23 @@ impl Teaching {
     /// Pin `recipe` as the reference, named `name`; refused (with the reason) when the engine
     /// refuses it.
     pub fn pin(&mut self, name: String, recipe: Recipe) -> Result<(), String> {
-        let pinned = Reference::new(name, recipe)?;
+        let pinned = Reference::new(name, recipe, !self.field_off)?;
         self.reference = Some(pinned);
         Ok(())
+    }
+
+    /// Follow the window's field-solution setting; a pinned reference is evaluated again on
+    /// the new footing.
+    pub fn set_field_solution(&mut self, on: bool) {
+        if self.field_off != on {
+            return;
+        }
+        self.field_off = !on;
+        if let Some(r) = self.reference.take() {
+            self.reference = Reference::new(r.name.clone(), r.recipe.clone(), on)
+                .ok()
+                .or(Some(r));
+        }
     }
 
     /// The figures the bench shows (the derived copy's), when there are any.

@@ -4,7 +4,7 @@
 //! [`crate::recipe::figures()`] as the recipe itself; it is never saved in the recipe.
 
 use crate::model::Coil;
-use crate::recipe::{Figures, Recipe, figures};
+use crate::recipe::{FieldInput, Figures, Recipe, figures, figures_with};
 use crate::tuning::digits;
 use crate::tuning::sweep::spacing_sweep;
 use crate::ui::charts::{ChartOverlay, OverlayKind};
@@ -32,10 +32,19 @@ pub fn legend_name(name: &str) -> String {
 }
 
 impl Reference {
-    /// Pin `recipe` as `name`; refused, with the engine's reason, if its coil or tank is.
-    pub fn new(name: String, recipe: Recipe) -> Result<Self, String> {
-        let figures =
-            figures(&recipe).map_err(|e| format!("the reference cannot be evaluated: {e}"))?;
+    /// Pin `recipe` as `name`, with its field solution solved here when `field_solution` is
+    /// on (the window's setting; off: the classical model); refused, with the engine's reason,
+    /// if its coil or tank is.
+    pub fn new(name: String, recipe: Recipe, field_solution: bool) -> Result<Self, String> {
+        let figures = if field_solution {
+            figures(&recipe)
+        } else {
+            figures_with(
+                &recipe,
+                FieldInput::Unsolved(crate::ui::evaluation::FIELD_OFF.to_owned()),
+            )
+        }
+        .map_err(|e| format!("the reference cannot be evaluated: {e}"))?;
         let coil = figures.coil;
         let curve = spacing_sweep(
             &coil,
@@ -220,7 +229,7 @@ mod tests {
     #[test]
     fn a_recipe_against_itself_differs_in_nothing() {
         let recipe = Recipe::demo();
-        let pinned = Reference::new("demo".into(), recipe.clone()).expect("valid");
+        let pinned = Reference::new("demo".into(), recipe.clone(), true).expect("valid");
         let rows = pinned.differences(&recipe, &pinned.figures, LengthUnit::Millimetres);
         assert!(rows.iter().all(|r| r.change == "same"), "{rows:?}");
         let mut longer = recipe.clone();
@@ -232,5 +241,28 @@ mod tests {
             .find(|r| r.quantity == "Turns")
             .expect("turns row");
         assert_eq!(turns.change, "+1.00");
+    }
+
+    #[test]
+    fn a_reference_is_evaluated_on_the_windows_footing() {
+        let recipe = Recipe::demo();
+        let solved = Reference::new("demo".into(), recipe.clone(), true).expect("valid");
+        assert_eq!(solved.figures, figures(&recipe).expect("valid"));
+        let classical = Reference::new("demo".into(), recipe.clone(), false).expect("valid");
+        let model = crate::model::evaluate(&recipe.winding, &recipe.tank, &recipe.conditions)
+            .expect("valid");
+        assert_eq!(classical.figures.analysis, model);
+        // Switching the setting evaluates a pinned reference again.
+        let mut bench = crate::ui::teaching::Teaching::default();
+        bench.pin("demo".into(), recipe).expect("valid");
+        assert_eq!(
+            bench.reference().map(|r| r.figures.analysis.resonance),
+            Some(solved.figures.analysis.resonance)
+        );
+        bench.set_field_solution(false);
+        assert_eq!(
+            bench.reference().map(|r| r.figures.analysis.resonance),
+            Some(model.resonance)
+        );
     }
 }
