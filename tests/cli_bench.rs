@@ -101,7 +101,8 @@ fn solve_takes_another_target_and_trimmer() {
         "101.1",
     ]);
     let text = String::from_utf8(text.stdout).unwrap();
-    assert!(text.contains("To land 101.100 MHz"), "{text}");
+    // The target as typed (a channel keeps the decimals its raster needs, up to four).
+    assert!(text.contains("To land 101.1 MHz"), "{text}");
 }
 
 #[test]
@@ -154,4 +155,21 @@ fn bad_input_is_refused_with_a_message() {
         assert!(err.starts_with("tankwright: "), "{args:?}: {err}");
         assert_eq!(err.lines().count(), 1, "{args:?}: {err}");
     }
+}
+
+/// A 12.5 kHz channel keeps its fourth decimal in `solve`'s heading (145.3375 MHz would read
+/// 145.338 at 1 kHz, a frequency that is not on that raster; 12.5 kHz channels on 2 m:
+/// common practice).
+#[test]
+fn solve_names_a_twelve_and_a_half_kilohertz_channel_whole() {
+    let out = run(&[
+        "solve",
+        "--recipe",
+        concat!(
+            env!("CARGO_MANIFEST_DIR"),
+            "/assets/recipes/field_day_club_channels.ron"
+        ),
+    ]);
+    let text = String::from_utf8(out.stdout).expect("utf-8");
+    assert!(text.starts_with("To land 145.3375 MHz,"), "{text}");
 }

@@ -77,8 +77,8 @@ pub fn run_solve(words: Vec<String>) -> Result<String, String> {
         "the classical model (no bench readings yet)".to_owned()
     };
     Ok(format!(
-        "To land {:.3} MHz, by {model}:\n  {advice}\n  coil: {} turns, {:.3} mm long; trimmer at {:.0} %\n  predicted: {:.3} MHz\n",
-        f.target.channel * 1e-6,
+        "To land {} MHz, by {model}:\n  {advice}\n  coil: {} turns, {:.3} mm long; trimmer at {:.0} %\n  predicted: {:.3} MHz\n",
+        crate::tuning::digits::channel_mhz(f.target.channel),
         p.turns,
         p.length * 1e3,
         p.trimmer_setting * 100.0,

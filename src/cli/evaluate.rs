@@ -257,7 +257,7 @@ pub fn run_evaluate(words: Vec<String>) -> Result<String, String> {
         let mut s = super::verdict::verdict_lines(&verdict).join("\n");
         s.push_str("\n\n");
         s.push_str(&super::text::analysis_report(&analysis));
-        s.push_str(&super::text::field_report(&classical, &basis));
+        s.push_str(&super::text::field_report(&classical, &basis, false));
         s.push_str(&more.text());
         s
     })

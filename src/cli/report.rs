@@ -48,7 +48,11 @@ pub fn build_report(r: &Recipe) -> Result<String, String> {
     text.push('\n');
     text.push_str(&super::analysis_report(&a));
     // The field-solved tank of the recipe as written, and how it moved the model.
-    text.push_str(&super::text::field_report(&f.classical, &f.field));
+    text.push_str(&super::text::field_report(
+        &f.classical,
+        &f.field,
+        f.calibrated(),
+    ));
     Ok(text)
 }
 

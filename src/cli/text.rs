@@ -131,7 +131,8 @@ pub fn analysis_report(a: &Analysis) -> String {
 
 /// The field solution's lines for the report: the field-solved tank and how it moved the
 /// model (see [`crate::tuning::field_tank::FieldBasis`]); `classical` is the model before it.
-pub fn field_report(classical: &Analysis, basis: &FieldBasis) -> String {
+/// `calibrated`: bench readings calibrate the model on top (the calibration then leads).
+pub fn field_report(classical: &Analysis, basis: &FieldBasis, calibrated: bool) -> String {
     let mut s = String::from("Field solution (the wire solved from its own currents)\n");
     match basis {
         FieldBasis::Solved { tank: f, scale } => {
@@ -150,9 +151,14 @@ pub fn field_report(classical: &Analysis, basis: &FieldBasis) -> String {
                 f.q()
             ));
             s.push_str(&format!("  segments           {:>10}\n", f.segments));
+            let lead = if calibrated {
+                "the bench calibration leads, on the model moved onto the field solution"
+            } else {
+                "the field-solved resonance leads"
+            };
             s.push_str(&format!(
-                "  the field-solved resonance leads: the model's inductance x {scale:.4} meets \
-                 it\n  (classical model alone: {:.4} MHz)\n",
+                "  {lead}: the model's inductance x {scale:.4} meets it\n  (classical model \
+                 alone: {:.4} MHz)\n",
                 classical.resonance * 1e-6
             ));
         }
@@ -161,7 +167,11 @@ pub fn field_report(classical: &Analysis, basis: &FieldBasis) -> String {
         )),
         FieldBasis::Classical { why } => {
             s.push_str(&format!("  not available: {why}\n"));
-            s.push_str("  the classical resonance leads\n");
+            s.push_str(if calibrated {
+                "  the bench calibration leads, on the classical model\n"
+            } else {
+                "  the classical resonance leads\n"
+            });
         }
     }
     s

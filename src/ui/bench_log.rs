@@ -418,8 +418,8 @@ fn fit_ui(ui: &mut egui::Ui, figures: &Figures, unit: LengthUnit) -> Option<Benc
     let t = &figures.target;
     let show = |m: f64| unit.show(m);
     let mut text = format!(
-        "To land on {:.3} MHz: {}.",
-        t.channel * 1e-6,
+        "To land on {} MHz: {}.",
+        crate::tuning::digits::channel_mhz(t.channel),
         t.advice.text(show)
     );
     if let (Advice::Stretch { .. }, Some(Ok(fit))) = (&t.advice, &figures.fit)
