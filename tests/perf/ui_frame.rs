@@ -3,6 +3,9 @@
 //!
 //! `ui_frame/after_change`: the recipe's turns flip between two values before each frame, so
 //! the frame re-evaluates the coil, re-solves the target figures and re-sweeps the charts.
+//! `ui_frame/after_change_classical`: the same with the field solution switched off (no
+//! worker thread solving each new coil on the other core, no second evaluation when its
+//! answer comes), for comparison in the same run.
 //! `ui_frame/idle`: nothing changes; the caches hold and only layout is left.
 //! Budgets: 3 ms after a change, 0.5 ms idle.
 //! `ui_frame/idle_tessellated` adds turning the frame's shapes into meshes, which the window
@@ -46,8 +49,13 @@ fn painted_frame(ctx: &egui::Context, app: &mut App, input: egui::RawInput) -> u
 
 /// A context and app that have settled (fonts loaded, grids sized, caches filled).
 fn settled() -> (egui::Context, App, Clock) {
+    settled_with(true)
+}
+
+/// The same, with the field solution on or off.
+fn settled_with(field_solution: bool) -> (egui::Context, App, Clock) {
     let ctx = egui::Context::default();
-    let mut app = App::with_recipe(Recipe::demo());
+    let mut app = App::with_recipe(Recipe::demo()).with_field_solution(field_solution);
     let mut clock = Clock { time: 0.0 };
     for _ in 0..5 {
         frame(&ctx, &mut app, clock.next());
@@ -61,6 +69,16 @@ fn ui_frame(c: &mut Criterion) {
     let (ctx, mut app, mut clock) = settled();
     let mut flip = false;
     group.bench_function("after_change", |b| {
+        b.iter(|| {
+            flip = !flip;
+            app.recipe_mut().winding.turns = if flip { 5.25 } else { 5.0 };
+            black_box(frame(&ctx, &mut app, clock.next()))
+        });
+    });
+
+    let (ctx, mut app, mut clock) = settled_with(false);
+    let mut flip = false;
+    group.bench_function("after_change_classical", |b| {
         b.iter(|| {
             flip = !flip;
             app.recipe_mut().winding.turns = if flip { 5.25 } else { 5.0 };
