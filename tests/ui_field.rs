@@ -13,7 +13,7 @@ use egui::accesskit::Role;
 use egui_kittest::Harness;
 use egui_kittest::kittest::Queryable;
 use std::time::{Duration, Instant};
-use tankwright::model::evaluate;
+use tankwright::model::{InductanceModel, evaluate};
 use tankwright::recipe::{FieldBasis, FieldInput, Figures, figures, figures_with};
 use tankwright::tuning::digits;
 use tankwright::ui::App;
@@ -146,6 +146,28 @@ fn a_solution_for_a_coil_that_has_changed_is_dropped() {
     assert_eq!(result.request.coil.turns(), 7.0);
     let (solved, _) = readout_with_mark(&harness, RESONANCE);
     assert_eq!(solved, digits::mhz(headless(&harness).analysis.resonance));
+}
+
+#[test]
+fn another_driving_model_asks_for_nothing_new_and_stays_field_solved() {
+    let mut harness = workbench(egui::vec2(1400.0, 900.0));
+    wait_for_field(&mut harness);
+    let before = readout_with_mark(&harness, RESONANCE);
+    let asked = harness.state().field_solution().expect("ready").request;
+    harness.state_mut().recipe_mut().conditions.model = InductanceModel::Wheeler1928;
+    harness.step();
+    harness.step();
+    // The field solution uses only the temperature: the same answer serves, and the factor
+    // moves the new model onto it in the same frame (no "updating", no other figure).
+    assert_eq!(
+        harness.state().field_solution().map(|r| r.request),
+        Some(asked)
+    );
+    assert_eq!(readout_with_mark(&harness, RESONANCE), before);
+    assert_eq!(
+        harness.state().figures().expect("valid").analysis.resonance,
+        headless(&harness).analysis.resonance
+    );
 }
 
 #[test]

@@ -49,7 +49,7 @@ impl FieldTank {
 }
 
 /// Solve the tank of `coil` across `external_capacitance` farads at the conditions'
-/// temperature with the field solution.
+/// temperature with the field solution (nothing else of `conditions` enters).
 ///
 /// # Formula
 /// With φ(f) = ln(ω²·C·L_app(f)), the resonance is φ = 0. On ln f, φ rises with slope
@@ -79,12 +79,15 @@ pub fn field_tank(
         ));
     }
     let self_resonance = model.first_resonance()?;
+    // The start: the classical resonance with the default model at the same temperature, so
+    // the answer depends on nothing of `conditions` but the temperature (a change of the
+    // driving model or a calibration leaves the field solution as it is).
     let classical = crate::model::evaluate::resonance_of(
         coil,
         external_capacitance,
         &Conditions {
-            inductance_scale: 1.0,
-            ..*conditions
+            temperature_c: conditions.temperature_c,
+            ..Conditions::default()
         },
     );
     let mut evaluations = 0;

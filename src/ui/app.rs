@@ -705,14 +705,18 @@ fn recipe_header(ui: &mut egui::Ui, recipe: &mut Recipe) {
 }
 
 /// What the field worker is asked to solve for `recipe` (`None` when its coil or tank is
-/// refused): the coil, everything across it but its own capacitance, and the conditions as
-/// written (the field solution knows nothing of the bench readings).
+/// refused): the coil, everything across it but its own capacitance, and the temperature (the
+/// only condition the field solution uses, so choosing another driving model asks for
+/// nothing new; the field solution knows nothing of the bench readings either).
 fn field_request(recipe: &Recipe) -> Option<FieldRequest> {
     let coil = crate::model::Coil::from_winding(&recipe.winding).ok()?;
     recipe.tank.validate().ok()?;
     Some(FieldRequest {
         coil,
         external_capacitance: recipe.tank.external_capacitance(),
-        conditions: recipe.conditions,
+        conditions: crate::model::Conditions {
+            temperature_c: recipe.conditions.temperature_c,
+            ..Default::default()
+        },
     })
 }
