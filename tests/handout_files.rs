@@ -11,7 +11,7 @@ use std::process::Command;
 use tankwright::handout::{
     BENCH_COLUMNS, CHART_SIZE, ChartKind, chart_bytes, chart_data, write_sheet,
 };
-use tankwright::recipe::{Recipe, figures};
+use tankwright::recipe::{Footing, Recipe, figures};
 use tankwright::tuning::buildable::former_drills;
 use tankwright::tuning::digits;
 
@@ -105,7 +105,7 @@ fn the_build_sheet_reads_back_with_the_recipes_figures_and_renders_non_blank() {
     let dir = tempfile::tempdir().expect("temp dir");
     let pdf = dir.path().join("sheet.pdf");
     let recipe = Recipe::demo();
-    write_sheet(&recipe, &pdf).expect("the sheet is written");
+    write_sheet(&recipe, &pdf, Footing::FieldSolution).expect("the sheet is written");
     let f = figures(&recipe).expect("valid");
 
     let info = run(&pdfinfo, &[pdf.to_str().expect("utf-8")]);
@@ -198,7 +198,7 @@ fn recorded_readings_fill_the_bench_table() {
     let dir = tempfile::tempdir().expect("temp dir");
     let pdf = dir.path().join("sheet.pdf");
     let recipe = demo_with_a_reading();
-    write_sheet(&recipe, &pdf).expect("written");
+    write_sheet(&recipe, &pdf, Footing::FieldSolution).expect("written");
     let text = squeeze(&run(
         &pdftotext,
         &["-layout", pdf.to_str().expect("utf-8"), "-"],
@@ -265,7 +265,13 @@ fn polylines(svg: &str, min_points: usize) -> (Vec<Vec<(f64, f64)>>, String) {
 fn the_spacing_chart_svg_holds_every_curve_rising_with_the_length() {
     let recipe = Recipe::demo();
     let svg = String::from_utf8(
-        chart_bytes(&recipe, ChartKind::Spacing, Path::new("x.svg")).expect("drawn"),
+        chart_bytes(
+            &recipe,
+            ChartKind::Spacing,
+            Path::new("x.svg"),
+            Footing::FieldSolution,
+        )
+        .expect("drawn"),
     )
     .expect("SVG is text");
     let f = figures(&recipe).expect("valid");
@@ -303,7 +309,13 @@ fn the_spacing_chart_svg_holds_every_curve_rising_with_the_length() {
 fn the_trimmer_chart_svg_holds_one_falling_curve() {
     let recipe = Recipe::demo();
     let svg = String::from_utf8(
-        chart_bytes(&recipe, ChartKind::Trimmer, Path::new("x.svg")).expect("drawn"),
+        chart_bytes(
+            &recipe,
+            ChartKind::Trimmer,
+            Path::new("x.svg"),
+            Footing::FieldSolution,
+        )
+        .expect("drawn"),
     )
     .expect("text");
     let (lines, texts) = polylines(&svg, 100);
@@ -318,7 +330,8 @@ fn the_trimmer_chart_svg_holds_one_falling_curve() {
 fn the_chart_pngs_decode_at_their_size_and_are_not_blank() {
     let recipe = demo_with_a_reading();
     for kind in ChartKind::ALL {
-        let png = chart_bytes(&recipe, kind, Path::new("x.png")).expect("drawn");
+        let png =
+            chart_bytes(&recipe, kind, Path::new("x.png"), Footing::FieldSolution).expect("drawn");
         let img =
             image::load_from_memory_with_format(&png, image::ImageFormat::Png).expect("a PNG");
         assert_eq!(img.dimensions(), CHART_SIZE);
@@ -342,11 +355,12 @@ fn other_formats_are_refused_by_name_and_nothing_is_written() {
     let dir = tempfile::tempdir().expect("temp dir");
     let recipe = Recipe::demo();
     let jpg = dir.path().join("chart.jpg");
-    let e = tankwright::handout::write_chart(&recipe, ChartKind::Spacing, &jpg)
-        .expect_err("JPEG is not offered");
+    let e =
+        tankwright::handout::write_chart(&recipe, ChartKind::Spacing, &jpg, Footing::FieldSolution)
+            .expect_err("JPEG is not offered");
     assert!(e.contains(".svg or .png"), "{e}");
     let html = dir.path().join("sheet.html");
-    let e = write_sheet(&recipe, &html).expect_err("only PDF");
+    let e = write_sheet(&recipe, &html, Footing::FieldSolution).expect_err("only PDF");
     assert!(e.contains(".pdf"), "{e}");
     assert_eq!(std::fs::read_dir(dir.path()).expect("dir").count(), 0);
     // An invalid recipe is refused with the field named, and an earlier file stays.
@@ -354,7 +368,7 @@ fn other_formats_are_refused_by_name_and_nothing_is_written() {
     std::fs::write(&pdf, b"earlier").expect("write");
     let mut bad = recipe.clone();
     bad.winding.turns = -1.0;
-    let e = write_sheet(&bad, &pdf).expect_err("refused");
+    let e = write_sheet(&bad, &pdf, Footing::FieldSolution).expect_err("refused");
     assert!(e.contains("invalid recipe") && e.contains("turns"), "{e}");
     assert_eq!(std::fs::read(&pdf).expect("read"), b"earlier");
     assert_eq!(std::fs::read_dir(dir.path()).expect("dir").count(), 1);

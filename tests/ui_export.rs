@@ -11,7 +11,8 @@ use std::cell::RefCell;
 use std::collections::VecDeque;
 use std::path::Path;
 use std::rc::Rc;
-use tankwright::handout::CHART_SIZE;
+use tankwright::handout::{CHART_SIZE, ChartKind, chart_bytes};
+use tankwright::recipe::Footing;
 use tankwright::ui::App;
 use tankwright::ui::files::{NO_DIALOG, PathAsker, Picked};
 
@@ -100,6 +101,16 @@ fn every_export_writes_its_file_where_the_dialog_says() {
         text.contains("exported the trimmer chart (PNG) to"),
         "{text}"
     );
+    // What is exported stands where the screen does: this window has the field solution
+    // switched off, so the chart is the classical model's, not the field solution's.
+    let recipe = harness.state().recipe().clone();
+    let svg = Path::new("x.svg");
+    let classical =
+        chart_bytes(&recipe, ChartKind::Spacing, svg, Footing::Classical).expect("drawn");
+    let solved =
+        chart_bytes(&recipe, ChartKind::Spacing, svg, Footing::FieldSolution).expect("drawn");
+    assert_eq!(read("spacing.svg"), classical);
+    assert_ne!(classical, solved);
 }
 
 #[test]

@@ -3,6 +3,7 @@
 
 use super::args::Args;
 use crate::handout::{ChartKind, write_chart, write_sheet};
+use crate::recipe::Footing;
 use crate::recipe::store;
 use std::path::Path;
 
@@ -32,7 +33,7 @@ pub fn run_sheet(words: Vec<String>) -> Result<String, String> {
     let (file, out) = file_and_out(&args, "sheet", USAGE)?;
     args.reject_unknown().map_err(|e| e.to_string())?;
     let recipe = store::load(Path::new(file)).map_err(|e| e.to_string())?;
-    write_sheet(&recipe, Path::new(out))?;
+    write_sheet(&recipe, Path::new(out), Footing::FieldSolution)?;
     Ok(format!("wrote the build sheet and worksheet to {out}\n"))
 }
 
@@ -54,6 +55,6 @@ pub fn run_chart(words: Vec<String>) -> Result<String, String> {
     };
     args.reject_unknown().map_err(|e| e.to_string())?;
     let recipe = store::load(Path::new(file)).map_err(|e| e.to_string())?;
-    write_chart(&recipe, kind, Path::new(out))?;
+    write_chart(&recipe, kind, Path::new(out), Footing::FieldSolution)?;
     Ok(format!("wrote the {} chart to {out}\n", kind.cli_name()))
 }

@@ -7,7 +7,7 @@ use super::chart_data::{ChartKind, chart_data};
 use super::chart_files::{chart_png, chart_svg};
 use super::pdf::sheet_pdf;
 use super::sheet::sheet;
-use crate::recipe::{Recipe, figures, store};
+use crate::recipe::{Footing, Recipe, figures_on, store};
 use std::io::Write;
 use std::path::Path;
 
@@ -43,22 +43,29 @@ fn write(path: &Path, bytes: &[u8]) -> Result<(), String> {
         .map_err(|e| e.to_string())
 }
 
-/// The build sheet and worksheet of `recipe` as the bytes of the format `path` names.
-pub fn sheet_bytes(recipe: &Recipe, path: &Path) -> Result<Vec<u8>, String> {
+/// The build sheet and worksheet of `recipe`, figures on `footing`, as the bytes of the format
+/// `path` names.
+pub fn sheet_bytes(recipe: &Recipe, path: &Path, footing: Footing) -> Result<Vec<u8>, String> {
     extension(path, &SHEET_EXTENSIONS, "the build sheet")?;
-    sheet_pdf(&sheet(recipe)?)
+    sheet_pdf(&sheet(recipe, footing)?)
 }
 
-/// Write the build sheet and worksheet of `recipe` to `path` (.pdf).
-pub fn write_sheet(recipe: &Recipe, path: &Path) -> Result<(), String> {
-    let bytes = sheet_bytes(recipe, path)?;
+/// Write the build sheet and worksheet of `recipe`, figures on `footing`, to `path` (.pdf).
+pub fn write_sheet(recipe: &Recipe, path: &Path, footing: Footing) -> Result<(), String> {
+    let bytes = sheet_bytes(recipe, path, footing)?;
     write(path, &bytes)
 }
 
-/// The chart of `kind` for `recipe` as the bytes of the format `path` names (.svg or .png).
-pub fn chart_bytes(recipe: &Recipe, kind: ChartKind, path: &Path) -> Result<Vec<u8>, String> {
+/// The chart of `kind` for `recipe`, figures on `footing`, as the bytes of the format `path`
+/// names (.svg or .png).
+pub fn chart_bytes(
+    recipe: &Recipe,
+    kind: ChartKind,
+    path: &Path,
+    footing: Footing,
+) -> Result<Vec<u8>, String> {
     let ext = extension(path, &CHART_EXTENSIONS, "a chart")?;
-    let f = figures(recipe).map_err(|e| format!("invalid recipe: {e}"))?;
+    let f = figures_on(recipe, footing).map_err(|e| format!("invalid recipe: {e}"))?;
     let data = chart_data(kind, recipe, &f);
     if ext == "svg" {
         chart_svg(&data).map(String::into_bytes)
@@ -67,8 +74,13 @@ pub fn chart_bytes(recipe: &Recipe, kind: ChartKind, path: &Path) -> Result<Vec<
     }
 }
 
-/// Write the chart of `kind` for `recipe` to `path` (.svg or .png).
-pub fn write_chart(recipe: &Recipe, kind: ChartKind, path: &Path) -> Result<(), String> {
-    let bytes = chart_bytes(recipe, kind, path)?;
+/// Write the chart of `kind` for `recipe`, figures on `footing`, to `path` (.svg or .png).
+pub fn write_chart(
+    recipe: &Recipe,
+    kind: ChartKind,
+    path: &Path,
+    footing: Footing,
+) -> Result<(), String> {
+    let bytes = chart_bytes(recipe, kind, path, footing)?;
     write(path, &bytes)
 }

@@ -6,7 +6,7 @@
 use super::chart_data::{ChartData, ChartKind, chart_data};
 use crate::model::{Coating, Gauge};
 use crate::recipe::expectation::DRAWS;
-use crate::recipe::{Figures, Recipe, expectation, figures};
+use crate::recipe::{Figures, Footing, Recipe, expectation, figures_on};
 use crate::tuning::BandPlan;
 use crate::tuning::bands::us_fm_channel_number;
 use crate::tuning::buildable::former_drills;
@@ -57,9 +57,10 @@ pub struct Sheet {
     pub cautions: Vec<(String, String)>,
 }
 
-/// The sheet for `recipe`, or the reason its figures cannot be made.
-pub fn sheet(recipe: &Recipe) -> Result<Sheet, String> {
-    let f = figures(recipe).map_err(|e| format!("invalid recipe: {e}"))?;
+/// The sheet for `recipe` with its figures on `footing` (the headless command: the field
+/// solution; the window: its setting), or the reason they cannot be made.
+pub fn sheet(recipe: &Recipe, footing: Footing) -> Result<Sheet, String> {
+    let f = figures_on(recipe, footing).map_err(|e| format!("invalid recipe: {e}"))?;
     let basis = format!("{}.", f.basis_text());
     let v = &f.verdict;
     let mut verdict = vec![v.channel_text(), v.safety_text(), v.next_step()];

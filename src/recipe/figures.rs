@@ -111,6 +111,42 @@ pub fn figures(recipe: &Recipe) -> Result<Figures, InputError> {
     assemble(recipe, classical, FieldInput::Solved(solved))
 }
 
+/// What the figures stand on: the field solution (solved here) or the classical model alone
+/// (the window's setting switched off), so what is printed or pinned matches the screen.
+#[derive(Clone, Copy, Debug, Default, PartialEq, Eq)]
+pub enum Footing {
+    /// The field solution leads (the default everywhere).
+    #[default]
+    FieldSolution,
+    /// The classical model alone.
+    Classical,
+}
+
+/// Why the classical model leads on [`Footing::Classical`].
+pub const FIELD_SWITCHED_OFF: &str = "the field solution is switched off";
+
+impl Footing {
+    /// The footing of the window's setting: on, the field solution.
+    pub fn of_setting(field_solution: bool) -> Self {
+        if field_solution {
+            Footing::FieldSolution
+        } else {
+            Footing::Classical
+        }
+    }
+}
+
+/// Every figure of `recipe` on `footing`: [`figures`] on the field solution, the classical
+/// model alone otherwise.
+pub fn figures_on(recipe: &Recipe, footing: Footing) -> Result<Figures, InputError> {
+    match footing {
+        Footing::FieldSolution => figures(recipe),
+        Footing::Classical => {
+            figures_with(recipe, FieldInput::Unsolved(FIELD_SWITCHED_OFF.to_owned()))
+        }
+    }
+}
+
 /// Every figure of `recipe` with the field solution as given, or the refusal naming the
 /// field at fault.
 pub fn figures_with(recipe: &Recipe, field: FieldInput) -> Result<Figures, InputError> {

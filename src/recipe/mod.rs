@@ -24,7 +24,7 @@ pub use crate::tuning::field_tank::{FieldBasis, FieldInput};
 pub use demos::demos;
 pub use document::{BenchEntry, Recipe, StraySettings, Target};
 pub use expectation::{Expectation, expectation};
-pub use figures::{Figures, figures, figures_with};
+pub use figures::{FIELD_SWITCHED_OFF, Figures, Footing, figures, figures_on, figures_with};
 pub use format::Opened;
 pub use load::{LoadError, LoadErrorKind};
 pub use store::{SaveError, load, open, save};

@@ -279,6 +279,7 @@ impl App {
         self.refresh_figures(&ctx);
         self.teaching
             .set_field_solution(self.preferences.field_solution);
+        self.files.footing = crate::recipe::Footing::of_setting(self.preferences.field_solution);
         self.teaching.update(&ctx, &self.recipe, &self.evaluation);
         if self.teaching.presentation() {
             crate::ui::teaching::presentation::enlarge(ui.style_mut());

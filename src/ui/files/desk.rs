@@ -74,6 +74,9 @@ pub struct FileDesk {
     pub(super) prompt: Option<PathPrompt>,
     pub(super) asker: Box<dyn PathAsker>,
     pub(super) close_confirmed: bool,
+    /// What exported figures stand on: the window's field-solution setting, so a printed
+    /// sheet matches the screen (set by the app each frame).
+    pub footing: crate::recipe::Footing,
 }
 
 impl FileDesk {
@@ -88,6 +91,7 @@ impl FileDesk {
             prompt: None,
             asker: Box::new(SystemAsker::default()),
             close_confirmed: false,
+            footing: crate::recipe::Footing::default(),
         }
     }
 

@@ -7,6 +7,7 @@ use super::asker::Picked;
 use super::desk::{FileDesk, PathPrompt, Purpose};
 use super::folder::suggested_file_name;
 use crate::handout::{ChartKind, write_chart, write_sheet};
+use crate::recipe::Footing;
 use crate::recipe::Recipe;
 use eframe::egui;
 use std::path::{Path, PathBuf};
@@ -82,11 +83,11 @@ impl Export {
         }
     }
 
-    /// Write it for `doc` to `path`.
-    pub fn write(self, doc: &Recipe, path: &Path) -> Result<(), String> {
+    /// Write it for `doc` to `path`, its figures on `footing` (the window's setting).
+    pub fn write(self, doc: &Recipe, path: &Path, footing: Footing) -> Result<(), String> {
         match self {
-            Export::Sheet => write_sheet(doc, path),
-            Export::Chart(kind, _) => write_chart(doc, kind, path),
+            Export::Sheet => write_sheet(doc, path, footing),
+            Export::Chart(kind, _) => write_chart(doc, kind, path, footing),
         }
     }
 }
@@ -137,7 +138,7 @@ impl FileDesk {
 
     /// Write `export` for `doc` to `path` and say how it went; true when written.
     pub(super) fn write_export(&mut self, export: Export, doc: &Recipe, path: &Path) -> bool {
-        match export.write(doc, path) {
+        match export.write(doc, path, self.footing) {
             Ok(()) => {
                 self.tell(format!("exported {} to {}", export.what(), path.display()));
                 true

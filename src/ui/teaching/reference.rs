@@ -4,7 +4,7 @@
 //! [`crate::recipe::figures()`] as the recipe itself; it is never saved in the recipe.
 
 use crate::model::Coil;
-use crate::recipe::{FieldInput, Figures, Recipe, figures, figures_with};
+use crate::recipe::{Figures, Footing, Recipe, figures_on};
 use crate::tuning::digits;
 use crate::tuning::sweep::spacing_sweep;
 use crate::ui::charts::{ChartOverlay, OverlayKind};
@@ -36,15 +36,8 @@ impl Reference {
     /// on (the window's setting; off: the classical model); refused, with the engine's reason,
     /// if its coil or tank is.
     pub fn new(name: String, recipe: Recipe, field_solution: bool) -> Result<Self, String> {
-        let figures = if field_solution {
-            figures(&recipe)
-        } else {
-            figures_with(
-                &recipe,
-                FieldInput::Unsolved(crate::ui::evaluation::FIELD_OFF.to_owned()),
-            )
-        }
-        .map_err(|e| format!("the reference cannot be evaluated: {e}"))?;
+        let figures = figures_on(&recipe, Footing::of_setting(field_solution))
+            .map_err(|e| format!("the reference cannot be evaluated: {e}"))?;
         let coil = figures.coil;
         let curve = spacing_sweep(
             &coil,
@@ -225,6 +218,7 @@ pub struct PinState {
 #[cfg(test)]
 mod tests {
     use super::*;
+    use crate::recipe::figures;
 
     #[test]
     fn a_recipe_against_itself_differs_in_nothing() {
