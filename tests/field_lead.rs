@@ -205,3 +205,17 @@ fn another_driving_model_moves_the_factor_not_the_field_solved_tank() {
     assert!(wheeler.field.scale() < round.field.scale());
     assert_ne!(round.classical.resonance, wheeler.classical.resonance);
 }
+
+#[test]
+fn the_classical_estimates_are_labelled_with_their_measured_bias() {
+    // The figures are held to the measurement in tests/reference_field.rs; here, the words.
+    use tankwright::tuning::field_tank::{
+        APPARENT_RISE_BIAS, HELICAL_SELF_RESONANCE_BIAS, LUMPED_SELF_RESONANCE_BIAS,
+    };
+    assert_eq!(LUMPED_SELF_RESONANCE_BIAS.in_words(), "29–30 % low");
+    assert_eq!(HELICAL_SELF_RESONANCE_BIAS.in_words(), "24–27 % high");
+    assert_eq!(
+        APPARENT_RISE_BIAS.in_words(),
+        "1.47–1.75 × the field solution's"
+    );
+}

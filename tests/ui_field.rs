@@ -87,6 +87,15 @@ fn a_change_holds_the_last_factor_until_the_field_solution_replaces_it() {
             digits::offset(model - app.analysis.resonance)
         )
     );
+    // The classical self-resonances carry their measured bias.
+    assert_eq!(
+        readout_with_mark(&harness, "Self-resonance, lumped").1,
+        "29–30 % low"
+    );
+    assert_eq!(
+        readout_with_mark(&harness, "Self-resonance, helical").1,
+        "24–27 % high"
+    );
     // The apparent inductance shown is the field solution's X/ω at that resonance.
     assert_eq!(
         readout_with_mark(&harness, "Apparent inductance"),

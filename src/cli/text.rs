@@ -3,7 +3,9 @@
 use crate::model::{Analysis, InductanceModel};
 use crate::tuning::apparent::apparent_inductance;
 use crate::tuning::digits;
-use crate::tuning::field_tank::FieldBasis;
+use crate::tuning::field_tank::{
+    APPARENT_RISE_BIAS, FieldBasis, HELICAL_SELF_RESONANCE_BIAS, LUMPED_SELF_RESONANCE_BIAS,
+};
 
 /// A plain-text report with units, one figure a line.
 pub fn analysis_report(a: &Analysis) -> String {
@@ -73,8 +75,10 @@ pub fn analysis_report(a: &Analysis) -> String {
         "  apparent           {}",
         match apparent_inductance(a) {
             Ok(l) => format!(
-                "{:>10.2} nH   at the resonance, L/(1 - (f/f_self)^2)",
-                l * 1e9
+                "{:>10.2} nH   at the resonance, L/(1 - (f/f_self)^2); its rise over L \
+                 measures {} rise",
+                l * 1e9,
+                APPARENT_RISE_BIAS.in_words()
             ),
             Err(why) => why.reason().to_owned(),
         }
@@ -99,12 +103,14 @@ pub fn analysis_report(a: &Analysis) -> String {
         digits::mhz_plain(a.resonance)
     ));
     line(format!(
-        "  self, lumped       {:>14}",
-        digits::self_resonance(a.self_resonance.lumped)
+        "  self, lumped       {:>14}   (measured {} against the field solution)",
+        digits::self_resonance(a.self_resonance.lumped),
+        LUMPED_SELF_RESONANCE_BIAS.in_words()
     ));
     line(format!(
-        "  self, helical line {:>14}",
-        digits::self_resonance(a.self_resonance.helical)
+        "  self, helical line {:>14}   (measured {} against the field solution)",
+        digits::self_resonance(a.self_resonance.helical),
+        HELICAL_SELF_RESONANCE_BIAS.in_words()
     ));
     line("Loss".to_owned());
     line(format!(

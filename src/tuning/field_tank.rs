@@ -349,3 +349,55 @@ impl FieldBasis {
         }
     }
 }
+
+/// The classical estimates' bias against the field solution, as measured
+/// (tests/reference_field.rs, 2026-12-02): the ratio classical ÷ field, lowest and highest.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct MeasuredBias {
+    /// Lowest ratio measured.
+    pub low: f64,
+    /// Highest ratio measured.
+    pub high: f64,
+}
+
+impl MeasuredBias {
+    /// In words for a label: "29–30 % low", "24–27 % high", "1.47–1.75 × the field solution's".
+    pub fn in_words(self) -> String {
+        if self.high < 1.0 {
+            format!(
+                "{:.0}–{:.0} % low",
+                100.0 * (1.0 - self.high),
+                100.0 * (1.0 - self.low)
+            )
+        } else if self.low > 1.0 && self.high < 1.4 {
+            format!(
+                "{:.0}–{:.0} % high",
+                100.0 * (self.low - 1.0),
+                100.0 * (self.high - 1.0)
+            )
+        } else {
+            format!("{:.2}–{:.2} × the field solution's", self.low, self.high)
+        }
+    }
+}
+
+/// The lumped self-resonance (Medhurst's capacitance with the inductance) over the field
+/// solution's, isolated coils of 6–25 mm, 3–12 turns.
+pub const LUMPED_SELF_RESONANCE_BIAS: MeasuredBias = MeasuredBias {
+    low: 0.698,
+    high: 0.715,
+};
+
+/// The helical-line self-resonance (Kandoian–Sichak velocity factor) over the field
+/// solution's, the same coils.
+pub const HELICAL_SELF_RESONANCE_BIAS: MeasuredBias = MeasuredBias {
+    low: 1.241,
+    high: 1.267,
+};
+
+/// The classical apparent-inductance rise L/(1 − (f/f_self)²) − L over the field solution's
+/// rise of X/ω, FM coils of 7–12 mm with leads at 92–112 MHz.
+pub const APPARENT_RISE_BIAS: MeasuredBias = MeasuredBias {
+    low: 1.47,
+    high: 1.75,
+};

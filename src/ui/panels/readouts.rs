@@ -6,6 +6,9 @@ use crate::model::{InputError, WarningTopic};
 use crate::recipe::{FieldBasis, Figures};
 use crate::tuning::apparent::apparent_inductance;
 use crate::tuning::digits;
+use crate::tuning::field_tank::{
+    APPARENT_RISE_BIAS, HELICAL_SELF_RESONANCE_BIAS, LUMPED_SELF_RESONANCE_BIAS,
+};
 use crate::ui::evaluation::{Evaluation, FIELD_OFF, FIELD_PENDING};
 use crate::ui::theme;
 use crate::ui::units::{LengthUnit, nh, pf};
@@ -218,7 +221,12 @@ fn figures_rows(ui: &mut egui::Ui, figures: &Figures, unit: LengthUnit) {
     match (figures.field.tank(), apparent_inductance(a)) {
         (Some(tank), _) => {
             let more = match apparent_inductance(&figures.classical) {
-                Ok(l) => format!("The classical estimate, {classical_note}: {}", show_nh(l)),
+                Ok(l) => format!(
+                    "The classical estimate, {classical_note}: {} (its rise over L measures {} \
+                     rise on FM coils)",
+                    show_nh(l),
+                    APPARENT_RISE_BIAS.in_words()
+                ),
                 Err(why) => format!("The classical estimate is not shown: {}", why.reason()),
             };
             Readout::new(
@@ -231,7 +239,14 @@ fn figures_rows(ui: &mut egui::Ui, figures: &Figures, unit: LengthUnit) {
             .more(move || more.clone())
             .show(ui);
         }
-        (None, Ok(l)) => Readout::new("Apparent inductance", show_nh(l), classical_note).show(ui),
+        (None, Ok(l)) => Readout::new("Apparent inductance", show_nh(l), classical_note)
+            .more(|| {
+                format!(
+                    "Its rise over L measures {} rise on FM coils",
+                    APPARENT_RISE_BIAS.in_words()
+                )
+            })
+            .show(ui),
         (None, Err(why)) => {
             Readout::new(
                 "Apparent inductance",
@@ -264,6 +279,10 @@ fn figures_rows(ui: &mut egui::Ui, figures: &Figures, unit: LengthUnit) {
         digits::self_resonance(a.self_resonance.lumped),
         "1/(2π√(L·C_self)) with Medhurst's self-capacitance: the usual first estimate",
     )
+    .note(
+        LUMPED_SELF_RESONANCE_BIAS.in_words(),
+        "Measured against the field solution on isolated coils of 6–25 mm and 3–12 turns",
+    )
     .show(ui);
     Readout::new(
         "Self-resonance, field",
@@ -283,6 +302,10 @@ fn figures_rows(ui: &mut egui::Ui, figures: &Figures, unit: LengthUnit) {
         digits::self_resonance(a.self_resonance.helical),
         "Half-wave resonance of the helix as a slow-wave line with the Kandoian–Sichak \
          velocity factor",
+    )
+    .note(
+        HELICAL_SELF_RESONANCE_BIAS.in_words(),
+        "Measured against the field solution on isolated coils of 6–25 mm and 3–12 turns",
     )
     .warnings(a.warnings_about(WarningTopic::SelfResonance))
     .show(ui);
