@@ -66,25 +66,17 @@ fn settled_with(field_solution: bool) -> (egui::Context, App, Clock) {
 fn ui_frame(c: &mut Criterion) {
     let mut group = c.benchmark_group("ui_frame");
 
-    let (ctx, mut app, mut clock) = settled();
-    let mut flip = false;
-    group.bench_function("after_change", |b| {
-        b.iter(|| {
-            flip = !flip;
-            app.recipe_mut().winding.turns = if flip { 5.25 } else { 5.0 };
-            black_box(frame(&ctx, &mut app, clock.next()))
+    for (name, field_solution) in [("after_change", true), ("after_change_classical", false)] {
+        let (ctx, mut app, mut clock) = settled_with(field_solution);
+        let mut flip = false;
+        group.bench_function(name, |b| {
+            b.iter(|| {
+                flip = !flip;
+                app.recipe_mut().winding.turns = if flip { 5.25 } else { 5.0 };
+                black_box(frame(&ctx, &mut app, clock.next()))
+            });
         });
-    });
-
-    let (ctx, mut app, mut clock) = settled_with(false);
-    let mut flip = false;
-    group.bench_function("after_change_classical", |b| {
-        b.iter(|| {
-            flip = !flip;
-            app.recipe_mut().winding.turns = if flip { 5.25 } else { 5.0 };
-            black_box(frame(&ctx, &mut app, clock.next()))
-        });
-    });
+    }
 
     let (ctx, mut app, mut clock) = settled();
     group.bench_function("idle", |b| {
