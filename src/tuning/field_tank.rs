@@ -48,6 +48,16 @@ impl FieldTank {
     }
 }
 
+/// What of `conditions` the field solution uses: the temperature, with the defaults for the
+/// rest (a change of the driving model or a calibration leaves the field solution as it is, so
+/// the window's worker is not asked again for it).
+pub fn field_conditions(conditions: &Conditions) -> Conditions {
+    Conditions {
+        temperature_c: conditions.temperature_c,
+        ..Conditions::default()
+    }
+}
+
 /// Solve the tank of `coil` across `external_capacitance` farads at the conditions'
 /// temperature with the field solution (nothing else of `conditions` enters).
 ///
@@ -79,16 +89,12 @@ pub fn field_tank(
         ));
     }
     let self_resonance = model.first_resonance()?;
-    // The start: the classical resonance with the default model at the same temperature, so
-    // the answer depends on nothing of `conditions` but the temperature (a change of the
-    // driving model or a calibration leaves the field solution as it is).
+    // The start: the classical resonance on the field's own conditions, so the answer depends
+    // on nothing of `conditions` but the temperature.
     let classical = crate::model::evaluate::resonance_of(
         coil,
         external_capacitance,
-        &Conditions {
-            temperature_c: conditions.temperature_c,
-            ..Conditions::default()
-        },
+        &field_conditions(conditions),
     );
     let mut evaluations = 0;
     // φ at ln f, with the impedance there.

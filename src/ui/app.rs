@@ -715,9 +715,6 @@ fn field_request(recipe: &Recipe) -> Option<FieldRequest> {
     Some(FieldRequest {
         coil,
         external_capacitance: recipe.tank.external_capacitance(),
-        conditions: crate::model::Conditions {
-            temperature_c: recipe.conditions.temperature_c,
-            ..Default::default()
-        },
+        conditions: crate::tuning::field_tank::field_conditions(&recipe.conditions),
     })
 }

@@ -16,8 +16,8 @@
 use crate::model::InputError;
 use crate::physics::field::FieldError;
 use crate::recipe::{
-    BenchEntry, Expectation, FieldBasis, FieldInput, Figures, Recipe, StraySettings, Target,
-    expectation, figures_with,
+    BenchEntry, Expectation, FIELD_SWITCHED_OFF, FieldBasis, FieldInput, Figures, Recipe,
+    StraySettings, Target, expectation, figures_with,
 };
 use crate::tuning::BandPlan;
 use crate::tuning::field_tank::FieldTank;
@@ -47,8 +47,6 @@ pub enum FieldState<'a> {
     Ready(&'a Result<FieldTank, FieldError>),
 }
 
-/// Why the classical model leads while the field solution is switched off.
-pub const FIELD_OFF: &str = "the field solution is switched off in the View menu";
 /// Why the classical model leads while the first field solution is computed.
 pub const FIELD_PENDING: &str = "the field solution is being computed";
 
@@ -147,7 +145,7 @@ impl Evaluation {
     /// classical model while there is none or it is switched off.
     pub fn field_input(&self, state: FieldState<'_>) -> FieldInput {
         match state {
-            FieldState::Off => FieldInput::Unsolved(FIELD_OFF.to_owned()),
+            FieldState::Off => FieldInput::Unsolved(FIELD_SWITCHED_OFF.to_owned()),
             FieldState::Ready(answer) => FieldInput::Solved(answer.clone()),
             FieldState::Pending => match self.latest().map(|f| &f.field) {
                 Some(FieldBasis::Solved { scale, .. } | FieldBasis::Held { scale }) => {
