@@ -167,16 +167,13 @@ fn target_lines(r: &Recipe, f: &Figures, out: &mut Vec<String>) {
         "  channel            {:>10.4} MHz{number}",
         target * 1e-6
     ));
-    let model = if f.calibrated() {
-        format!("calibrated on {} reading(s)", f.readings_used())
-    } else {
-        "model, not yet calibrated on the bench".to_owned()
-    };
     out.push(format!(
-        "  resonance now      {:>10.3} MHz   offset {} ({model})",
+        "  resonance now      {:>10.3} MHz   offset {}",
         t.resonance * 1e-6,
         digits::offset(t.offset)
     ));
+    // What the figures rest on, in the words the window and the sheet use.
+    out.push(format!("  figures            {}", f.basis_text()));
     match &t.length_for_target {
         Ok(l) => out.push(format!(
             "  length for target  {:>10.3} mm   ({} mm from now)",
