@@ -11,7 +11,7 @@ use crate::tuning::spread::{Spread, TankParts, calibrated_band, linear_band, spr
 use crate::tuning::stray::{Span, StrayEstimate, estimate_stray, frequency_window, inputs_for};
 
 /// Monte Carlo draws for the spread at the present coil (at least 1000, as the issue of the
-/// spread asks; tests/batch_spread.rs holds the linear band to it).
+/// spread asks; tests/engine/batch_spread.rs holds the linear band to it).
 pub const DRAWS: usize = 1000;
 
 /// Seed of the draws, so the same recipe always shows the same figures.

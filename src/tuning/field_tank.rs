@@ -357,7 +357,7 @@ impl FieldBasis {
 }
 
 /// The classical estimates' bias against the field solution, as measured
-/// (tests/reference_field.rs, 2026-12-02): the ratio classical ÷ field, lowest and highest.
+/// (tests/engine/reference_field.rs, 2026-12-02): the ratio classical ÷ field, lowest and highest.
 #[derive(Clone, Copy, Debug, PartialEq)]
 pub struct MeasuredBias {
     /// Lowest ratio measured.

@@ -396,7 +396,7 @@ fn nominal_over_lengths(
 /// method of [`spread`]'s linear figures (each input's standard deviation times the central
 /// difference of the resonance in it, added in quadrature; the mean moved by the stray's
 /// skew), every curve swept by the batch path. Returns (length, mean − 1.96σ, mean + 1.96σ)
-/// in hertz. Thirteen sweeps instead of a thousand; tests/batch_spread.rs holds it to
+/// in hertz. Thirteen sweeps instead of a thousand; tests/engine/batch_spread.rs holds it to
 /// [`spread`] at each length, and [`spread`]'s linear figures to its Monte Carlo draws.
 pub fn linear_band(
     coil: &Coil,

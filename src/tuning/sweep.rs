@@ -31,7 +31,7 @@ pub struct SpacingCurve {
 /// `lengths` is the (shortest, longest) coil length in metres, kept within what the coil can be
 /// wound to ([`Coil::shortest_length`] to the model's longest). `samples` points per curve,
 /// evenly spaced in length, each curve computed in one call of the batch path
-/// ([`resonance_over_lengths`]: equal to the per-point path within 1e-9, tests/batch_spread.rs).
+/// ([`resonance_over_lengths`]: equal to the per-point path within 1e-9, tests/engine/batch_spread.rs).
 pub fn spacing_sweep(
     coil: &Coil,
     tank: &Tank,

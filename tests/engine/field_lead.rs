@@ -1,13 +1,13 @@
 //! The field solution leads the tank: one figure drives the verdict, the offsets, the target's
 //! advice and the calibration.
 //!
-//! The field solution itself is held to nec2c in tests/reference_field.rs; here the layers on
+//! The field solution itself is held to nec2c in tests/engine/reference_field.rs; here the layers on
 //! top of it are held to it. The tank's resonance with the field-solved apparent inductance is
 //! Thomson's f = 1/(2π√((X/ω)·C)) (checked there); the classical model is moved onto it by a
 //! factor on its inductance, and every figure that follows must then agree with it to the
 //! solvers' own tolerances (1e-9 relative for the field-solved tank, see
 //! `tuning::field_tank::TOLERANCE`). The calibration's inverse is held to its forward model as
-//! in tests/bench_fit.rs (Press et al., *Numerical Recipes*, 3rd ed., 2007, §15.4–15.5).
+//! in tests/engine/bench_fit.rs (Press et al., *Numerical Recipes*, 3rd ed., 2007, §15.4–15.5).
 
 use approx::assert_relative_eq;
 use tankwright::model::evaluate::resonance_of;
@@ -208,7 +208,7 @@ fn another_driving_model_moves_the_factor_not_the_field_solved_tank() {
 
 #[test]
 fn the_classical_estimates_are_labelled_with_their_measured_bias() {
-    // The figures are held to the measurement in tests/reference_field.rs; here, the words.
+    // The figures are held to the measurement in tests/engine/reference_field.rs; here, the words.
     use tankwright::tuning::field_tank::{
         APPARENT_RISE_BIAS, HELICAL_SELF_RESONANCE_BIAS, LUMPED_SELF_RESONANCE_BIAS,
     };

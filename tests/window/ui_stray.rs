@@ -3,10 +3,10 @@
 //! bench readings bring the fitted stray beside the estimate and narrow the band to what the
 //! fit's errors leave; the building method and tolerances are kept in the recipe and come back
 //! when it is opened. The figures are the engine's (`tuning::stray`, checked in
-//! tests/reference_stray.rs; the bands in tests/batch_spread.rs); this checks that the window
+//! tests/engine/reference_stray.rs; the bands in tests/engine/batch_spread.rs); this checks that the window
 //! shows, keeps and applies them.
 
-mod common;
+use crate::common;
 
 use common::screen_text;
 use egui::accesskit::Role;

@@ -4,7 +4,7 @@
 //! for waits for the user's choice; typed values are taken on Enter, not per keystroke; a
 //! refusal moves nothing on screen.
 
-mod common;
+use crate::common;
 
 use common::screen_text;
 use egui::accesskit::Role;

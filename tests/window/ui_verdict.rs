@@ -4,11 +4,11 @@
 //! the window.
 //!
 //! The verdict itself is the engine's ([`tankwright::tuning::verdict::judge`], checked in
-//! tests/verdict.rs); here the window must show exactly what it says. The band edges are the
+//! tests/engine/verdict.rs); here the window must show exactly what it says. The band edges are the
 //! ITU Radio Regulations, Article 5 (108–117.975 MHz aeronautical radionavigation,
 //! 117.975–137 MHz aeronautical mobile (R)).
 
-mod common;
+use crate::common;
 
 use common::screen_text;
 use egui::accesskit::Role;
@@ -25,7 +25,7 @@ use tankwright::ui::panels::target::TOLERANCE_LABEL;
 
 /// The window with the classical model leading (the field solution switched off), so the
 /// figures cannot change under a test when the worker answers; the field solution's own
-/// window tests are in tests/ui_field.rs.
+/// window tests are in tests/window/ui_field.rs.
 fn window(width: f32, height: f32) -> Harness<'static, App> {
     let mut harness = Harness::builder()
         .with_size(egui::vec2(width, height))

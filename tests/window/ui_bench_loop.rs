@@ -5,7 +5,7 @@
 //! The "bench" here is the engine with a known departure from the model (an extra capacitance
 //! and an inductance scale), so the window's calibration can be checked against the truth.
 
-mod common;
+use crate::common;
 
 use common::screen_text;
 use egui_kittest::Harness;

@@ -4,9 +4,9 @@
 //! changed is dropped; switched off, the classical model leads; the impedance chart.
 //!
 //! These hold the window to the engine's own headless figures (`recipe::figures`); the field
-//! solution itself is checked against nec2c in tests/reference_field.rs.
+//! solution itself is checked against nec2c in tests/engine/reference_field.rs.
 
-mod common;
+use crate::common;
 
 use common::screen_text;
 use egui::accesskit::Role;

@@ -179,7 +179,7 @@ fn us_fm_band_plan() {
 }
 
 /// 47 CFR §97.301 and ITU RR Art. 5: 2 m is 144–146 MHz in Region 1 and 144–148 MHz in
-/// Regions 2 and 3; the FM channels of the band plans lie inside (tests/bands.rs checks them
+/// Regions 2 and 3; the FM channels of the band plans lie inside (tests/engine/bands.rs checks them
 /// against the IARU Region 1 and ARRL plans).
 #[test]
 fn two_metre_band_plans() {

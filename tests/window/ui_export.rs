@@ -2,7 +2,7 @@
 //! the typed-path prompt where no dialog can be shown, and the files checked by reading them
 //! back (PDF header, SVG root, PNG decoded at its size).
 
-mod common;
+use crate::common;
 
 use common::screen_text;
 use egui_kittest::Harness;

@@ -1,6 +1,6 @@
 //! The workbench window driven as a person would: by label and role, reading what is on screen.
 
-mod common;
+use crate::common;
 
 use common::screen_text;
 use egui::accesskit::Role;
@@ -11,7 +11,7 @@ use tankwright::ui::App;
 
 /// The window with the classical model leading (the field solution switched off), so no
 /// worker's answer can move a figure or a row between two reads of a test; the field
-/// solution's window tests are in tests/ui_field.rs.
+/// solution's window tests are in tests/window/ui_field.rs.
 fn workbench() -> Harness<'static, App> {
     let mut harness = Harness::builder()
         .with_size(egui::vec2(1400.0, 900.0))
@@ -59,7 +59,7 @@ fn number(figure: &str) -> f64 {
 }
 
 /// The resonance readout: the model's figure, the one the verdict and the offsets use (the
-/// field-solved figure is its own row; see tests/ui_field.rs).
+/// field-solved figure is its own row; see tests/window/ui_field.rs).
 fn resonance_mhz(harness: &mut Harness<'_, App>) -> f64 {
     let figure = readout(harness, "Resonance");
     assert!(figure.ends_with(" MHz"), "resonance shown as {figure:?}");

@@ -1,6 +1,6 @@
 //! Recipes and the bench log through the whole window, driven by label and role.
 
-mod common;
+use crate::common;
 
 use common::screen_text;
 use egui::accesskit::Role;

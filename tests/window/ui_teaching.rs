@@ -5,7 +5,7 @@
 //! evaluate`, the same function `recipe::figures` calls) or with the arithmetic of the sweep
 //! (a kittest frame lasts the harness's step, 0.25 s), never with figures written down here.
 
-mod common;
+use crate::common;
 
 use common::screen_text;
 use egui::accesskit::Role;

@@ -219,7 +219,7 @@ fn report_leads_with_the_verdict() {
 /// by default).
 #[test]
 fn evaluate_of_a_recipe_keeps_its_on_channel_tolerance() {
-    let demo = include_str!("../assets/recipes/lantern_hill_bench_oscillator.ron");
+    let demo = include_str!("../../assets/recipes/lantern_hill_bench_oscillator.ron");
     // The demo tank sits about 18 kHz under 97.3 MHz: off channel by the broadcast default
     // of ±15 kHz (common practice), on channel within the recipe's ±50 kHz.
     let wide = demo.replace(

@@ -19,7 +19,7 @@ use tankwright::tuning::digits;
 /// (the `CI` variable), where `.ci/setup` installs it and its absence is a failure.
 #[expect(
     clippy::print_stderr,
-    reason = "a skipped reference check says so, as tests/window_kill.rs does"
+    reason = "a skipped reference check says so, as tests/cli/window_kill.rs does"
 )]
 fn tool(program: &str) -> Option<PathBuf> {
     let found = std::env::var_os("PATH").and_then(|paths| {

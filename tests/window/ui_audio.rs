@@ -3,10 +3,10 @@
 //! capacitor's temperature class and with the changes budgeted for; the two modulation charts
 //! are shown and move the way the junction's law says; a pasted SPICE `.model` line fills the
 //! law or is refused with a message, keeping what was typed. The figures themselves are
-//! checked against ngspice and the standard's table in tests/reference_junction.rs and
-//! tests/reference_stray.rs.
+//! checked against ngspice and the standard's table in tests/engine/reference_junction.rs and
+//! tests/engine/reference_stray.rs.
 
-mod common;
+use crate::common;
 
 use common::screen_text;
 use egui_kittest::Harness;
@@ -239,7 +239,7 @@ fn paste(harness: &mut Harness<'_, App>, text: &str) {
 
 /// An invented varactor's model on two lines (continuation), with scale suffixes and
 /// parameters outside the capacitance law; the law's numbers go into the fields and the
-/// figures follow (the reader itself is checked in tests/reference_junction.rs).
+/// figures follow (the reader itself is checked in tests/engine/reference_junction.rs).
 #[test]
 fn a_pasted_model_fills_the_law_and_lists_what_it_ignores() {
     let mut harness = workbench();

@@ -1,0 +1,13 @@
+//! The headless commands and the real program, run as a user runs them.
+//!
+//! One test binary per group keeps the build short (see DEVELOPERS.md, "Tests"): each
+//! module below was a test file of its own and keeps its own sources named at its top.
+
+mod cli_bench;
+mod cli_evaluate;
+mod cli_impedance;
+mod cli_modulation;
+mod cli_sheet;
+mod cli_verdict;
+mod recipe_cli;
+mod window_kill;

@@ -1,0 +1,21 @@
+//! The engine and its published references: formulas, solvers, calibration, verdict.
+//!
+//! One test binary per group keeps the build short (see DEVELOPERS.md, "Tests"): each
+//! module below was a test file of its own and keeps its own sources named at its top.
+
+mod bands;
+mod batch_spread;
+mod bench_fit;
+mod field_lead;
+mod properties;
+mod reference_elliptic;
+mod reference_field;
+mod reference_inductance;
+mod reference_junction;
+mod reference_loss;
+mod reference_proximity;
+mod reference_stray;
+mod reference_tank;
+mod tuning;
+mod validation;
+mod verdict;

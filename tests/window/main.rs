@@ -1,0 +1,18 @@
+//! The window driven by label and role (egui_kittest).
+//!
+//! One test binary per group keeps the build short (see DEVELOPERS.md, "Tests"): each
+//! module below was a test file of its own and keeps its own sources named at its top.
+
+mod common;
+mod recipe_file_desk;
+mod ui_audio;
+mod ui_bench_loop;
+mod ui_charts;
+mod ui_export;
+mod ui_field;
+mod ui_recipes;
+mod ui_stray;
+mod ui_teaching;
+mod ui_verdict;
+mod ui_workbench;
+mod ui_working_copy;
