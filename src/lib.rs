@@ -17,6 +17,7 @@ pub mod cautions;
 pub mod cli;
 pub mod handout;
 pub mod model;
+pub mod palette;
 pub mod physics;
 pub mod recipe;
 pub mod tuning;

@@ -7,31 +7,28 @@ use super::fonts::FAMILY;
 use plotters::coord::Shift;
 use plotters::prelude::*;
 
-/// Colours of our own for print: the trimmer ramp runs from near-black (0 %, least
-/// capacitance) to amber (100 %); the marks sit on mid-lightness hues that print in grey too.
+/// The palette ([`crate::palette`]) as plotters' colours, for print.
 mod ink {
+    use crate::palette::{self, Rgb};
     use plotters::style::RGBColor;
-    pub const RAMP_START: RGBColor = RGBColor(0x26, 0x26, 0x26);
-    pub const RAMP_END: RGBColor = RGBColor(0xd9, 0x74, 0x1c);
-    pub const PRESENT: RGBColor = RGBColor(0x2f, 0x86, 0xd6);
-    pub const READING: RGBColor = RGBColor(0xb8, 0x3f, 0xa8);
-    pub const TARGET: RGBColor = RGBColor(0x3a, 0xa8, 0x5c);
-    pub const AERONAUTICAL: RGBColor = RGBColor(0xd2, 0x3c, 0x3c);
-    pub const TOUCHING: RGBColor = RGBColor(0xb0, 0x30, 0x30);
-    pub const GRID: RGBColor = RGBColor(0xe4, 0xe4, 0xe4);
-    pub const GRID_BOLD: RGBColor = RGBColor(0xc8, 0xc8, 0xc8);
-}
+    const fn ink(c: Rgb) -> RGBColor {
+        RGBColor(c.0, c.1, c.2)
+    }
+    pub const PRESENT: RGBColor = ink(palette::PRESENT);
+    pub const READING: RGBColor = ink(palette::READING);
+    pub const TARGET: RGBColor = ink(palette::TARGET);
+    pub const AERONAUTICAL: RGBColor = ink(palette::AERONAUTICAL);
+    pub const TOUCHING: RGBColor = ink(palette::TOUCHING);
+    pub const GRID: RGBColor = ink(palette::GRID);
+    pub const GRID_BOLD: RGBColor = ink(palette::GRID_BOLD);
 
-/// Colour of the curve for trimmer `setting` (0–1).
-fn ramp(setting: f64) -> RGBColor {
-    let t = setting.clamp(0.0, 1.0);
-    let mix = |a: u8, b: u8| (f64::from(a) + (f64::from(b) - f64::from(a)) * t).round() as u8;
-    RGBColor(
-        mix(ink::RAMP_START.0, ink::RAMP_END.0),
-        mix(ink::RAMP_START.1, ink::RAMP_END.1),
-        mix(ink::RAMP_START.2, ink::RAMP_END.2),
-    )
+    /// Colour of the curve for trimmer `setting` (0–1).
+    pub fn ramp(setting: f64) -> RGBColor {
+        let c = palette::RAMP_START.towards(palette::RAMP_END, setting);
+        RGBColor(c.0, c.1, c.2)
+    }
 }
+use ink::ramp;
 
 /// Draw `data` filling `root`; `scale` multiplies every size (text, lines, margins) so that
 /// the same chart reads the same at 960 pixels wide (`scale` 1) and on a printed page.

@@ -190,7 +190,10 @@ fn shared(shape: &Shape, conditions: &Conditions) -> Option<Shared> {
     let rosa = match conditions.model {
         InductanceModel::RoundWire => true,
         InductanceModel::CurrentSheet => false,
-        _ => return None,
+        // No column form yet: these take the per-point path (a new model must choose here).
+        InductanceModel::FilamentSum
+        | InductanceModel::Lundin1985
+        | InductanceModel::Wheeler1928 => return None,
     };
     let (d, n, w) = (shape.mean_diameter, shape.turns, shape.wire_bare);
     // The driving inductance (coil and leads) is scaled as a whole, as the per-point path

@@ -126,7 +126,9 @@ impl Fixed {
         let driving_estimate = match c.model {
             InductanceModel::RoundWire => scale * (lundin - surface_correction + leads[0]),
             InductanceModel::CurrentSheet => scale * (lundin + leads[0]),
-            _ => driving[0],
+            InductanceModel::FilamentSum
+            | InductanceModel::Lundin1985
+            | InductanceModel::Wheeler1928 => driving[0],
         };
         let length_over_diameter = l / d;
         let medhurst_factor = medhurst::factor(length_over_diameter);

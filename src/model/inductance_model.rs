@@ -7,9 +7,26 @@
 //! in [`Inductances`](super::Inductances) and its formula in `evaluate.rs` — the compiler points
 //! to each.
 
-/// Which inductance model drives the resonance (the others are reported beside it).
-#[derive(Clone, Copy, Debug, PartialEq, Eq, Hash)]
-pub enum InductanceModel {
+/// Declares [`InductanceModel`] and [`InductanceModel::ALL`] from one list, so a variant cannot
+/// exist without being in `ALL` (a model missing from `ALL` would silently drop out of the
+/// report, the JSON, the readouts, the parser and the recipe file).
+macro_rules! inductance_models {
+    ($($(#[$doc:meta])* $variant:ident,)+) => {
+        /// Which inductance model drives the resonance (the others are reported beside it).
+        #[derive(Clone, Copy, Debug, PartialEq, Eq, Hash)]
+        pub enum InductanceModel {
+            $($(#[$doc])* $variant,)+
+        }
+
+        impl InductanceModel {
+            /// Every model, in the order shown.
+            pub const ALL: [InductanceModel; [$(InductanceModel::$variant),+].len()] =
+                [$(InductanceModel::$variant),+];
+        }
+    };
+}
+
+inductance_models! {
     /// Rosa's round-wire correction, frequency-aware (the default).
     RoundWire,
     /// Sum over rings (Maxwell's mutual inductance).
@@ -23,15 +40,6 @@ pub enum InductanceModel {
 }
 
 impl InductanceModel {
-    /// Every model, in the order shown.
-    pub const ALL: [InductanceModel; 5] = [
-        InductanceModel::RoundWire,
-        InductanceModel::FilamentSum,
-        InductanceModel::CurrentSheet,
-        InductanceModel::Lundin1985,
-        InductanceModel::Wheeler1928,
-    ];
-
     /// The name each model is written under in a recipe file, in the order of [`Self::ALL`].
     pub const FILE_NAMES: [&'static str; Self::ALL.len()] = {
         let mut names = [""; Self::ALL.len()];

@@ -4,24 +4,11 @@
 //! again, must land the target within 1 kHz; `fit` must print what the library's fit gives
 //! for the same recipe (the window shows the same figures: `recipe::figures`).
 
+use crate::common::{asset, run};
 use serde_json::Value;
-use std::path::{Path, PathBuf};
-use std::process::{Command, Output};
+use std::process::Output;
 use tankwright::model::{Coil, evaluate::resonance_of};
 use tankwright::recipe::{figures, store};
-
-fn run(args: &[&str]) -> Output {
-    Command::new(env!("CARGO_BIN_EXE_tankwright"))
-        .args(args)
-        .output()
-        .expect("the binary runs")
-}
-
-fn asset(name: &str) -> PathBuf {
-    Path::new(env!("CARGO_MANIFEST_DIR"))
-        .join("assets/recipes")
-        .join(name)
-}
 
 fn json(o: &Output) -> Value {
     assert!(o.status.success(), "{}", String::from_utf8_lossy(&o.stderr));

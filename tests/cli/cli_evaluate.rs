@@ -1,18 +1,7 @@
 //! The headless `evaluate` command, run as a user would run it.
 
+use crate::common::run_text as run;
 use std::process::Command;
-
-fn run(args: &[&str]) -> (bool, String, String) {
-    let out = Command::new(env!("CARGO_BIN_EXE_tankwright"))
-        .args(args)
-        .output()
-        .expect("the binary runs");
-    (
-        out.status.success(),
-        String::from_utf8_lossy(&out.stdout).into_owned(),
-        String::from_utf8_lossy(&out.stderr).into_owned(),
-    )
-}
 
 const COIL: [&str; 14] = [
     "evaluate",

@@ -1,18 +1,6 @@
 //! The headless `impedance` command, run as a user would run it.
 
-use std::process::Command;
-
-fn run(args: &[&str]) -> (bool, String, String) {
-    let out = Command::new(env!("CARGO_BIN_EXE_tankwright"))
-        .args(args)
-        .output()
-        .expect("the binary runs");
-    (
-        out.status.success(),
-        String::from_utf8_lossy(&out.stdout).into_owned(),
-        String::from_utf8_lossy(&out.stderr).into_owned(),
-    )
-}
+use crate::common::run_text as run;
 
 /// The demo coil: 7 mm mean diameter, 5 turns over 8 mm, 1 mm wire, 5 mm leads.
 const COIL: [&str; 11] = [

@@ -1,28 +1,8 @@
 //! `tankwright sheet` and `tankwright chart` run as a user runs them: what they write, and
 //! that every mistake gets a clear message and leaves no file (and an earlier file as it was).
 
+use crate::common::{asset_str as asset, run, stderr};
 use std::path::{Path, PathBuf};
-use std::process::{Command, Output};
-
-fn run(args: &[&str]) -> Output {
-    Command::new(env!("CARGO_BIN_EXE_tankwright"))
-        .args(args)
-        .output()
-        .expect("the binary runs")
-}
-
-fn asset(name: &str) -> String {
-    Path::new(env!("CARGO_MANIFEST_DIR"))
-        .join("assets/recipes")
-        .join(name)
-        .to_str()
-        .expect("utf-8")
-        .to_owned()
-}
-
-fn stderr(o: &Output) -> String {
-    String::from_utf8_lossy(&o.stderr).into_owned()
-}
 
 fn names_in(dir: &Path) -> Vec<String> {
     let mut names: Vec<String> = std::fs::read_dir(dir)

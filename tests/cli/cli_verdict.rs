@@ -2,19 +2,7 @@
 //! the JSON keys, the flags in `warnings`, `report` leading with the verdict, and bad input
 //! refused with a message.
 
-use std::process::Command;
-
-fn run(args: &[&str]) -> (bool, String, String) {
-    let out = Command::new(env!("CARGO_BIN_EXE_tankwright"))
-        .args(args)
-        .output()
-        .expect("the binary runs");
-    (
-        out.status.success(),
-        String::from_utf8_lossy(&out.stdout).into_owned(),
-        String::from_utf8_lossy(&out.stderr).into_owned(),
-    )
-}
+use crate::common::run_text as run;
 
 /// The bench demo's coil (5 turns of 1 mm bare wire on a 6 mm former, 8 mm long) with a
 /// fixed capacitor, a 2–10 pF trimmer and stray.

@@ -9,5 +9,6 @@ mod cli_impedance;
 mod cli_modulation;
 mod cli_sheet;
 mod cli_verdict;
+mod common;
 mod recipe_cli;
 mod window_kill;

@@ -1,26 +1,9 @@
 //! `tankwright report FILE` and `tankwright evaluate --recipe FILE --json`, run as a user would.
 
+use crate::common::{asset, run, stdout};
 use serde_json::Value;
 use std::collections::BTreeSet;
-use std::path::{Path, PathBuf};
-use std::process::{Command, Output};
-
-fn run(args: &[&str]) -> Output {
-    Command::new(env!("CARGO_BIN_EXE_tankwright"))
-        .args(args)
-        .output()
-        .expect("the binary runs")
-}
-
-fn asset(name: &str) -> PathBuf {
-    Path::new(env!("CARGO_MANIFEST_DIR"))
-        .join("assets/recipes")
-        .join(name)
-}
-
-fn stdout(o: &Output) -> String {
-    String::from_utf8(o.stdout.clone()).unwrap()
-}
+use std::process::Output;
 
 /// Every key path in a JSON value ("a.b"), for comparing shapes.
 fn key_paths(v: &Value, prefix: &str, out: &mut BTreeSet<String>) {

@@ -1,9 +1,9 @@
 //! Engine benchmarks: one full evaluation, and the 50-turn filament sum.
 //!
-//! Run with `cargo bench --bench engine`. Budget (2-core CI machine): `evaluate_point` at most
-//! 100 ns median.
+//! Run with `cargo bench --bench perf` (one binary; names after `--` filter). Budget (2-core CI
+//! machine): `evaluate_point` at most 100 ns median.
 
-use criterion::{Criterion, criterion_group, criterion_main};
+use criterion::{Criterion, criterion_group};
 use std::hint::black_box;
 use tankwright::model::{
     Coating, Coil, Conditions, DiameterSpec, Gauge, SpacingSpec, Tank, Winding, WireSpec, evaluate,
@@ -144,4 +144,3 @@ fn bench_loop(c: &mut Criterion) {
 }
 
 criterion_group!(benches, engine, parts, bench_loop);
-criterion_main!(benches);

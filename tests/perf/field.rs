@@ -1,16 +1,16 @@
 //! Field-solution benchmarks: the first parallel self-resonance of the demo coil (5 turns,
 //! 7 mm mean diameter, 1 mm wire, 8 mm long, 5 mm leads) solved from scratch.
 //!
-//! Run with `cargo bench --bench field`. Budget (one core of the 2-core project machine):
-//! `field_solve_srf` at most 200 ms median. Its peers in the same run, `field_parts/…`, show
-//! where the time goes: the frequency-independent integrals (`static_integrals`) and one
-//! frequency's fill and factorisation (`one_frequency`); the resonance search costs about a
-//! dozen of the latter. `field_solve_srf_leads/…` is the same coil on 30, 50 and 200 mm leads
-//! (graded straight segments keep the count bounded; same budget), and `field_tank_resonance`
-//! the 22 pF tank's resonance solved with the field-solved apparent inductance (the figure
-//! `evaluate` and the window's worker compute; same budget).
+//! Run with `cargo bench --bench perf` (one binary; names after `--` filter). Budget (one core of
+//! the 2-core project machine): `field_solve_srf` at most 200 ms median. Its peers in the same run,
+//! `field_parts/…`, show where the time goes: the frequency-independent integrals
+//! (`static_integrals`) and one frequency's fill and factorisation (`one_frequency`); the resonance
+//! search costs about a dozen of the latter. `field_solve_srf_leads/…` is the same coil on 30, 50
+//! and 200 mm leads (graded straight segments keep the count bounded; same budget), and
+//! `field_tank_resonance` the 22 pF tank's resonance solved with the field-solved apparent
+//! inductance (the figure `evaluate` and the window's worker compute; same budget).
 
-use criterion::{Criterion, criterion_group, criterion_main};
+use criterion::{Criterion, criterion_group};
 use std::hint::black_box;
 use std::time::Duration;
 use tankwright::model::{
@@ -98,4 +98,3 @@ criterion_group! {
     config = Criterion::default().sample_size(10).measurement_time(Duration::from_secs(3));
     targets = field
 }
-criterion_main!(benches);

@@ -1,14 +1,14 @@
 //! Sweep benchmarks: the batch resonance path and the spread band as the chart draws it.
 //!
-//! Run with `cargo bench --bench sweep`. Budgets (2-core project machine): `sweep_batch` per
-//! element at most 1/10 of the numpy/scipy peer's per-element time for the same resonance
-//! path, measured in the same sitting; `spread_band` (1000 draws over the chart's 240 lengths,
-//! percentiles included) within one 60 Hz frame, 16.7 ms, on one core.
+//! Run with `cargo bench --bench perf` (one binary; names after `--` filter). Budgets (2-core
+//! project machine): `sweep_batch` per element at most 1/10 of the numpy/scipy peer's per-element
+//! time for the same resonance path, measured in the same sitting; `spread_band` (1000 draws over
+//! the chart's 240 lengths, percentiles included) within one 60 Hz frame, 16.7 ms, on one core.
 //!
 //! The coil is the peer's: mean diameter 7 mm, 5 turns of 1 mm wire, 5 mm leads, 25 pF, over
 //! 1000 lengths from 5.2 to 28 mm.
 
-use criterion::{Criterion, Throughput, criterion_group, criterion_main};
+use criterion::{Criterion, Throughput, criterion_group};
 use std::hint::black_box;
 use tankwright::model::batch::{SweepColumns, resonance_over_lengths};
 use tankwright::model::evaluate::resonance_of;
@@ -124,4 +124,3 @@ fn parts(c: &mut Criterion) {
 }
 
 criterion_group!(benches, sweep, parts);
-criterion_main!(benches);

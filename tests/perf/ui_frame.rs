@@ -11,7 +11,7 @@
 //! `ui_frame/idle_tessellated` adds turning the frame's shapes into meshes, which the window
 //! also does before painting (no budget; for the record).
 
-use criterion::{Criterion, criterion_group, criterion_main};
+use criterion::{Criterion, criterion_group};
 use std::hint::black_box;
 use tankwright::recipe::Recipe;
 use tankwright::ui::App;
@@ -92,4 +92,3 @@ fn ui_frame(c: &mut Criterion) {
 }
 
 criterion_group!(benches, ui_frame);
-criterion_main!(benches);

@@ -131,39 +131,37 @@ impl ChartView<'_> {
     }
 }
 
-/// Our palette. Trimmer settings are a sequential ramp from the theme's strong text colour
-/// (0 %, least capacitance) to a warm amber (100 %, most capacitance); the marks sit on
-/// mid-lightness hues that read on both the light and the dark panel.
+/// Our palette ([`crate::palette`]) as egui colours. Trimmer settings are a sequential ramp
+/// from the theme's strong text colour (0 %, least capacitance) to a warm amber (100 %).
 pub(crate) mod palette {
     use super::*;
 
-    /// The 100 % end of the trimmer ramp.
-    const RAMP_END: Color32 = Color32::from_rgb(0xd9, 0x74, 0x1c);
+    const fn egui(c: crate::palette::Rgb) -> Color32 {
+        Color32::from_rgb(c.0, c.1, c.2)
+    }
+
     /// The present coil or setting.
-    pub const PRESENT: Color32 = Color32::from_rgb(0x2f, 0x86, 0xd6);
+    pub const PRESENT: Color32 = egui(crate::palette::PRESENT);
     /// Bench readings.
-    pub const READING: Color32 = Color32::from_rgb(0xb8, 0x3f, 0xa8);
+    pub const READING: Color32 = egui(crate::palette::READING);
     /// The model before calibration.
-    pub const UNCALIBRATED: Color32 = Color32::from_rgb(0x8c, 0x8c, 0x8c);
+    pub const UNCALIBRATED: Color32 = egui(crate::palette::UNCALIBRATED);
     /// The target channel.
-    pub const TARGET: Color32 = Color32::from_rgb(0x3a, 0xa8, 0x5c);
+    pub const TARGET: Color32 = egui(crate::palette::TARGET);
     /// The aeronautical band: a warning red of our own, readable on both themes.
-    pub const AERONAUTICAL: Color32 = Color32::from_rgb(0xd2, 0x3c, 0x3c);
+    pub const AERONAUTICAL: Color32 = egui(crate::palette::AERONAUTICAL);
 
     /// Translucent fill of the aeronautical band.
     pub fn aeronautical_fill() -> Color32 {
         Color32::from_rgba_unmultiplied(AERONAUTICAL.r(), AERONAUTICAL.g(), AERONAUTICAL.b(), 40)
     }
 
-    fn lerp(a: Color32, b: Color32, t: f32) -> Color32 {
-        let t = t.clamp(0.0, 1.0);
-        let mix = |x: u8, y: u8| (f32::from(x) + (f32::from(y) - f32::from(x)) * t).round() as u8;
-        Color32::from_rgb(mix(a.r(), b.r()), mix(a.g(), b.g()), mix(a.b(), b.b()))
-    }
-
     /// Colour of the curve for trimmer `setting` (0–1).
     pub fn trimmer(visuals: &egui::Visuals, setting: f64) -> Color32 {
-        lerp(visuals.strong_text_color(), RAMP_END, setting as f32)
+        let from = visuals.strong_text_color();
+        let c = crate::palette::Rgb(from.r(), from.g(), from.b())
+            .towards(crate::palette::RAMP_END, setting);
+        egui(c)
     }
 
     /// Translucent fill of the target channel band.
