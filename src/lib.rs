@@ -6,6 +6,7 @@
 //! - [`tuning`]: sweeps for charts, sensitivities, solving for a target channel, band plans;
 //! - [`recipe`]: the saved document and its file format (the only layer that touches the disk);
 //! - [`handout`]: the printed build sheet and worksheet (PDF) and the charts (SVG, PNG);
+//! - [`instruments`]: files written by measuring instruments (Touchstone), read from text;
 //! - [`cli`]: the headless commands;
 //! - [`ui`]: the eframe window (the only layer that imports egui).
 //!
@@ -16,6 +17,7 @@
 pub mod cautions;
 pub mod cli;
 pub mod handout;
+pub mod instruments;
 pub mod model;
 pub mod palette;
 pub mod physics;

@@ -9,6 +9,7 @@ mod evaluate;
 mod handout;
 mod impedance;
 mod json;
+mod measured;
 mod recipe_args;
 mod report;
 mod stray_flags;
@@ -21,6 +22,7 @@ pub use evaluate::{EvaluateRequest, run_evaluate};
 pub use handout::{run_chart, run_sheet};
 pub use impedance::run_impedance;
 pub use json::analysis_json;
+pub use measured::run_measured;
 pub use report::{build_report, run_report};
 pub use text::analysis_report;
 pub use verdict::{add_verdict_json, verdict_lines};
@@ -75,6 +77,12 @@ usage:
   tankwright impedance FLAGS [--from-mhz A] [--to-mhz B] [--points N] [--json]
                                           the coil's impedance against frequency, solved
                                           from its own currents (also with --recipe FILE)
+  tankwright measured FILE.s1p|FILE.s2p [--recipe R] [--at-mhz F] [--json]
+                                          a coil measured by a network analyser (Touchstone
+                                          1.1 or 2.0; .s1p across one port, .s2p in series):
+                                          its inductance, self-capacitance, resistance, Q and
+                                          self-resonance; with a recipe, beside the field
+                                          solution of its coil over the same band
   tankwright help                         this text
 
 evaluate flags (millimetres, picofarads, megahertz):

@@ -16,6 +16,7 @@ mod reference_loss;
 mod reference_proximity;
 mod reference_stray;
 mod reference_tank;
+mod reference_touchstone;
 mod tuning;
 mod validation;
 mod verdict;
