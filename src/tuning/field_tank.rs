@@ -80,6 +80,24 @@ pub fn field_tank(
     external_capacitance: f64,
     conditions: &Conditions,
 ) -> Result<FieldTank, FieldError> {
+    field_tank_scaled(coil, external_capacitance, conditions, 1.0)
+}
+
+/// [`field_tank`] with the field-solved apparent inductance multiplied by `scale` (a bench
+/// calibration's inductance scale on the field solution, [`crate::tuning::landing`]): the
+/// resonance where ω·C·scale·X(ω) = 1. The returned `apparent_inductance` is the wire's own
+/// X/ω (unscaled).
+pub fn field_tank_scaled(
+    coil: &Coil,
+    external_capacitance: f64,
+    conditions: &Conditions,
+    scale: f64,
+) -> Result<FieldTank, FieldError> {
+    if !(scale.is_finite() && scale > 0.0) {
+        return Err(FieldError::Geometry(
+            "the inductance scale on the field solution is not a positive number".to_owned(),
+        ));
+    }
     let wire = wire_coil(coil, conditions.temperature_c);
     let model = FieldModel::new(&wire, wire.segments_per_turn(), Feed::Terminals)?;
     if !(external_capacitance.is_finite() && external_capacitance > 0.0) {
@@ -94,7 +112,10 @@ pub fn field_tank(
     let classical = crate::model::evaluate::resonance_of(
         coil,
         external_capacitance,
-        &field_conditions(conditions),
+        &Conditions {
+            inductance_scale: scale,
+            ..field_conditions(conditions)
+        },
     );
     let mut evaluations = 0;
     // φ at ln f, with the impedance there.
@@ -105,7 +126,7 @@ pub fn field_tank(
         let omega = 2.0 * PI * f;
         // X ≤ 0 only at or above the self-resonance: treat it as far above the root.
         let value = if z.im > 0.0 {
-            (omega * external_capacitance * z.im).ln()
+            (omega * external_capacitance * scale * z.im).ln()
         } else {
             f64::INFINITY
         };
