@@ -98,6 +98,39 @@ pub fn field_tank_scaled(
             "the inductance scale on the field solution is not a positive number".to_owned(),
         ));
     }
+    solve_tank(coil, external_capacitance, conditions, scale, true)
+}
+
+/// The resonance alone of [`field_tank_scaled`], hertz, without the search for the coil's
+/// self-resonance (which takes some sixteen impedance evaluations of the twenty a tank
+/// takes): for the solvers that land an instruction on many candidate coils
+/// ([`crate::tuning::landing`]). The same root to [`TOLERANCE`]: the search starts from the
+/// classical resonance and steps back from any frequency where the reactance is not
+/// inductive (at or above the self-resonance) instead of being kept below it.
+pub fn field_resonance(
+    coil: &Coil,
+    external_capacitance: f64,
+    conditions: &Conditions,
+    scale: f64,
+) -> Result<f64, FieldError> {
+    if !(scale.is_finite() && scale > 0.0) {
+        return Err(FieldError::Geometry(
+            "the inductance scale on the field solution is not a positive number".to_owned(),
+        ));
+    }
+    solve_tank(coil, external_capacitance, conditions, scale, false).map(|t| t.resonance)
+}
+
+/// The tank's root (see [`field_tank`]); the self-resonance is searched for and bounds the
+/// search when `with_self_resonance`, else it is NaN in the result and the model's highest
+/// frequency bounds the search.
+fn solve_tank(
+    coil: &Coil,
+    external_capacitance: f64,
+    conditions: &Conditions,
+    scale: f64,
+    with_self_resonance: bool,
+) -> Result<FieldTank, FieldError> {
     let wire = wire_coil(coil, conditions.temperature_c);
     let model = FieldModel::new(&wire, wire.segments_per_turn(), Feed::Terminals)?;
     if !(external_capacitance.is_finite() && external_capacitance > 0.0) {
@@ -106,7 +139,16 @@ pub fn field_tank_scaled(
                 .to_owned(),
         ));
     }
-    let self_resonance = model.first_resonance()?;
+    let self_resonance = if with_self_resonance {
+        model.first_resonance()?
+    } else {
+        f64::NAN
+    };
+    let ceiling = if with_self_resonance {
+        self_resonance
+    } else {
+        model.max_frequency()
+    };
     // The start: the classical resonance on the field's own conditions, so the answer depends
     // on nothing of `conditions` but the temperature.
     let classical = crate::model::evaluate::resonance_of(
@@ -132,9 +174,20 @@ pub fn field_tank_scaled(
         };
         Ok((value, z))
     };
-    let top = self_resonance.ln();
-    let start = classical.min(0.9 * self_resonance).ln();
-    let (g0, z0) = phi(start)?;
+    let top = ceiling.ln();
+    let mut start = classical.min(0.9 * ceiling).ln();
+    let (mut g0, mut z0) = phi(start)?;
+    // Without the self-resonance's bound the start may lie above it: step down by halves
+    // of an octave until the reactance is inductive.
+    let mut down = 0;
+    while !g0.is_finite() {
+        down += 1;
+        if down > 20 {
+            return Err(FieldError::NoResonance);
+        }
+        start -= 0.5 * std::f64::consts::LN_2;
+        (g0, z0) = phi(start)?;
+    }
     let (mut last, mut z_last) = (start, z0);
     let (mut lo, mut hi) = (start, start);
     if g0.abs() > 2.0 * TOLERANCE {
@@ -150,13 +203,18 @@ pub fn field_tank_scaled(
             if tries > 40 {
                 return Err(FieldError::NoResonance);
             }
-            let next = if gb.is_finite() && gb != ga {
-                b - gb * (b - a) / (gb - ga)
+            if gb.is_finite() {
+                let next = if gb != ga {
+                    b - gb * (b - a) / (gb - ga)
+                } else {
+                    b - 0.5 * gb
+                };
+                (a, ga) = (b, gb);
+                b = next.min(top - 1e-9);
             } else {
-                b - 0.5 * gb
-            };
-            (a, ga) = (b, gb);
-            b = next.min(top - 1e-9);
+                // Past the self-resonance: back towards the last inductive point.
+                b = 0.5 * (a + b);
+            }
             let (g, z) = phi(b)?;
             gb = g;
             (last, z_last) = (b, z);

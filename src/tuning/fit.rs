@@ -449,10 +449,7 @@ fn field_factors(
             factors.push(factors[j]);
             continue;
         }
-        let Some(f) = crate::tuning::field_tank::field_tank_scaled(&q.coil, c, field, p[1])
-            .ok()
-            .map(|t| t.resonance)
-        else {
+        let Ok(f) = crate::tuning::field_tank::field_resonance(&q.coil, c, field, p[1]) else {
             return false;
         };
         let at = Conditions {

@@ -18,7 +18,7 @@
 //!   the field-shaped curve over the whole range, used to find the roots when the classical
 //!   shape has none or points the wrong way ([`lengths`]).
 
-use super::field_tank::{field_tank_scaled, matching_scale};
+use super::field_tank::{field_resonance, matching_scale};
 use super::solve::{self, Unreachable};
 use crate::model::{Coil, Conditions, Tank, evaluate::resonance_of};
 
@@ -48,9 +48,8 @@ impl FieldLed {
     /// The field-led resonance of `coil` across `external` farads, hertz (`None` when the
     /// field solution fails for that coil).
     pub fn resonance(&self, coil: &Coil, external: f64) -> Option<f64> {
-        field_tank_scaled(coil, external, &self.conditions, self.scale)
+        field_resonance(coil, external, &self.conditions, self.scale)
             .ok()
-            .map(|t| t.resonance)
             .filter(|f| f.is_finite() && *f > 0.0)
     }
 
@@ -78,6 +77,14 @@ impl FieldLed {
         };
         matching_scale(coil, external, &unit, resonance)
     }
+}
+
+/// The lengths an instruction may propose for `coil`, metres: from the shortest buildable
+/// length (bare turns keep [`super::buildable::minimum_gap`]) to
+/// [`Coil::longest_proposed_length`].
+pub fn proposable_range(coil: &Coil) -> (f64, f64) {
+    let lo = super::buildable::shortest_buildable_length(coil).max(coil.shortest_length());
+    (lo, coil.longest_proposed_length().max(lo))
 }
 
 /// An instruction's length found on the field-led model.
@@ -108,16 +115,26 @@ pub fn land_length(
     target: f64,
     start: f64,
 ) -> Option<Landed> {
-    let (lo, hi) = (
-        coil.shortest_length(),
-        coil.longest_proposed_length().max(coil.shortest_length()),
-    );
+    land_length_with(led, coil, external, target, start, None)
+}
+
+/// [`land_length`] with the first step's slope (Hz/m) given (the field shape's, where the
+/// classical model's would point the wrong way).
+fn land_length_with(
+    led: &FieldLed,
+    coil: &Coil,
+    external: f64,
+    target: f64,
+    start: f64,
+    slope: Option<f64>,
+) -> Option<Landed> {
+    let (lo, hi) = proposable_range(coil);
     let eps = LANDING * target;
     let f_at = |l: f64| -> Option<f64> { led.resonance(&coil.with_length(l).ok()?, external) };
     let x0 = start.clamp(lo, hi);
     let c0 = coil.with_length(x0).ok()?;
     let (cond0, f0) = led.conditions_at(&c0, external)?;
-    let slope0 = solve::stretch_sensitivity(&c0, external, &cond0);
+    let slope0 = slope.unwrap_or_else(|| solve::stretch_sensitivity(&c0, external, &cond0));
     let g0 = f0 - target;
     if g0.abs() <= eps {
         return Some(Landed {
@@ -271,8 +288,7 @@ impl Shape {
     /// across `external` (a length whose field solution fails is left out); `None` with fewer
     /// than two.
     pub fn solve(led: &FieldLed, coil: &Coil, external: f64, points: usize) -> Option<Shape> {
-        let lo = coil.shortest_length();
-        let hi = coil.longest_proposed_length().max(lo);
+        let (lo, hi) = proposable_range(coil);
         let n = points.max(2);
         let mut lengths = Vec::with_capacity(n);
         let mut factors = Vec::with_capacity(n);
@@ -370,7 +386,9 @@ pub fn lengths(
         roots.sort_by(|a, b| (a - present).abs().total_cmp(&(b - present).abs()));
         roots
     };
+    let (lo, hi) = proposable_range(coil);
     if let Ok(roots) = solve::lengths_for_target(coil, external, conditions, target) {
+        let roots: Vec<f64> = roots.into_iter().filter(|&r| r >= lo).collect();
         let n = roots.len();
         if let Some(landed) = nearest_first(roots)
             .into_iter()
@@ -384,18 +402,74 @@ pub fn lengths(
         // No field solution along the range: the classical answer stands (the fallback).
         return classical_found(coil, external, conditions, target);
     };
-    let roots = solve::roots_of(
-        coil.shortest_length(),
-        coil.longest_proposed_length().max(coil.shortest_length()),
-        |l| shape.resonance_at(coil, l, external),
-        target,
-    )?;
+    let on_shape = |l: f64| shape.resonance_at(coil, l, external);
+    let roots = solve::roots_of(lo, hi, on_shape, target)?;
     let n = roots.len();
-    nearest_first(roots)
+    // Each root landed from the shape's own slope there; failing that, bracketed by steps
+    // out from it on field solves.
+    let step = (hi - lo) / (4 * SHAPE_POINTS) as f64;
+    nearest_first(roots.clone())
         .into_iter()
-        .find_map(|r| land_length(led, coil, external, target, r))
+        .find_map(|r| {
+            let (a, b) = ((r - 0.1 * step).max(lo), (r + 0.1 * step).min(hi));
+            let slope = (on_shape(b) - on_shape(a)) / (b - a);
+            land_length_with(led, coil, external, target, r, Some(slope))
+                .or_else(|| bracket_out(led, coil, external, target, r, step))
+        })
         .map(|landed| Found { landed, roots: n })
-        .map_or_else(|| classical_found(coil, external, conditions, target), Ok)
+        .ok_or({
+            // The shape says it reaches, the field solves do not confirm it: out of reach
+            // on the side the shape's extremes say.
+            let lowest = roots
+                .iter()
+                .map(|&r| on_shape(r))
+                .fold(f64::INFINITY, f64::min);
+            if lowest > target {
+                Unreachable::AboveEvenCloseWound {
+                    close_wound: lowest,
+                }
+            } else {
+                Unreachable::BelowEvenStretched { stretched: target }
+            }
+        })
+}
+
+/// Field solves at `r` ± `step`, ± 2·`step`, … until one pair brackets `target`, then
+/// regula falsi on it (at most four steps each way).
+fn bracket_out(
+    led: &FieldLed,
+    coil: &Coil,
+    external: f64,
+    target: f64,
+    r: f64,
+    step: f64,
+) -> Option<Landed> {
+    let (lo, hi) = proposable_range(coil);
+    let f_at = |l: f64| -> Option<f64> { led.resonance(&coil.with_length(l).ok()?, external) };
+    let g_r = f_at(r)? - target;
+    let eps = LANDING * target;
+    if g_r.abs() <= eps {
+        return Some(Landed {
+            length: r,
+            resonance: g_r + target,
+            slope: f64::NAN,
+        });
+    }
+    let mut solves = 1;
+    for k in 1..=4 {
+        for sign in [1.0, -1.0] {
+            let x = (r + sign * step * f64::from(1 << (k - 1))).clamp(lo, hi);
+            if x == r {
+                continue;
+            }
+            let g = f_at(x)? - target;
+            solves += 1;
+            if g.signum() != g_r.signum() {
+                return bracket(r, g_r, x, g, eps, f_at, target, solves);
+            }
+        }
+    }
+    None
 }
 
 /// The classical shape's answer, unlanded (where the field solution fails along the way).
@@ -405,9 +479,15 @@ fn classical_found(
     conditions: &Conditions,
     target: f64,
 ) -> Result<Found, Unreachable> {
-    let roots = solve::lengths_for_target(coil, external, conditions, target)?;
+    let (lo, hi) = proposable_range(coil);
+    let f_at = |l: f64| solve::resonance_at_length(coil, l, external, conditions);
+    let roots = solve::roots_of(lo, hi, f_at, target)?;
     let n = roots.len();
-    let length = solve::length_for_target(coil, external, conditions, target)?;
+    let present = coil.length();
+    let length = roots
+        .into_iter()
+        .min_by(|a, b| (a - present).abs().total_cmp(&(b - present).abs()))
+        .unwrap_or(present);
     Ok(Found {
         landed: Landed {
             length,

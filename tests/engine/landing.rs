@@ -7,9 +7,15 @@
 //! says once that coil is built). Tolerances: the channel's own on-channel tolerance (the
 //! band plan's, `BandPlan::default_tolerance`), never widened.
 
-use tankwright::model::SpacingSpec;
+use approx::assert_relative_eq;
+use tankwright::model::{
+    Coating, Coil, Conditions, DiameterSpec, Gauge, SpacingSpec, Tank, Winding, WireSpec,
+};
 use tankwright::recipe::{Recipe, demos, figures};
-use tankwright::tuning::advice::advise;
+use tankwright::tuning::BandPlan;
+use tankwright::tuning::advice::{advise, advise_on};
+use tankwright::tuning::field_tank::{TOLERANCE, field_resonance, field_tank};
+use tankwright::tuning::landing::{FieldLed, proposable_range};
 
 /// The recipe with the advice carried out (turns, length and trimmer as proposed).
 fn carried_out(r: &Recipe, turns: f64, length: f64, setting: f64) -> Recipe {
@@ -56,5 +62,164 @@ fn every_shipped_demo_instruction_lands_within_the_channel_tolerance() {
             f.target.advice,
             miss * 1e-3
         );
+    }
+}
+
+/// A small deterministic generator (Knuth's MMIX linear congruential constants, *The Art of
+/// Computer Programming* vol. 2, §3.3.4) so the random coils are the same on every run.
+struct Lcg(u64);
+
+impl Lcg {
+    fn unit(&mut self) -> f64 {
+        self.0 = self
+            .0
+            .wrapping_mul(6_364_136_223_846_793_005)
+            .wrapping_add(1_442_695_040_888_963_407);
+        (self.0 >> 11) as f64 / (1u64 << 53) as f64
+    }
+    fn between(&mut self, lo: f64, hi: f64) -> f64 {
+        lo + (hi - lo) * self.unit()
+    }
+}
+
+/// A random coil for `band` (FM or 2 m): former, wire, turns, length and leads (0–40 mm),
+/// and a tank of a fixed capacitor and a trimmer.
+fn random_case(g: &mut Lcg, two_metre: bool) -> (Coil, Tank) {
+    let wire = g.between(0.7e-3, 1.2e-3);
+    let turns = if two_metre {
+        (g.between(2.0, 4.0) * 4.0).round() / 4.0
+    } else {
+        (g.between(3.0, 7.0) * 4.0).round() / 4.0
+    };
+    let former = g.between(5e-3, 8e-3);
+    let lead = g.between(0.0, 40e-3);
+    let winding = Winding {
+        diameter: DiameterSpec::Former(former),
+        wire: WireSpec {
+            gauge: Gauge::Metric(wire),
+            coating: Coating::EnamelGrade1,
+        },
+        turns,
+        spacing: SpacingSpec::Length(turns * wire * g.between(1.5, 2.5)),
+        lead_length: lead,
+    };
+    let coil = Coil::from_winding(&winding).expect("a valid random coil");
+    let fixed = if two_metre {
+        g.between(3e-12, 8e-12)
+    } else {
+        g.between(12e-12, 27e-12)
+    };
+    let tank = Tank {
+        fixed,
+        trimmer_min: 2e-12,
+        trimmer_max: 10e-12,
+        trimmer_setting: 0.5,
+        stray: 3e-12,
+        feedback: None,
+    };
+    (coil, tank)
+}
+
+#[test]
+fn instructions_on_random_coils_land_on_their_own_field_solution() {
+    let conditions = Conditions::default();
+    let led = FieldLed {
+        conditions,
+        scale: 1.0,
+    };
+    let mut g = Lcg(20_261_204);
+    let (mut landed, mut worst, mut classical_worst) = (0, 0.0_f64, 0.0_f64);
+    for case in 0..10 {
+        let two_metre = case % 2 == 1;
+        let plan = if two_metre {
+            BandPlan::TwoMetreRegion1
+        } else {
+            BandPlan::UsFm
+        };
+        let tolerance = plan.default_tolerance();
+        let (coil, tank) = random_case(&mut g, two_metre);
+        let external = tank.external_capacitance();
+        let Some((present_conditions, present)) = led.conditions_at(&coil, external) else {
+            panic!("case {case}: the field solution fails on a random coil");
+        };
+        // Both directions: a channel 1–5 % above or below where the coil is now.
+        let sign = if case % 4 < 2 { 1.0 } else { -1.0 };
+        let target = present * (1.0 + sign * g.between(0.01, 0.05));
+        let advice = advise_on(
+            &coil,
+            &tank,
+            &present_conditions,
+            target,
+            tolerance,
+            Some(&led),
+        );
+        let Some(p) = advice.proposal(&coil, tank.trimmer_setting) else {
+            eprintln!("case {case}: {advice}");
+            continue;
+        };
+        let proposed = coil
+            .with_turns(p.turns, p.length)
+            .expect("the proposal is a coil the model accepts");
+        // Buildable: within the range an instruction may propose.
+        let (lo, hi) = proposable_range(&proposed);
+        assert!(
+            (lo - 1e-12..=hi + 1e-12).contains(&p.length),
+            "case {case}: {advice}"
+        );
+        let truth = field_tank(
+            &proposed,
+            tank.external_capacitance_at(p.trimmer_setting),
+            &conditions,
+        )
+        .expect("the proposed coil solves")
+        .resonance;
+        let miss = truth - target;
+        // The same instruction on the classical shape with the present factor held.
+        let old = advise(&coil, &tank, &present_conditions, target, tolerance);
+        if let Some(q) = old.proposal(&coil, tank.trimmer_setting)
+            && let Ok(c) = coil.with_turns(q.turns, q.length)
+            && let Ok(t) = field_tank(
+                &c,
+                tank.external_capacitance_at(q.trimmer_setting),
+                &conditions,
+            )
+        {
+            classical_worst = classical_worst.max((t.resonance - target).abs());
+        }
+        eprintln!(
+            "case {case}: leads {:.1} mm, {:.3} → {:.3} MHz: \"{advice}\" lands {:+.2} kHz",
+            coil.lead_length() * 1e3,
+            present * 1e-6,
+            target * 1e-6,
+            miss * 1e-3
+        );
+        assert!(
+            miss.abs() <= tolerance,
+            "case {case}: {advice} lands {:+.1} kHz off",
+            miss * 1e-3
+        );
+        landed += 1;
+        worst = worst.max(miss.abs());
+    }
+    eprintln!(
+        "{landed} of 10 landed; worst miss {:.3} kHz (classical shape: {:.1} kHz)",
+        worst * 1e-3,
+        classical_worst * 1e-3
+    );
+    assert!(landed >= 9, "only {landed} of 10 proposals were made");
+}
+
+#[test]
+fn the_resonance_alone_is_the_full_tank_solution() {
+    // The landing's solve skips the self-resonance search; its root is the same.
+    for (name, r) in demos().into_iter().take(2) {
+        let coil = Coil::from_winding(&r.winding).expect("valid");
+        let c = r.tank.external_capacitance();
+        let full = field_tank(&coil, c, &r.conditions)
+            .expect("solves")
+            .resonance;
+        let lean = field_resonance(&coil, c, &r.conditions, 1.0).expect("solves");
+        assert_relative_eq!(full, lean, max_relative = 2.0 * TOLERANCE);
+        eprintln!("{name}: {full} Hz, {lean} Hz");
     }
 }
