@@ -273,70 +273,103 @@ pub fn land_setting(
     bracket(first, g1, end, ge, eps, f_at, target, 3).map(|l| l.length)
 }
 
-/// The factor on the classical inductance solved with the field at a handful of lengths and
-/// interpolated between them: the field-shaped resonance over the whole buildable range at
-/// one capacitance, at the cost of [`SHAPE_POINTS`] field solves.
+/// The factor on the classical inductance solved with the field at a handful of lengths (and
+/// one or more capacitances) and interpolated between them: the field-shaped resonance over a
+/// range of lengths, at the cost of one field solve per length and capacitance.
+///
+/// # Interpolation
+/// In length, cubic Hermite with three-point slopes (held at the ends); in capacitance,
+/// linear between the capacitances solved (held outside them). The factor moves smoothly
+/// (a few per cent over the range on short leads, tens of per cent with 40 mm leads), so
+/// the resonance it gives follows the field solution to within what
+/// tests/engine/landing.rs measures along each chart.
 #[derive(Clone, Debug, PartialEq)]
 pub struct Shape {
     lengths: Vec<f64>,
-    factors: Vec<f64>,
+    /// Ascending capacitances, farads.
+    capacitances: Vec<f64>,
+    /// factors[j][i]: at capacitances[j] and lengths[i].
+    factors: Vec<Vec<f64>>,
     conditions: Conditions,
 }
 
 impl Shape {
-    /// Solve the field at `points` lengths evenly spread over the buildable range of `coil`
-    /// across `external` (a length whose field solution fails is left out); `None` with fewer
-    /// than two.
+    /// Solve the field at `points` lengths evenly spread over the proposable range of `coil`
+    /// ([`proposable_range`]) across `external`; `None` with fewer than two.
     pub fn solve(led: &FieldLed, coil: &Coil, external: f64, points: usize) -> Option<Shape> {
-        let (lo, hi) = proposable_range(coil);
+        Shape::solve_over(led, coil, &[external], proposable_range(coil), points)
+    }
+
+    /// Solve the field at `points` lengths spread over `range` (metres, kept within what the
+    /// model accepts; closer together towards the short end) at each of `externals` (farads;
+    /// two or three: the trimmer's ends and middle); `None` when fewer than two lengths solve
+    /// at every capacitance.
+    pub fn solve_over(
+        led: &FieldLed,
+        coil: &Coil,
+        externals: &[f64],
+        range: (f64, f64),
+        points: usize,
+    ) -> Option<Shape> {
+        let lo = range.0.max(coil.shortest_length());
+        let hi = range.1.max(lo).min(crate::model::limits::LENGTH_MAX);
         let n = points.max(2);
+        let mut capacitances: Vec<f64> = externals.to_vec();
+        capacitances.sort_by(f64::total_cmp);
+        capacitances.dedup();
+        // Closer together towards close-wound, where the factor moves fastest.
+        let candidates: Vec<f64> = (0..n)
+            .map(|i| {
+                let u = i as f64 / (n - 1) as f64;
+                lo + (hi - lo) * 0.5 * u * (1.0 + u)
+            })
+            .collect();
         let mut lengths = Vec::with_capacity(n);
-        let mut factors = Vec::with_capacity(n);
-        for i in 0..n {
-            let l = lo + (hi - lo) * i as f64 / (n - 1) as f64;
+        let mut factors = vec![Vec::with_capacity(n); capacitances.len()];
+        for &l in &candidates {
             let Ok(c) = coil.with_length(l) else {
                 continue;
             };
-            if let Some((cond, _)) = led.conditions_at(&c, external) {
+            let column: Option<Vec<f64>> = capacitances
+                .iter()
+                .map(|&x| led.conditions_at(&c, x).map(|(k, _)| k.inductance_scale))
+                .collect();
+            if let Some(column) = column {
                 lengths.push(l);
-                factors.push(cond.inductance_scale);
+                for (row, k) in factors.iter_mut().zip(column) {
+                    row.push(k);
+                }
             }
         }
-        (lengths.len() >= 2).then_some(Shape {
+        (lengths.len() >= 2 && !capacitances.is_empty()).then_some(Shape {
             lengths,
+            capacitances,
             factors,
             conditions: led.conditions,
         })
     }
 
-    /// The interpolated factor at `length` (cubic Hermite with the three-point slopes,
-    /// held at the ends).
+    /// The interpolated factor at `length` across the first capacitance solved.
     pub fn factor_at(&self, length: f64) -> f64 {
-        let (x, y) = (&self.lengths, &self.factors);
-        let n = x.len();
-        if length <= x[0] {
-            return y[0];
-        }
-        if length >= x[n - 1] {
-            return y[n - 1];
-        }
-        let i = x.partition_point(|&v| v <= length).clamp(1, n - 1) - 1;
-        let slope = |j: usize| -> f64 {
-            if j == 0 {
-                (y[1] - y[0]) / (x[1] - x[0])
-            } else if j == n - 1 {
-                (y[n - 1] - y[n - 2]) / (x[n - 1] - x[n - 2])
-            } else {
-                (y[j + 1] - y[j - 1]) / (x[j + 1] - x[j - 1])
-            }
-        };
-        let h = x[i + 1] - x[i];
-        let t = (length - x[i]) / h;
-        let (t2, t3) = (t * t, t * t * t);
-        (2.0 * t3 - 3.0 * t2 + 1.0) * y[i]
-            + (t3 - 2.0 * t2 + t) * h * slope(i)
-            + (-2.0 * t3 + 3.0 * t2) * y[i + 1]
-            + (t3 - t2) * h * slope(i + 1)
+        hermite(&self.lengths, &self.factors[0], length)
+    }
+
+    /// The interpolated factor at `length` across `external` farads: in capacitance, the
+    /// polynomial through every capacitance solved (Lagrange; three at most are asked for),
+    /// `external` held within their range.
+    pub fn factor_at_capacitance(&self, length: f64, external: f64) -> f64 {
+        let c = &self.capacitances;
+        let m = c.len();
+        let x = external.clamp(c[0], c[m - 1]);
+        (0..m)
+            .map(|j| {
+                let weight: f64 = (0..m)
+                    .filter(|&i| i != j)
+                    .map(|i| (x - c[i]) / (c[j] - c[i]))
+                    .product();
+                weight * hermite(&self.lengths, &self.factors[j], length)
+            })
+            .sum()
     }
 
     /// The field-shaped resonance of `coil` at `length` across `external`, hertz (NaN for a
@@ -344,7 +377,7 @@ impl Shape {
     pub fn resonance_at(&self, coil: &Coil, length: f64, external: f64) -> f64 {
         coil.with_length(length).map_or(f64::NAN, |c| {
             let cond = Conditions {
-                inductance_scale: self.factor_at(length),
+                inductance_scale: self.factor_at_capacitance(length, external),
                 ..self.conditions
             };
             resonance_of(&c, external, &cond)
@@ -355,6 +388,40 @@ impl Shape {
     pub fn lengths(&self) -> &[f64] {
         &self.lengths
     }
+
+    /// How many field solves the shape took.
+    pub fn solves(&self) -> usize {
+        self.lengths.len() * self.capacitances.len()
+    }
+}
+
+/// Cubic Hermite interpolation of (x, y) at `at`, with three-point slopes (one-sided at the
+/// ends), held outside the points.
+fn hermite(x: &[f64], y: &[f64], at: f64) -> f64 {
+    let n = x.len();
+    if at <= x[0] {
+        return y[0];
+    }
+    if at >= x[n - 1] {
+        return y[n - 1];
+    }
+    let i = x.partition_point(|&v| v <= at).clamp(1, n - 1) - 1;
+    let slope = |j: usize| -> f64 {
+        if j == 0 {
+            (y[1] - y[0]) / (x[1] - x[0])
+        } else if j == n - 1 {
+            (y[n - 1] - y[n - 2]) / (x[n - 1] - x[n - 2])
+        } else {
+            (y[j + 1] - y[j - 1]) / (x[j + 1] - x[j - 1])
+        }
+    };
+    let h = x[i + 1] - x[i];
+    let t = (at - x[i]) / h;
+    let (t2, t3) = (t * t, t * t * t);
+    (2.0 * t3 - 3.0 * t2 + 1.0) * y[i]
+        + (t3 - 2.0 * t2 + t) * h * slope(i)
+        + (-2.0 * t3 + 3.0 * t2) * y[i + 1]
+        + (t3 - t2) * h * slope(i + 1)
 }
 
 /// Where the field-led resonance reaches `target`: the landed length nearest the present

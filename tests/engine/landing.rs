@@ -15,7 +15,8 @@ use tankwright::recipe::{BenchEntry, Recipe, demos, figures};
 use tankwright::tuning::BandPlan;
 use tankwright::tuning::advice::{Advice, advise, advise_on};
 use tankwright::tuning::field_tank::{TOLERANCE, field_resonance, field_tank, field_tank_scaled};
-use tankwright::tuning::landing::{FieldLed, proposable_range};
+use tankwright::tuning::landing::{FieldLed, Shape, proposable_range};
+use tankwright::tuning::sweep::{chart_length_range, spacing_sweep, spacing_sweep_on};
 
 /// The recipe with the advice carried out (turns, length and trimmer as proposed).
 fn carried_out(r: &Recipe, turns: f64, length: f64, setting: f64) -> Recipe {
@@ -311,5 +312,62 @@ fn simulated_bench_builds_land_by_their_second_reading() {
             landed.is_some_and(|n| n <= 2),
             "build {i} did not land by its second reading ({landed:?})"
         );
+    }
+}
+
+/// The largest difference (hertz) between the chart's curves and exact field solves at
+/// every point of a 13-point sweep at two trimmer settings: on the field shape, and on the
+/// classical shape with the present factor held (for comparison).
+fn chart_error(lead: f64, points: usize) -> (f64, f64) {
+    let mut r = Recipe::demo();
+    r.winding.lead_length = lead;
+    let coil = Coil::from_winding(&r.winding).expect("valid");
+    let led = FieldLed {
+        conditions: r.conditions,
+        scale: 1.0,
+    };
+    let (present, _) = led
+        .conditions_at(&coil, r.tank.external_capacitance())
+        .expect("solves");
+    let range = chart_length_range(&coil);
+    let solved = [
+        r.tank.external_capacitance_at(0.0),
+        r.tank.external_capacitance_at(0.5),
+        r.tank.external_capacitance_at(1.0),
+    ];
+    let shape = Shape::solve_over(&led, &coil, &solved, range, points).expect("solves");
+    // Between the settings solved, and between the lengths solved (13 points evenly over the
+    // range against 9 lengths closer together at the short end).
+    let settings = [0.25, 0.75];
+    let shaped = spacing_sweep_on(&coil, &r.tank, &present, &settings, range, 13, Some(&shape));
+    let held = spacing_sweep(&coil, &r.tank, &present, &settings, range, 13);
+    let (mut worst, mut worst_held) = (0.0_f64, 0.0_f64);
+    for (curve, old) in shaped.iter().zip(&held) {
+        let c = r.tank.external_capacitance_at(curve.setting);
+        for (p, q) in curve.points.iter().zip(&old.points) {
+            let exact = led
+                .resonance(&coil.with_length(p[0]).expect("valid"), c)
+                .expect("solves");
+            worst = worst.max((p[1] - exact).abs());
+            worst_held = worst_held.max((q[1] - exact).abs());
+        }
+    }
+    (worst, worst_held)
+}
+
+#[test]
+fn the_field_shaped_chart_follows_exact_field_solves() {
+    // Nine lengths at the trimmer's ends and middle (27 field solves) for the chart's range.
+    for lead in [5e-3, 25e-3] {
+        let (shaped, held) = chart_error(lead, 9);
+        eprintln!(
+            "leads {:.0} mm: field shape within {:.2} kHz of exact field solves along the chart \
+             (classical shape with the factor held: {:.0} kHz)",
+            lead * 1e3,
+            shaped * 1e-3,
+            held * 1e-3
+        );
+        // The chart's stated accuracy: a third of the FM on-channel tolerance (15 kHz).
+        assert!(shaped <= 5e3, "{:.2} kHz", shaped * 1e-3);
     }
 }
