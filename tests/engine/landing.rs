@@ -230,7 +230,13 @@ fn the_resonance_alone_is_the_full_tank_solution() {
 /// truth is the field-solved tank with the build's hidden extra capacitance and inductance
 /// scale. Returns how many readings it took until the advice was to leave the coil (with the
 /// trimmer set within 25–75 % of its travel) and the tank then sat within the tolerance.
-fn bench_build(channel: f64, lead: f64, hidden_pf: f64, hidden_scale: f64) -> Option<usize> {
+fn bench_build(
+    channel: f64,
+    lead: f64,
+    hidden_pf: f64,
+    hidden_scale: f64,
+    log: &mut String,
+) -> Option<usize> {
     let mut r = Recipe::demo();
     r.target.channel = channel;
     r.winding.lead_length = lead;
@@ -257,18 +263,18 @@ fn bench_build(channel: f64, lead: f64, hidden_pf: f64, hidden_scale: f64) -> Op
                     _ => r.tank.trimmer_setting,
                 };
                 let miss = truth(&r, setting) - channel;
-                eprintln!(
-                    "  after {readings} reading(s): \"{advice}\": {:+.1} kHz at {:.0} %",
+                log.push_str(&format!(
+                    "  after {readings} reading(s): \"{advice}\": {:+.1} kHz at {:.0} %\n",
                     miss * 1e-3,
                     setting * 100.0
-                );
+                ));
                 return ((0.25..=0.75).contains(&setting) && miss.abs() <= tolerance)
                     .then_some(readings);
             }
             _ => {}
         }
         let p = advice.proposal(&f.coil, 0.5)?;
-        eprintln!("  after {readings} reading(s): \"{advice}\"");
+        log.push_str(&format!("  after {readings} reading(s): \"{advice}\"\n"));
         if p.turns != r.winding.turns {
             // Another coil: the old readings describe the old one.
             r.bench_log.clear();
@@ -307,7 +313,9 @@ fn simulated_bench_builds_land_by_their_second_reading() {
             channel * 1e-6,
             lead * 1e3
         );
-        let landed = bench_build(channel, lead, pf, scale);
+        let mut log = String::new();
+        let landed = bench_build(channel, lead, pf, scale, &mut log);
+        eprint!("{log}");
         assert!(
             landed.is_some_and(|n| n <= 2),
             "build {i} did not land by its second reading ({landed:?})"
