@@ -379,3 +379,46 @@ fn the_field_shaped_chart_follows_exact_field_solves() {
         assert!(shaped <= 5e3, "{:.2} kHz", shaped * 1e-3);
     }
 }
+
+#[test]
+fn past_the_peak_of_a_long_lead_coil_the_advice_turns_back_or_removes_a_turn() {
+    // The bench demo with 25 mm leads: its field-solved resonance peaks near 19–21 mm of
+    // coil length and falls beyond, while the classical curve keeps rising.
+    let mut r = Recipe::demo();
+    r.winding.lead_length = 25e-3;
+    let tolerance = r.target.tolerance();
+    let lands = |r: &Recipe, channel: f64| {
+        let mut r = r.clone();
+        r.target.channel = channel;
+        let f = figures(&r).expect("valid");
+        let advice = f.target.advice.clone();
+        let p = advice
+            .proposal(&f.coil, f.tank.trimmer_setting)
+            .expect("a proposal");
+        let after = figures(&carried_out(&r, p.turns, p.length, p.trimmer_setting))
+            .expect("the proposal is valid");
+        (advice, after.analysis.resonance - channel)
+    };
+    // Above the peak: no length reaches it; a turn fewer does.
+    let (advice, miss) = lands(&r, 96.1e6);
+    eprintln!("96.1 MHz: \"{advice}\" lands {:+.2} kHz", miss * 1e-3);
+    assert!(
+        matches!(advice, Advice::ChangeTurns { from, to, .. } if to < from),
+        "{advice}"
+    );
+    assert!(miss.abs() <= tolerance);
+    // Below the peak from a coil stretched past it: the nearest length is on the falling
+    // side, and the advice says that there stretching lowers the frequency.
+    r.winding.spacing = SpacingSpec::Length(27e-3);
+    let (advice, miss) = lands(&r, 95.1e6);
+    eprintln!(
+        "95.1 MHz from 27 mm: \"{advice}\" lands {:+.2} kHz",
+        miss * 1e-3
+    );
+    assert!(
+        matches!(advice, Advice::Stretch { falling: true, .. }),
+        "{advice}"
+    );
+    assert!(advice.to_string().contains("stretching further lowers"));
+    assert!(miss.abs() <= tolerance);
+}
