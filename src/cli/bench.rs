@@ -51,7 +51,7 @@ pub fn run_solve(words: Vec<String>) -> Result<String, String> {
         return Err(format!("no coil within reach lands the target: {advice}"));
     };
     let predicted = advice
-        .predicted(&f.coil, &f.tank, &f.conditions)
+        .predicted(&f.coil, &f.tank, &f.conditions, f.led.as_ref())
         .ok_or_else(|| "the proposed coil is refused by the model".to_owned())?;
     if args.switch("json") {
         let mut s = json!({

@@ -19,8 +19,9 @@
 use super::document::Recipe;
 use crate::model::{Analysis, Coil, Conditions, InputError, Tank, evaluate, evaluate_coil};
 use crate::tuning::field_tank::{FieldBasis, FieldInput, field_tank};
-use crate::tuning::fit::{Fit, FitError, InverseSquareLine, fit, inverse_square_line};
-use crate::tuning::target::{TargetFigures, target_figures};
+use crate::tuning::fit::{Fit, FitError, InverseSquareLine, fit_on, inverse_square_line};
+use crate::tuning::landing::FieldLed;
+use crate::tuning::target::{TargetFigures, target_figures_on};
 use crate::tuning::verdict::{Aim, Verdict, judge};
 
 /// Everything computed for a valid recipe.
@@ -45,6 +46,9 @@ pub struct Figures {
     pub uncalibrated_conditions: Conditions,
     /// What the field solution did to the figures.
     pub field: FieldBasis,
+    /// The field-led model the target figures and the advice were landed on (`None` while
+    /// the classical model leads or an earlier coil's factor is held).
+    pub led: Option<FieldLed>,
     /// The fit of the bench readings (`None` when there are none).
     pub fit: Option<Result<Fit, FitError>>,
     /// The straight line of 1/f² against external capacitance through the readings at the
@@ -170,23 +174,48 @@ fn assemble(
         evaluate(&recipe.winding, &recipe.tank, &base)?
     };
     let readings = recipe.readings();
-    let fit = (!readings.is_empty()).then(|| fit(&coil, &recipe.tank, &base, &readings));
+    // The field-led model reaches the readings' coils and the proposals' only with this
+    // recipe's own field solution (not while an earlier coil's factor is held).
+    let field_conditions = matches!(basis, FieldBasis::Solved { .. }).then_some(recipe.conditions);
+    let fit = (!readings.is_empty()).then(|| {
+        fit_on(
+            &coil,
+            &recipe.tank,
+            &base,
+            &readings,
+            field_conditions.as_ref(),
+        )
+    });
+    let mut led = field_conditions.map(|conditions| FieldLed {
+        conditions,
+        scale: 1.0,
+    });
     let (tank, conditions, analysis) = match &fit {
         Some(Ok(f)) => {
             let tank = f.calibration.tank(&recipe.tank);
-            let conditions = f.calibration.conditions(&base);
+            let mut conditions = f.calibration.conditions(&base);
+            if let Some(l) = &mut led {
+                l.scale = f.calibration.inductance_scale;
+                // The present coil on the calibrated field-led model exactly (the factor at
+                // the calibrated capacitance).
+                match l.conditions_at(&coil, tank.external_capacitance()) {
+                    Some((c, _)) => conditions = c,
+                    None => led = None,
+                }
+            }
             let analysis = evaluate_coil(&coil, tank.external_capacitance(), &conditions);
             (tank, conditions, analysis)
         }
         _ => (recipe.tank, base, uncalibrated.clone()),
     };
-    let target = target_figures(
+    let target = target_figures_on(
         &coil,
         &tank,
         &conditions,
         &recipe.target.plan,
         recipe.target.channel,
         recipe.target.tolerance(),
+        led.as_ref(),
     );
     let line = inverse_square_line(&recipe.tank, &readings);
     let aim = Aim::new(recipe.target.plan.clone(), Some(recipe.target.channel))
@@ -202,6 +231,7 @@ fn assemble(
         uncalibrated,
         uncalibrated_conditions: base,
         field: basis,
+        led,
         fit,
         target,
         verdict,

@@ -4,7 +4,8 @@
 //! smaller than a builder can set, leave the coil and set the trimmer; or, when no length
 //! reaches the channel, change the turns by quarter turns and wind to a length.
 
-use super::solve::{length_for_target, setting_for_target, turns_for_target};
+use super::landing::{self, FieldLed};
+use super::solve::{Unreachable, length_for_target, setting_for_target, turns_for_target};
 use crate::model::{Coil, Conditions, Tank};
 use std::fmt;
 
@@ -29,6 +30,9 @@ pub enum Advice {
         /// How many lengths land the target (more than one where the curve turns over; the
         /// one nearest the present length is proposed).
         roots: usize,
+        /// At that length stretching further lowers the frequency (the curve has turned
+        /// over: long leads, or near the coil's self-resonance).
+        falling: bool,
     },
     /// The change in length is below [`HAND_RESOLUTION`]: leave the coil, set the trimmer.
     SetTrimmer {
@@ -79,15 +83,25 @@ impl Advice {
         })
     }
 
-    /// The resonance (hertz) the proposal gives in `tank` under `conditions`.
-    pub fn predicted(&self, coil: &Coil, tank: &Tank, conditions: &Conditions) -> Option<f64> {
+    /// The resonance (hertz) the proposal gives in `tank`: on the field-led model `led` when
+    /// given (a field solve of the proposed coil, what the figures will say once it is built),
+    /// else the classical model under `conditions`.
+    pub fn predicted(
+        &self,
+        coil: &Coil,
+        tank: &Tank,
+        conditions: &Conditions,
+        led: Option<&FieldLed>,
+    ) -> Option<f64> {
         let p = self.proposal(coil, tank.trimmer_setting)?;
         let proposed = coil.with_turns(p.turns, p.length).ok()?;
-        Some(crate::model::evaluate::resonance_of(
-            &proposed,
-            tank.external_capacitance_at(p.trimmer_setting),
-            conditions,
-        ))
+        let external = tank.external_capacitance_at(p.trimmer_setting);
+        led.and_then(|led| led.resonance(&proposed, external))
+            .or_else(|| {
+                Some(crate::model::evaluate::resonance_of(
+                    &proposed, external, conditions,
+                ))
+            })
     }
 
     /// The instruction in a builder's words, lengths shown by `show` (display units).
@@ -97,6 +111,7 @@ impl Advice {
                 length,
                 change,
                 roots,
+                falling,
             } => {
                 let verb = if *change >= 0.0 { "stretch" } else { "squeeze" };
                 let mut s = format!(
@@ -108,6 +123,12 @@ impl Advice {
                     s.push_str(&format!(
                         " (the nearest of {roots} lengths that land the channel)"
                     ));
+                }
+                if *falling {
+                    s.push_str(
+                        "; there, stretching further lowers the frequency and squeezing \
+                         raises it",
+                    );
                 }
                 s
             }
@@ -148,7 +169,7 @@ impl fmt::Display for Advice {
 
 /// The one instruction that lands `coil` in `tank` on `target` hertz, or leaves it when it is
 /// within `tolerance` hertz of it (pass the calibrated tank and conditions once there are
-/// readings).
+/// readings), on the classical shape alone (see [`advise_on`] for the field-led model).
 pub fn advise(
     coil: &Coil,
     tank: &Tank,
@@ -158,16 +179,94 @@ pub fn advise(
 ) -> Advice {
     let external = tank.external_capacitance();
     let offset = crate::model::evaluate::resonance_of(coil, external, conditions) - target;
+    let found = super::solve::lengths_for_target(coil, external, conditions, target).map(|roots| {
+        let length = length_for_target(coil, external, conditions, target).unwrap_or(coil.length());
+        (length, roots.len(), false)
+    });
+    decide(
+        coil,
+        offset,
+        tolerance,
+        found,
+        || setting_for_target(coil, tank, conditions, target).ok(),
+        |_| turns_for_target(coil, external, conditions, target),
+    )
+}
+
+/// The one instruction on the field-led model `led` (`None`: the classical shape, as
+/// [`advise`]): every length and setting it proposes is landed with field solves of the
+/// proposed coil ([`super::landing`]), so the tool's own evaluation of the proposal is within
+/// [`super::landing::LANDING`] of the target.
+pub fn advise_on(
+    coil: &Coil,
+    tank: &Tank,
+    conditions: &Conditions,
+    target: f64,
+    tolerance: f64,
+    led: Option<&FieldLed>,
+) -> Advice {
+    let Some(led) = led else {
+        return advise(coil, tank, conditions, target, tolerance);
+    };
+    let external = tank.external_capacitance();
+    let present = led
+        .resonance(coil, external)
+        .unwrap_or_else(|| crate::model::evaluate::resonance_of(coil, external, conditions));
+    let found = landing::lengths(led, coil, external, conditions, target);
+    advise_landed(
+        coil, tank, conditions, target, tolerance, led, present, found,
+    )
+}
+
+/// [`advise_on`] with the present field-led resonance and the landed length already found.
+#[expect(
+    clippy::too_many_arguments,
+    reason = "the landed pieces are computed once by the target figures and handed on"
+)]
+pub fn advise_landed(
+    coil: &Coil,
+    tank: &Tank,
+    conditions: &Conditions,
+    target: f64,
+    tolerance: f64,
+    led: &FieldLed,
+    present: f64,
+    found: Result<landing::Found, Unreachable>,
+) -> Advice {
+    let external = tank.external_capacitance();
+    let found = found.map(|f| (f.landed.length, f.roots, f.landed.slope < 0.0));
+    decide(
+        coil,
+        present - target,
+        tolerance,
+        found,
+        || {
+            let start =
+                setting_for_target(coil, tank, conditions, target).unwrap_or(tank.trimmer_setting);
+            landing::land_setting(led, coil, tank, target, start)
+        },
+        |why| landing::turns(led, coil, external, conditions, target, why),
+    )
+}
+
+/// The instruction from the offset, the length found (length, roots, falling) and, when
+/// needed, the trimmer setting and the change of turns.
+fn decide(
+    coil: &Coil,
+    offset: f64,
+    tolerance: f64,
+    found: Result<(f64, usize, bool), Unreachable>,
+    setting: impl FnOnce() -> Option<f64>,
+    turns: impl FnOnce(&Unreachable) -> Option<super::solve::TurnsChange>,
+) -> Advice {
     if offset.abs() <= tolerance {
         return Advice::OnChannel { offset };
     }
-    match super::solve::lengths_for_target(coil, external, conditions, target) {
-        Ok(roots) => {
-            let length =
-                length_for_target(coil, external, conditions, target).unwrap_or(coil.length());
+    match found {
+        Ok((length, roots, falling)) => {
             let change = length - coil.length();
             if change.abs() < HAND_RESOLUTION
-                && let Ok(setting) = setting_for_target(coil, tank, conditions, target)
+                && let Some(setting) = setting()
             {
                 return Advice::SetTrimmer {
                     setting,
@@ -177,10 +276,11 @@ pub fn advise(
             Advice::Stretch {
                 length,
                 change,
-                roots: roots.len(),
+                roots,
+                falling,
             }
         }
-        Err(why) => match turns_for_target(coil, external, conditions, target) {
+        Err(why) => match turns(&why) {
             Some(t) => Advice::ChangeTurns {
                 from: coil.turns(),
                 to: t.turns,

@@ -80,6 +80,57 @@ pub fn field_tank(
     external_capacitance: f64,
     conditions: &Conditions,
 ) -> Result<FieldTank, FieldError> {
+    field_tank_scaled(coil, external_capacitance, conditions, 1.0)
+}
+
+/// [`field_tank`] with the field-solved apparent inductance multiplied by `scale` (a bench
+/// calibration's inductance scale on the field solution, [`crate::tuning::landing`]): the
+/// resonance where ω·C·scale·X(ω) = 1. The returned `apparent_inductance` is the wire's own
+/// X/ω (unscaled).
+pub fn field_tank_scaled(
+    coil: &Coil,
+    external_capacitance: f64,
+    conditions: &Conditions,
+    scale: f64,
+) -> Result<FieldTank, FieldError> {
+    if !(scale.is_finite() && scale > 0.0) {
+        return Err(FieldError::Geometry(
+            "the inductance scale on the field solution is not a positive number".to_owned(),
+        ));
+    }
+    solve_tank(coil, external_capacitance, conditions, scale, true)
+}
+
+/// The resonance alone of [`field_tank_scaled`], hertz, without the search for the coil's
+/// self-resonance (which takes some sixteen impedance evaluations of the twenty a tank
+/// takes): for the solvers that land an instruction on many candidate coils
+/// ([`crate::tuning::landing`]). The same root to [`TOLERANCE`]: the search starts from the
+/// classical resonance and steps back from any frequency where the reactance is not
+/// inductive (at or above the self-resonance) instead of being kept below it.
+pub fn field_resonance(
+    coil: &Coil,
+    external_capacitance: f64,
+    conditions: &Conditions,
+    scale: f64,
+) -> Result<f64, FieldError> {
+    if !(scale.is_finite() && scale > 0.0) {
+        return Err(FieldError::Geometry(
+            "the inductance scale on the field solution is not a positive number".to_owned(),
+        ));
+    }
+    solve_tank(coil, external_capacitance, conditions, scale, false).map(|t| t.resonance)
+}
+
+/// The tank's root (see [`field_tank`]); the self-resonance is searched for and bounds the
+/// search when `with_self_resonance`, else it is NaN in the result and the model's highest
+/// frequency bounds the search.
+fn solve_tank(
+    coil: &Coil,
+    external_capacitance: f64,
+    conditions: &Conditions,
+    scale: f64,
+    with_self_resonance: bool,
+) -> Result<FieldTank, FieldError> {
     let wire = wire_coil(coil, conditions.temperature_c);
     let model = FieldModel::new(&wire, wire.segments_per_turn(), Feed::Terminals)?;
     if !(external_capacitance.is_finite() && external_capacitance > 0.0) {
@@ -88,13 +139,25 @@ pub fn field_tank(
                 .to_owned(),
         ));
     }
-    let self_resonance = model.first_resonance()?;
+    let self_resonance = if with_self_resonance {
+        model.first_resonance()?
+    } else {
+        f64::NAN
+    };
+    let ceiling = if with_self_resonance {
+        self_resonance
+    } else {
+        model.max_frequency()
+    };
     // The start: the classical resonance on the field's own conditions, so the answer depends
     // on nothing of `conditions` but the temperature.
     let classical = crate::model::evaluate::resonance_of(
         coil,
         external_capacitance,
-        &field_conditions(conditions),
+        &Conditions {
+            inductance_scale: scale,
+            ..field_conditions(conditions)
+        },
     );
     let mut evaluations = 0;
     // φ at ln f, with the impedance there.
@@ -105,15 +168,26 @@ pub fn field_tank(
         let omega = 2.0 * PI * f;
         // X ≤ 0 only at or above the self-resonance: treat it as far above the root.
         let value = if z.im > 0.0 {
-            (omega * external_capacitance * z.im).ln()
+            (omega * external_capacitance * scale * z.im).ln()
         } else {
             f64::INFINITY
         };
         Ok((value, z))
     };
-    let top = self_resonance.ln();
-    let start = classical.min(0.9 * self_resonance).ln();
-    let (g0, z0) = phi(start)?;
+    let top = ceiling.ln();
+    let mut start = classical.min(0.9 * ceiling).ln();
+    let (mut g0, mut z0) = phi(start)?;
+    // Without the self-resonance's bound the start may lie above it: step down by halves
+    // of an octave until the reactance is inductive.
+    let mut down = 0;
+    while !g0.is_finite() {
+        down += 1;
+        if down > 20 {
+            return Err(FieldError::NoResonance);
+        }
+        start -= 0.5 * std::f64::consts::LN_2;
+        (g0, z0) = phi(start)?;
+    }
     let (mut last, mut z_last) = (start, z0);
     let (mut lo, mut hi) = (start, start);
     if g0.abs() > 2.0 * TOLERANCE {
@@ -129,13 +203,18 @@ pub fn field_tank(
             if tries > 40 {
                 return Err(FieldError::NoResonance);
             }
-            let next = if gb.is_finite() && gb != ga {
-                b - gb * (b - a) / (gb - ga)
+            if gb.is_finite() {
+                let next = if gb != ga {
+                    b - gb * (b - a) / (gb - ga)
+                } else {
+                    b - 0.5 * gb
+                };
+                (a, ga) = (b, gb);
+                b = next.min(top - 1e-9);
             } else {
-                b - 0.5 * gb
-            };
-            (a, ga) = (b, gb);
-            b = next.min(top - 1e-9);
+                // Past the self-resonance: back towards the last inductive point.
+                b = 0.5 * (a + b);
+            }
             let (g, z) = phi(b)?;
             gb = g;
             (last, z_last) = (b, z);

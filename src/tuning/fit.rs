@@ -259,6 +259,9 @@ struct Prepared {
     external: f64,
     measured: f64,
     sigma: f64,
+    /// The field solution's factor on the classical inductance at this reading's coil
+    /// (relative to the conditions' scale; 1 on the classical shape).
+    factor: f64,
 }
 
 impl Prepared {
@@ -268,19 +271,43 @@ impl Prepared {
             return f64::NAN;
         }
         let cond = Conditions {
-            inductance_scale: conditions.inductance_scale * p[1],
+            inductance_scale: conditions.inductance_scale * p[1] * self.factor,
             ..*conditions
         };
         resonance_of(&self.coil, c, &cond)
     }
 }
 
-/// Calibrate the model of `coil` in `tank` on `readings` (see the module's method).
+/// Calibrate the model of `coil` in `tank` on `readings` (see the module's method), on the
+/// classical shape under `conditions` (the same factor on the inductance at every reading).
 pub fn fit(
     coil: &Coil,
     tank: &Tank,
     conditions: &Conditions,
     readings: &[Reading],
+) -> Result<Fit, FitError> {
+    fit_on(coil, tank, conditions, readings, None)
+}
+
+/// Rounds of re-solving the field at the readings' coils (each settles the factors for the
+/// parameters of the round before; the factors move with the parameters only through the
+/// frequency, so two or three rounds settle them).
+const FIELD_ROUNDS: usize = 4;
+
+/// [`fit`] on the field-led model when `field` (the recipe's conditions for the field
+/// solution) is given: each reading is modelled by the field solution of its own coil and
+/// capacitance, the calibration's extra capacitance added and its scale on the field-solved
+/// apparent inductance ([`crate::tuning::landing::FieldLed`]), so the calibration does not
+/// depend on where the coil is now. Each round solves the field once per reading at the
+/// parameters found so far and turns it into a factor on the classical inductance there; the
+/// least squares then run on the classical model with those factors, until the parameters
+/// settle (within 0.001 pF and 1e-6 of the scale). `conditions` start the first round.
+pub fn fit_on(
+    coil: &Coil,
+    tank: &Tank,
+    conditions: &Conditions,
+    readings: &[Reading],
+    field: Option<&Conditions>,
 ) -> Result<Fit, FitError> {
     if readings.is_empty() {
         return Err(FitError::NoReadings);
@@ -304,6 +331,7 @@ pub fn fit(
             external: r.external_capacitance(tank),
             measured: r.measured,
             sigma: r.sigma(),
+            factor: 1.0,
         });
     }
     let mut warnings = harmonics(&prepared, conditions);
@@ -338,10 +366,30 @@ pub fn fit(
                 None
             })
     };
-    let solution = match two {
+    let with_scale = two.is_some();
+    let mut solution = match two {
         Some(s) => s,
         None => gauss_newton(&prepared, conditions, start, false).ok_or(FitError::NoSolution)?,
     };
+    if let Some(field) = field {
+        for _ in 0..FIELD_ROUNDS {
+            if !field_factors(&mut prepared, conditions, field, solution.params) {
+                break;
+            }
+            let Some(next) = gauss_newton(&prepared, conditions, solution.params, with_scale)
+            else {
+                break;
+            };
+            let moved = [
+                (next.params[0] - solution.params[0]).abs(),
+                (next.params[1] - solution.params[1]).abs(),
+            ];
+            solution = next;
+            if moved[0] <= 1e-15 && moved[1] <= 1e-6 {
+                break;
+            }
+        }
+    }
 
     let [extra, scale] = solution.params;
     let residuals: Vec<f64> = prepared
@@ -379,6 +427,44 @@ pub fn fit(
         readings_used: prepared.len(),
         warnings,
     })
+}
+
+/// Set each reading's factor to the field solution's at its coil and capacitance for the
+/// parameters `p` (ΔC, scale on the field solution); false (factors untouched) when a field
+/// solve or its factor fails.
+fn field_factors(
+    prepared: &mut [Prepared],
+    conditions: &Conditions,
+    field: &Conditions,
+    p: [f64; 2],
+) -> bool {
+    let mut factors: Vec<f64> = Vec::with_capacity(prepared.len());
+    for (i, q) in prepared.iter().enumerate() {
+        let c = q.external + p[0];
+        // Readings at one coil and capacitance share one solve.
+        if let Some(j) = prepared[..i]
+            .iter()
+            .position(|o| o.coil == q.coil && o.external == q.external)
+        {
+            factors.push(factors[j]);
+            continue;
+        }
+        let Ok(f) = crate::tuning::field_tank::field_resonance(&q.coil, c, field, p[1]) else {
+            return false;
+        };
+        let at = Conditions {
+            inductance_scale: conditions.inductance_scale * p[1],
+            ..*conditions
+        };
+        let Some(k) = crate::tuning::field_tank::matching_scale(&q.coil, c, &at, f) else {
+            return false;
+        };
+        factors.push(k);
+    }
+    for (q, k) in prepared.iter_mut().zip(factors) {
+        q.factor = k;
+    }
+    true
 }
 
 /// Readings near 2×, 3×, ½× or ⅓× the uncalibrated prediction.

@@ -17,6 +17,7 @@ pub mod drift;
 pub mod field_tank;
 pub mod fit;
 pub mod impedance;
+pub mod landing;
 pub mod measured_coil;
 pub mod modulation;
 pub mod service;

@@ -96,6 +96,18 @@ pub fn lengths_for_target(
     let f_at = |l: f64| resonance_at_length(coil, l, external_capacitance, conditions);
     let lo = coil.shortest_length();
     let hi = coil.longest_proposed_length().max(lo);
+    roots_of(lo, hi, f_at, target)
+}
+
+/// Every x in [lo, hi] (ascending) where `f_at(x)` = `target`, by a scan of [`SCAN_POINTS`]
+/// points and bisection of each sign change, or why none is (the curve's lowest above the
+/// target, or its highest below it). `f_at` returns NaN where it has no value.
+pub fn roots_of(
+    lo: f64,
+    hi: f64,
+    f_at: impl Fn(f64) -> f64,
+    target: f64,
+) -> Result<Vec<f64>, Unreachable> {
     let step = (hi - lo) / (SCAN_POINTS - 1) as f64;
     let scan: Vec<[f64; 2]> = (0..SCAN_POINTS)
         .map(|i| {
@@ -198,7 +210,7 @@ pub struct TurnsChange {
 }
 
 /// Most quarter turns added or removed when looking for a coil that reaches the target.
-const MAX_QUARTER_STEPS: u32 = 80;
+pub const MAX_QUARTER_STEPS: u32 = 80;
 
 /// The smallest change in quarter turns (same wire, diameter and leads) after which some
 /// buildable length lands `target`; the length proposed keeps the pitch nearest the present

@@ -1,5 +1,6 @@
 //! Sweeps of the resonance for the charts.
 
+use super::landing::Shape;
 use crate::model::batch::{SweepColumns, resonance_over_lengths};
 use crate::model::{Coil, Conditions, Tank, evaluate::resonance_of};
 
@@ -60,6 +61,31 @@ pub fn spacing_sweep(
             SpacingCurve { setting, points }
         })
         .collect()
+}
+
+/// [`spacing_sweep`] on the field shape when given: each point is the classical model with
+/// the shape's factor at its length and capacitance ([`Shape::resonance_at`], one
+/// evaluation per point rather than the batch path: 1 200 points take about a millisecond);
+/// tests/engine/landing.rs measures the curves against exact field solves.
+pub fn spacing_sweep_on(
+    coil: &Coil,
+    tank: &Tank,
+    conditions: &Conditions,
+    settings: &[f64],
+    lengths: (f64, f64),
+    samples: usize,
+    shape: Option<&Shape>,
+) -> Vec<SpacingCurve> {
+    let mut curves = spacing_sweep(coil, tank, conditions, settings, lengths, samples);
+    if let Some(shape) = shape {
+        for curve in &mut curves {
+            let c_ext = tank.external_capacitance_at(curve.setting);
+            for p in &mut curve.points {
+                p[1] = shape.resonance_at(coil, p[0], c_ext);
+            }
+        }
+    }
+    curves
 }
 
 /// Resonance against trimmer setting (0–1) at the coil's own length: (setting, hertz).
