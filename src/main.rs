@@ -54,6 +54,10 @@ fn main() -> ExitCode {
             args.remove(0);
             finish(tankwright::cli::run_measured(args))
         }
+        Some("design") => {
+            args.remove(0);
+            finish(tankwright::cli::run_design(args))
+        }
         Some("help") | Some("--help") | Some("-h") => finish(Ok(tankwright::cli::usage())),
         // The window opens even when the file cannot be read, and says why in it: a
         // double-clicked file must not vanish without a word.

@@ -5,6 +5,7 @@
 
 mod args;
 mod bench;
+mod design;
 mod evaluate;
 mod handout;
 mod impedance;
@@ -18,6 +19,7 @@ mod verdict;
 
 pub use args::{ArgError, Args};
 pub use bench::{run_fit, run_solve};
+pub use design::{candidate_json, design_json, run_design};
 pub use evaluate::{EvaluateRequest, run_evaluate};
 pub use handout::{run_chart, run_sheet};
 pub use impedance::run_impedance;
@@ -74,6 +76,15 @@ usage:
   tankwright solve --recipe FILE [--target-mhz F] [--trimmer-pct P] [--json]
                                           the coil and trimmer that land the target
   tankwright fit --recipe FILE [--json]   the calibration the recipe's bench readings imply
+  tankwright design --target-mhz F --formers-mm A,B,.. --wires-mm A,B,.. [--enamel 1|2]
+           --fixed-pf A,B,.. --trimmers-pf MIN-MAX,.. [--lead-mm X] [--construction NAME]
+           [--count N] [--save-best FILE.ron] [--json]
+                                          the coil, capacitor and trimmer from the parts on
+                                          hand that land F at mid-travel, ranked, with what
+                                          was ruled out and why; formers also in inches
+                                          (1/4in), wires also awgN or swgN, fixed capacitors
+                                          also as a series (E12:4.7-47), 0 for none; lead
+                                          default 5 mm, count 1-20 (default 5)
   tankwright impedance FLAGS [--from-mhz A] [--to-mhz B] [--points N] [--json]
                                           the coil's impedance against frequency, solved
                                           from its own currents (also with --recipe FILE)

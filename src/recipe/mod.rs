@@ -15,6 +15,7 @@ pub mod document;
 pub mod expectation;
 pub mod figures;
 pub mod format;
+pub mod from_design;
 pub mod load;
 pub mod rules;
 pub mod schema;

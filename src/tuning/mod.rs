@@ -12,6 +12,7 @@ pub mod bands;
 pub mod buildable;
 pub mod channel_list;
 pub mod construction;
+pub mod design;
 pub mod digits;
 pub mod drift;
 pub mod field_tank;

@@ -4,6 +4,7 @@
 //! module below was a test file of its own and keeps its own sources named at its top.
 
 mod cli_bench;
+mod cli_design;
 mod cli_evaluate;
 mod cli_impedance;
 mod cli_measured;

@@ -123,4 +123,51 @@ fn parts(c: &mut Criterion) {
     g.finish();
 }
 
-criterion_group!(benches, sweep, parts);
+/// The design search over 5 formers × 4 wires × 12 fixed capacitors × 3 trimmers for
+/// 98.7 MHz (`tuning::design::search`; budget 2 s on one core), by the batch path and by the
+/// plain per-candidate loop (the per-point path at each length), for the ratio.
+fn design(c: &mut Criterion) {
+    use tankwright::tuning::construction::Construction;
+    use tankwright::tuning::design::parts::{PartsOnHand, TrimmerPart, e_series_between};
+    use tankwright::tuning::design::{DesignSettings, Method, plan_for, search};
+    use tankwright::tuning::verdict::Aim;
+    let wire = |d: f64| WireSpec {
+        gauge: Gauge::Metric(d * 1e-3),
+        coating: Coating::Bare,
+    };
+    let trimmer = |a: f64, b: f64| TrimmerPart {
+        min: a * 1e-12,
+        max: b * 1e-12,
+    };
+    let parts = PartsOnHand {
+        formers: [5.0, 6.0, 7.0, 8.0, 10.0].map(|d| d * 1e-3).to_vec(),
+        wires: [0.6, 0.8, 1.0, 1.25].map(wire).to_vec(),
+        fixed: e_series_between(12, 10.0, 82.0)
+            .expect("E12")
+            .into_iter()
+            .map(|v| v * 1e-12)
+            .collect(),
+        trimmers: vec![trimmer(2.0, 10.0), trimmer(4.0, 20.0), trimmer(6.0, 30.0)],
+        lead_length: 5e-3,
+        construction: Construction::CopperClad,
+    };
+    assert_eq!(parts.combinations(), 5 * 4 * 12 * 3);
+    let aim = Aim::new(plan_for(98.7e6), Some(98.7e6));
+    let mut g = c.benchmark_group("design");
+    g.sample_size(10);
+    for (name, method) in [
+        ("search_5x4x12x3_batch", Method::Batch),
+        ("search_5x4x12x3_per_candidate", Method::PerCandidate),
+    ] {
+        let settings = DesignSettings {
+            method,
+            ..DesignSettings::default()
+        };
+        g.bench_function(name, |b| {
+            b.iter(|| black_box(search(&parts, &aim, &settings).expect("accepted")))
+        });
+    }
+    g.finish();
+}
+
+criterion_group!(benches, sweep, parts, design);
