@@ -6,6 +6,7 @@
 mod cli_bench;
 mod cli_evaluate;
 mod cli_impedance;
+mod cli_impossible;
 mod cli_modulation;
 mod cli_sheet;
 mod cli_verdict;
