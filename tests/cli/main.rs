@@ -5,6 +5,7 @@
 
 mod cli_bench;
 mod cli_evaluate;
+mod cli_field_budget;
 mod cli_impedance;
 mod cli_impossible;
 mod cli_modulation;

@@ -6,6 +6,7 @@
 mod bands;
 mod batch_spread;
 mod bench_fit;
+mod field_budget;
 mod field_lead;
 mod properties;
 mod reference_elliptic;
