@@ -35,6 +35,9 @@ pub const DATA_DIR_VARIABLE: &str = "TANKWRIGHT_DATA_DIR";
 /// Shortest time between two writes of the same file: changes during a drag are gathered, so
 /// the disk is not flushed sixty times a second. Well inside the promise of two seconds.
 pub const WRITE_PAUSE: Duration = Duration::from_millis(500);
+/// How the warning about a failed working-copy write begins (the window takes it down when
+/// writing holds again).
+pub const WORKING_COPY_FAILED: &str = "the working copy cannot be kept in";
 /// Longest wait for the last write when the window closes.
 const EXIT_WAIT: Duration = Duration::from_secs(5);
 
@@ -285,6 +288,19 @@ impl Keeper {
         for name in [WORKING_COPY_FILE, SESSION_FILE] {
             store::sweep_leftovers(&folder, name);
         }
+        // A save killed midway leaves its temporary file beside the user's recipe: clean those
+        // next to every file the session knows (the file of the working copy, recent files).
+        let known = restored.session.origin.iter();
+        for path in known.chain(restored.session.files.recent.iter()) {
+            if let (Some(dir), Some(name)) = (path.parent(), path.file_name()) {
+                let dir = if dir.as_os_str().is_empty() {
+                    Path::new(".")
+                } else {
+                    dir
+                };
+                store::sweep_leftovers(dir, &name.to_string_lossy());
+            }
+        }
         let (jobs, inbox) = mpsc::channel();
         let failure = Arc::new(Mutex::new(None));
         let thread_folder = folder.clone();
@@ -330,14 +346,21 @@ impl Keeper {
         self.failure.lock().ok().and_then(|f| f.clone())
     }
 
-    /// A write failure not yet reported (each is given once, until writing works again).
-    pub fn new_failure(&mut self) -> Option<String> {
+    /// A change in the writing's state not yet reported: `Some(Some(reason))` when a write
+    /// failed (each failure given once), `Some(None)` when writing works again after a
+    /// failure (so the warning can be taken down), `None` when nothing changed.
+    pub fn failure_change(&mut self) -> Option<Option<String>> {
         let now = self.failure();
         if now == self.reported {
             return None;
         }
         self.reported.clone_from(&now);
-        now
+        Some(now)
+    }
+
+    /// A write failure not yet reported (each is given once, until writing works again).
+    pub fn new_failure(&mut self) -> Option<String> {
+        self.failure_change().flatten()
     }
 
     /// Write what is pending now and wait for it (at most a few seconds).
@@ -448,11 +471,20 @@ fn writer(folder: &Path, inbox: &Receiver<Job>, failure: &Mutex<Option<String>>)
         let due = last_write.is_none_or(|t| t.elapsed() >= WRITE_PAUSE);
         if due || closed || !waiting.is_empty() {
             let mut result = Ok(());
+            // A write that fails (a full disk) keeps its job: it is tried again after the
+            // pause, without waiting for another edit, until it holds.
             if let Some(r) = copy.take() {
                 result = write_copy(folder, &r, &mut |_| Ok(()), |w, b| w.write_all(b));
+                if result.is_err() {
+                    copy = Some(r);
+                }
             }
             if let Some(s) = session.take() {
-                result = result.and(write_session(folder, &s.to_text()));
+                let written = write_session(folder, &s.to_text());
+                if written.is_err() {
+                    session = Some(s);
+                }
+                result = result.and(written);
             }
             if let Ok(mut slot) = failure.lock() {
                 *slot = result.err().map(|e| e.to_string());
