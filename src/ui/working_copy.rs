@@ -62,6 +62,148 @@ pub fn data_folder() -> PathBuf {
     }
 }
 
+/// The lock file of a working-copy slot: the process id of the window that keeps it.
+pub const LOCK_FILE: &str = "window.lock";
+/// Most windows kept apart on one data folder.
+const MAX_SLOTS: usize = 32;
+
+/// The folder of working-copy slot `index` in `data`: the data folder itself for the first
+/// window, `window-2`, `window-3`, … inside it for each further one open at the same time.
+pub fn slot_folder(data: &Path, index: usize) -> PathBuf {
+    if index == 0 {
+        data.to_path_buf()
+    } else {
+        data.join(format!("window-{}", index + 1))
+    }
+}
+
+/// Whether the process `pid` runs (Linux: `/proc/PID`; elsewhere assumed running).
+fn running(pid: u32) -> bool {
+    if !cfg!(target_os = "linux") {
+        return true;
+    }
+    pid == std::process::id() || Path::new(&format!("/proc/{pid}")).exists()
+}
+
+/// The process that holds the slot in `folder`, if its lock names one that runs.
+fn holder(folder: &Path) -> Option<u32> {
+    let text = std::fs::read_to_string(folder.join(LOCK_FILE)).ok()?;
+    let pid = text.trim().parse::<u32>().ok()?;
+    running(pid).then_some(pid)
+}
+
+/// A window's claim on one working-copy slot of the data folder, so two windows on one data
+/// folder never write over each other's unsaved work: each keeps its working copy and session
+/// in a slot of its own. Released (the lock removed) when dropped; a lock left by a killed
+/// window names a process that no longer runs, and the slot is free again (its working copy
+/// comes back in the next window that takes it, and is offered meanwhile, see [`restore`]).
+#[derive(Debug)]
+pub struct SlotClaim {
+    /// The slot's folder: where this window's working copy and session are kept.
+    pub folder: PathBuf,
+    lock: Option<PathBuf>,
+}
+
+impl Drop for SlotClaim {
+    fn drop(&mut self) {
+        if let Some(lock) = &self.lock
+            && holder(&self.folder) == Some(std::process::id())
+        {
+            let _ = std::fs::remove_file(lock);
+        }
+    }
+}
+
+/// Claim the first free slot of `data` (a slot is free when no running window holds its
+/// lock). The lock is made with `create_new`, so two windows starting at once never take the
+/// same slot. When no lock can be made at all (a read-only folder) the first slot is used
+/// without one, as before.
+pub fn claim_slot(data: &Path) -> SlotClaim {
+    for index in 0..MAX_SLOTS {
+        let folder = slot_folder(data, index);
+        if create_private_folder(&folder).is_err() {
+            break;
+        }
+        let lock = folder.join(LOCK_FILE);
+        for _ in 0..2 {
+            let made = std::fs::OpenOptions::new()
+                .write(true)
+                .create_new(true)
+                .open(&lock);
+            match made {
+                Ok(mut file) => {
+                    if file
+                        .write_all(format!("{}\n", std::process::id()).as_bytes())
+                        .is_ok()
+                    {
+                        return SlotClaim {
+                            folder,
+                            lock: Some(lock),
+                        };
+                    }
+                    let _ = std::fs::remove_file(&lock);
+                    break;
+                }
+                Err(e) if e.kind() == io::ErrorKind::AlreadyExists => {
+                    if holder(&folder).is_some() {
+                        break;
+                    }
+                    // Left by a window that no longer runs: take it over (once; a window
+                    // starting at the same moment may win the new lock, then go on).
+                    let _ = std::fs::remove_file(&lock);
+                }
+                Err(_) => break,
+            }
+        }
+    }
+    SlotClaim {
+        folder: data.to_path_buf(),
+        lock: None,
+    }
+}
+
+/// The data folder a slot folder belongs to.
+fn data_of(folder: &Path) -> &Path {
+    match (folder.file_name(), folder.parent()) {
+        (Some(name), Some(parent)) if name.to_string_lossy().starts_with("window-") => parent,
+        _ => folder,
+    }
+}
+
+/// Notes for the window in slot `folder`: that it keeps a working copy of its own (another
+/// window holds the first), and the working copies with unsaved changes that windows no
+/// longer running left in other slots, offered by path.
+fn slot_notes(folder: &Path) -> Vec<String> {
+    let data = data_of(folder);
+    let mut notes = Vec::new();
+    if data != folder {
+        notes.push(format!(
+            "another Tankwright window is open on the data folder: this window keeps its own \
+             working copy in {}",
+            folder.display()
+        ));
+    }
+    for index in 0..MAX_SLOTS {
+        let other = slot_folder(data, index);
+        if other == folder || holder(&other).is_some() {
+            continue;
+        }
+        let copy = other.join(WORKING_COPY_FILE);
+        if !copy.is_file() {
+            continue;
+        }
+        let left = restore_one(&other);
+        if left.has_unsaved_changes() {
+            notes.push(format!(
+                "a window that closed unexpectedly left unsaved work in {}: open it with \
+                 Recipe → Open",
+                copy.display()
+            ));
+        }
+    }
+    notes
+}
+
 /// What the window keeps besides the recipe (the text of `session.ron`).
 #[derive(Clone, Debug, Default, PartialEq, Serialize, Deserialize)]
 #[serde(default)]
@@ -137,6 +279,13 @@ impl Restored {
 /// that breaks a rule comes back as written; one that cannot be read at all is left on disk
 /// (and moved aside before anything new is written over it, see [`Keeper::start`]).
 pub fn restore(folder: &Path) -> Restored {
+    let mut out = restore_one(folder);
+    out.problems.extend(slot_notes(folder));
+    out
+}
+
+/// [`restore`] of one slot, without the notes about the others.
+fn restore_one(folder: &Path) -> Restored {
     let mut out = Restored::default();
     let copy_path = folder.join(WORKING_COPY_FILE);
     if copy_path.exists() {
