@@ -21,6 +21,17 @@ fn main() -> ExitCode {
         }
     };
     let command = args.first().cloned();
+    let headless = matches!(
+        command.as_deref(),
+        Some("evaluate" | "impedance" | "report" | "sheet" | "chart" | "solve" | "fit" | "help")
+    );
+    // A closed standard output (`>&-`) would swallow the output without an error (the
+    // standard library ignores EBADF on it), and the first file opened would take its number:
+    // refuse before anything is opened.
+    if headless && !stdout_open() {
+        complain("standard output is closed: the output would be lost (nothing done)");
+        return ExitCode::FAILURE;
+    }
     match command.as_deref() {
         Some("evaluate") => {
             args.remove(0);
@@ -70,6 +81,29 @@ fn main() -> ExitCode {
     }
 }
 
+/// Whether standard output was open when the program started. The standard library opens
+/// `/dev/null` read-write in place of a closed standard descriptor before `main`, so a closed
+/// standard output shows as `/dev/null` open for reading and writing (a shell's `>/dev/null`
+/// opens it write-only). Read from `/proc/self/fdinfo` where it exists (Linux); elsewhere
+/// assumed open.
+fn stdout_open() -> bool {
+    let Ok(target) = std::fs::read_link("/proc/self/fd/1") else {
+        return true;
+    };
+    if target != std::path::Path::new("/dev/null") {
+        return true;
+    }
+    let Ok(info) = std::fs::read_to_string("/proc/self/fdinfo/1") else {
+        return true;
+    };
+    let flags = info
+        .lines()
+        .find_map(|l| l.strip_prefix("flags:"))
+        .and_then(|f| u32::from_str_radix(f.trim(), 8).ok());
+    // O_ACCMODE = 3, O_RDWR = 2 (Linux).
+    flags.is_none_or(|f| f & 3 != 2)
+}
+
 /// Say `message` on standard error; a closed standard error is no reason to panic.
 fn complain(message: &str) {
     let _ = writeln!(std::io::stderr(), "tankwright: {}", clean(message));
@@ -88,7 +122,7 @@ fn window(result: Result<(), String>) -> ExitCode {
 /// Print a command's output (control characters escaped); a closed or full standard output
 /// ends the command with a message and a failure code instead of a panic.
 fn finish(result: Result<String, String>) -> ExitCode {
-    match result {
+    match result.and_then(|out| tankwright::cli::refuse_undefined(&out).map(|()| out)) {
         Ok(out) => {
             let mut stdout = std::io::stdout().lock();
             match stdout

@@ -3,6 +3,30 @@
 use std::collections::BTreeMap;
 use std::fmt;
 
+/// A number for a message: plain while it is short, else in scientific notation ("1e308",
+/// never 309 digits); NaN and infinities by name.
+pub fn short(v: f64) -> String {
+    if !v.is_finite() {
+        return if v.is_nan() { "undefined" } else { "infinite" }.to_owned();
+    }
+    let plain = format!("{v}");
+    if plain.len() <= 12 {
+        plain
+    } else {
+        format!("{v:e}")
+    }
+}
+
+/// Raw text from the command line or a file, for a message: control characters escaped and
+/// at most 40 characters kept (a 300-digit word is cut, with "…").
+pub fn quoted(text: &str) -> String {
+    let mut out: String = text.chars().take(40).collect();
+    if text.chars().count() > 40 {
+        out.push('…');
+    }
+    super::clean(&out)
+}
+
 /// A command-line mistake, in words.
 #[derive(Clone, Debug, PartialEq)]
 pub struct ArgError(pub String);
@@ -45,20 +69,17 @@ impl Args {
                 }
                 let value = match inline {
                     Some(v) => v,
-                    None => it.next().ok_or_else(|| {
-                        ArgError(format!("--{} needs a value", super::clean(&name)))
-                    })?,
+                    None => it
+                        .next()
+                        .ok_or_else(|| ArgError(format!("--{} needs a value", quoted(&name))))?,
                 };
                 if out.values.insert(name.clone(), value).is_some() {
-                    return Err(ArgError(format!(
-                        "--{} is given twice",
-                        super::clean(&name)
-                    )));
+                    return Err(ArgError(format!("--{} is given twice", quoted(&name))));
                 }
             } else if a.starts_with('-') && a.len() > 1 {
                 return Err(ArgError(format!(
                     "unknown option '{}': options start with two dashes (e.g. --json)",
-                    super::clean(&a)
+                    quoted(&a)
                 )));
             } else {
                 out.positional.push(a);
@@ -86,7 +107,7 @@ impl Args {
                 Ok(x) if x.is_finite() => Ok(Some(x)),
                 _ => Err(ArgError(format!(
                     "--{name} expects a number, got '{}'",
-                    super::clean(v)
+                    quoted(v)
                 ))),
             },
         }
@@ -99,7 +120,7 @@ impl Args {
             Some(v) => v.trim().parse::<i32>().map(Some).map_err(|_| {
                 ArgError(format!(
                     "--{name} expects a whole number, got '{}'",
-                    super::clean(v)
+                    quoted(v)
                 ))
             }),
         }
@@ -111,7 +132,7 @@ impl Args {
         match self.positional.first() {
             Some(word) => Err(ArgError(format!(
                 "unexpected word '{}': each value follows its flag (see 'tankwright help')",
-                super::clean(word)
+                quoted(word)
             ))),
             None => Ok(()),
         }
@@ -123,7 +144,7 @@ impl Args {
         match self.values.keys().find(|k| !used.contains(k)) {
             Some(k) => Err(ArgError(format!(
                 "unknown flag --{} (see 'tankwright help')",
-                super::clean(k)
+                quoted(k)
             ))),
             None => Ok(()),
         }

@@ -69,6 +69,24 @@ pub fn run_impedance(words: Vec<String>) -> Result<String, String> {
     let analysis = crate::model::evaluate(&req.winding, &req.tank, &req.conditions)
         .map_err(|e| format!("invalid input: {e}"))?;
     let coil = Coil::from_winding(&req.winding).map_err(|e| format!("invalid input: {e}"))?;
+    // The range is checked against the wire before any solution is started (a solve can
+    // take seconds; a mistaken --to-mhz must be refused at once).
+    let wire = crate::model::wire_coil(&coil, req.conditions.temperature_c);
+    wire.check().map_err(|e| e.to_string())?;
+    let ceiling = wire.frequency_ceiling();
+    for (name, v) in [("from-mhz", range.from), ("to-mhz", range.to)] {
+        if let Some(hz) = v
+            && hz > ceiling
+        {
+            return Err(format!(
+                "--{name} {} is above {:.1} MHz, the highest frequency solved for this coil \
+                 (where its wire is 1.5 wavelengths long): give 0–{:.1} MHz",
+                super::args::short(hz * MHZ),
+                ceiling * MHZ,
+                ceiling * MHZ
+            ));
+        }
+    }
     let operating = (req.tank.external_capacitance() > 0.0).then(|| {
         let field = crate::tuning::field_tank::field_tank(
             &coil,

@@ -17,7 +17,7 @@ mod stray_flags;
 mod text;
 mod verdict;
 
-pub use args::{ArgError, Args};
+pub use args::{ArgError, Args, quoted, short};
 pub use bench::{run_fit, run_solve};
 pub use design::{candidate_json, design_json, run_design};
 pub use evaluate::{EvaluateRequest, run_evaluate};
@@ -29,24 +29,62 @@ pub use report::{build_report, run_report};
 pub use text::analysis_report;
 pub use verdict::{add_verdict_json, verdict_lines};
 
-/// `text` with control characters shown as escapes (`\u{1b}`), so a name or value cannot
-/// move the cursor, change colours or clear the terminal; line feeds and tabs are kept.
+/// Whether `c` must not reach a terminal as itself: a control character (but line feed and
+/// tab) or one of Unicode's bidirectional formatting characters (U+061C, U+200E–U+200F,
+/// U+202A–U+202E, U+2066–U+2069; Unicode Standard Annex #9), which reorder what a terminal
+/// shows, so a name could display as something it is not (CVE-2021-42574, "Trojan Source").
+fn unsafe_char(c: char) -> bool {
+    (c.is_control() && c != '\n' && c != '\t')
+        || matches!(c, '\u{061c}' | '\u{200e}' | '\u{200f}' | '\u{202a}'..='\u{202e}' | '\u{2066}'..='\u{2069}')
+}
+
+/// `text` with control characters and bidirectional formatting characters shown as escapes
+/// (`\u{1b}`, `\u{202e}`), so a name or value cannot move the cursor, change colours, clear
+/// the terminal or reorder the line; line feeds and tabs are kept.
 pub fn clean(text: &str) -> String {
-    if !text
-        .chars()
-        .any(|c| c.is_control() && c != '\n' && c != '\t')
-    {
+    if !text.chars().any(unsafe_char) {
         return text.to_owned();
     }
     text.chars()
         .map(|c| {
-            if c.is_control() && c != '\n' && c != '\t' {
+            if unsafe_char(c) {
                 c.escape_unicode().to_string()
             } else {
                 c.to_string()
             }
         })
         .collect()
+}
+
+/// The last guard before a command's output is printed: a figure that came out NaN or
+/// infinite ("NaN", "inf" as a word) is refused, naming the line it was on, rather than
+/// printed as if it were a result. Every input check should stop such a figure earlier; this
+/// keeps one that slipped through off the screen and out of the files.
+pub fn refuse_undefined(out: &str) -> Result<(), String> {
+    for line in out.lines() {
+        let undefined = line
+            .split(|c: char| !c.is_ascii_alphanumeric())
+            .any(|w| w == "NaN" || w == "inf" || w == "nan");
+        if undefined {
+            let label: String = line
+                .trim()
+                .chars()
+                .take_while(|c| !c.is_ascii_digit() && *c != '-' && *c != '+' && *c != 'N')
+                .collect();
+            let label = label.trim().trim_end_matches([':', '=', '"']).trim();
+            return Err(format!(
+                "a figure cannot be computed for these inputs (it comes out undefined{}); \
+                 nothing is printed rather than a false figure: check the inputs against \
+                 'tankwright help'",
+                if label.is_empty() {
+                    String::new()
+                } else {
+                    format!(": {}", args::quoted(label))
+                }
+            ));
+        }
+    }
+    Ok(())
 }
 
 /// Usage text for `--help`, with the model names from [`InductanceModel::ALL`].

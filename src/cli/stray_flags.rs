@@ -2,7 +2,7 @@
 //! and the figures they add to the output. Every figure comes from `tuning`; this file only
 //! reads flags and converts units.
 
-use super::args::{ArgError, Args};
+use super::args::{ArgError, Args, short};
 use super::evaluate::EvaluateRequest;
 use crate::model::{Analysis, Coil, Tank};
 use crate::physics::dielectric_class::{self, TemperatureClass};
@@ -12,7 +12,7 @@ use crate::tuning::drift::{DriftBudget, DriftInputs, DriftSource, DriftTank, dri
 use crate::tuning::modulation::{
     Modulation, ModulationInputs, ModulationVerdict, Modulator, Service, judge, modulation,
 };
-use crate::tuning::spice_model::parse_model;
+use crate::tuning::spice_model::{CONTACT_POTENTIAL_V, parse_model};
 use crate::tuning::stray::{
     PartKind, Span, StrayEstimate, StrayInputs, estimate_stray, frequency_window,
 };
@@ -53,10 +53,46 @@ struct DriftFlags {
 
 fn positive(args: &Args, name: &str) -> Result<Option<f64>, ArgError> {
     match args.number(name)? {
-        Some(v) if v <= 0.0 => Err(ArgError(format!("--{name} must be above zero, got {v}"))),
+        Some(v) if v <= 0.0 => Err(ArgError(format!(
+            "--{name} must be above zero, got {}",
+            short(v)
+        ))),
         other => Ok(other),
     }
 }
+
+/// A flag's value, refused outside `low..=high` (display units) with the reason and the
+/// accepted range, so that no figure is computed from an input the physics does not allow.
+fn within(
+    args: &Args,
+    name: &str,
+    (low, high): (f64, f64),
+    unit: &str,
+    why: &str,
+) -> Result<Option<f64>, ArgError> {
+    match args.number(name)? {
+        Some(v) if !(low..=high).contains(&v) => Err(ArgError(format!(
+            "--{name} {} is outside {}–{} {unit}: {why}",
+            short(v),
+            short(low),
+            short(high)
+        ))),
+        other => Ok(other),
+    }
+}
+
+/// The accepted hand capacitance, pF: a hand adds capacitance (never removes it); a few pF is
+/// usual near an unshielded coil (common practice), 100 pF is far beyond any hand.
+pub(crate) const HAND_PF: (f64, f64) = (0.0, 100.0);
+/// The accepted load change, pF, either way (common practice: a loosely coupled load moves
+/// the tank by well under a picofarad; 100 pF is far beyond any coupling).
+pub(crate) const LOAD_CHANGE_PF: (f64, f64) = (-100.0, 100.0);
+/// The accepted temperature change, K: the class-1 ceramic coefficients are specified over
+/// −55 to +125 °C (EIA-198-1), a span of 180 K; beyond it no coefficient here holds.
+pub(crate) const TEMPERATURE_CHANGE_K: (f64, f64) = (-180.0, 180.0);
+/// The accepted highest audio frequency, kHz: Carson's rule for a modulating tone; 100 kHz
+/// covers a broadcast stereo multiplex with its data subcarrier (57 kHz, ITU-R BS.450).
+pub(crate) const AUDIO_MAX_KHZ: (f64, f64) = (0.001, 100.0);
 
 impl Extras {
     /// Read the extra flags (all optional).
@@ -93,17 +129,48 @@ impl Extras {
         let drift = DriftFlags {
             supply_v,
             supply_change_v: args.number("supply-change-v")?.unwrap_or(-2.0),
-            temperature_change_k: args.number("temperature-change-k")?.unwrap_or(20.0),
+            temperature_change_k: within(
+                args,
+                "temperature-change-k",
+                TEMPERATURE_CHANGE_K,
+                "K",
+                "the capacitors' temperature classes are specified over -55 to +125 °C",
+            )?
+            .unwrap_or(20.0),
             class,
-            hand: args.number("hand-pf")?.unwrap_or(1.0) * PF,
-            load: args.number("load-change-pf")?.unwrap_or(0.5) * PF,
+            hand: within(
+                args,
+                "hand-pf",
+                HAND_PF,
+                "pF",
+                "a hand near the coil adds capacitance",
+            )?
+            .unwrap_or(1.0)
+                * PF,
+            load: within(
+                args,
+                "load-change-pf",
+                LOAD_CHANGE_PF,
+                "pF",
+                "the change the load makes to the tank",
+            )?
+            .unwrap_or(0.5)
+                * PF,
             channel_tolerance: positive(args, "channel-tolerance-khz")?.unwrap_or(50.0) * KHZ,
         };
         if supply_v + drift.supply_change_v <= 0.0 {
             return Err(ArgError(format!(
-                "--supply-change-v {} takes the {supply_v} V supply to zero or below",
-                drift.supply_change_v
+                "--supply-change-v {} takes the {} V supply to zero or below",
+                short(drift.supply_change_v),
+                short(supply_v)
             )));
+        }
+        if supply_v > 1e3 || drift.supply_change_v.abs() > 1e3 {
+            return Err(ArgError(
+                "--supply-v and --supply-change-v are accepted up to 1000 V (a small \
+                 oscillator's supply)"
+                    .to_owned(),
+            ));
         }
         Ok(Self {
             construction,
@@ -123,7 +190,13 @@ impl Extras {
         let bias = args.number("bias-v")?;
         let audio = args.number("audio-peak-v")?;
         let coupling = positive(args, "coupling-pf")?;
-        let audio_max = positive(args, "audio-max-khz")?;
+        let audio_max = within(
+            args,
+            "audio-max-khz",
+            AUDIO_MAX_KHZ,
+            "kHz",
+            "the highest audio frequency of the modulation",
+        )?;
         let (law, ignored) = match (three, model) {
             ((None, None, None), None) => {
                 if bias.is_some() || audio.is_some() || coupling.is_some() {
@@ -136,9 +209,19 @@ impl Extras {
                 return Ok(None);
             }
             ((Some(c), Some(vj), Some(m)), None) => {
-                if !(c > 0.0 && vj > 0.0 && m > 0.0 && m < 5.0) {
+                if !(c > 0.0 && c <= 1e6 && m > 0.0 && m < 5.0) {
                     return Err(ArgError(format!(
-                        "junction: Cj0 {c} pF and φ {vj} V must be above zero, m {m} between 0 and 5"
+                        "junction: Cj0 {} pF must be above zero (at most 1e6 pF), m {} between 0 and 5",
+                        short(c),
+                        short(m)
+                    )));
+                }
+                let (lo, hi) = CONTACT_POTENTIAL_V;
+                if !(lo..=hi).contains(&vj) {
+                    return Err(ArgError(format!(
+                        "--junction-vj {} is outside {lo}–{hi} V: a junction's contact \
+                         potential lies below its band gap",
+                        short(vj)
                     )));
                 }
                 (JunctionLaw::new(c * PF, vj, m), Vec::new())
@@ -164,9 +247,18 @@ impl Extras {
         let bias_v = bias.ok_or_else(|| {
             ArgError("--bias-v (the junction's DC reverse bias) is missing".to_owned())
         })?;
-        if bias_v < 0.0 {
+        if !(0.0..=1e3).contains(&bias_v) {
             return Err(ArgError(format!(
-                "--bias-v {bias_v}: the junction must be reverse-biased (0 V or more)"
+                "--bias-v {} is outside 0–1000 V: the junction must be reverse-biased (0 V or more)",
+                short(bias_v)
+            )));
+        }
+        if let Some(a) = audio
+            && a.abs() > 1e3
+        {
+            return Err(ArgError(format!(
+                "--audio-peak-v {} is outside -1000–1000 V",
+                short(a)
             )));
         }
         Ok(Some(JunctionFlags {
@@ -246,6 +338,22 @@ impl ExtraFigures {
             (m, judge(&m, service), j.ignored.clone())
         });
         let d = &extras.drift;
+        let tank_total = other + analysis.self_capacitance + extras.junction_across_tank();
+        if tank_total + d.load <= 0.0 {
+            return Err(format!(
+                "--load-change-pf {} takes the tank's {:.2} pF to zero or below",
+                short(d.load / PF),
+                tank_total / PF
+            ));
+        }
+        let warm = req.conditions.temperature_c + d.temperature_change_k;
+        if warm <= -273.15 {
+            return Err(format!(
+                "--temperature-change-k {} takes the wire from {} °C below absolute zero",
+                short(d.temperature_change_k),
+                short(req.conditions.temperature_c)
+            ));
+        }
         let drift = drift_budget(
             &coil,
             &DriftTank {
@@ -264,12 +372,49 @@ impl ExtraFigures {
                 channel_tolerance: d.channel_tolerance,
             },
         );
-        Ok(Self {
+        let figures = Self {
             estimate,
             window,
             modulation,
             drift,
-        })
+        };
+        figures.check_finite()?;
+        Ok(figures)
+    }
+
+    /// Refuse figures that came out NaN or infinite (an input the checks above let through):
+    /// the message names the figure, and no NaN or inf reaches the screen or the JSON.
+    fn check_finite(&self) -> Result<(), String> {
+        let mut named: Vec<(&str, f64)> = vec![
+            ("resonance range low", self.window.low),
+            ("resonance range high", self.window.high),
+            ("drift total", self.drift.total),
+            ("drift worst case", self.drift.worst_case),
+        ];
+        for l in &self.drift.lines {
+            named.push((l.source.label(), l.shift));
+        }
+        for p in &self.estimate.parts {
+            named.push((p.kind.label(), p.value.typical));
+        }
+        if let Some((m, _, _)) = &self.modulation {
+            named.extend([
+                ("junction at bias", m.junction_at_bias),
+                ("carrier", m.carrier),
+                ("deviation up", m.deviation_up),
+                ("deviation down", m.deviation_down),
+                ("sensitivity", m.sensitivity),
+                ("distortion", m.distortion),
+                ("Carson bandwidth", m.carson_bandwidth),
+            ]);
+        }
+        match named.iter().find(|(_, v)| !v.is_finite()) {
+            Some((name, _)) => Err(format!(
+                "the {name} cannot be computed for these inputs (it comes out undefined): \
+                 check the drift, junction and audio flags"
+            )),
+            None => Ok(()),
+        }
     }
 
     /// Add `stray_breakdown_pf`, `resonance_range_mhz`, `modulation` and `drift` to `v`.

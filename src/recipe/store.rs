@@ -195,12 +195,19 @@ where
 
 /// The file a save to `path` writes: `path` itself, or, when it is a symbolic link, the file
 /// the link names (followed to the end), so the link stays and its target gets the new text.
+///
+/// A link in a sticky, world-writable folder (the system's temporary folder) is followed
+/// only when it belongs to the user or to the folder's owner: the kernel's own rule for
+/// such folders (Linux `fs.protected_symlinks`, Documentation/admin-guide/sysctl/fs.rst),
+/// which stops another user's link named like the output from redirecting the write onto a
+/// file of theirs choosing. The tool resolves links itself, so it applies the rule itself.
 pub fn save_target(path: &Path) -> io::Result<PathBuf> {
     let mut target = path.to_path_buf();
     // The kernel's own limit on links followed in one lookup.
     for _ in 0..40 {
         match fs::symlink_metadata(&target) {
             Ok(meta) if meta.file_type().is_symlink() => {
+                protected_link(&target, &meta)?;
                 let next = fs::read_link(&target)?;
                 target = match target.parent() {
                     Some(dir) if next.is_relative() => dir.join(next),
@@ -213,6 +220,75 @@ pub fn save_target(path: &Path) -> io::Result<PathBuf> {
         }
     }
     Err(io::Error::other("too many levels of symbolic links"))
+}
+
+/// Refuse to follow the link at `link` (its own metadata `meta`) when it lies in a sticky,
+/// world-writable folder and belongs neither to this process's user nor to the folder's owner.
+#[cfg(unix)]
+fn protected_link(link: &Path, meta: &fs::Metadata) -> io::Result<()> {
+    use std::os::unix::fs::MetadataExt;
+    let folder = match link.parent() {
+        Some(p) if !p.as_os_str().is_empty() => p,
+        _ => Path::new("."),
+    };
+    let Ok(dir) = fs::metadata(folder) else {
+        return Ok(());
+    };
+    let sticky_shared = dir.mode() & 0o1000 != 0 && dir.mode() & 0o002 != 0;
+    let me = effective_uid();
+    if sticky_shared && Some(meta.uid()) != me && meta.uid() != dir.uid() {
+        return Err(io::Error::new(
+            io::ErrorKind::PermissionDenied,
+            format!(
+                "{} is a link owned by another user (uid {}) in the shared folder {}: not                  followed (the system's rule for links in shared folders, protected_symlinks);                  choose another name or folder",
+                link.display(),
+                meta.uid(),
+                folder.display()
+            ),
+        ));
+    }
+    Ok(())
+}
+
+#[cfg(not(unix))]
+fn protected_link(_link: &Path, _meta: &fs::Metadata) -> io::Result<()> {
+    Ok(())
+}
+
+/// This process's effective user id, from `/proc/self/status` (Linux); `None` elsewhere, so
+/// a link there is followed only when it belongs to the folder's owner.
+#[cfg(unix)]
+fn effective_uid() -> Option<u32> {
+    let status = fs::read_to_string("/proc/self/status").ok()?;
+    let line = status.lines().find_map(|l| l.strip_prefix("Uid:"))?;
+    line.split_whitespace().nth(1)?.parse().ok()
+}
+
+/// Refuse to replace a file no one may write (mode 0444): renaming over it would replace it
+/// though its permissions forbid writing, so the user's protection would be ignored.
+fn refuse_read_only(path: &Path) -> io::Result<()> {
+    #[cfg(unix)]
+    {
+        use std::os::unix::fs::PermissionsExt;
+        if let Ok(meta) = fs::metadata(path)
+            && meta.is_file()
+            && meta.permissions().mode() & 0o222 == 0
+        {
+            return Err(io::Error::new(
+                io::ErrorKind::PermissionDenied,
+                "the file is read-only (no one may write it): not replaced; make it writable \
+                 or choose another name",
+            ));
+        }
+    }
+    #[cfg(not(unix))]
+    if fs::metadata(path).is_ok_and(|m| m.permissions().readonly()) {
+        return Err(io::Error::new(
+            io::ErrorKind::PermissionDenied,
+            "the file is read-only: not replaced",
+        ));
+    }
+    Ok(())
 }
 
 /// [`write_atomically`] with the permissions of a new file and a hook before each step.
@@ -237,6 +313,7 @@ where
     before(SaveStep::Link).map_err(|e| fail(SaveStep::Link, e.to_string()))?;
     let target = save_target(path).map_err(|e| fail(SaveStep::Link, e.to_string()))?;
     let path = target.as_path();
+    refuse_read_only(path).map_err(|e| fail(SaveStep::Create, e.to_string()))?;
     let Some(name) = path.file_name() else {
         return Err(fail(SaveStep::Name, "the path ends in no file name".into()));
     };

@@ -199,10 +199,17 @@ pub fn parse_model(text: &str) -> Result<JunctionModel, ModelError> {
         m_default
     });
     let fc = find("FC").unwrap_or(crate::physics::junction::DEFAULT_FORWARD_KNEE);
-    let sane = vj > 0.0 && m > 0.0 && m < 5.0 && (0.0..1.0).contains(&fc);
+    let (lo, hi) = CONTACT_POTENTIAL_V;
+    if !(lo..=hi).contains(&vj) {
+        return Err(ModelError(format!(
+            ".model {name}: {vj_key} = {vj:e} is outside {lo}–{hi} V: a junction's contact \
+             potential lies below its band gap"
+        )));
+    }
+    let sane = cj0 <= 1e-6 && m > 0.0 && m < 5.0 && (0.0..1.0).contains(&fc);
     if !sane {
         return Err(ModelError(format!(
-            ".model {name}: {vj_key} = {vj} must be above 0, {m_key} = {m} between 0 and 5, FC = {fc} in 0–1"
+            ".model {name}: {cj_key} = {cj0:e} must be at most 1e-6 F, {m_key} = {m:e} between 0 and 5, FC = {fc:e} in 0–1"
         )));
     }
     let used = [cj_key, vj_key, m_key, "FC", "CJ0", "PB"];
@@ -227,6 +234,12 @@ pub fn parse_model(text: &str) -> Result<JunctionModel, ModelError> {
         defaulted,
     })
 }
+
+/// The accepted contact potential φ, volts: a junction's built-in potential lies below its
+/// band gap (1.12 V silicon, about 3.3 V silicon carbide; Sze, *Physics of Semiconductor
+/// Devices*, 1981, Appendix G); below 0.1 V SPICE's temperature law gives a negative φ at
+/// room temperature (from memory: ngspice raises VJ below 0.1 V to 0.1 V).
+pub const CONTACT_POTENTIAL_V: (f64, f64) = (0.1, 3.5);
 
 fn vj_key_static(d: DeviceType) -> &'static str {
     if d == DeviceType::Diode { "VJ" } else { "VJC" }

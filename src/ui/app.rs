@@ -18,7 +18,9 @@ use crate::ui::screenshot::ScreenshotJob;
 use crate::ui::theme::Theme;
 use crate::ui::undo::History;
 use crate::ui::widgets::LABEL_WIDTH;
-use crate::ui::working_copy::{self, Keeper, Recovery, RecoveryChoice, SessionStateRef};
+use crate::ui::working_copy::{
+    self, Keeper, Recovery, RecoveryChoice, SessionStateRef, WORKING_COPY_FAILED,
+};
 use eframe::egui::{self, Key, KeyboardShortcut, Modifiers};
 
 /// The collapsible section (inside "Audio and drift") holding the modulation charts.
@@ -384,15 +386,27 @@ impl App {
                 saved: self.files.saved_snapshot(),
             },
         );
-        if let Some(failure) = keeper.new_failure() {
-            self.files.notice = Some(Notice {
-                text: format!(
-                    "the working copy cannot be kept in {} ({failure}); save your recipe to a \
-                     file",
-                    keeper.folder().display()
-                ),
-                is_error: true,
-            });
+        match keeper.failure_change() {
+            Some(Some(failure)) => {
+                self.files.notice = Some(Notice {
+                    text: format!(
+                        "{WORKING_COPY_FAILED} {} ({failure}); save your recipe to a file",
+                        keeper.folder().display()
+                    ),
+                    is_error: true,
+                });
+            }
+            // Writing holds again: the warning comes down (only if it is still the one shown).
+            Some(None)
+                if self
+                    .files
+                    .notice
+                    .as_ref()
+                    .is_some_and(|n| n.text.starts_with(WORKING_COPY_FAILED)) =>
+            {
+                self.files.notice = None;
+            }
+            _ => {}
         }
     }
 

@@ -104,7 +104,13 @@ fn open(file: Option<PathBuf>, args: Vec<String>) -> Result<(), String> {
         } else {
             None
         };
-    let folder = working_copy::data_folder();
+    let data = working_copy::data_folder();
+    // Each window on the data folder keeps its working copy in a slot of its own (held until
+    // the window closes), so two windows never write over each other's unsaved work.
+    let claim = (!capture).then(|| working_copy::claim_slot(&data));
+    let folder = claim
+        .as_ref()
+        .map_or_else(|| data.clone(), |c| c.folder.clone());
     let options = eframe::NativeOptions {
         renderer: eframe::Renderer::Glow,
         viewport: eframe::egui::ViewportBuilder::default()
@@ -115,7 +121,7 @@ fn open(file: Option<PathBuf>, args: Vec<String>) -> Result<(), String> {
         // eframe rewrites its file in place: only the window's size and place are in it.
         persistence_path: Some(match &scratch {
             Some(dir) => dir.join("window.ron"),
-            None => folder.join("window.ron"),
+            None => data.join("window.ron"),
         }),
         ..Default::default()
     };
@@ -156,6 +162,7 @@ fn open(file: Option<PathBuf>, args: Vec<String>) -> Result<(), String> {
         }),
     )
     .map_err(|e| format!("cannot open the window: {e}"))?;
+    drop(claim);
     if let Some(scratch) = scratch {
         // Best effort: the scratch state is of no use once the capture is done.
         let _ = std::fs::remove_dir_all(scratch);

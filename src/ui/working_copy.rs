@@ -35,6 +35,9 @@ pub const DATA_DIR_VARIABLE: &str = "TANKWRIGHT_DATA_DIR";
 /// Shortest time between two writes of the same file: changes during a drag are gathered, so
 /// the disk is not flushed sixty times a second. Well inside the promise of two seconds.
 pub const WRITE_PAUSE: Duration = Duration::from_millis(500);
+/// How the warning about a failed working-copy write begins (the window takes it down when
+/// writing holds again).
+pub const WORKING_COPY_FAILED: &str = "the working copy cannot be kept in";
 /// Longest wait for the last write when the window closes.
 const EXIT_WAIT: Duration = Duration::from_secs(5);
 
@@ -57,6 +60,148 @@ pub fn data_folder() -> PathBuf {
         Some(dir) => dir.join("tankwright"),
         None => PathBuf::from("tankwright-data"),
     }
+}
+
+/// The lock file of a working-copy slot: the process id of the window that keeps it.
+pub const LOCK_FILE: &str = "window.lock";
+/// Most windows kept apart on one data folder.
+const MAX_SLOTS: usize = 32;
+
+/// The folder of working-copy slot `index` in `data`: the data folder itself for the first
+/// window, `window-2`, `window-3`, … inside it for each further one open at the same time.
+pub fn slot_folder(data: &Path, index: usize) -> PathBuf {
+    if index == 0 {
+        data.to_path_buf()
+    } else {
+        data.join(format!("window-{}", index + 1))
+    }
+}
+
+/// Whether the process `pid` runs (Linux: `/proc/PID`; elsewhere assumed running).
+fn running(pid: u32) -> bool {
+    if !cfg!(target_os = "linux") {
+        return true;
+    }
+    pid == std::process::id() || Path::new(&format!("/proc/{pid}")).exists()
+}
+
+/// The process that holds the slot in `folder`, if its lock names one that runs.
+fn holder(folder: &Path) -> Option<u32> {
+    let text = std::fs::read_to_string(folder.join(LOCK_FILE)).ok()?;
+    let pid = text.trim().parse::<u32>().ok()?;
+    running(pid).then_some(pid)
+}
+
+/// A window's claim on one working-copy slot of the data folder, so two windows on one data
+/// folder never write over each other's unsaved work: each keeps its working copy and session
+/// in a slot of its own. Released (the lock removed) when dropped; a lock left by a killed
+/// window names a process that no longer runs, and the slot is free again (its working copy
+/// comes back in the next window that takes it, and is offered meanwhile, see [`restore`]).
+#[derive(Debug)]
+pub struct SlotClaim {
+    /// The slot's folder: where this window's working copy and session are kept.
+    pub folder: PathBuf,
+    lock: Option<PathBuf>,
+}
+
+impl Drop for SlotClaim {
+    fn drop(&mut self) {
+        if let Some(lock) = &self.lock
+            && holder(&self.folder) == Some(std::process::id())
+        {
+            let _ = std::fs::remove_file(lock);
+        }
+    }
+}
+
+/// Claim the first free slot of `data` (a slot is free when no running window holds its
+/// lock). The lock is made with `create_new`, so two windows starting at once never take the
+/// same slot. When no lock can be made at all (a read-only folder) the first slot is used
+/// without one, as before.
+pub fn claim_slot(data: &Path) -> SlotClaim {
+    for index in 0..MAX_SLOTS {
+        let folder = slot_folder(data, index);
+        if create_private_folder(&folder).is_err() {
+            break;
+        }
+        let lock = folder.join(LOCK_FILE);
+        for _ in 0..2 {
+            let made = std::fs::OpenOptions::new()
+                .write(true)
+                .create_new(true)
+                .open(&lock);
+            match made {
+                Ok(mut file) => {
+                    if file
+                        .write_all(format!("{}\n", std::process::id()).as_bytes())
+                        .is_ok()
+                    {
+                        return SlotClaim {
+                            folder,
+                            lock: Some(lock),
+                        };
+                    }
+                    let _ = std::fs::remove_file(&lock);
+                    break;
+                }
+                Err(e) if e.kind() == io::ErrorKind::AlreadyExists => {
+                    if holder(&folder).is_some() {
+                        break;
+                    }
+                    // Left by a window that no longer runs: take it over (once; a window
+                    // starting at the same moment may win the new lock, then go on).
+                    let _ = std::fs::remove_file(&lock);
+                }
+                Err(_) => break,
+            }
+        }
+    }
+    SlotClaim {
+        folder: data.to_path_buf(),
+        lock: None,
+    }
+}
+
+/// The data folder a slot folder belongs to.
+fn data_of(folder: &Path) -> &Path {
+    match (folder.file_name(), folder.parent()) {
+        (Some(name), Some(parent)) if name.to_string_lossy().starts_with("window-") => parent,
+        _ => folder,
+    }
+}
+
+/// Notes for the window in slot `folder`: that it keeps a working copy of its own (another
+/// window holds the first), and the working copies with unsaved changes that windows no
+/// longer running left in other slots, offered by path.
+fn slot_notes(folder: &Path) -> Vec<String> {
+    let data = data_of(folder);
+    let mut notes = Vec::new();
+    if data != folder {
+        notes.push(format!(
+            "another Tankwright window is open on the data folder: this window keeps its own \
+             working copy in {}",
+            folder.display()
+        ));
+    }
+    for index in 0..MAX_SLOTS {
+        let other = slot_folder(data, index);
+        if other == folder || holder(&other).is_some() {
+            continue;
+        }
+        let copy = other.join(WORKING_COPY_FILE);
+        if !copy.is_file() {
+            continue;
+        }
+        let left = restore_one(&other);
+        if left.has_unsaved_changes() {
+            notes.push(format!(
+                "a window that closed unexpectedly left unsaved work in {}: open it with \
+                 Recipe → Open",
+                copy.display()
+            ));
+        }
+    }
+    notes
 }
 
 /// What the window keeps besides the recipe (the text of `session.ron`).
@@ -134,6 +279,13 @@ impl Restored {
 /// that breaks a rule comes back as written; one that cannot be read at all is left on disk
 /// (and moved aside before anything new is written over it, see [`Keeper::start`]).
 pub fn restore(folder: &Path) -> Restored {
+    let mut out = restore_one(folder);
+    out.problems.extend(slot_notes(folder));
+    out
+}
+
+/// [`restore`] of one slot, without the notes about the others.
+fn restore_one(folder: &Path) -> Restored {
     let mut out = Restored::default();
     let copy_path = folder.join(WORKING_COPY_FILE);
     if copy_path.exists() {
@@ -285,6 +437,19 @@ impl Keeper {
         for name in [WORKING_COPY_FILE, SESSION_FILE] {
             store::sweep_leftovers(&folder, name);
         }
+        // A save killed midway leaves its temporary file beside the user's recipe: clean those
+        // next to every file the session knows (the file of the working copy, recent files).
+        let known = restored.session.origin.iter();
+        for path in known.chain(restored.session.files.recent.iter()) {
+            if let (Some(dir), Some(name)) = (path.parent(), path.file_name()) {
+                let dir = if dir.as_os_str().is_empty() {
+                    Path::new(".")
+                } else {
+                    dir
+                };
+                store::sweep_leftovers(dir, &name.to_string_lossy());
+            }
+        }
         let (jobs, inbox) = mpsc::channel();
         let failure = Arc::new(Mutex::new(None));
         let thread_folder = folder.clone();
@@ -330,14 +495,21 @@ impl Keeper {
         self.failure.lock().ok().and_then(|f| f.clone())
     }
 
-    /// A write failure not yet reported (each is given once, until writing works again).
-    pub fn new_failure(&mut self) -> Option<String> {
+    /// A change in the writing's state not yet reported: `Some(Some(reason))` when a write
+    /// failed (each failure given once), `Some(None)` when writing works again after a
+    /// failure (so the warning can be taken down), `None` when nothing changed.
+    pub fn failure_change(&mut self) -> Option<Option<String>> {
         let now = self.failure();
         if now == self.reported {
             return None;
         }
         self.reported.clone_from(&now);
-        now
+        Some(now)
+    }
+
+    /// A write failure not yet reported (each is given once, until writing works again).
+    pub fn new_failure(&mut self) -> Option<String> {
+        self.failure_change().flatten()
     }
 
     /// Write what is pending now and wait for it (at most a few seconds).
@@ -448,11 +620,20 @@ fn writer(folder: &Path, inbox: &Receiver<Job>, failure: &Mutex<Option<String>>)
         let due = last_write.is_none_or(|t| t.elapsed() >= WRITE_PAUSE);
         if due || closed || !waiting.is_empty() {
             let mut result = Ok(());
+            // A write that fails (a full disk) keeps its job: it is tried again after the
+            // pause, without waiting for another edit, until it holds.
             if let Some(r) = copy.take() {
                 result = write_copy(folder, &r, &mut |_| Ok(()), |w, b| w.write_all(b));
+                if result.is_err() {
+                    copy = Some(r);
+                }
             }
             if let Some(s) = session.take() {
-                result = result.and(write_session(folder, &s.to_text()));
+                let written = write_session(folder, &s.to_text());
+                if written.is_err() {
+                    session = Some(s);
+                }
+                result = result.and(written);
             }
             if let Ok(mut slot) = failure.lock() {
                 *slot = result.err().map(|e| e.to_string());

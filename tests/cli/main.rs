@@ -6,7 +6,9 @@
 mod cli_bench;
 mod cli_design;
 mod cli_evaluate;
+mod cli_field_budget;
 mod cli_impedance;
+mod cli_impossible;
 mod cli_measured;
 mod cli_modulation;
 mod cli_sheet;

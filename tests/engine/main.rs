@@ -7,6 +7,7 @@ mod bands;
 mod batch_spread;
 mod bench_fit;
 mod design;
+mod field_budget;
 mod field_lead;
 mod landing;
 mod properties;

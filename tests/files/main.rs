@@ -3,6 +3,7 @@
 //! One test binary per group keeps the build short (see DEVELOPERS.md, "Tests"): each
 //! module below was a test file of its own and keeps its own sources named at its top.
 
+mod file_safety;
 mod handout_files;
 mod recipe_files_respected;
 mod recipe_malformed;

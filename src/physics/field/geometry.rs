@@ -46,6 +46,8 @@ pub enum FieldError {
     Singular,
     /// No self-resonance below the search's upper limit.
     NoResonance,
+    /// The solution would take more time or memory than it may (see [`super::budget`]).
+    TooCostly(String),
 }
 
 impl std::fmt::Display for FieldError {
@@ -61,6 +63,7 @@ impl std::fmt::Display for FieldError {
             FieldError::NoResonance => {
                 f.write_str("field solution: no self-resonance found below the search limit")
             }
+            FieldError::TooCostly(why) => write!(f, "field solution declined: {why}"),
         }
     }
 }
@@ -145,10 +148,15 @@ impl WireCoil {
     /// the resonance within a fraction of a per cent (the convergence test doubles it), and a
     /// segment stays at least 1.5 wire radii long even after that doubling, inside the thin-wire
     /// kernel's range (see the module's documentation) for coils down to D = 8 r.
+    ///
+    /// A coil of many turns takes fewer a turn (never below 8) so that its unknowns stay
+    /// within [`super::budget::UNKNOWNS_LIMIT`]; beyond 8 a turn the budget declines it.
     pub fn segments_per_turn(&self) -> usize {
         let c = PI * self.mean_diameter;
-        let n = (c / (4.0 * self.wire_radius)).ceil();
-        n.clamp(8.0, 16.0) as usize
+        let n = (c / (4.0 * self.wire_radius)).ceil().clamp(8.0, 16.0);
+        let helix_share = (super::budget::UNKNOWNS_LIMIT - super::budget::STRAIGHT_RESERVE) as f64;
+        let affordable = (helix_share / self.turns.max(1.0)).floor();
+        n.min(affordable).max(8.0) as usize
     }
 
     /// The highest frequency any solution of this wire is asked for: where the loop's wire is

@@ -4,7 +4,8 @@
 //! series resistance.
 //!
 //! The geometry is stated once in [`geometry`]; the kernel and its integrals in [`kernel`];
-//! the Galerkin moment matrix in [`matrix`]; the solution in [`solve`].
+//! the Galerkin moment matrix in [`matrix`]; the solution in [`solve`]; its cost bounded
+//! before any work in [`budget`].
 //!
 //! # Formula
 //! Electric-field integral equation of a thin wire in mixed-potential form, discretised by
@@ -25,6 +26,7 @@
 //! effect) is not represented, so the series resistance is the skin-effect and radiation part
 //! only.
 
+pub mod budget;
 pub mod geometry;
 pub mod kernel;
 pub mod lu;

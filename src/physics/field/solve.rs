@@ -52,6 +52,7 @@ impl FieldModel {
         let structure = Structure::build(coil, per_turn.max(4), feed)?;
         let k = 2.0 * PI * max_frequency / SPEED_OF_LIGHT;
         let powers = series_terms(k * (structure.extent() + structure.wire_radius));
+        super::budget::check(&super::budget::Cost::of(&structure, powers))?;
         let matrices = StaticMatrices::new(&structure, powers);
         Ok(Self {
             coil: *coil,
