@@ -38,6 +38,9 @@ const LEFT_SHARE: f32 = 0.3;
 const RIGHT_DEFAULT: f32 = 440.0;
 const RIGHT_MIN: f32 = 360.0;
 const RIGHT_SHARE: f32 = 0.34;
+/// The teaching bench's share of the width in the presentation layout (no left panel there;
+/// the spacing chart keeps more than half the window).
+const PRESENTATION_SHARE: f32 = 0.42;
 
 /// Window height from which the readouts start open, points: below it they start folded so
 /// that the verdict, the target and the bench log all show without scrolling (1280×720).
@@ -551,13 +554,26 @@ impl App {
                 });
             });
         let mut teaching_open = teaching.is_on();
-        egui::Panel::right("teaching_bench")
+        // In the presentation layout the type is larger and the left panel is gone: the bench
+        // gets a wider panel of its own (its own id, so each layout keeps its own width).
+        let (teaching_id, teaching_default, teaching_max) = if teaching.presentation() {
+            let max = (width * PRESENTATION_SHARE).max(RIGHT_MIN);
+            ("teaching_bench_presentation", max, max)
+        } else {
+            (
+                "teaching_bench",
+                RIGHT_DEFAULT.min(right_max),
+                right_max.max(RIGHT_DEFAULT),
+            )
+        };
+        egui::Panel::right(teaching_id)
             .resizable(true)
             .drag_to_open(false)
-            .default_size(RIGHT_DEFAULT.min(right_max))
-            .size_range(RIGHT_MIN..=right_max.max(RIGHT_DEFAULT))
+            .default_size(teaching_default)
+            .size_range(RIGHT_MIN..=teaching_max)
             .show_collapsible(ui, &mut teaching_open, |ui| {
-                egui::ScrollArea::vertical().show(ui, |ui| {
+                // Both ways (see the readouts column below): never wider than the panel.
+                egui::ScrollArea::both().show(ui, |ui| {
                     let keep = teaching.panel(ui, recipe, evaluation, unit, files);
                     if let Some(length) = keep {
                         commands.push(Command::SetLength(length));
@@ -570,8 +586,13 @@ impl App {
             .default_size(RIGHT_DEFAULT.min(right_max))
             .size_range(RIGHT_MIN..=right_max)
             .show_collapsible(ui, &mut right_open, |ui| {
-                // Wrap, never scroll sideways: every line fits the column's width.
-                egui::ScrollArea::vertical().show(ui, |ui| {
+                // Lines wrap at the column's width, and what cannot wrap (a table) scrolls
+                // inside its own area. The column itself scrolls both ways as the last guard:
+                // content wider than a right-hand panel makes egui keep the content's right
+                // edge, so the panel's visible part shrinks to a sliver at the window's edge
+                // and the centre paints over the rest (issue 21). A scroll area that may
+                // scroll sideways is never wider than the room it is given.
+                egui::ScrollArea::both().show(ui, |ui| {
                     verdict::show(ui, evaluation, unit);
                     ui.add_space(8.0);
                     let tall = ui.ctx().content_rect().height() >= READOUTS_OPEN_HEIGHT;

@@ -132,76 +132,69 @@ impl BenchLogPanel {
         unit: LengthUnit,
     ) -> Option<BenchLogAction> {
         let mut action = None;
-        egui::Grid::new("bench_log_readings")
-            .striped(true)
-            .num_columns(6)
+        // The figures in a grid that scrolls sideways on its own when the column is narrow;
+        // each reading's instrument and note below it, wrapping, with its buttons.
+        egui::ScrollArea::horizontal()
+            .id_salt("bench_log_readings_scroll")
             .show(ui, |ui| {
-                ui.strong("measured");
-                ui.strong("length");
-                ui.strong("trimmer");
-                ui.strong("off the fit");
-                ui.strong("instrument, note");
-                ui.label("");
-                ui.end_row();
-                for (i, e) in log.iter().enumerate() {
-                    ui.label(format!("{:.4} MHz", e.measured * 1e-6));
-                    ui.label(unit.show(e.length));
-                    let mut trimmer = format!("{:.0} %", e.trimmer_setting * 100.0);
-                    if e.added_capacitance > 0.0 {
-                        trimmer.push_str(&format!(" +{:.1} pF", e.added_capacitance * 1e12));
-                    }
-                    ui.label(trimmer);
-                    match fit.and_then(|f| Some((f.residuals.get(i)?, f.sigmas.get(i)?))) {
-                        Some((r, s)) => {
-                            let text = format!("{:+.1} kHz", r * 1e-3);
-                            if r.abs() > crate::tuning::fit::RESIDUAL_LIMIT * s {
-                                ui.colored_label(ui.visuals().warn_fg_color, text)
-                            } else {
-                                ui.label(text)
+                egui::Grid::new("bench_log_readings")
+                    .striped(true)
+                    .num_columns(5)
+                    .show(ui, |ui| {
+                        ui.strong("#");
+                        ui.strong("measured");
+                        ui.strong("length");
+                        ui.strong("trimmer");
+                        ui.strong("off the fit");
+                        ui.end_row();
+                        for (i, e) in log.iter().enumerate() {
+                            ui.label(format!("{}", i + 1));
+                            ui.label(format!("{:.4} MHz", e.measured * 1e-6));
+                            ui.label(unit.show(e.length));
+                            let mut trimmer = format!("{:.0} %", e.trimmer_setting * 100.0);
+                            if e.added_capacitance > 0.0 {
+                                trimmer
+                                    .push_str(&format!(" +{:.1} pF", e.added_capacitance * 1e12));
                             }
-                            .on_hover_text(format!(
-                                "measured minus the calibrated model; the instrument's error is \
-                                 ±{:.1} kHz",
-                                s * 1e-3
-                            ));
-                        }
-                        None => {
-                            ui.label("–");
-                        }
-                    }
-                    let ppm = e
-                        .error_ppm
-                        .map(|p| format!(" (±{p} ppm)"))
-                        .unwrap_or_default();
-                    let mut text = format!("{}{ppm}", e.instrument);
-                    if !e.note.is_empty() {
-                        text = format!("{text}; {}", e.note);
-                    }
-                    ui.label(text);
-                    ui.horizontal(|ui| {
-                        if ui
-                            .small_button("Change")
-                            .on_hover_text(format!("change reading {}", i + 1))
-                            .clicked()
-                        {
-                            self.form = Form::of(e);
-                            self.editing = Some(i);
-                        }
-                        if ui
-                            .small_button("Remove")
-                            .on_hover_text(format!("remove reading {}", i + 1))
-                            .clicked()
-                        {
-                            action = Some(BenchLogAction::Remove(i));
-                            if self.editing == Some(i) {
-                                self.editing = None;
-                                self.form = Form::default();
-                            }
+                            ui.label(trimmer);
+                            residual_cell(ui, fit, i);
+                            ui.end_row();
                         }
                     });
-                    ui.end_row();
-                }
             });
+        for (i, e) in log.iter().enumerate() {
+            let ppm = e
+                .error_ppm
+                .map(|p| format!(" (±{p} ppm)"))
+                .unwrap_or_default();
+            let mut text = format!("{}. {}{ppm}", i + 1, e.instrument);
+            if !e.note.is_empty() {
+                text = format!("{text}; {}", e.note);
+            }
+            // The buttons first, so they keep their place whatever the note's length.
+            ui.horizontal_wrapped(|ui| {
+                if ui
+                    .small_button("Change")
+                    .on_hover_text(format!("change reading {}", i + 1))
+                    .clicked()
+                {
+                    self.form = Form::of(e);
+                    self.editing = Some(i);
+                }
+                if ui
+                    .small_button("Remove")
+                    .on_hover_text(format!("remove reading {}", i + 1))
+                    .clicked()
+                {
+                    action = Some(BenchLogAction::Remove(i));
+                    if self.editing == Some(i) {
+                        self.editing = None;
+                        self.form = Form::default();
+                    }
+                }
+                ui.add(egui::Label::new(egui::RichText::new(text).weak()).wrap());
+            });
+        }
         action
     }
 
@@ -291,7 +284,8 @@ impl BenchLogPanel {
                 let label = ui.label("Instrument");
                 ui.add(
                     egui::TextEdit::singleline(&mut form.instrument)
-                        .hint_text("counter, dip meter, receiver…"),
+                        .hint_text("counter, dip meter, receiver…")
+                        .desired_width(field_width(ui)),
                 )
                 .labelled_by(label.id);
                 ui.end_row();
@@ -305,7 +299,7 @@ impl BenchLogPanel {
                 .on_hover_text("instrument error, ppm");
                 ui.end_row();
                 let label = ui.label("Note");
-                ui.add(egui::TextEdit::singleline(&mut form.note))
+                ui.add(egui::TextEdit::singleline(&mut form.note).desired_width(field_width(ui)))
                     .labelled_by(label.id);
                 ui.end_row();
             });
@@ -379,6 +373,32 @@ impl BenchLogPanel {
             }
         });
         action
+    }
+}
+
+/// A text field's width in the form's second column: what the column leaves, within reason.
+fn field_width(ui: &egui::Ui) -> f32 {
+    ui.available_width().clamp(80.0, 240.0)
+}
+
+/// Reading `i`'s distance from the fit, marked when it exceeds the fit's limit.
+fn residual_cell(ui: &mut egui::Ui, fit: Option<&Fit>, i: usize) {
+    match fit.and_then(|f| Some((f.residuals.get(i)?, f.sigmas.get(i)?))) {
+        Some((r, s)) => {
+            let text = format!("{:+.1} kHz", r * 1e-3);
+            if r.abs() > crate::tuning::fit::RESIDUAL_LIMIT * s {
+                ui.colored_label(ui.visuals().warn_fg_color, text)
+            } else {
+                ui.label(text)
+            }
+            .on_hover_text(format!(
+                "measured minus the calibrated model; the instrument's error is ±{:.1} kHz",
+                s * 1e-3
+            ));
+        }
+        None => {
+            ui.label("–");
+        }
     }
 }
 

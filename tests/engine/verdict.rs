@@ -407,3 +407,34 @@ fn receiver_image_only_for_broadcast_bands() {
     );
     assert!(two.image.is_none());
 }
+
+/// Recipe → New (issue 21): each service's starting point keeps its whole trimmer travel
+/// inside its band with the service's edge margin (47 CFR §73.201 / ITU RR Art. 5 for FM,
+/// RR Art. 5 for 2 m: the band edges in `tuning::service`), clear of 108–137 MHz, with no
+/// feedback divider — judged on the figures the window shows (the field solution leads).
+#[test]
+fn each_services_starting_point_is_in_band_and_hides_no_divider() {
+    use tankwright::recipe::demos::starting_recipe;
+    use tankwright::tuning::service::Service;
+    for service in [Service::FmBroadcast, Service::TwoMetreAmateur] {
+        let recipe = starting_recipe(Some(service));
+        assert_eq!(recipe.tank.feedback, None);
+        assert!(recipe.bench_log.is_empty());
+        let figures = tankwright::recipe::figures(&recipe).expect("the start is valid");
+        let v = &figures.verdict;
+        assert!(v.flags.is_empty(), "{service:?}: {:?}", v.flags);
+        let band = v.band.expect("a band");
+        assert_eq!(band.service, service);
+        let margin = service.default_edge_margin();
+        assert!(
+            v.reach.low >= band.low + margin && v.reach.high <= band.high - margin,
+            "{service:?}: travel {:?} in {band:?}",
+            v.reach
+        );
+    }
+    // No service on screen (a custom list in no band): the FM broadcast start.
+    assert_eq!(
+        starting_recipe(None).target.plan.service(),
+        Some(Service::FmBroadcast)
+    );
+}

@@ -10,6 +10,8 @@ mod ui_bench_loop;
 mod ui_charts;
 mod ui_export;
 mod ui_field;
+mod ui_layout;
+mod ui_new_recipe;
 mod ui_recipes;
 mod ui_stray;
 mod ui_teaching;

@@ -33,7 +33,8 @@ pub struct Notice {
 /// A request that may drop unsaved changes, or a save.
 #[derive(Clone, Debug, PartialEq)]
 pub(super) enum Intent {
-    New,
+    /// A new recipe from the starting point of this service (the one of the recipe on screen).
+    New(Option<crate::tuning::service::Service>),
     Open,
     OpenPath(PathBuf),
     OpenDemo(usize),
@@ -183,10 +184,15 @@ impl FileDesk {
     pub(super) fn carry_out(&mut self, intent: Intent) -> Option<FileAction> {
         self.pending = None;
         match intent {
-            Intent::New => {
-                let fresh = recipe::demos::starting_recipe();
+            Intent::New(service) => {
+                let fresh = recipe::demos::starting_recipe(service);
                 self.mark_opened(None, &fresh);
-                self.tell("new recipe (not saved yet)");
+                let service = service.map_or("FM broadcast", |s| s.label());
+                self.tell(format!(
+                    "new recipe (not saved yet) from the {service} starting point, no feedback \
+                     divider: pick the band plan and channel on the right, then set the coil on \
+                     the left to your former and wire (the notes list the parts)"
+                ));
                 Some(FileAction::Replace(fresh))
             }
             Intent::Open => match self.asker.open(&self.memory.folder) {

@@ -23,7 +23,7 @@ impl FileDesk {
             .clicked()
         {
             ui.close();
-            action = self.request(Intent::New, doc);
+            action = self.request(Intent::New(doc.target.plan.service()), doc);
         }
         if ui
             .add(egui::Button::new("Open…").shortcut_text(keys(&OPEN)))
@@ -106,7 +106,7 @@ impl FileDesk {
         } else if pressed(&SAVE) {
             self.save(doc, None)
         } else if pressed(&NEW) {
-            self.request(Intent::New, doc)
+            self.request(Intent::New(doc.target.plan.service()), doc)
         } else if pressed(&OPEN) {
             self.request(Intent::Open, doc)
         } else {

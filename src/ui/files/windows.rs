@@ -58,7 +58,7 @@ impl FileDesk {
     fn unsaved_ui(&mut self, ctx: &egui::Context, doc: &Recipe) -> Option<FileAction> {
         let intent = self.pending.clone()?;
         let what = match intent {
-            Intent::New => "start a new recipe",
+            Intent::New(_) => "start a new recipe",
             Intent::Open | Intent::OpenPath(_) | Intent::OpenDemo(_) => "open another recipe",
             Intent::Quit => "quit",
         };

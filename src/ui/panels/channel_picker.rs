@@ -50,28 +50,36 @@ impl ChannelPicker {
         width: f32,
     ) -> Option<f64> {
         let salt = "channel";
-        // The id the combo box gives its button (it makes an IdSalt of the salt first).
-        let button_id = ui.make_persistent_id(egui::IdSalt::new(salt));
-        let was_open = egui::ComboBox::is_open(ui.ctx(), button_id);
         let mut picked = None;
-        egui::ComboBox::from_id_salt(salt)
-            .selected_text(plan.channel_label(channel))
-            .width(width)
-            // Room for the field and the list; the list scrolls on its own below the field.
-            .height(LIST_HEIGHT + 80.0)
-            .close_behavior(egui::PopupCloseBehavior::CloseOnClickOutside)
-            .show_ui(ui, |ui| {
-                if !was_open {
-                    self.typed.clear();
-                    self.fresh = true;
-                }
-                picked = self.contents(ui, plan, channels, channel);
-                if picked.is_some() {
-                    ui.close();
-                }
-            })
-            .response
-            .labelled_by(label);
+        let shown = plan.channel_label(channel);
+        // The width is a least width: the box is held to it by the room it is given.
+        let room = egui::vec2(width + 45.0, ui.spacing().interact_size.y);
+        ui.allocate_ui(room, |ui| {
+            // The id the combo box gives its button (it makes an IdSalt of the salt first),
+            // in the Ui the box is shown in.
+            let button_id = ui.make_persistent_id(egui::IdSalt::new(salt));
+            let was_open = egui::ComboBox::is_open(ui.ctx(), button_id);
+            egui::ComboBox::from_id_salt(salt)
+                .selected_text(shown.clone())
+                .width(width)
+                .truncate()
+                // Room for the field and the list; the list scrolls on its own below the field.
+                .height(LIST_HEIGHT + 80.0)
+                .close_behavior(egui::PopupCloseBehavior::CloseOnClickOutside)
+                .show_ui(ui, |ui| {
+                    if !was_open {
+                        self.typed.clear();
+                        self.fresh = true;
+                    }
+                    picked = self.contents(ui, plan, channels, channel);
+                    if picked.is_some() {
+                        ui.close();
+                    }
+                })
+                .response
+                .labelled_by(label)
+                .on_hover_text(shown);
+        });
         picked
     }
 

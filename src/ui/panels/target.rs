@@ -87,32 +87,44 @@ impl TargetPanel {
         {
             self.custom_text = format_mhz_list(list);
         }
-        let wide = (ui.available_width() - 90.0).clamp(150.0, 250.0);
+        // The grid's label column ("On channel within ±") takes about 140 points, and a
+        // combo box adds its arrow and padding (about 45) to the width it is given.
+        let wide = (ui.available_width() - 200.0).clamp(100.0, 220.0);
         egui::Grid::new("target_grid")
             .num_columns(2)
             .spacing([8.0, 6.0])
             .show(ui, |ui| {
                 let label = ui.label("Band plan");
                 let mut picked = None;
-                egui::ComboBox::from_id_salt("band_plan")
-                    .selected_text(target.plan.label())
-                    .width(wide)
-                    .show_ui(ui, |ui| {
-                        for plan in BandPlan::built_in() {
-                            let selected = plan == target.plan;
-                            if ui.selectable_label(selected, plan.label()).clicked() && !selected {
-                                picked = Some(plan);
+                let plan_label = target.plan.label();
+                // The width is a least width: the box is held to it by the room it is given.
+                let room = egui::vec2(wide + 45.0, ui.spacing().interact_size.y);
+                ui.allocate_ui(room, |ui| {
+                    egui::ComboBox::from_id_salt("band_plan")
+                        .selected_text(target.plan.label())
+                        .width(wide)
+                        // A long plan name is cut with "…" rather than widening the column.
+                        .truncate()
+                        .show_ui(ui, |ui| {
+                            for plan in BandPlan::built_in() {
+                                let selected = plan == target.plan;
+                                if ui.selectable_label(selected, plan.label()).clicked()
+                                    && !selected
+                                {
+                                    picked = Some(plan);
+                                }
                             }
-                        }
-                        let custom = matches!(target.plan, BandPlan::Custom(_));
-                        if ui.selectable_label(custom, "Custom list").clicked() && !custom {
-                            let list = parse_mhz_list(&self.custom_text)
-                                .unwrap_or_else(|_| vec![target.channel]);
-                            picked = Some(BandPlan::Custom(list));
-                        }
-                    })
-                    .response
-                    .labelled_by(label.id);
+                            let custom = matches!(target.plan, BandPlan::Custom(_));
+                            if ui.selectable_label(custom, "Custom list").clicked() && !custom {
+                                let list = parse_mhz_list(&self.custom_text)
+                                    .unwrap_or_else(|_| vec![target.channel]);
+                                picked = Some(BandPlan::Custom(list));
+                            }
+                        })
+                        .response
+                        .labelled_by(label.id)
+                        .on_hover_text(plan_label);
+                });
                 ui.end_row();
                 if let Some(plan) = picked {
                     if let Some(nearest) = plan.nearest(target.channel) {

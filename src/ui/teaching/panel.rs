@@ -208,24 +208,18 @@ pub(super) fn show(
 
 /// The two large readouts and where the carrier stands against the channel.
 fn readouts(ui: &mut egui::Ui, shown: &Figures) {
-    let big = ui.style().text_styles[&egui::TextStyle::Heading].size * 1.5;
+    let inductance = format!("{:.1} nH", nh(shown.analysis.total_inductance));
+    let frequency = digits::mhz(shown.analysis.resonance);
+    let big = big_size(ui, &[&inductance, &frequency]);
     egui::Grid::new("teaching readouts")
         .num_columns(2)
         .spacing([16.0, 2.0])
         .show(ui, |ui| {
             ui.label(INDUCTANCE_LABEL);
-            ui.label(
-                RichText::new(format!("{:.1} nH", nh(shown.analysis.total_inductance)))
-                    .size(big)
-                    .strong(),
-            );
+            ui.label(RichText::new(inductance).size(big).strong());
             ui.end_row();
             ui.label(FREQUENCY_LABEL);
-            ui.label(
-                RichText::new(digits::mhz(shown.analysis.resonance))
-                    .size(big)
-                    .strong(),
-            );
+            ui.label(RichText::new(frequency).size(big).strong());
             ui.end_row();
         });
     let t = &shown.target;
@@ -242,6 +236,42 @@ fn readouts(ui: &mut egui::Ui, shown: &Figures) {
         ))
         .color(colour),
     );
+}
+
+/// The readouts' large type: half as large again as a heading, or as large as lets the widest
+/// value sit beside its label in the panel's width (a readout never widens the panel).
+fn big_size(ui: &egui::Ui, values: &[&str]) -> f32 {
+    let big = ui.style().text_styles[&egui::TextStyle::Heading].size * 1.5;
+    let body = egui::TextStyle::Body.resolve(ui.style());
+    let label = [INDUCTANCE_LABEL, FREQUENCY_LABEL]
+        .iter()
+        .map(|l| {
+            ui.painter()
+                .layout_no_wrap((*l).to_owned(), body.clone(), egui::Color32::WHITE)
+                .size()
+                .x
+        })
+        .fold(0.0, f32::max);
+    let widest = values
+        .iter()
+        .map(|v| {
+            ui.painter()
+                .layout_no_wrap(
+                    (*v).to_owned(),
+                    egui::FontId::proportional(big),
+                    egui::Color32::WHITE,
+                )
+                .size()
+                .x
+        })
+        .fold(0.0, f32::max);
+    // The grid's gap between the columns, and a margin for the bold face.
+    let room = ui.available_width() - label - 16.0 - 8.0;
+    if widest > room && widest > 0.0 {
+        (big * room / widest).max(body.size)
+    } else {
+        big
+    }
 }
 
 fn theme_ok(ui: &egui::Ui) -> egui::Color32 {
