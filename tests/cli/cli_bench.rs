@@ -49,11 +49,15 @@ fn solve_lands_the_target_within_a_kilohertz() {
             )
             .unwrap();
         let setting = v["trimmer_pct"].as_f64().unwrap() / 100.0;
-        let landed = resonance_of(
-            &proposed,
-            f.tank.external_capacitance_at(setting),
-            &f.conditions,
-        );
+        // Carried out on the tool's own model: the field-led tank of the proposed coil
+        // (`FieldLed::resonance`, the field solution of that coil with the calibration on top),
+        // the classical model only where the field solution does not lead.
+        let external = f.tank.external_capacitance_at(setting);
+        let landed = f
+            .led
+            .as_ref()
+            .and_then(|led| led.resonance(&proposed, external))
+            .unwrap_or_else(|| resonance_of(&proposed, external, &f.conditions));
         let target = recipe.target.channel;
         assert!(
             (landed - target).abs() < 1e3 || f.target.on_channel,

@@ -92,7 +92,10 @@ fn bad_input_is_refused_with_a_message() {
             "must be above --from-mhz",
         ),
         (&["--from-mhz", "-3"], "must be above 0 MHz"),
-        (&["--to-mhz", "900000"], "outside the solved range"),
+        (
+            &["--to-mhz", "900000"],
+            "the highest frequency solved for this coil",
+        ),
         (&["--points", "many"], "expects a whole number"),
         (&["--colour", "red"], "unknown flag --colour"),
     ];
