@@ -61,6 +61,10 @@ fn main() -> ExitCode {
             args.remove(0);
             finish(tankwright::cli::run_fit(args))
         }
+        Some("spice") => {
+            args.remove(0);
+            finish(tankwright::cli::run_spice(args))
+        }
         Some("measured") => {
             args.remove(0);
             finish(tankwright::cli::run_measured(args))

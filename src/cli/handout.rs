@@ -37,6 +37,38 @@ pub fn run_sheet(words: Vec<String>) -> Result<String, String> {
     Ok(format!("wrote the build sheet and worksheet to {out}\n"))
 }
 
+/// Run `spice` on the words after the subcommand: the tank as a SPICE netlist
+/// (`handout::spice_netlist`); Ok(what was written) or Err(message).
+pub fn run_spice(words: Vec<String>) -> Result<String, String> {
+    const USAGE: &str = "tankwright spice RECIPE.ron --out FILE.cir";
+    let args = Args::parse(words, &[]).map_err(|e| e.to_string())?;
+    let (file, out) = file_and_out(&args, "spice", USAGE)?;
+    args.reject_unknown().map_err(|e| e.to_string())?;
+    let lower = out.to_ascii_lowercase();
+    if ![".cir", ".sp", ".spice", ".net"]
+        .iter()
+        .any(|e| lower.ends_with(e))
+    {
+        return Err(format!(
+            "--out {}: name a netlist file .cir, .sp, .spice or .net",
+            super::clean(out)
+        ));
+    }
+    let recipe = store::load(Path::new(file)).map_err(|e| e.to_string())?;
+    let f = crate::recipe::figures(&recipe).map_err(|e| format!("invalid recipe: {e}"))?;
+    let (text, _) = crate::handout::spice_netlist(&recipe, &f)?;
+    store::write_atomically(
+        Path::new(out),
+        text.as_bytes(),
+        |w: &mut dyn std::io::Write, b| w.write_all(b),
+    )
+    .map_err(|e| e.to_string())?;
+    Ok(format!(
+        "wrote the tank's netlist to {out} (resonance {:.6} MHz; run: ngspice -b {out})\n",
+        f.analysis.resonance * 1e-6
+    ))
+}
+
 /// Run `chart` on the words after the subcommand; Ok(what was written) or Err(message).
 pub fn run_chart(words: Vec<String>) -> Result<String, String> {
     const USAGE: &str =

@@ -21,7 +21,7 @@ pub use args::{ArgError, Args, quoted, short};
 pub use bench::{run_fit, run_solve};
 pub use design::{candidate_json, design_json, run_design};
 pub use evaluate::{EvaluateRequest, run_evaluate};
-pub use handout::{run_chart, run_sheet};
+pub use handout::{run_chart, run_sheet, run_spice};
 pub use impedance::run_impedance;
 pub use json::analysis_json;
 pub use measured::run_measured;
@@ -126,6 +126,9 @@ usage:
   tankwright impedance FLAGS [--from-mhz A] [--to-mhz B] [--points N] [--json]
                                           the coil's impedance against frequency, solved
                                           from its own currents (also with --recipe FILE)
+  tankwright spice FILE --out TANK.cir     the tank as a SPICE netlist (the coil as a network
+                                          fitted to the field solution; ngspice -b TANK.cir
+                                          prints resonance = VALUE in hertz)
   tankwright measured FILE.s1p|FILE.s2p [--recipe R] [--at-mhz F] [--json]
                                           a coil measured by a network analyser (Touchstone
                                           1.1 or 2.0; .s1p across one port, .s2p in series):

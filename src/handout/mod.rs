@@ -13,6 +13,7 @@ mod fonts;
 mod pdf;
 mod pdf_backend;
 mod sheet;
+mod spice_netlist;
 
 pub use chart_data::{ChartData, ChartKind, Curve, chart_data};
 pub use chart_files::{CHART_SIZE, chart_png, chart_svg};
@@ -21,3 +22,4 @@ pub use export::{
 };
 pub use pdf::sheet_pdf;
 pub use sheet::{BENCH_COLUMNS, BENCH_ROWS, Row, Sheet, sheet};
+pub use spice_netlist::{CoilNetwork, FIT_HALF_BAND, spice_netlist};

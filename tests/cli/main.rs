@@ -12,6 +12,7 @@ mod cli_impossible;
 mod cli_measured;
 mod cli_modulation;
 mod cli_sheet;
+mod cli_spice;
 mod cli_verdict;
 mod common;
 mod recipe_cli;
