@@ -61,6 +61,10 @@ fn main() -> ExitCode {
             args.remove(0);
             finish(tankwright::cli::run_fit(args))
         }
+        Some("reading") => {
+            args.remove(0);
+            finish(tankwright::cli::run_reading(args))
+        }
         Some("spice") => {
             args.remove(0);
             finish(tankwright::cli::run_spice(args))

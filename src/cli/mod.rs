@@ -11,6 +11,7 @@ mod handout;
 mod impedance;
 mod json;
 mod measured;
+mod reading;
 mod recipe_args;
 mod report;
 mod stray_flags;
@@ -25,6 +26,7 @@ pub use handout::{run_chart, run_sheet, run_spice};
 pub use impedance::run_impedance;
 pub use json::analysis_json;
 pub use measured::run_measured;
+pub use reading::run_reading;
 pub use report::{build_report, run_report};
 pub use text::analysis_report;
 pub use verdict::{add_verdict_json, verdict_lines};
@@ -126,6 +128,10 @@ usage:
   tankwright impedance FLAGS [--from-mhz A] [--to-mhz B] [--points N] [--json]
                                           the coil's impedance against frequency, solved
                                           from its own currents (also with --recipe FILE)
+  tankwright reading add FILE --mhz F [--length-mm L] [--trimmer-pct P] [--clip-pf C]
+             [--instrument TEXT] [--error-ppm E] [--note TEXT]
+                                          append a bench reading to a recipe (saved safely;
+                                          length and trimmer default to the recipe's)
   tankwright spice FILE --out TANK.cir     the tank as a SPICE netlist (the coil as a network
                                           fitted to the field solution; ngspice -b TANK.cir
                                           prints resonance = VALUE in hertz)
