@@ -77,6 +77,8 @@ pub struct App {
     field: crate::ui::field_worker::FieldWorker,
     /// The teaching bench (shows a derived copy of the recipe; never changes it).
     teaching: crate::ui::teaching::Teaching,
+    /// Design from the parts on hand (issue 23).
+    parts_panel: crate::ui::panels::parts_on_hand::PartsOnHandPanel,
 }
 
 impl App {
@@ -165,6 +167,7 @@ impl App {
             recovery: None,
             driver: None,
             teaching: Default::default(),
+            parts_panel: Default::default(),
         }
     }
 
@@ -454,6 +457,7 @@ impl App {
             files,
             field,
             teaching,
+            parts_panel,
             ..
         } = self;
         let mut file_action = None;
@@ -527,6 +531,10 @@ impl App {
                                 recipe.tank.stray = stray;
                             }
                         });
+                    // Design from the parts on hand (issue 23).
+                    egui::CollapsingHeader::new("Design from the parts on hand")
+                        .default_open(false)
+                        .show(ui, |ui| parts_panel.show(ui, recipe));
                     egui::CollapsingHeader::new("Audio and drift")
                         .default_open(false)
                         .show(ui, |ui| {

@@ -8,6 +8,7 @@ mod recipe_file_desk;
 mod ui_audio;
 mod ui_bench_loop;
 mod ui_charts;
+mod ui_design;
 mod ui_export;
 mod ui_field;
 mod ui_layout;

@@ -5,6 +5,7 @@ pub mod audio;
 pub mod bench;
 pub mod channel_picker;
 pub mod model_dots;
+pub mod parts_on_hand;
 pub mod readouts;
 pub mod stray;
 pub mod tank;
