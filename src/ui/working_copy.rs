@@ -115,9 +115,9 @@ impl Drop for SlotClaim {
 }
 
 /// Claim the first free slot of `data` (a slot is free when no running window holds its
-/// lock). The lock is made with `create_new`, so two windows starting at once never take the
-/// same slot. When no lock can be made at all (a read-only folder) the first slot is used
-/// without one, as before.
+/// lock). The lock is made whole by a hard link (which fails where the lock exists), so two
+/// windows starting at once never take the same slot. When no lock can be made at all (a
+/// read-only folder) the first slot is used without one, as before.
 pub fn claim_slot(data: &Path) -> SlotClaim {
     for index in 0..MAX_SLOTS {
         let folder = slot_folder(data, index);
@@ -125,23 +125,19 @@ pub fn claim_slot(data: &Path) -> SlotClaim {
             break;
         }
         let lock = folder.join(LOCK_FILE);
+        // The lock appears with its content in one step: the process id is written to a file
+        // of this process's own, which is then hard-linked to the lock's name (the link fails
+        // if the lock exists). A lock made empty and filled afterwards could be read empty by
+        // a window starting at the same moment, taken for a dead window's and removed.
+        let own = folder.join(format!("{LOCK_FILE}.{}", std::process::id()));
+        if std::fs::write(&own, format!("{}\n", std::process::id())).is_err() {
+            break;
+        }
+        let mut claimed = None;
         for _ in 0..2 {
-            let made = std::fs::OpenOptions::new()
-                .write(true)
-                .create_new(true)
-                .open(&lock);
-            match made {
-                Ok(mut file) => {
-                    if file
-                        .write_all(format!("{}\n", std::process::id()).as_bytes())
-                        .is_ok()
-                    {
-                        return SlotClaim {
-                            folder,
-                            lock: Some(lock),
-                        };
-                    }
-                    let _ = std::fs::remove_file(&lock);
+            match std::fs::hard_link(&own, &lock) {
+                Ok(()) => {
+                    claimed = Some(lock.clone());
                     break;
                 }
                 Err(e) if e.kind() == io::ErrorKind::AlreadyExists => {
@@ -154,6 +150,17 @@ pub fn claim_slot(data: &Path) -> SlotClaim {
                 }
                 Err(_) => break,
             }
+        }
+        let _ = std::fs::remove_file(&own);
+        if let Some(lock) = claimed {
+            return SlotClaim {
+                folder,
+                lock: Some(lock),
+            };
+        }
+        if !lock.exists() && holder(&folder).is_none() {
+            // No lock could be made here at all (links refused): the first slot without one.
+            break;
         }
     }
     SlotClaim {
