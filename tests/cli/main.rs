@@ -11,5 +11,6 @@ mod cli_impossible;
 mod cli_modulation;
 mod cli_sheet;
 mod cli_verdict;
+mod fuzz;
 mod recipe_cli;
 mod window_kill;
