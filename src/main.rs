@@ -114,7 +114,11 @@ fn stdout_open() -> bool {
 
 /// Say `message` on standard error; a closed standard error is no reason to panic.
 fn complain(message: &str) {
-    let _ = writeln!(std::io::stderr(), "tankwright: {}", clean(message));
+    let _ = writeln!(
+        std::io::stderr(),
+        "tankwright: {}",
+        tankwright::cli::for_terminal(message)
+    );
 }
 
 fn window(result: Result<(), String>) -> ExitCode {

@@ -79,8 +79,9 @@ pub fn run_impedance(words: Vec<String>) -> Result<String, String> {
             && hz > ceiling
         {
             return Err(format!(
-                "--{name} {} is above {:.1} MHz, the highest frequency solved for this coil \
-                 (where its wire is 1.5 wavelengths long): give 0–{:.1} MHz",
+                "--{name} {} is outside the solved range: above {:.1} MHz, the highest \
+                 frequency solved for this coil (where its wire is 1.5 wavelengths long); \
+                 give 0–{:.1} MHz",
                 super::args::short(hz * MHZ),
                 ceiling * MHZ,
                 ceiling * MHZ

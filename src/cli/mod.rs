@@ -58,6 +58,13 @@ pub fn clean(text: &str) -> String {
         .collect()
 }
 
+/// A message as the terminal gets it: long numbers shortened
+/// ([`crate::model::short_numbers`]) and control and bidirectional characters escaped
+/// ([`clean`]).
+pub fn for_terminal(message: &str) -> String {
+    clean(&crate::model::short_numbers(message))
+}
+
 /// The last guard before a command's output is printed: a figure that came out NaN or
 /// infinite ("NaN", "inf" as a word) is refused, naming the line it was on, rather than
 /// printed as if it were a result. Every input check should stop such a figure earlier; this

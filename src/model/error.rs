@@ -71,8 +71,41 @@ impl InputError {
 
 impl fmt::Display for InputError {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
-        write!(f, "{}: {}", self.field.label(), self.reason)
+        write!(f, "{}: {}", self.field.label(), short_numbers(&self.reason))
     }
+}
+
+/// `text` with every number of more than 15 digits written in scientific notation with six
+/// significant digits ("-8e19", not twenty digits; "1e308", not 309): a message is read, and
+/// a figure past every range needs its size, not its digits.
+pub fn short_numbers(text: &str) -> String {
+    let chars: Vec<char> = text.chars().collect();
+    let mut out = String::with_capacity(text.len());
+    let mut i = 0;
+    while i < chars.len() {
+        if chars[i].is_ascii_digit() {
+            let start = i;
+            while i < chars.len() && (chars[i].is_ascii_digit() || chars[i] == '.') {
+                i += 1;
+            }
+            let token: String = chars[start..i].iter().collect();
+            let digits = token.chars().filter(char::is_ascii_digit).count();
+            match token.trim_end_matches('.').parse::<f64>() {
+                Ok(v) if digits > 15 => {
+                    let e = format!("{v:.5e}");
+                    // Trailing zeros of the mantissa dropped: "8.00000e19" → "8e19".
+                    let (m, x) = e.split_once('e').unwrap_or((&e, "0"));
+                    let m = m.trim_end_matches('0').trim_end_matches('.');
+                    out.push_str(&format!("{m}e{x}"));
+                }
+                _ => out.push_str(&token),
+            }
+        } else {
+            out.push(chars[i]);
+            i += 1;
+        }
+    }
+    out
 }
 
 impl std::error::Error for InputError {}

@@ -17,7 +17,7 @@ mod winding;
 
 pub use analysis::{Analysis, Inductances, SelfResonance, Warning, WarningTopic};
 pub use coil::{Coil, limits};
-pub use error::{Field, InputError};
+pub use error::{Field, InputError, short_numbers};
 pub use evaluate::{evaluate, evaluate_coil};
 pub use field_wire::wire_coil;
 pub use inductance_model::{Conditions, InductanceModel};

@@ -173,7 +173,7 @@ pub fn read_text(text: &str) -> Result<Opened, LoadError> {
     let file: RecipeFile = ron::from_str(text).map_err(|e| {
         let end = line_col(text.trim_end(), text.trim_end().len());
         let reached = (e.span.end.line, e.span.end.col);
-        let mut reason = e.code.to_string();
+        let mut reason = plain_reason(&e.code);
         if reached >= end {
             reason.push_str(" (the text stops there: is the file cut short?)");
         }
@@ -191,6 +191,38 @@ pub fn read_text(text: &str) -> Result<Opened, LoadError> {
     let recipe = from_file_form(file);
     let refusal = judge(&recipe, text);
     Ok(Opened { recipe, refusal })
+}
+
+/// The RON reader's complaint in the recipe's terms: its advice to programmers (raise
+/// `ron::Options::recursion_limit`, use `serde_stacker`, a raw identifier, a `RawValue`) is
+/// no help to someone with a recipe file, so it is replaced or cut, and a long quoted value
+/// is cut to 40 characters.
+fn plain_reason(code: &ron::Error) -> String {
+    match code {
+        ron::Error::ExceededRecursionLimit => {
+            "brackets nest far deeper than in any recipe (opened and never closed?)".to_owned()
+        }
+        ron::Error::SuggestRawIdentifier(name) | ron::Error::InvalidIdentifier(name) => {
+            let short: String = name.chars().take(40).collect();
+            format!("'{short}' is not a name the recipe file uses")
+        }
+        ron::Error::UnclosedLineComment => "a comment runs to the end of the text".to_owned(),
+        ron::Error::ExpectedRawValue => "a value was expected here".to_owned(),
+        other => {
+            let text = other.to_string();
+            let cut = [", try ", " try ", "`ron::"]
+                .iter()
+                .filter_map(|m| text.find(m))
+                .min()
+                .unwrap_or(text.len());
+            let text = text[..cut].trim_end_matches([',', ' ']).to_owned();
+            if text.chars().count() > 200 {
+                format!("{}…", text.chars().take(200).collect::<String>())
+            } else {
+                text
+            }
+        }
+    }
 }
 
 /// Read and judge a recipe from raw bytes (see [`from_text`]).

@@ -38,7 +38,8 @@ fn an_out_of_range_to_mhz_is_refused_with_the_range_before_any_solution() {
     assert!(!ok && out.is_empty(), "{out}");
     // The ceiling: 1.5 wavelengths of the loop's wire (about 1.9 m here), near 240 MHz.
     assert!(
-        err.contains("--to-mhz 1000000 is above") && err.contains("give 0–"),
+        err.contains("--to-mhz 1000000 is outside the solved range: above")
+            && err.contains("give 0–"),
         "{err}"
     );
 }

@@ -16,5 +16,6 @@ mod cli_sheet;
 mod cli_spice;
 mod cli_verdict;
 mod common;
+mod fuzz;
 mod recipe_cli;
 mod window_kill;

@@ -171,3 +171,18 @@ fn a_failed_working_copy_write_is_retried_and_its_warning_clears() {
         "the warning comes down"
     );
 }
+
+/// Issue 22: the RON reader's advice to programmers never reaches the user.
+#[test]
+fn a_reading_error_carries_no_advice_meant_for_programmers() {
+    let deep = format!("TankwrightRecipe(schema: 1, name: {})", "[".repeat(400));
+    let raw = "TankwrightRecipe(schema: 1, name: \"x\", coil: Winding(diameter: r#Former(5.0)))";
+    for text in [deep.as_str(), raw] {
+        let e = tankwright::recipe::format::read_text(text).expect_err("refused");
+        let said = e.to_string();
+        for internal in ["ron::", "serde_stacker", "recursion_limit", "try "] {
+            assert!(!said.contains(internal), "{internal} in: {said}");
+        }
+        assert!(e.position.is_some(), "{said}");
+    }
+}

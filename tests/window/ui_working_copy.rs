@@ -238,3 +238,26 @@ fn the_window_holds_nothing_the_loader_would_refuse() {
     assert!(r.name.chars().count() <= 200, "{}", r.name.len());
     assert_eq!(tankwright::recipe::rules::judge(&r), Ok(()));
 }
+
+/// Issue 22: `turns: NaN` in a file reopened as `turns: inf` in the working copy (egui clamps
+/// an untouched field's value into its range and orders NaN above +inf). What was written is
+/// kept: the recipe on screen still holds NaN, and the file says why.
+#[test]
+fn turns_written_as_nan_stay_nan_not_inf() {
+    let dir = tempfile::tempdir().unwrap();
+    let mut copy = Recipe::demo();
+    copy.winding.turns = f64::NAN;
+    keep_copy(dir.path(), &copy, &Recipe::demo());
+    let folder = dir.path().to_path_buf();
+    // Stepped, not run to rest: a recipe the model refuses keeps asking for frames.
+    let mut harness = Harness::builder()
+        .with_size(egui::vec2(1400.0, 1400.0))
+        .build_eframe(move |_cc| App::restore(folder.clone(), None));
+    harness.run_steps(5);
+    let turns = harness.state().recipe().winding.turns;
+    assert!(turns.is_nan(), "turns became {turns}");
+    assert!(
+        format::to_text(harness.state().recipe()).contains("turns: NaN"),
+        "written as read"
+    );
+}

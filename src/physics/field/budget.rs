@@ -23,7 +23,9 @@ pub const MEMORY_LIMIT_BYTES: f64 = 200e6;
 /// The time a whole field-led evaluation may take, seconds (the one-model work's bound).
 pub const TIME_LIMIT_SECONDS: f64 = 2.0;
 
-/// Most unknowns solved. Measured with `/usr/bin/time` on `tankwright evaluate … --json`
+/// Most unknowns solved. After the change (same machine and load, 4 December 2026): 25 turns
+/// (400 unknowns) 0.66 s and 50 MB, 35 turns (455) 0.91 s, 60 turns (480, at 8 a turn)
+/// 1.05 s and 69 MB; 75 and 100 turns declined at once. Measured before it with `/usr/bin/time` on `tankwright evaluate … --json`
 /// (release build, the project machine's 2 cores while other builds ran, 4 December 2026;
 /// an 8 mm coil of 0.5 mm wire at 16 segments a turn): 320 unknowns 0.31 s and 34 MB,
 /// 480 1.18 s and 69 MB, 560 1.72 s and 92 MB, 640 2.88 s and 118 MB, 800 4.79 s and
@@ -69,12 +71,13 @@ pub fn check(cost: &Cost) -> Result<(), FieldError> {
     if cost.unknowns > UNKNOWNS_LIMIT || bytes > MEMORY_LIMIT_BYTES {
         return Err(FieldError::TooCostly(format!(
             "{} unknowns and {:.0} MB would take more than the {} s and {:.0} MB a solution \
-             may use (at most {} unknowns: fewer turns, or a larger wire for this diameter)",
+             may use (at most {} unknowns: about {} turns at the fewest segments a turn)",
             cost.unknowns,
             bytes * 1e-6,
             TIME_LIMIT_SECONDS,
             MEMORY_LIMIT_BYTES * 1e-6,
-            UNKNOWNS_LIMIT
+            UNKNOWNS_LIMIT,
+            (UNKNOWNS_LIMIT - STRAIGHT_RESERVE) / 8
         )));
     }
     Ok(())

@@ -145,6 +145,10 @@ impl<'a> Quantity<'a> {
             *value / si_per_unit
         })
         .update_while_editing(false)
+        // egui clamps an existing value into the field's range even untouched, and orders NaN
+        // above +inf, so a NaN read from a file (`turns: NaN`) became inf in the working copy;
+        // the field has no range of its own, so nothing else is clamped: keep what was written.
+        .clamp_existing_to_range(false)
         .speed(speed)
         .fixed_decimals(decimals)
         .suffix(suffix)
