@@ -62,11 +62,13 @@ fn solve_lands_the_target_within_a_kilohertz() {
             )
             .unwrap();
         let setting = v["trimmer_pct"].as_f64().unwrap() / 100.0;
-        let landed = resonance_of(
-            &proposed,
-            f.tank.external_capacitance_at(setting),
-            &f.conditions,
-        );
+        // The tool's own evaluation of the proposed coil: its field-led model (the field
+        // solution of that coil with the calibration on it), not the present coil's factor.
+        let external = f.tank.external_capacitance_at(setting);
+        let landed = f
+            .led
+            .and_then(|led| led.resonance(&proposed, external))
+            .unwrap_or_else(|| resonance_of(&proposed, external, &f.conditions));
         let target = recipe.target.channel;
         assert!(
             (landed - target).abs() < 1e3 || f.target.on_channel,

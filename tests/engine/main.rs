@@ -7,6 +7,7 @@ mod bands;
 mod batch_spread;
 mod bench_fit;
 mod field_lead;
+mod fit_field;
 mod landing;
 mod properties;
 mod reference_elliptic;
