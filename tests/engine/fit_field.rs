@@ -111,3 +111,40 @@ fn the_clipped_on_capacitors_tolerance_enters_the_errors() {
     assert!((fit.calibration.inductance_scale - scale).abs() <= e_s);
     assert!((fit.calibration.extra_capacitance - extra).abs() <= e_c);
 }
+
+#[test]
+fn the_field_solved_self_capacitance_resonates_the_meter_inductance_at_the_self_resonance() {
+    use tankwright::recipe::demos;
+    use tankwright::tuning::field_tank::{field_tank, ratio_in_words};
+    for (name, r) in demos().into_iter().take(2) {
+        let coil = Coil::from_winding(&r.winding).expect("valid");
+        let t = field_tank(&coil, r.tank.external_capacitance(), &r.conditions).expect("solves");
+        let c_self = t.self_capacitance();
+        // Thomson's formula both ways: the lumped pair resonates at the self-resonance.
+        let f = 1.0 / (2.0 * std::f64::consts::PI * (t.low_frequency_inductance * c_self).sqrt());
+        assert!((f / t.self_resonance - 1.0).abs() < 1e-12);
+        // The meter's inductance lies below the apparent inductance at the operating
+        // frequency (X/ω rises towards the self-resonance), by about (f/f_self)².
+        let rise = t.apparent_inductance / t.low_frequency_inductance - 1.0;
+        let lumped = 1.0 / (1.0 - (t.resonance / t.self_resonance).powi(2)) - 1.0;
+        // This coil's own ratio of Medhurst's capacitance and the lumped self-resonance to
+        // the field solution's (the labels' figure).
+        let a = tankwright::model::evaluate(&r.winding, &r.tank, &r.conditions).expect("valid");
+        let classical = format!(
+            "Medhurst {}, lumped self-resonance {}",
+            ratio_in_words(a.self_capacitance, c_self).expect("a ratio"),
+            ratio_in_words(a.self_resonance.lumped, t.self_resonance).expect("a ratio")
+        );
+        eprintln!(
+            "{name}: L₀ {:.2} nH, apparent {:.2} nH (rise {:.4}, lumped {lumped:.4}), \
+             C_self {:.3} pF; {classical}",
+            t.low_frequency_inductance * 1e9,
+            t.apparent_inductance * 1e9,
+            rise,
+            c_self * 1e12
+        );
+        // Within a tenth of itself: the lumped picture holds this far below the
+        // self-resonance (the coils' operating points are at a tenth of it or less).
+        assert!((rise / lumped - 1.0).abs() < 0.1, "{rise} vs {lumped}");
+    }
+}
