@@ -10,8 +10,15 @@
 //!    resonance while the model keeps its shape for the charts and the advice:
 //!    [`Figures::uncalibrated`];
 //! 3. the bench readings, when there are any: the fit's extra capacitance and inductance scale
-//!    ([`crate::tuning::fit`]) on the model of step 2. One reading fixes the stray with the
+//!    ([`crate::tuning::fit::fit_on`]), each reading modelled by the field solution of its
+//!    own coil, the scale on the field-solved apparent inductance; the present coil is then
+//!    the calibrated field-solved tank exactly. One reading fixes the stray with the
 //!    field-solved inductance kept; two or more fit the inductance too.
+//!
+//! Away from the present coil (the length and setting for the target, the trimmer's reach,
+//! the kHz per mm and the advice) every figure is landed on field solves of the coil it names
+//! ([`crate::tuning::landing`], [`Figures::led`]), so an instruction carried out is where the
+//! figures then say it is.
 //!
 //! The result drives every figure: the analysis, the target figures, the verdict, the advice
 //! and (in the window) the charts.

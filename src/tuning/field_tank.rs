@@ -10,9 +10,10 @@
 //!
 //! The field solution leads by moving the classical model onto it: [`matching_scale`] is the
 //! factor on the model's inductance that makes the model meet the field-solved resonance at
-//! the present coil, and [`FieldBasis`] records what was applied. The model so moved keeps its
-//! shape (how the resonance moves with length and trimmer), so the verdict, the charts, the
-//! advice and a bench calibration on top all work on one figure.
+//! the present coil, and [`FieldBasis`] records what was applied. Away from the present coil
+//! the factor changes; what the tool proposes there is landed on field solves of the proposed
+//! coil ([`crate::tuning::landing`]), and the field shape ([`crate::tuning::landing::Shape`])
+//! carries the factor along a chart.
 //! [`crate::recipe::figures()`] (the headless commands, the build sheet) and the window's
 //! cached evaluation both go through [`FieldBasis::of`].
 
@@ -34,6 +35,11 @@ pub struct FieldTank {
     pub series_resistance: f64,
     /// The coil's first parallel self-resonance at the terminals, hertz.
     pub self_resonance: f64,
+    /// The inductance an LCR meter reads, henries: the low-frequency inductance of the same
+    /// wire, X/ω·(1 − (f/f_self)²) at a tenth of the self-resonance (where X/ω is within 1 %
+    /// of it and the lumped correction leaves some 1e-4), as against the apparent inductance
+    /// X/ω at the operating frequency. NaN where the self-resonance was not searched for.
+    pub low_frequency_inductance: f64,
     /// Segments the wire was cut into.
     pub segments: usize,
     /// Impedance evaluations the resonance took (after the self-resonance's search).
@@ -41,6 +47,15 @@ pub struct FieldTank {
 }
 
 impl FieldTank {
+    /// The coil's self-capacitance on the field solution, farads: the lumped capacitance that
+    /// resonates the low-frequency inductance at the field-solved self-resonance,
+    /// 1/((2π·f_self)²·L₀). Where the field solution leads this is the coil's figure;
+    /// Medhurst's stays a labelled classical comparison.
+    pub fn self_capacitance(&self) -> f64 {
+        let w = 2.0 * PI * self.self_resonance;
+        1.0 / (w * w * self.low_frequency_inductance)
+    }
+
     /// Unloaded Q of the coil there, X/R (optimistic: no proximity effect, see
     /// [`crate::physics::field`]).
     pub fn q(&self) -> f64 {
@@ -271,11 +286,18 @@ fn solve_tank(
         model.impedance(ln_f.exp())?
     };
     let resonance = ln_f.exp();
+    let low_frequency_inductance = if with_self_resonance {
+        let f = 0.1 * self_resonance;
+        model.impedance(f)?.im / (2.0 * PI * f) * (1.0 - 0.01)
+    } else {
+        f64::NAN
+    };
     Ok(FieldTank {
         resonance,
         apparent_inductance: z.im / (2.0 * PI * resonance),
         series_resistance: z.re,
         self_resonance,
+        low_frequency_inductance,
         segments: model.segments(),
         evaluations,
     })
@@ -464,6 +486,21 @@ impl MeasuredBias {
             format!("{:.2}–{:.2} × the field solution's", self.low, self.high)
         }
     }
+}
+
+/// A classical estimate of this coil against the field solution's figure, in words for a
+/// label: "0.71 × the field solution's (29 % low)", "1.25 × the field solution's (25 %
+/// high)" (the coil's own ratio, where [`MeasuredBias`] states the range measured over many).
+pub fn ratio_in_words(classical: f64, field: f64) -> Option<String> {
+    let r = classical / field;
+    if !(r.is_finite() && r > 0.0) {
+        return None;
+    }
+    let side = if r < 1.0 { "low" } else { "high" };
+    Some(format!(
+        "{r:.2} × the field solution's ({:.0} % {side})",
+        100.0 * (r - 1.0).abs()
+    ))
 }
 
 /// The lumped self-resonance (Medhurst's capacitance with the inductance) over the field

@@ -141,6 +141,8 @@ pub enum FitWarning {
         ratio: &'static str,
         /// The model's prediction for that reading, hertz.
         predicted: f64,
+        /// Left out of the calibration (while other readings are not suspected).
+        left_out: bool,
     },
     /// Some readings carry no instrument error; [`ASSUMED_ERROR_PPM`] was used.
     AssumedError {
@@ -185,12 +187,18 @@ impl fmt::Display for FitWarning {
                 reading,
                 ratio,
                 predicted,
+                left_out,
             } => write!(
                 f,
                 "reading {} is about {ratio} the predicted {:.3} MHz: is this a harmonic, or the \
-                 wrong tank?",
+                 wrong tank?{}",
                 reading + 1,
-                predicted * 1e-6
+                predicted * 1e-6,
+                if *left_out {
+                    " It is left out of the calibration."
+                } else {
+                    ""
+                }
             ),
             FitWarning::AssumedError { readings } => write!(
                 f,
@@ -254,6 +262,7 @@ pub struct Fit {
 }
 
 /// A reading prepared for fitting: its coil, external capacitance and standard error.
+#[derive(Clone)]
 struct Prepared {
     coil: Coil,
     external: f64,
@@ -262,6 +271,8 @@ struct Prepared {
     /// The field solution's factor on the classical inductance at this reading's coil
     /// (relative to the conditions' scale; 1 on the classical shape).
     factor: f64,
+    /// The known capacitor clipped on for this reading, farads (part of `external`).
+    added: f64,
 }
 
 impl Prepared {
@@ -332,9 +343,39 @@ pub fn fit_on(
             measured: r.measured,
             sigma: r.sigma(),
             factor: 1.0,
+            added: r.added_capacitance,
         });
     }
     let mut warnings = harmonics(&prepared, conditions);
+    // Suspected harmonics are left out while any reading is not suspected.
+    let suspected: Vec<usize> = warnings
+        .iter()
+        .filter_map(|w| match w {
+            FitWarning::Harmonic { reading, .. } => Some(*reading),
+            _ => None,
+        })
+        .collect();
+    let leave_out = !suspected.is_empty() && suspected.len() < prepared.len();
+    let mut left: Vec<(usize, Prepared)> = Vec::new();
+    let mut used: Vec<usize> = Vec::with_capacity(prepared.len());
+    if leave_out {
+        for w in &mut warnings {
+            if let FitWarning::Harmonic { left_out, .. } = w {
+                *left_out = true;
+            }
+        }
+        let all = std::mem::take(&mut prepared);
+        for (i, p) in all.into_iter().enumerate() {
+            if suspected.contains(&i) {
+                left.push((i, p));
+            } else {
+                used.push(i);
+                prepared.push(p);
+            }
+        }
+    } else {
+        used.extend(0..prepared.len());
+    }
     let assumed = readings.iter().filter(|r| r.error_ppm.is_none()).count();
     if assumed > 0 {
         warnings.push(FitWarning::AssumedError { readings: assumed });
@@ -391,13 +432,29 @@ pub fn fit_on(
         }
     }
 
+    clip_on_tolerance(&prepared, conditions, with_scale, &mut solution);
     let [extra, scale] = solution.params;
-    let residuals: Vec<f64> = prepared
-        .iter()
-        .map(|p| p.measured - p.model(conditions, solution.params))
-        .collect();
-    let sigmas: Vec<f64> = prepared.iter().map(|p| p.sigma).collect();
-    for (i, (r, s)) in residuals.iter().zip(&sigmas).enumerate() {
+    // Residuals of every reading, the left-out ones on their own field solution too.
+    if let Some(field) = field {
+        let mut lone: Vec<Prepared> = left.iter().map(|(_, p)| p.clone()).collect();
+        if field_factors(&mut lone, conditions, field, solution.params) {
+            for ((_, p), q) in left.iter_mut().zip(lone) {
+                p.factor = q.factor;
+            }
+        }
+    }
+    let mut residuals = vec![0.0; readings.len()];
+    let mut sigmas = vec![0.0; readings.len()];
+    for (&i, p) in used.iter().zip(&prepared) {
+        residuals[i] = p.measured - p.model(conditions, solution.params);
+        sigmas[i] = p.sigma;
+    }
+    for (i, p) in &left {
+        residuals[*i] = p.measured - p.model(conditions, solution.params);
+        sigmas[*i] = p.sigma;
+    }
+    for &i in &used {
+        let (r, s) = (&residuals[i], &sigmas[i]);
         if r.abs() > RESIDUAL_LIMIT * s {
             warnings.push(FitWarning::Inconsistent {
                 reading: i,
@@ -427,6 +484,47 @@ pub fn fit_on(
         readings_used: prepared.len(),
         warnings,
     })
+}
+
+/// Tolerance of a known capacitor clipped on for a reading, as a fraction (common practice:
+/// class-1 ceramic parts of ±5 %, the usual grade for a bench's reference capacitors).
+pub const CLIP_ON_TOLERANCE: f64 = 0.05;
+
+/// Add what the clipped-on capacitors' tolerance leaves in the parameters to their errors:
+/// the least squares run again with every such capacitor [`CLIP_ON_TOLERANCE`] larger (one
+/// part used for every reading, so fully correlated), and the shift of each parameter is added
+/// in quadrature to its standard error (and the product of the shifts to the covariance).
+fn clip_on_tolerance(
+    prepared: &[Prepared],
+    conditions: &Conditions,
+    with_scale: bool,
+    solution: &mut Solution,
+) {
+    if !prepared.iter().any(|p| p.added > 0.0) {
+        return;
+    }
+    let shifted: Vec<Prepared> = prepared
+        .iter()
+        .map(|p| Prepared {
+            external: p.external + CLIP_ON_TOLERANCE * p.added,
+            ..p.clone()
+        })
+        .collect();
+    let Some(moved) = gauss_newton(&shifted, conditions, solution.params, with_scale) else {
+        return;
+    };
+    let d = [
+        moved.params[0] - solution.params[0],
+        moved.params[1] - solution.params[1],
+    ];
+    for (k, e) in solution.errors.iter_mut().enumerate() {
+        if let Some(e) = e {
+            *e = e.hypot(d[k]);
+        }
+    }
+    if with_scale {
+        solution.covariance += d[0] * d[1];
+    }
 }
 
 /// Set each reading's factor to the field solution's at its coil and capacitance for the
@@ -482,6 +580,7 @@ fn harmonics(prepared: &[Prepared], conditions: &Conditions) -> Vec<FitWarning> 
                 reading: i,
                 ratio: name,
                 predicted,
+                left_out: false,
             });
         }
     }

@@ -94,9 +94,12 @@ fn exact_readings_give_back_the_stray_and_the_scale() {
 #[test]
 fn noisy_readings_land_within_the_reported_error() {
     let (coil, tank, cond) = demo();
-    let noise = [0.5, -0.7, 0.3, -0.4, 0.6];
+    // Without the clipped-on capacitor, whose ±5 % tolerance would dominate the errors
+    // (tests/engine/fit_field.rs holds that part): the instrument's noise alone here.
+    let noise = [0.5, -0.7, 0.3, 0.6];
     let readings: Vec<Reading> = plan(&coil)
         .into_iter()
+        .filter(|p| p.2 == 0.0)
         .zip(noise)
         .map(|(p, n)| reading(&coil, &tank, &cond, TRUTH, p, 5.0, n))
         .collect();

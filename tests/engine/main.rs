@@ -9,6 +9,7 @@ mod bench_fit;
 mod design;
 mod field_budget;
 mod field_lead;
+mod fit_field;
 mod landing;
 mod properties;
 mod reference_elliptic;
