@@ -523,8 +523,13 @@ pub fn remedy(
 ///   included; ITU Radio Regulations Art. 5);
 /// - per band edge, [`FlagKind::OutsideBand`] when the reach passes the edge, else
 ///   [`FlagKind::BandEdge`] when it comes closer than `edge_margin` (strictly);
+/// - [`FlagKind::ProtectedFrequency`] when the reach, or its 2nd or 3rd harmonic, crosses a
+///   protected distress and safety frequency ([`crate::tuning::service::PROTECTED`]): one
+///   flag for the travel and one per harmonic, naming each frequency with its source;
 /// - [`FlagKind::HarmonicAeronautical`] when a 2nd or 3rd harmonic of the reach lies in
 ///   108–137 MHz.
+///
+/// A reach wholly above or below the band raises one [`FlagKind::OutsideBand`] saying so.
 pub fn band_flags(reach: Reach, band: Option<Band>, edge_margin: f64) -> Vec<Flag> {
     let mut flags = Vec::new();
     let (aero_low, aero_high) = AERONAUTICAL;
@@ -603,31 +608,39 @@ pub fn band_flags(reach: Reach, band: Option<Band>, edge_margin: f64) -> Vec<Fla
             band.high,
         );
     }
-    for p in protected_touched(reach.low, reach.high) {
+    // One flag for the travel and one for each harmonic, naming every protected frequency
+    // crossed with its use and source.
+    let named = |low: f64, high: f64| {
+        protected_touched(low, high)
+            .iter()
+            .map(|p| format!("{}, {} [{}]", p.frequency, p.use_, p.source))
+            .collect::<Vec<_>>()
+    };
+    let crossed = named(reach.low, reach.high);
+    if !crossed.is_empty() {
         flags.push(Flag::new(
             FlagKind::ProtectedFrequency,
             format!(
-                "the trimmer's travel ({reach_text}) crosses {}: {} ({}). Any emission that \
-                 could disturb it is prohibited: keep this tank off the air and narrow or \
-                 move the travel so it stays clear",
-                p.frequency, p.use_, p.source
+                "the trimmer's travel ({reach_text}) crosses protected distress and safety \
+                 frequencies: {}. Any emission that could disturb them is prohibited: keep \
+                 this tank off the air and narrow or move the travel so it stays clear",
+                crossed.join("; ")
             ),
         ));
     }
     for n in [2u32, 3] {
         let (h_low, h_high) = (f64::from(n) * reach.low, f64::from(n) * reach.high);
-        for p in protected_touched(h_low, h_high) {
+        let crossed = named(h_low, h_high);
+        if !crossed.is_empty() {
             flags.push(Flag::new(
                 FlagKind::ProtectedFrequency,
                 format!(
-                    "the {} harmonic of the trimmer's travel ({}) crosses {}: {} ({}). Filter \
-                     the output, keep the tank screened, and move the travel if the harmonic \
-                     can leave the bench",
+                    "the {} harmonic of the trimmer's travel ({}) crosses protected distress \
+                     and safety frequencies: {}. Filter the output, keep the tank screened, and \
+                     move the travel if the harmonic can leave the bench",
                     if n == 2 { "2nd" } else { "3rd" },
                     mhz_range(h_low, h_high),
-                    p.frequency,
-                    p.use_,
-                    p.source
+                    crossed.join("; ")
                 ),
             ));
         }
