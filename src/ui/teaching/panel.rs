@@ -212,7 +212,8 @@ pub(super) fn show(
     });
     ui.add_space(6.0);
 
-    reference_ui(teaching, ui, recipe, base_figures, unit, files);
+    // Against the reference: what is demonstrated (the shown length), not only the recipe.
+    reference_ui(teaching, ui, recipe, &shown, unit, files);
     keep
 }
 
@@ -368,6 +369,7 @@ fn reference_ui(
         reference.name
     ));
     let rows = reference.differences(recipe, present, unit);
+    let demonstrating = teaching.length.is_some();
     egui::CollapsingHeader::new(DIFFERENCES_HEADING)
         .default_open(true)
         .show(ui, |ui| {
@@ -380,7 +382,11 @@ fn reference_ui(
                         .striped(true)
                         .show(ui, |ui| {
                             ui.strong("");
-                            ui.strong("This recipe");
+                            ui.strong(if demonstrating {
+                                "Shown here"
+                            } else {
+                                "This recipe"
+                            });
                             ui.strong("Reference");
                             ui.strong("Difference");
                             ui.end_row();
