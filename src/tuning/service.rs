@@ -126,6 +126,129 @@ pub const AERONAUTICAL: (f64, f64) = (108e6, 137e6);
 /// The aeronautical emergency frequency, 121.5 MHz (ITU Radio Regulations Appendix 15).
 pub const AERONAUTICAL_EMERGENCY: f64 = 121.5e6;
 
+/// A distress or safety frequency no emission may disturb, with the rule that protects it.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct Protected {
+    /// Lower edge, hertz (the frequency itself for a single frequency).
+    pub low: f64,
+    /// Upper edge, hertz (the frequency itself for a single frequency).
+    pub high: f64,
+    /// The frequency as written, e.g. "156.8 MHz".
+    pub frequency: &'static str,
+    /// What it is for.
+    pub use_: &'static str,
+    /// Where it is protected (ITU Radio Regulations; "from memory" where the value was not
+    /// checked against the text).
+    pub source: &'static str,
+}
+
+/// The internationally protected distress and safety frequencies between 70 and 460 MHz:
+/// what a VHF tank's fundamental (76–148 MHz) or its 2nd and 3rd harmonics can reach. ITU
+/// Radio Regulations, Appendix 15 (frequencies for distress and safety communications for
+/// the GMDSS and non-GMDSS, Table 15-2, above 30 MHz) and the Article 5 footnotes named
+/// beside each entry. The single frequencies 121.5, 156.525, 156.8 and 243 MHz are those RR
+/// No. 5.111 names for search and rescue; 121.5, 156.525, 156.8 and 406–406.1 MHz are those
+/// on which RR Article 31 prohibits any emission capable of harmful interference. Values
+/// marked "from memory" were not checked against the text of the Regulations here.
+pub const PROTECTED: [Protected; 10] = [
+    protected(
+        121.5e6,
+        121.5e6,
+        "121.5 MHz",
+        "aeronautical emergency frequency",
+        "ITU RR Appendix 15, Table 15-2; RR No. 5.111 and 5.200",
+    ),
+    protected(
+        123.1e6,
+        123.1e6,
+        "123.1 MHz",
+        "aeronautical search and rescue, auxiliary to 121.5 MHz",
+        "ITU RR Appendix 15, Table 15-2; RR No. 5.200 (from memory)",
+    ),
+    protected(
+        156.3e6,
+        156.3e6,
+        "156.3 MHz (maritime channel 6)",
+        "ship and aircraft search and rescue coordination",
+        "ITU RR Appendix 15, Table 15-2 (from memory)",
+    ),
+    // The guard band either side of channels 70 and 16 (RR No. 5.227 and 5.226, from
+    // memory): no emission in 156.4875–156.5625 and 156.7625–156.8375 MHz.
+    protected(
+        156.4875e6,
+        156.5625e6,
+        "156.525 MHz (maritime channel 70)",
+        "digital selective calling for distress, urgency and safety",
+        "ITU RR Appendix 15, Table 15-2; RR No. 5.111 and 5.227 (guard band from memory)",
+    ),
+    protected(
+        156.65e6,
+        156.65e6,
+        "156.65 MHz (maritime channel 13)",
+        "ship-to-ship navigation safety",
+        "ITU RR Appendix 15, Table 15-2 (from memory)",
+    ),
+    protected(
+        156.7625e6,
+        156.8375e6,
+        "156.8 MHz (maritime channel 16)",
+        "distress, urgency and safety calling by voice",
+        "ITU RR Appendix 15, Table 15-2; RR No. 5.111 and 5.226 (guard band from memory)",
+    ),
+    protected(
+        161.975e6,
+        161.975e6,
+        "161.975 MHz (AIS 1)",
+        "AIS search and rescue transmitters",
+        "ITU RR Appendix 15, Table 15-2 (from memory)",
+    ),
+    protected(
+        162.025e6,
+        162.025e6,
+        "162.025 MHz (AIS 2)",
+        "AIS search and rescue transmitters",
+        "ITU RR Appendix 15, Table 15-2 (from memory)",
+    ),
+    protected(
+        243e6,
+        243e6,
+        "243 MHz",
+        "survival craft and search and rescue (military aeronautical emergency)",
+        "ITU RR Appendix 15, Table 15-2; RR No. 5.111 and 5.256",
+    ),
+    protected(
+        406e6,
+        406.1e6,
+        "406.0–406.1 MHz",
+        "satellite distress beacons (EPIRB, ELT, PLB: COSPAS-SARSAT)",
+        "ITU RR Appendix 15, Table 15-2; RR No. 5.266 and 5.267 (from memory)",
+    ),
+];
+
+const fn protected(
+    low: f64,
+    high: f64,
+    frequency: &'static str,
+    use_: &'static str,
+    source: &'static str,
+) -> Protected {
+    Protected {
+        low,
+        high,
+        frequency,
+        use_,
+        source,
+    }
+}
+
+/// The protected frequencies that [low, high] hertz touches (edges included), ascending.
+pub fn protected_touched(low: f64, high: f64) -> Vec<&'static Protected> {
+    PROTECTED
+        .iter()
+        .filter(|p| p.low <= high && p.high >= low)
+        .collect()
+}
+
 /// Intermediate frequency of broadcast FM receivers, 10.7 MHz (common practice).
 pub const BROADCAST_IF: f64 = 10.7e6;
 

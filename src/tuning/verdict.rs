@@ -9,6 +9,7 @@ use super::buildable::gap_flags;
 use super::digits::{channel_mhz, mhz, mhz_range, offset};
 use super::service::{
     AERONAUTICAL, AERONAUTICAL_EMERGENCY, BROADCAST_IF, Band, Service, allocations_touched,
+    protected_touched,
 };
 use super::solve::trimmer_window;
 use crate::model::{Coil, Conditions, Tank, evaluate::resonance_of};
@@ -28,11 +29,14 @@ pub enum FlagKind {
     NarrowGap,
     /// A 2nd or 3rd harmonic of a reachable frequency lies in 108–137 MHz.
     HarmonicAeronautical,
+    /// The trimmer's travel, or its 2nd or 3rd harmonic, crosses an internationally protected
+    /// distress or safety frequency ([`crate::tuning::service::PROTECTED`]).
+    ProtectedFrequency,
 }
 
 impl FlagKind {
     /// The machine name, as in the JSON: "aeronautical", "band_edge", "outside_band",
-    /// "bare_turns", "narrow_gap", "harmonic_aeronautical".
+    /// "bare_turns", "narrow_gap", "harmonic_aeronautical", "protected_frequency".
     pub fn key(self) -> &'static str {
         match self {
             FlagKind::Aeronautical => "aeronautical",
@@ -41,6 +45,7 @@ impl FlagKind {
             FlagKind::BareTurns => "bare_turns",
             FlagKind::NarrowGap => "narrow_gap",
             FlagKind::HarmonicAeronautical => "harmonic_aeronautical",
+            FlagKind::ProtectedFrequency => "protected_frequency",
         }
     }
 
@@ -52,6 +57,16 @@ impl FlagKind {
                 | FlagKind::OutsideBand
                 | FlagKind::BandEdge
                 | FlagKind::HarmonicAeronautical
+                | FlagKind::ProtectedFrequency
+        )
+    }
+
+    /// Whether the flag is about the safety of others (aircraft, ships, distress beacons),
+    /// as against merely leaving the chosen band.
+    pub fn endangers(self) -> bool {
+        matches!(
+            self,
+            FlagKind::Aeronautical | FlagKind::HarmonicAeronautical | FlagKind::ProtectedFrequency
         )
     }
 }
@@ -184,6 +199,10 @@ pub struct Verdict {
     /// The one instruction that lands the target, when the caller has it (see
     /// [`Verdict::with_advice`]): the channel's next step then says exactly what to do.
     pub advice: Option<crate::tuning::advice::Advice>,
+    /// When the travel leaves the band (or comes within the margin, or reaches a protected
+    /// frequency): which fixed capacitor, or which trimmer, keeps the whole travel inside
+    /// the band with the margin, at the present coil ([`remedy`]).
+    pub remedy: Option<String>,
 }
 
 impl Verdict {
@@ -256,15 +275,29 @@ impl Verdict {
                     other"
                 .to_owned();
         }
+        let remedy = self
+            .remedy
+            .as_ref()
+            .map(|r| format!(": {r}"))
+            .unwrap_or_default();
         if self.has(FlagKind::Aeronautical) {
-            return "Keep this tank off the air: change the fixed capacitance or fit a smaller \
-                    trimmer so its whole travel stays out of 108–137 MHz"
-                .to_owned();
+            return format!(
+                "Keep this tank off the air: change the fixed capacitance or fit a smaller \
+                 trimmer so its whole travel stays out of 108–137 MHz{remedy}"
+            );
+        }
+        let reached = protected_touched(self.reach.low, self.reach.high);
+        if let Some(p) = reached.first() {
+            return format!(
+                "Keep this tank off the air: its travel crosses {}, {}; change the fixed \
+                 capacitance or fit a smaller trimmer so the whole travel stays clear{remedy}",
+                p.frequency, p.use_
+            );
         }
         if self.has(FlagKind::OutsideBand) {
             return format!(
                 "Narrow or re-centre the trimmer's travel (fixed capacitance, trimmer size) so it \
-                 stays inside the {band}"
+                 stays inside the {band}{remedy}"
             );
         }
         if self.has(FlagKind::NarrowGap) {
@@ -273,7 +306,7 @@ impl Verdict {
         if self.has(FlagKind::BandEdge) {
             return format!(
                 "Move the trimmer's travel away from the edge of the {band}: a warming \
-                 oscillator drifts"
+                 oscillator drifts{remedy}"
             );
         }
         if self.on_channel == Some(false)
@@ -316,10 +349,18 @@ impl Verdict {
             }
         } else {
             let n = self.flags.iter().filter(|f| f.kind.is_safety()).count();
-            format!(
-                "Not safe: the trimmer's travel ({reach}) raises {n} caution{}",
-                if n == 1 { "" } else { "s" }
-            )
+            let cautions = format!("{n} caution{}", if n == 1 { "" } else { "s" });
+            let band = self.band.map_or("band", |b| b.name);
+            if self.flags.iter().any(|f| f.kind.endangers()) {
+                format!("Not safe: the trimmer's travel ({reach}) raises {cautions}")
+            } else if self.has(FlagKind::OutsideBand) {
+                format!("Outside the band: the trimmer's travel ({reach}) leaves the {band}")
+            } else {
+                format!(
+                    "Near the band's edge: the trimmer's travel ({reach}) comes close to the \
+                     edge of the {band} ({cautions})"
+                )
+            }
         }
     }
 }
@@ -345,6 +386,16 @@ pub fn judge(coil: &Coil, tank: &Tank, conditions: &Conditions, aim: &Aim) -> Ve
     };
     let band = aim.plan.band();
     let mut flags = band_flags(reach, band, aim.edge_margin);
+    let remedy = band
+        .filter(|_| {
+            flags.iter().any(|f| {
+                matches!(
+                    f.kind,
+                    FlagKind::Aeronautical | FlagKind::OutsideBand | FlagKind::BandEdge
+                )
+            }) || !protected_touched(reach.low, reach.high).is_empty()
+        })
+        .map(|b| remedy(coil, tank, conditions, &b, aim.edge_margin));
     flags.extend(gap_flags(coil));
     let offset = aim.target.map(|t| resonance - t);
     Verdict {
@@ -361,6 +412,109 @@ pub fn judge(coil: &Coil, tank: &Tank, conditions: &Conditions, aim: &Aim) -> Ve
             .map(|b| receiver_image(resonance, &b)),
         flags,
         advice: None,
+        remedy,
+    }
+}
+
+/// Standard capacitor values, pF (IEC 60063 E12 series, 1–82 pF): what a remedy names.
+const E12_PF: [f64; 24] = [
+    1.0, 1.2, 1.5, 1.8, 2.2, 2.7, 3.3, 3.9, 4.7, 5.6, 6.8, 8.2, 10.0, 12.0, 15.0, 18.0, 22.0, 27.0,
+    33.0, 39.0, 47.0, 56.0, 68.0, 82.0,
+];
+
+/// The external capacitance (farads) that puts `coil` at `frequency` (hertz): the model's
+/// resonance inverted by bisection (it falls as the capacitance grows).
+fn capacitance_for(coil: &Coil, conditions: &Conditions, frequency: f64) -> f64 {
+    let (mut lo, mut hi) = (0.0_f64, 2e-9_f64);
+    for _ in 0..80 {
+        let mid = 0.5 * (lo + hi);
+        if resonance_of(coil, mid, conditions) > frequency {
+            lo = mid;
+        } else {
+            hi = mid;
+        }
+    }
+    0.5 * (lo + hi)
+}
+
+/// Which fixed capacitor, or which trimmer, keeps the whole trimmer travel inside `band`
+/// less `margin` at each edge, for `coil` as it is: the external capacitance must lie
+/// between that of the upper limit (trimmer at its minimum) and that of the lower limit
+/// (trimmer at its maximum). With this trimmer, the range of fixed capacitance that does so
+/// and a standard (E12) value in it; when the trimmer's own travel is wider than the band
+/// allows, the largest trimmer travel that fits and the fixed capacitance to go with it.
+pub fn remedy(
+    coil: &Coil,
+    tank: &Tank,
+    conditions: &Conditions,
+    band: &Band,
+    margin: f64,
+) -> String {
+    let (f_low, f_high) = (band.low + margin, band.high - margin);
+    if f_high <= f_low {
+        return format!("the {} is narrower than twice the edge margin", band.name);
+    }
+    let need_min = capacitance_for(coil, conditions, f_high);
+    let need_max = capacitance_for(coil, conditions, f_low);
+    let trimmer_min = tank.trimmer_at(0.0);
+    let trimmer_max = tank.trimmer_at(1.0);
+    // Everything across the coil but the fixed capacitor and the trimmer (stray, divider).
+    let others = tank.external_capacitance_at(0.0) - trimmer_min - tank.fixed;
+    let pf = |c: f64| c * 1e12;
+    let room = need_max - need_min;
+    let span = trimmer_max - trimmer_min;
+    if span <= room {
+        let lo = need_min - others - trimmer_min;
+        let hi = need_max - others - trimmer_max;
+        if hi <= 0.0 {
+            return format!(
+                "even with no fixed capacitor this trimmer takes the tank below {}: the coil \
+                 needs fewer turns or more length",
+                mhz(f_low)
+            );
+        }
+        let lo = lo.max(0.0);
+        let standard = E12_PF
+            .iter()
+            .copied()
+            .filter(|v| (pf(lo)..=pf(hi)).contains(v))
+            .min_by(|a, b| {
+                (a - pf(0.5 * (lo + hi)))
+                    .abs()
+                    .total_cmp(&(b - pf(0.5 * (lo + hi))).abs())
+            });
+        let standard = standard
+            .map(|v| format!(" ({v} pF is a standard value)"))
+            .unwrap_or_default();
+        format!(
+            "a fixed capacitor of {:.1}–{:.1} pF{standard} with this trimmer keeps the whole \
+             travel inside {}",
+            pf(lo),
+            pf(hi),
+            mhz_range(f_low, f_high)
+        )
+    } else {
+        // The widest trimmer that fits, from the present trimmer's minimum, and the fixed
+        // capacitance that centres it.
+        let fixed = need_min - others - trimmer_min;
+        if fixed < 0.0 {
+            return format!(
+                "this trimmer's minimum alone takes the tank below {}: the coil needs fewer \
+                 turns or more length",
+                mhz(f_high)
+            );
+        }
+        format!(
+            "this trimmer's {:.1} pF travel is wider than the band allows; a trimmer of at most \
+             {:.1} pF travel ({:.1}–{:.1} pF) with a fixed capacitor of {:.1} pF keeps the \
+             whole travel inside {}",
+            pf(span),
+            pf(room),
+            pf(trimmer_min),
+            pf(trimmer_min + room),
+            pf(fixed),
+            mhz_range(f_low, f_high)
+        )
     }
 }
 
@@ -369,8 +523,13 @@ pub fn judge(coil: &Coil, tank: &Tank, conditions: &Conditions, aim: &Aim) -> Ve
 ///   included; ITU Radio Regulations Art. 5);
 /// - per band edge, [`FlagKind::OutsideBand`] when the reach passes the edge, else
 ///   [`FlagKind::BandEdge`] when it comes closer than `edge_margin` (strictly);
+/// - [`FlagKind::ProtectedFrequency`] when the reach, or its 2nd or 3rd harmonic, crosses a
+///   protected distress and safety frequency ([`crate::tuning::service::PROTECTED`]): one
+///   flag for the travel and one per harmonic, naming each frequency with its source;
 /// - [`FlagKind::HarmonicAeronautical`] when a 2nd or 3rd harmonic of the reach lies in
 ///   108–137 MHz.
+///
+/// A reach wholly above or below the band raises one [`FlagKind::OutsideBand`] saying so.
 pub fn band_flags(reach: Reach, band: Option<Band>, edge_margin: f64) -> Vec<Flag> {
     let mut flags = Vec::new();
     let (aero_low, aero_high) = AERONAUTICAL;
@@ -395,8 +554,22 @@ pub fn band_flags(reach: Reach, band: Option<Band>, edge_margin: f64) -> Vec<Fla
         ));
     }
     if let Some(band) = band {
+        let wholly_above = reach.low > band.high;
+        let wholly_below = reach.high < band.low;
+        if wholly_above || wholly_below {
+            flags.push(Flag::new(
+                FlagKind::OutsideBand,
+                format!(
+                    "the trimmer's whole travel ({reach_text}) lies {} the {}: no setting of \
+                     the trimmer puts the tank inside the band",
+                    if wholly_above { "above" } else { "below" },
+                    band.name
+                ),
+            ));
+        }
         let edge = |flags: &mut Vec<Flag>, beyond: bool, near: bool, side: &str, at: f64| {
-            if beyond {
+            if wholly_above || wholly_below {
+            } else if beyond {
                 flags.push(Flag::new(
                     FlagKind::OutsideBand,
                     format!(
@@ -434,6 +607,43 @@ pub fn band_flags(reach: Reach, band: Option<Band>, edge_margin: f64) -> Vec<Fla
             "upper",
             band.high,
         );
+    }
+    // One flag for the travel and one for each harmonic, naming every protected frequency
+    // crossed with its use and source.
+    let named = |low: f64, high: f64| {
+        protected_touched(low, high)
+            .iter()
+            .map(|p| format!("{}, {} [{}]", p.frequency, p.use_, p.source))
+            .collect::<Vec<_>>()
+    };
+    let crossed = named(reach.low, reach.high);
+    if !crossed.is_empty() {
+        flags.push(Flag::new(
+            FlagKind::ProtectedFrequency,
+            format!(
+                "the trimmer's travel ({reach_text}) crosses protected distress and safety \
+                 frequencies: {}. Any emission that could disturb them is prohibited: keep \
+                 this tank off the air and narrow or move the travel so it stays clear",
+                crossed.join("; ")
+            ),
+        ));
+    }
+    for n in [2u32, 3] {
+        let (h_low, h_high) = (f64::from(n) * reach.low, f64::from(n) * reach.high);
+        let crossed = named(h_low, h_high);
+        if !crossed.is_empty() {
+            flags.push(Flag::new(
+                FlagKind::ProtectedFrequency,
+                format!(
+                    "the {} harmonic of the trimmer's travel ({}) crosses protected distress \
+                     and safety frequencies: {}. Filter the output, keep the tank screened, and \
+                     move the travel if the harmonic can leave the bench",
+                    if n == 2 { "2nd" } else { "3rd" },
+                    mhz_range(h_low, h_high),
+                    crossed.join("; ")
+                ),
+            ));
+        }
     }
     for n in [2.0, 3.0] {
         let (h_low, h_high) = (n * reach.low, n * reach.high);

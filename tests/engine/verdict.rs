@@ -72,8 +72,175 @@ fn band_edge_and_outside_band_at_their_boundaries() {
     assert_eq!(kinds(at(87.999, 100.0), us, m), vec![FlagKind::OutsideBand]);
     assert!(kinds(at(88.2, 100.0), us, m).is_empty());
     assert_eq!(kinds(at(88.199, 100.0), us, m), vec![FlagKind::BandEdge]);
-    // No band known: only the aeronautical checks (70–100 MHz: harmonics from 140 MHz).
-    assert!(kinds(at(70.0, 100.0), None, m).is_empty());
+    // No band known: no band flags. 70–100 MHz is clear of 108–137 MHz, fundamental and
+    // harmonics (from 140 MHz); its 2nd harmonic (140–200 MHz) crosses the maritime distress
+    // channels and its 3rd (210–300 MHz) 243 MHz: protected-frequency flags only.
+    let none = kinds(at(70.0, 100.0), None, m);
+    assert!(!none.is_empty());
+    assert!(
+        none.iter().all(|k| *k == FlagKind::ProtectedFrequency),
+        "{none:?}"
+    );
+}
+
+fn protected_texts(reach: Reach) -> Vec<String> {
+    band_flags(reach, None, 0.0)
+        .into_iter()
+        .filter(|f| f.kind == FlagKind::ProtectedFrequency)
+        .map(|f| f.text)
+        .collect()
+}
+
+/// Issue 21's cases, against the ITU Radio Regulations, Appendix 15 (Table 15-2) and RR No.
+/// 5.111: a 2 m travel of 136.6–157.5 MHz crosses 156.8 MHz (channel 16) and 156.525 MHz
+/// (channel 70, DSC); a travel of 117–150.7 MHz has 2nd harmonics over 234–301.4 MHz (243 MHz)
+/// and 3rd over 351–452.1 MHz (406.0–406.1 MHz, the satellite distress beacons); a travel
+/// over 121.5 MHz is flagged by name. Each text names the frequency and its source.
+#[test]
+fn protected_frequencies_are_flagged_by_name_for_the_travel_and_its_harmonics() {
+    let t = protected_texts(at(136.6, 157.5));
+    for name in ["156.8 MHz", "156.525 MHz", "Appendix 15"] {
+        assert!(t.iter().any(|x| x.contains(name)), "{name} missing: {t:?}");
+    }
+    assert!(t.iter().all(|x| x.starts_with("the trimmer's travel")));
+    let t = protected_texts(at(117.0, 150.7));
+    let harmonic = |order: &str, name: &str| {
+        t.iter()
+            .any(|x| x.starts_with(&format!("the {order} harmonic")) && x.contains(name))
+    };
+    assert!(harmonic("2nd", "243 MHz"), "{t:?}");
+    assert!(harmonic("3rd", "406.0–406.1 MHz"), "{t:?}");
+    assert!(
+        t.iter()
+            .any(|x| x.starts_with("the trimmer's travel") && x.contains("121.5 MHz"))
+    );
+    // Edges included; a travel that stops short is not flagged (channel 16's guard band
+    // 156.7625–156.8375 MHz, RR No. 5.226, from memory).
+    assert!(protected_texts(at(156.7, 156.7625))[0].contains("156.8 MHz"));
+    assert!(protected_texts(at(156.7, 156.7624)).is_empty());
+    // An FM broadcast travel well inside 88–108 MHz whose harmonics miss every entry.
+    assert!(protected_texts(at(100.0, 107.8)).is_empty());
+}
+
+/// Wording (issue 21): a travel merely below 88 MHz is "outside the band", not "not safe"; a
+/// travel wholly above the band is said to lie above it, not to "pass the upper edge".
+#[test]
+fn outside_the_band_is_not_called_unsafe_and_a_travel_wholly_above_is_said_so() {
+    let w = winding(1.0, Coating::Bare, 5.0, SpacingSpec::Length(8e-3));
+    let c = coil(&w);
+    let cond = Conditions::default();
+    // A large fixed capacitor: the whole travel below 88 MHz (about 70–76 MHz, where the
+    // harmonics miss 108–137 MHz and every protected frequency).
+    let low = Tank {
+        fixed: 35e-12,
+        trimmer_min: 2e-12,
+        trimmer_max: 10e-12,
+        trimmer_setting: 0.5,
+        stray: 6e-12,
+        feedback: None,
+    };
+    let v = judge(&c, &low, &cond, &Aim::new(BandPlan::UsFm, Some(98.7e6)));
+    assert!(v.reach.high < 88e6, "{:?}", v.reach);
+    assert!(!v.flags.iter().any(|f| f.kind.endangers()), "{:?}", v.flags);
+    assert!(
+        v.safety_text().starts_with("Outside the band"),
+        "{}",
+        v.safety_text()
+    );
+    let flag = v
+        .flags
+        .iter()
+        .find(|f| f.kind == FlagKind::OutsideBand)
+        .expect("outside the band");
+    assert!(flag.text.contains("lies below"), "{}", flag.text);
+    assert!(!flag.text.contains("passes"), "{}", flag.text);
+    // The same coil with a small tank on the 2 m plan: wholly above 148 MHz.
+    let high = Tank {
+        fixed: 1e-12,
+        trimmer_min: 1e-12,
+        trimmer_max: 2e-12,
+        trimmer_setting: 0.5,
+        stray: 1e-12,
+        feedback: None,
+    };
+    let v = judge(
+        &c,
+        &high,
+        &cond,
+        &Aim::new(BandPlan::TwoMetreRegion2, Some(146e6)),
+    );
+    assert!(v.reach.low > 148e6, "{:?}", v.reach);
+    let texts: Vec<&str> = v
+        .flags
+        .iter()
+        .filter(|f| f.kind == FlagKind::OutsideBand)
+        .map(|f| f.text.as_str())
+        .collect();
+    assert_eq!(texts.len(), 1, "{texts:?}");
+    assert!(texts[0].contains("lies above"), "{}", texts[0]);
+}
+
+/// The verdict names a fixed capacitor that keeps the whole travel inside the band with the
+/// margin when it does not (issue 21). Checked by building the tank it names: the middle of
+/// its range gives a travel inside the band's edges (47 CFR §73.201 for 88–108 MHz) less
+/// the 200 kHz margin.
+#[test]
+fn the_remedy_names_a_fixed_capacitor_that_keeps_the_travel_inside() {
+    let w = winding(1.0, Coating::Bare, 5.0, SpacingSpec::Length(8e-3));
+    let c = coil(&w);
+    let cond = Conditions::default();
+    let tank = Tank {
+        fixed: 40e-12,
+        trimmer_min: 2e-12,
+        trimmer_max: 10e-12,
+        trimmer_setting: 0.5,
+        stray: 6e-12,
+        feedback: None,
+    };
+    let v = judge(&c, &tank, &cond, &Aim::new(BandPlan::UsFm, Some(98.7e6)));
+    let remedy = v.remedy.clone().expect("a remedy");
+    assert!(v.next_step().contains(&remedy), "{}", v.next_step());
+    // "a fixed capacitor of A–B pF ..."
+    let range = remedy
+        .strip_prefix("a fixed capacitor of ")
+        .and_then(|r| r.split(" pF").next())
+        .expect(&remedy);
+    let (a, b) = range.split_once('–').expect(range);
+    let (a, b): (f64, f64) = (a.parse().expect(a), b.parse().expect(b));
+    assert!(a < b, "{remedy}");
+    let fixed = Tank {
+        fixed: 0.5 * (a + b) * 1e-12,
+        ..tank
+    };
+    let after = judge(&c, &fixed, &cond, &Aim::new(BandPlan::UsFm, Some(98.7e6)));
+    assert!(
+        after.reach.low >= 88.2e6 && after.reach.high <= 107.8e6,
+        "{remedy}: {:?}",
+        after.reach
+    );
+    assert!(
+        after.remedy.is_none() && after.is_safe(),
+        "{:?}",
+        after.flags
+    );
+    // A trimmer whose own travel is wider than the 2 m band allows: the remedy says so and
+    // names the largest travel that fits.
+    let wide = Tank {
+        fixed: 1e-12,
+        trimmer_min: 2e-12,
+        trimmer_max: 20e-12,
+        trimmer_setting: 0.5,
+        stray: 4e-12,
+        feedback: None,
+    };
+    let v = judge(
+        &c,
+        &wide,
+        &cond,
+        &Aim::new(BandPlan::TwoMetreRegion2, Some(146e6)),
+    );
+    let remedy = v.remedy.expect("a remedy");
+    assert!(remedy.contains("wider than the band allows"), "{remedy}");
 }
 
 /// The 2nd or 3rd harmonic in 108–137 MHz (ITU RR Art. 5).

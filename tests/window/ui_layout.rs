@@ -242,3 +242,61 @@ fn the_teaching_bench_keeps_its_column_in_its_room_in_both_layouts() {
         }
     }
 }
+
+/// Issue 21: a repeated "+0.1 mm" click landed on "Back to the recipe's length" once the
+/// "Showing … mm" line appeared and pushed the buttons down. Every control of the teaching
+/// bench keeps its place when the shown length appears, and the second click by pointer at
+/// the same place steps again.
+#[test]
+fn the_teaching_bench_controls_never_move_under_the_pointer() {
+    let mut harness = window(tankwright::recipe::Recipe::demo(), (1280.0, 720.0));
+    harness.get_by_label("View").click();
+    harness.run();
+    harness.get_by_label("Teaching bench").click();
+    harness.run();
+    let labels = [
+        "+0.1 mm",
+        "−0.1 mm",
+        "+0.5 mm",
+        "Back to the recipe's length",
+        "Keep this length in the recipe",
+    ];
+    let before: Vec<egui::Rect> = labels
+        .iter()
+        .map(|l| harness.get_by_label(l).rect())
+        .collect();
+    assert!(harness.state().teaching().demonstrated_length().is_none());
+    let length = harness.state().figures().expect("valid").coil.length();
+    let at = before[0].center();
+    for clicks in 1..=2 {
+        harness.hover_at(at);
+        harness.run();
+        harness.event(egui::Event::PointerButton {
+            pos: at,
+            button: egui::PointerButton::Primary,
+            pressed: true,
+            modifiers: egui::Modifiers::NONE,
+        });
+        harness.event(egui::Event::PointerButton {
+            pos: at,
+            button: egui::PointerButton::Primary,
+            pressed: false,
+            modifiers: egui::Modifiers::NONE,
+        });
+        harness.run();
+        let shown = harness
+            .state()
+            .teaching()
+            .demonstrated_length()
+            .expect("a length is shown");
+        assert!(
+            (shown - (length + f64::from(clicks) * 0.1e-3)).abs() < 1e-9,
+            "click {clicks} at the first click's place: {shown} m shown"
+        );
+        let after: Vec<egui::Rect> = labels
+            .iter()
+            .map(|l| harness.get_by_label(l).rect())
+            .collect();
+        assert_eq!(after, before, "controls moved after click {clicks}");
+    }
+}

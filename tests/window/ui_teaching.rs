@@ -405,3 +405,31 @@ fn at_1280_by_720_the_presentation_keeps_its_readouts_inside_the_window() {
     let chart = harness.get_by_label(SPACING_CHART_LABEL).rect();
     assert!(chart.width() >= 640.0, "chart {chart:?}");
 }
+
+/// Issue 21: the differences compare the length being demonstrated, not only the recipe's.
+/// The demo's 8.00 mm pinned, then shown 0.5 mm longer: the row reads 8.50 against 8.00 mm.
+#[test]
+fn the_differences_compare_the_demonstrated_length() {
+    let mut harness = bench(Scripted::default());
+    harness.get_by_label(PIN_PRESENT_LABEL).click();
+    harness.run();
+    harness.get_by_label("+0.5 mm").click();
+    harness.run();
+    let text = screen_text(&harness);
+    let list = text
+        .iter()
+        .position(|t| t == DIFFERENCES_HEADING)
+        .expect("the list of differences");
+    assert!(text[list..].iter().any(|t| t == "Shown here"), "{text:?}");
+    let at = list
+        + text[list..]
+            .iter()
+            .position(|t| t == "Coil length")
+            .expect("a length row");
+    assert_eq!(text[at + 1..at + 4], ["8.50 mm", "8.00 mm", "+0.50 mm"]);
+    // The recipe itself is unchanged.
+    assert_eq!(
+        harness.state().recipe().winding.spacing,
+        SpacingSpec::Length(8.0e-3)
+    );
+}

@@ -63,31 +63,7 @@ pub(super) fn show(
     let coil = base_figures.coil;
     let range = sweep::range(&coil);
 
-    if let Some(length) = teaching.length {
-        ui.horizontal_wrapped(|ui| {
-            ui.label(format!(
-                "Showing {} (the recipe keeps {}).",
-                unit.show(length),
-                unit.show(coil.length())
-            ));
-            if !presenting {
-                if ui.button("Back to the recipe's length").clicked() {
-                    teaching.sweep.running = false;
-                    teaching.length = None;
-                    teaching.discrete = true;
-                }
-                if ui.button("Keep this length in the recipe").clicked() {
-                    teaching.sweep.running = false;
-                    keep = Some(length);
-                }
-            }
-        });
-    } else {
-        ui.label("Nothing here changes the recipe.");
-    }
-    ui.add_space(6.0);
-
-    // The sweep and the steps.
+    // The sweep and the steps first: nothing above them appears or vanishes.
     ui.horizontal_wrapped(|ui| {
         let label = if teaching.sweep.running {
             SWEEP_PAUSE_LABEL
@@ -131,6 +107,40 @@ pub(super) fn show(
             .weak(),
         );
     }
+    ui.add_space(6.0);
+
+    // What is shown, below the controls above (so they never move under the pointer when
+    // it appears), its buttons always in place and greyed while the recipe's own length is
+    // shown.
+    if !presenting {
+        ui.horizontal_wrapped(|ui| {
+            let shown = teaching.length.is_some();
+            if ui
+                .add_enabled(shown, egui::Button::new("Back to the recipe's length"))
+                .clicked()
+            {
+                teaching.sweep.running = false;
+                teaching.length = None;
+                teaching.discrete = true;
+            }
+            if ui
+                .add_enabled(shown, egui::Button::new("Keep this length in the recipe"))
+                .clicked()
+                && let Some(length) = teaching.length
+            {
+                teaching.sweep.running = false;
+                keep = Some(length);
+            }
+        });
+    }
+    match teaching.length {
+        Some(length) => ui.label(format!(
+            "Showing {} (the recipe keeps {}).",
+            unit.show(length),
+            unit.show(coil.length())
+        )),
+        None => ui.label("Showing the recipe's length. Nothing here changes the recipe."),
+    };
     ui.add_space(6.0);
 
     // The hand.
@@ -202,7 +212,8 @@ pub(super) fn show(
     });
     ui.add_space(6.0);
 
-    reference_ui(teaching, ui, recipe, base_figures, unit, files);
+    // Against the reference: what is demonstrated (the shown length), not only the recipe.
+    reference_ui(teaching, ui, recipe, &shown, unit, files);
     keep
 }
 
@@ -358,6 +369,7 @@ fn reference_ui(
         reference.name
     ));
     let rows = reference.differences(recipe, present, unit);
+    let demonstrating = teaching.length.is_some();
     egui::CollapsingHeader::new(DIFFERENCES_HEADING)
         .default_open(true)
         .show(ui, |ui| {
@@ -370,7 +382,11 @@ fn reference_ui(
                         .striped(true)
                         .show(ui, |ui| {
                             ui.strong("");
-                            ui.strong("This recipe");
+                            ui.strong(if demonstrating {
+                                "Shown here"
+                            } else {
+                                "This recipe"
+                            });
                             ui.strong("Reference");
                             ui.strong("Difference");
                             ui.end_row();
