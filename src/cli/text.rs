@@ -157,6 +157,40 @@ pub fn field_report(classical: &Analysis, basis: &FieldBasis, calibrated: bool) 
                 f.q()
             ));
             s.push_str(&format!("  segments           {:>10}\n", f.segments));
+            s.push_str(&format!(
+                "  inductance (meter) {:>10.2} nH   what an LCR meter reads, well below the \
+                 self-resonance\n",
+                f.low_frequency_inductance * 1e9
+            ));
+            s.push_str(&format!(
+                "  self-capacitance   {:>10.3} pF   (resonates it at the self-resonance)\n",
+                f.self_capacitance() * 1e12
+            ));
+            // This coil's own ratios of the classical estimates to the field solution (the
+            // range measured over many coils stands beside each estimate above).
+            for (what, classical_value, field_value) in [
+                (
+                    "Medhurst's self-capacitance",
+                    classical.self_capacitance,
+                    f.self_capacitance(),
+                ),
+                (
+                    "lumped self-resonance",
+                    classical.self_resonance.lumped,
+                    f.self_resonance,
+                ),
+                (
+                    "helical self-resonance",
+                    classical.self_resonance.helical,
+                    f.self_resonance,
+                ),
+            ] {
+                if let Some(words) =
+                    crate::tuning::field_tank::ratio_in_words(classical_value, field_value)
+                {
+                    s.push_str(&format!("  this coil: {what} is {words}\n"));
+                }
+            }
             let lead = if calibrated {
                 "the bench calibration leads, on the model moved onto the field solution"
             } else {
