@@ -92,7 +92,7 @@ fn report_reads_as_a_build_sheet() {
         "length for target",
         "kHz per mm",
         "Bench log",
-        "1. 149.6200 MHz at 7.50 mm, trimmer 50 % (club dip meter, dial reading) — first try",
+        "1. 149.9320 MHz at 7.50 mm, trimmer 50 % (club dip meter, dial reading) — first try",
         "±5 ppm",
         "beyond the model",
         "next step",

@@ -203,7 +203,7 @@ fn cases() -> Vec<Case> {
     );
     add(
         "reading not a number",
-        edited("measured_mhz: 147.915,", "measured_mhz: NaN,"),
+        edited("measured_mhz: 147.532,", "measured_mhz: NaN,"),
         Invalid,
         Some("measured_mhz: NaN"),
         Some("bench_log[1].measured_mhz"),
