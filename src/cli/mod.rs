@@ -135,7 +135,7 @@ usage:
   tankwright impedance FLAGS [--from-mhz A] [--to-mhz B] [--points N] [--json]
                                           the coil's impedance against frequency, solved
                                           from its own currents (also with --recipe FILE)
-  tankwright reading add FILE --mhz F [--length-mm L] [--trimmer-pct P] [--clip-pf C]
+  tankwright reading add FILE (--mhz F | --spectrum SWEEP.csv) [--length-mm L] [--trimmer-pct P] [--clip-pf C]
              [--instrument TEXT] [--error-ppm E] [--note TEXT]
                                           append a bench reading to a recipe (saved safely;
                                           length and trimmer default to the recipe's)

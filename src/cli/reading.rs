@@ -1,5 +1,7 @@
-//! `tankwright reading add RECIPE --mhz F [--length-mm L] [--trimmer-pct P] [--clip-pf C]
-//! [--instrument TEXT] [--error-ppm E] [--note TEXT]`: a bench reading appended to a recipe
+//! `tankwright reading add RECIPE (--mhz F | --spectrum SWEEP.csv) [--length-mm L]
+//! [--trimmer-pct P] [--clip-pf C] [--instrument TEXT] [--error-ppm E] [--note TEXT]`: a bench
+//! reading (typed, or the carrier of a receiver's power sweep, with the sweep's bin step as its
+//! error; `instruments::sweep_csv`) appended to a recipe
 //! from the command line, saved atomically like the window's save (the recipe's rules judge
 //! the result first, so a reading the window would refuse is refused here with the same
 //! words). Then `report`, `solve` and `fit` calibrate on it.
@@ -9,7 +11,7 @@ use crate::model::Coil;
 use crate::recipe::{BenchEntry, store};
 use std::path::Path;
 
-const USAGE: &str = "tankwright reading add RECIPE.ron --mhz F [--length-mm L] [--trimmer-pct P] \
+const USAGE: &str = "tankwright reading add RECIPE.ron (--mhz F | --spectrum SWEEP.csv) [--length-mm L] [--trimmer-pct P] \
                      [--clip-pf C] [--instrument TEXT] [--error-ppm E] [--note TEXT]";
 
 fn within(name: &str, v: f64, lo: f64, hi: f64, unit: &str) -> Result<f64, String> {
@@ -18,6 +20,21 @@ fn within(name: &str, v: f64, lo: f64, hi: f64, unit: &str) -> Result<f64, Strin
     } else {
         Err(format!("--{name} {v}: give {lo}–{hi}{unit}"))
     }
+}
+
+/// The text of a receiver's sweep file (at most 64 MiB).
+fn read_sweep(file: &str) -> Result<String, String> {
+    let path = Path::new(file);
+    let meta = std::fs::metadata(path)
+        .map_err(|e| format!("{}: cannot be read: {e}", super::clean(file)))?;
+    if !meta.is_file() || meta.len() > 64 * 1024 * 1024 {
+        return Err(format!(
+            "{}: not a regular file of at most 64 MiB",
+            super::clean(file)
+        ));
+    }
+    std::fs::read_to_string(path)
+        .map_err(|e| format!("{}: cannot be read as text: {e}", super::clean(file)))
 }
 
 /// Run `reading` on the words after the subcommand; Ok(what was done) or Err(message).
@@ -34,7 +51,31 @@ pub fn run_reading(words: Vec<String>) -> Result<String, String> {
         ));
     }
     let number = |name: &str| args.number(name).map_err(|e| e.to_string());
-    let mhz = number("mhz")?.ok_or_else(|| format!("reading add needs --mhz F: {USAGE}"))?;
+    let spectrum = args.text("spectrum").map(str::to_owned);
+    let (mhz, spectrum_error_ppm, spectrum_note) = match (number("mhz")?, &spectrum) {
+        (Some(_), Some(_)) => {
+            return Err("give --mhz or --spectrum FILE.csv, not both".into());
+        }
+        (None, None) => {
+            return Err(format!(
+                "reading add needs --mhz F (or --spectrum FILE.csv): {USAGE}"
+            ));
+        }
+        (Some(mhz), None) => (mhz, None, None),
+        (None, Some(csv)) => {
+            let text = read_sweep(csv)?;
+            let c = crate::instruments::sweep_csv::carrier(&text)
+                .map_err(|e| format!("{}: {e}", super::clean(csv)))?;
+            (
+                c.frequency * 1e-6,
+                Some(c.error / c.frequency * 1e6),
+                Some(format!(
+                    "carrier from a receiver sweep ({:.1} dB above its median, {} bins)",
+                    c.above_median_db, c.bins
+                )),
+            )
+        }
+    };
     let mhz = within("mhz", mhz, 0.1, 3000.0, " MHz")?;
     let length = number("length-mm")?
         .map(|v| within("length-mm", v, 0.01, 1000.0, " mm"))
@@ -47,9 +88,22 @@ pub fn run_reading(words: Vec<String>) -> Result<String, String> {
         .transpose()?;
     let error_ppm = number("error-ppm")?
         .map(|v| within("error-ppm", v, 0.0, 100_000.0, " ppm"))
-        .transpose()?;
-    let instrument = args.text("instrument").unwrap_or("").to_owned();
-    let note = args.text("note").unwrap_or("").to_owned();
+        .transpose()?
+        .or(spectrum_error_ppm);
+    let instrument = args
+        .text("instrument")
+        .map(str::to_owned)
+        .or_else(|| {
+            spectrum
+                .as_ref()
+                .map(|f| format!("receiver sweep {}", super::clean(f)))
+        })
+        .unwrap_or_default();
+    let note = args
+        .text("note")
+        .map(str::to_owned)
+        .or(spectrum_note)
+        .unwrap_or_default();
     args.reject_unknown().map_err(|e| e.to_string())?;
 
     let path = Path::new(file);

@@ -86,3 +86,82 @@ fn a_bad_reading_is_refused_and_the_file_kept() {
         );
     }
 }
+
+/// A receiver's sweep written here: 96–100 MHz in hops of 1 MHz, 5 kHz bins, noise from a
+/// seeded generator around −60 dB, and a carrier at 97.5312 MHz 40 dB up. The carrier must
+/// come back within the bin step (the file's resolution, kept as the reading's error).
+fn sweep_csv(carrier_hz: f64) -> String {
+    let mut state: u64 = 0x2545_f491_4f6c_dd1d;
+    let mut noise = move || {
+        state ^= state << 13;
+        state ^= state >> 7;
+        state ^= state << 17;
+        (state % 1000) as f64 / 1000.0 * 6.0 - 3.0
+    };
+    let step = 5e3;
+    let mut out = String::new();
+    for hop in 0..4 {
+        let low = 96e6 + hop as f64 * 1e6;
+        let high = low + 1e6;
+        let bins = ((high - low) / step) as usize;
+        let mut row = format!("2026-12-04, 16:40:00, {low}, {high}, {step}, 20");
+        for i in 0..bins {
+            let f = low + (i as f64 + 0.5) * step;
+            let signal = if (f - carrier_hz).abs() < step / 2.0 {
+                40.0
+            } else {
+                0.0
+            };
+            row += &format!(", {:.2}", -60.0 + noise() + signal);
+        }
+        out += &row;
+        out.push('\n');
+    }
+    out
+}
+
+#[test]
+fn a_receivers_sweep_gives_the_carrier_with_its_bin_as_the_error() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let file = dir.path().join("bench.ron");
+    std::fs::copy(asset("lantern_hill_bench_oscillator.ron"), &file).expect("copied");
+    let csv = dir.path().join("sweep.csv");
+    let carrier = 97.5312e6;
+    std::fs::write(&csv, sweep_csv(carrier)).expect("written");
+    let (ok, _, err) = run_text(&[
+        "reading",
+        "add",
+        file.to_str().expect("utf-8"),
+        "--spectrum",
+        csv.to_str().expect("utf-8"),
+    ]);
+    assert!(ok, "{err}");
+    let recipe = store::load(&file).expect("opens");
+    let r = recipe.bench_log.last().expect("reading");
+    assert!((r.measured - carrier).abs() <= 5e3, "{}", r.measured);
+    let ppm = r.error_ppm.expect("error kept");
+    assert!((ppm - 5e3 / r.measured * 1e6).abs() < 1e-9, "{ppm}");
+    assert!(r.instrument.contains("receiver sweep"), "{}", r.instrument);
+
+    // Noise alone has no carrier; a short row is refused with its line.
+    let flat = dir.path().join("flat.csv");
+    std::fs::write(&flat, sweep_csv(1.0)).expect("written");
+    let (ok, _, err) = run_text(&[
+        "reading",
+        "add",
+        file.to_str().expect("utf-8"),
+        "--spectrum",
+        flat.to_str().expect("utf-8"),
+    ]);
+    assert!(!ok && err.contains("no carrier"), "{err}");
+    let short = dir.path().join("short.csv");
+    std::fs::write(&short, "2026-12-04, 16:40:00, 96e6, 97e6\n").expect("written");
+    let (ok, _, err) = run_text(&[
+        "reading",
+        "add",
+        file.to_str().expect("utf-8"),
+        "--spectrum",
+        short.to_str().expect("utf-8"),
+    ]);
+    assert!(!ok && err.contains("line 1"), "{err}");
+}
