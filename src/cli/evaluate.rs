@@ -227,6 +227,7 @@ pub fn run_evaluate(words: Vec<String>) -> Result<String, String> {
         &req.conditions,
         FieldInput::Solved(field),
     );
+    let field_led_conditions = req.conditions;
     let req = EvaluateRequest {
         conditions: basis.conditions(&req.conditions),
         ..req
@@ -235,14 +236,23 @@ pub fn run_evaluate(words: Vec<String>) -> Result<String, String> {
         .map_err(|e| format!("invalid input: {e}"))?;
     let more = super::stray_flags::ExtraFigures::compute(&extras, &req, &analysis)?;
     let mut verdict = judge(&analysis.coil, &tank, &req.conditions, &req.aim);
-    // The channel's next step is the one instruction that lands it (as in the window).
+    // The channel's next step is the one instruction that lands it, finished on field solves
+    // of the proposed coil as `recipe::figures` does for the window, `report` and `solve`
+    // (`tuning::landing`; the classical model only where the field solution does not lead).
+    let led = matches!(basis, FieldBasis::Solved { .. }).then_some(
+        crate::tuning::landing::FieldLed {
+            conditions: field_led_conditions,
+            scale: 1.0,
+        },
+    );
     if let Some(target) = req.aim.target {
-        verdict = verdict.with_advice(crate::tuning::advice::advise(
+        verdict = verdict.with_advice(crate::tuning::advice::advise_on(
             &analysis.coil,
             &tank,
             &req.conditions,
             target,
             req.aim.tolerance,
+            led.as_ref(),
         ));
     }
     Ok(if req.json {
