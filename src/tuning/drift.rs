@@ -195,10 +195,19 @@ pub fn drift_budget(
         change: dt,
         shift: resonance_of(&coil.scaled(1.0 + LINEAR_EXPANSION * dt), external, &warm) - carrier,
     });
+    // The class's nominal coefficient is not a promise: any part of it may lie anywhere in
+    // ±its tolerance (C0G/NP0: 0 ± 30 ppm/K, EIA-198 / IEC 60384-8). The budget books the
+    // worse end, so a C0G capacitor is never counted as drifting not at all.
+    let class = inputs.fixed_class;
+    let fixed_shift = |ppm: f64| shift_with(external + tank.fixed * ppm * 1e-6 * dt);
+    let (a, b) = (
+        fixed_shift(class.ppm_per_k - class.tolerance_ppm_per_k),
+        fixed_shift(class.ppm_per_k + class.tolerance_ppm_per_k),
+    );
     lines.push(DriftLine {
         source: DriftSource::FixedCapacitorTemperature,
         change: dt,
-        shift: shift_with(external + tank.fixed * inputs.fixed_class.ppm_per_k * 1e-6 * dt),
+        shift: if a.abs() >= b.abs() { a } else { b },
     });
     if let Some((m, bias)) = tank.junction {
         let warm_m = Modulator {

@@ -170,6 +170,29 @@ impl Service {
         }
     }
 
+    /// The service whose band holds `carrier`, if any: FM broadcast 76–108 MHz (Japan's
+    /// lower edge to the ITU Region 1/2 upper edge, RR Art. 5), 2 m 144–148 MHz (RR Art. 5).
+    /// `None` between and beyond them (243.9 MHz is no 2 m carrier): the caller says so.
+    pub fn applying_to(carrier: f64) -> Option<Self> {
+        if (76e6..=108e6).contains(&carrier) {
+            Some(Service::FmBroadcast)
+        } else if (144e6..=148e6).contains(&carrier) {
+            Some(Service::TwoMetreNarrowBand)
+        } else {
+            None
+        }
+    }
+
+    /// The highest audio frequency the service carries, hertz: 15 kHz for FM broadcast
+    /// (ITU-R Recommendation BS.450, from memory), 3 kHz for 2 m voice FM (a speech channel
+    /// of 300–3000 Hz: common practice, as ITU-T G.712's telephone band).
+    pub fn audio_max(self) -> f64 {
+        match self {
+            Service::FmBroadcast => 15e3,
+            Service::TwoMetreNarrowBand => 3e3,
+        }
+    }
+
     /// Name shown.
     pub fn label(self) -> &'static str {
         match self {

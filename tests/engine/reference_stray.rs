@@ -381,7 +381,15 @@ fn drift_budget_directions_sum_and_class() {
         .iter()
         .find(|l| l.source == DriftSource::FixedCapacitorTemperature)
         .expect("line");
-    assert_eq!(c0g.shift, 0.0);
+    // C0G/NP0 is 0 ± 30 ppm/K (EIA-198 / IEC 60384-8): the budget books the worse end, not
+    // zero (issue 21). f ∝ C^(-1/2): a change δC of the 15 pF moves f by −½·δC/C_total
+    // (first order; the 1 % allows the second-order term and the junction's share).
+    let booked = 0.5 * b2.carrier * 15e-12 * 30e-6 * 20.0 / (c_ext + c_self);
+    assert!(
+        (c0g.shift.abs() - booked).abs() < 0.01 * booked,
+        "C0G booked {} Hz, expected ±{booked} Hz",
+        c0g.shift
+    );
 }
 
 /// Inputs the formulas cannot take are refused, naming the field.

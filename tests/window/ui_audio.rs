@@ -296,3 +296,44 @@ fn a_bad_model_line_is_refused_and_nothing_is_lost() {
         assert_eq!(cj0, Some(3.5));
     }
 }
+
+/// Issue 21: on 2 m the highest audio frequency is the service's voice channel (3 kHz,
+/// common practice for speech), not broadcast's 15 kHz, until the user types one; a carrier
+/// in no service's band is said to be so rather than judged silently as 2 m.
+#[test]
+fn the_audio_top_follows_the_service_and_a_carrier_in_no_band_is_named() {
+    let mut harness = workbench();
+    let value = |h: &Harness<'_, App>| {
+        h.get_by_label("Highest audio frequency")
+            .accesskit_node()
+            .numeric_value()
+            .expect("a number")
+    };
+    assert_eq!(value(&harness), 15.0, "FM broadcast demo");
+    // The demo's coil with a small tank: a 2 m carrier.
+    let two_metre = tankwright::recipe::demos::demos()
+        .into_iter()
+        .find(|(n, _)| n.contains("two_metre"))
+        .map(|(_, r)| r)
+        .expect("2 m demo");
+    *harness.state_mut().recipe_mut() = two_metre;
+    harness.run();
+    harness.run();
+    assert_eq!(value(&harness), 3.0, "2 m voice");
+    // Typed: kept whatever the service.
+    set(&mut harness, "Highest audio frequency", 5.0);
+    *harness.state_mut().recipe_mut() = tankwright::recipe::Recipe::demo();
+    harness.run();
+    harness.run();
+    assert_eq!(value(&harness), 5.0);
+    // 243.9 MHz-ish: the demo coil with almost no capacitance.
+    let recipe = harness.state_mut().recipe_mut();
+    recipe.tank.fixed = 0.1e-12;
+    recipe.tank.stray = 0.1e-12;
+    recipe.tank.feedback = None;
+    harness.run();
+    harness.run();
+    let carrier = harness.state().figures().expect("valid").analysis.resonance;
+    assert!(carrier > 148e6, "{carrier}");
+    assert!(line_starting(&harness, "No service applies at").contains("only as a yardstick"));
+}

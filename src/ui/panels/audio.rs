@@ -56,6 +56,8 @@ pub struct AudioPanel {
     model_text: String,
     /// What became of the last "Use this model": a summary, or why it was refused.
     model_note: Option<Result<String, String>>,
+    /// The highest audio frequency was typed: it no longer follows the service's.
+    audio_max_typed: bool,
     cached: Option<(Key, Results)>,
 }
 
@@ -93,6 +95,7 @@ impl Default for AudioPanel {
             },
             model_text: String::new(),
             model_note: None,
+            audio_max_typed: false,
             cached: None,
         }
     }
@@ -282,6 +285,7 @@ impl AudioPanel {
                 number(ui, "Grading exponent", &mut s.m, M_RANGE, "");
                 number(ui, "Reverse bias", &mut s.bias_v, (0.0, 30.0), " V");
                 number(ui, "Audio peak", &mut s.audio_peak_v, (0.0, 5.0), " V");
+                let before = s.audio_max_khz;
                 number(
                     ui,
                     "Highest audio frequency",
@@ -289,6 +293,10 @@ impl AudioPanel {
                     (0.1, 100.0),
                     " kHz",
                 );
+                // Typed: kept; untouched: the service's (set below once the carrier is known).
+                if s.audio_max_khz != before {
+                    self.audio_max_typed = true;
+                }
                 number(
                     ui,
                     "Coupling capacitor",
@@ -304,11 +312,19 @@ impl AudioPanel {
         };
         let key: Key = (*coil, *tank, *conditions, self.settings, tolerance);
         if self.cached.as_ref().is_none_or(|(k, _)| *k != key) {
+            let other = tank.external_capacitance();
+            let mut m = modulation(coil, other, conditions, &self.settings.inputs());
+            let service = Service::for_carrier(m.carrier);
+            // Until it is typed, the highest audio frequency is the service's (2 m voice
+            // 3 kHz, broadcast 15 kHz); the carrier does not depend on it.
+            let own = service.audio_max() * 1e-3;
+            if !self.audio_max_typed && self.settings.audio_max_khz != own {
+                self.settings.audio_max_khz = own;
+                m = modulation(coil, other, conditions, &self.settings.inputs());
+            }
+            let key: Key = (*coil, *tank, *conditions, self.settings, tolerance);
             let s = &self.settings;
             let inputs = s.inputs();
-            let other = tank.external_capacitance();
-            let m = modulation(coil, other, conditions, &inputs);
-            let service = Service::for_carrier(m.carrier);
             let verdict = judge(&m, service);
             let drift = drift_budget(
                 coil,
@@ -363,6 +379,18 @@ impl AudioPanel {
             ),
         );
         let v = &r.verdict;
+        if Service::applying_to(r.modulation.carrier).is_none() {
+            wrap(
+                ui,
+                format!(
+                    "No service applies at {:.3} MHz: neither the FM broadcast band (76–108 \
+                     MHz) nor the 2 m band (144–148 MHz) holds it. The figures below use {} \
+                     only as a yardstick.",
+                    r.modulation.carrier * 1e-6,
+                    r.service.label()
+                ),
+            );
+        }
         wrap(
             ui,
             format!(

@@ -78,8 +78,30 @@ pub fn follow(shown: &Figures, moment: &Moment) -> Topic {
 /// The caption for `topic` with the values of `shown`.
 pub fn caption(topic: Topic, shown: &Figures, moment: &Moment, unit: LengthUnit) -> String {
     let a = &shown.analysis;
-    let coil = &shown.coil;
     let f = digits::mhz(a.resonance);
+    let text = topic_caption(topic, shown, moment, unit, &f);
+    // The sweep can carry the shown carrier into the aeronautical band: say so while it is.
+    let (aero_low, aero_high) = crate::tuning::service::AERONAUTICAL;
+    if (aero_low..=aero_high).contains(&a.resonance) {
+        format!(
+            "{text} At {f} the carrier is inside the aeronautical band (108–137 MHz: \
+             navigation and air-traffic voice, ITU Radio Regulations Art. 5): a demonstration \
+             on the bench only, never on the air."
+        )
+    } else {
+        text
+    }
+}
+
+fn topic_caption(
+    topic: Topic,
+    shown: &Figures,
+    moment: &Moment,
+    unit: LengthUnit,
+    f: &str,
+) -> String {
+    let a = &shown.analysis;
+    let coil = &shown.coil;
     match topic {
         Topic::Spacing => format!(
             "As the turns move apart, each turn shares less of its field with its neighbours, \
@@ -120,10 +142,17 @@ pub fn caption(topic: Topic, shown: &Figures, moment: &Moment, unit: LengthUnit)
                 let back = moment.without_hand.map_or(String::new(), |f0| {
                     format!(" Let go and it returns to {}.", digits::mhz(f0))
                 });
+                // The hand's own shift, beside the distance from the channel.
+                let shift = moment.without_hand.map_or(String::new(), |f0| {
+                    format!(
+                        " (the hand's own shift: {})",
+                        digits::offset(a.resonance - f0)
+                    )
+                });
                 format!(
                     "A hand near the coil adds about {:.1} pF to the stray (common practice: \
-                     1–2 pF): total capacitance {:.2} pF, so the carrier drops to {f}, {} from \
-                     the {} MHz channel: {place}.{back}",
+                     1–2 pF): total capacitance {:.2} pF, so the carrier drops to {f}{shift}, \
+                     {} from the {} MHz channel: {place}.{back}",
                     pf(moment.hand),
                     pf(a.total_capacitance),
                     digits::offset(t.offset),
@@ -210,5 +239,38 @@ mod tests {
             let text = caption(topic, &shown, &moment, unit);
             assert!(!text.contains("NaN") && !text.contains("inf"), "{text}");
         }
+    }
+
+    /// Issue 21: a carrier swept into 108–137 MHz (ITU RR Art. 5) is said to be there, and
+    /// the held hand's caption gives the hand's own shift beside the channel's distance.
+    #[test]
+    fn the_aeronautical_band_and_the_hands_own_shift_are_said() {
+        let unit = LengthUnit::Millimetres;
+        let demo = figures(&Recipe::demo()).expect("valid demo");
+        let at_rest = Moment {
+            hand_held: false,
+            hand: 1e-12,
+            without_hand: None,
+        };
+        assert!(demo.analysis.resonance < 108e6);
+        let text = caption(Topic::Spacing, &demo, &at_rest, unit);
+        assert!(!text.contains("aeronautical"), "{text}");
+        // The demo with less capacitance: its carrier above 108 MHz.
+        let mut high = Recipe::demo();
+        high.tank.fixed = 1e-12;
+        let shown = figures(&high).expect("valid");
+        assert!((108e6..=137e6).contains(&shown.analysis.resonance));
+        for topic in Topic::ALL {
+            let text = caption(topic, &shown, &at_rest, unit);
+            assert!(text.contains("inside the aeronautical band"), "{text}");
+        }
+        // The hand held: 3.07 MHz below where it was, say.
+        let held = Moment {
+            hand_held: true,
+            hand: 1e-12,
+            without_hand: Some(demo.analysis.resonance + 3.07e6),
+        };
+        let text = caption(Topic::Hand, &demo, &held, unit);
+        assert!(text.contains("the hand's own shift: -3.070 MHz"), "{text}");
     }
 }
