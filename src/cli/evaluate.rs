@@ -239,12 +239,11 @@ pub fn run_evaluate(words: Vec<String>) -> Result<String, String> {
     // The channel's next step is the one instruction that lands it, finished on field solves
     // of the proposed coil as `recipe::figures` does for the window, `report` and `solve`
     // (`tuning::landing`; the classical model only where the field solution does not lead).
-    let led = matches!(basis, FieldBasis::Solved { .. }).then_some(
-        crate::tuning::landing::FieldLed {
+    let led =
+        matches!(basis, FieldBasis::Solved { .. }).then_some(crate::tuning::landing::FieldLed {
             conditions: field_led_conditions,
             scale: 1.0,
-        },
-    );
+        });
     if let Some(target) = req.aim.target {
         verdict = verdict.with_advice(crate::tuning::advice::advise_on(
             &analysis.coil,

@@ -98,6 +98,7 @@ impl App {
         let restored = working_copy::restore(&folder);
         let mut app = Self::with_recipe(Recipe::demo());
         app.preferences = restored.session.preferences;
+        app.parts_panel.text = restored.session.parts_on_hand.clone();
         app.files.memory = restored.session.files.clone();
         let mut notices = restored.problems.clone();
         let unsaved = restored.has_unsaved_changes();
@@ -390,6 +391,7 @@ impl App {
                 files: &self.files.memory,
                 origin: self.files.path(),
                 saved: self.files.saved_snapshot(),
+                parts_on_hand: &self.parts_panel.text,
             },
         );
         match keeper.failure_change() {

@@ -17,6 +17,7 @@
 use crate::recipe::store::{self, PRIVATE_MODE, SaveError, SaveHow, SaveStep};
 use crate::recipe::{LoadError, Opened, Recipe, format};
 use crate::ui::files::FileDeskMemory;
+use crate::ui::panels::parts_on_hand::PartsOnHandText;
 use crate::ui::preferences::Preferences;
 use serde::{Deserialize, Serialize};
 use std::io::{self, Write};
@@ -224,6 +225,8 @@ pub struct Session {
     /// The recipe as last opened or saved there, as recipe text, so a change not yet saved is
     /// still marked unsaved after a restart.
     pub saved: Option<String>,
+    /// The parts on hand, as typed in "Design from the parts on hand".
+    pub parts_on_hand: PartsOnHandText,
 }
 
 /// The parts of the window's state the session is made of, compared each frame (cheaply, by
@@ -238,6 +241,8 @@ pub struct SessionState {
     pub origin: Option<PathBuf>,
     /// The recipe as last opened or saved.
     pub saved: Recipe,
+    /// See [`Session::parts_on_hand`].
+    pub parts_on_hand: PartsOnHandText,
 }
 
 impl SessionState {
@@ -247,6 +252,7 @@ impl SessionState {
             files: self.files.clone(),
             origin: self.origin.clone(),
             saved: Some(format::to_text(&self.saved)),
+            parts_on_hand: self.parts_on_hand.clone(),
         };
         let config = ron::ser::PrettyConfig::new().struct_names(true);
         let body = ron::ser::to_string_pretty(&session, config).unwrap_or_default();
@@ -551,6 +557,8 @@ pub struct SessionStateRef<'a> {
     pub origin: Option<&'a Path>,
     /// The recipe as last opened or saved.
     pub saved: &'a Recipe,
+    /// See [`Session::parts_on_hand`].
+    pub parts_on_hand: &'a PartsOnHandText,
 }
 
 impl SessionStateRef<'_> {
@@ -560,6 +568,7 @@ impl SessionStateRef<'_> {
                 && s.files == *self.files
                 && s.origin.as_deref() == self.origin
                 && s.saved == *self.saved
+                && s.parts_on_hand == *self.parts_on_hand
         })
     }
 
@@ -569,6 +578,7 @@ impl SessionStateRef<'_> {
             files: self.files.clone(),
             origin: self.origin.map(Path::to_path_buf),
             saved: self.saved.clone(),
+            parts_on_hand: self.parts_on_hand.clone(),
         }
     }
 }

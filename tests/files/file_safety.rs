@@ -143,6 +143,7 @@ fn a_failed_working_copy_write_is_retried_and_its_warning_clears() {
         &recipe,
         SessionStateRef {
             preferences: Preferences::default(),
+            parts_on_hand: &Default::default(),
             files: &memory,
             origin: None,
             saved: &saved,

@@ -147,6 +147,7 @@ fn the_keeper_has_a_change_on_disk_within_two_seconds_without_another_frame() {
         &recipe,
         SessionStateRef {
             preferences: Preferences::default(),
+            parts_on_hand: &Default::default(),
             files: &memory,
             origin: None,
             saved: &saved,
@@ -309,6 +310,7 @@ fn a_data_folder_that_cannot_be_written_is_reported_once() {
         &edited(),
         SessionStateRef {
             preferences: Preferences::default(),
+            parts_on_hand: &Default::default(),
             files: &memory,
             origin: None,
             saved: &saved,
@@ -318,4 +320,42 @@ fn a_data_folder_that_cannot_be_written_is_reported_once() {
     let failure = keeper.new_failure().expect("the failure is reported");
     assert!(failure.contains("working-copy.ron"), "{failure}");
     assert_eq!(keeper.new_failure(), None, "once");
+}
+
+/// Issue 23: the parts on hand typed into "Design from the parts on hand" are kept with the
+/// session and come back in the next window (the session file is written by the keeper's own
+/// thread: wait for it, with a generous deadline).
+#[test]
+fn the_parts_on_hand_are_kept_with_the_session() {
+    use tankwright::ui::panels::parts_on_hand::PartsOnHandText;
+    let dir = tempfile::tempdir().unwrap();
+    let folder = dir.path().join("data");
+    let restored = restore(&folder);
+    assert_eq!(restored.session.parts_on_hand, PartsOnHandText::default());
+    let mut keeper = Keeper::start(folder.clone(), &restored);
+    let memory = FileDeskMemory::default();
+    let saved = Recipe::demo();
+    let parts = PartsOnHandText {
+        formers: "1/4in, 7".to_owned(),
+        wires: "awg18".to_owned(),
+        ..PartsOnHandText::default()
+    };
+    keeper.observe(
+        &saved,
+        SessionStateRef {
+            preferences: Preferences::default(),
+            parts_on_hand: &parts,
+            files: &memory,
+            origin: None,
+            saved: &saved,
+        },
+    );
+    let started = Instant::now();
+    while restore(&folder).session.parts_on_hand != parts {
+        assert!(
+            started.elapsed() < Duration::from_secs(60),
+            "the parts were not kept"
+        );
+        std::thread::sleep(Duration::from_millis(20));
+    }
 }

@@ -191,7 +191,9 @@ impl FileDesk {
                 self.tell(format!(
                     "new recipe (not saved yet) from the {service} starting point, no feedback \
                      divider: pick the band plan and channel on the right, then set the coil on \
-                     the left to your former and wire (the notes list the parts)"
+                     the left to your former and wire (the notes list the parts), or open \
+                     \"Design from the parts on hand\" on the left to find the coil, capacitor \
+                     and trimmer your drawer holds that land the channel"
                 ));
                 Some(FileAction::Replace(fresh))
             }
