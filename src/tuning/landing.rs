@@ -576,7 +576,7 @@ const TURNS_CHECKED: usize = 6;
 /// resonance lands `target` at some buildable length, the fewest quarter turns first, in the
 /// direction `why` says (a tank above the target even close-wound needs more turns, one
 /// below it even at its highest fewer). Candidates the classical shape (`conditions`) says
-/// reach the target are checked with [`lengths`], at most [`TURNS_CHECKED`] of them.
+/// reach the target are checked with [`lengths`], at most `TURNS_CHECKED` of them.
 pub fn turns(
     led: &FieldLed,
     coil: &Coil,

@@ -99,7 +99,7 @@ pub fn lengths_for_target(
     roots_of(lo, hi, f_at, target)
 }
 
-/// Every x in [lo, hi] (ascending) where `f_at(x)` = `target`, by a scan of [`SCAN_POINTS`]
+/// Every x in [lo, hi] (ascending) where `f_at(x)` = `target`, by a scan of `SCAN_POINTS`
 /// points and bisection of each sign change, or why none is (the curve's lowest above the
 /// target, or its highest below it). `f_at` returns NaN where it has no value.
 pub fn roots_of(
