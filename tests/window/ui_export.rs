@@ -42,15 +42,7 @@ impl PathAsker for Scripted {
 }
 
 fn workbench(asker: Scripted) -> Harness<'static, App> {
-    let mut harness = Harness::builder()
-        .with_size(egui::vec2(1400.0, 1000.0))
-        .build_eframe(move |cc| {
-            App::new(cc)
-                .with_field_solution(false)
-                .with_path_asker(Box::new(asker.clone()))
-        });
-    harness.run();
-    harness
+    common::window_with_asker(asker, 1400.0, 1000.0)
 }
 
 fn export(harness: &mut Harness<'_, App>, item: &str) {

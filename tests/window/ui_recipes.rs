@@ -2,41 +2,16 @@
 
 use crate::common;
 
-use common::screen_text;
+use common::{QueuedAnswers as Scripted, screen_text};
 use egui::accesskit::Role;
 use egui_kittest::Harness;
 use egui_kittest::kittest::Queryable;
-use std::cell::RefCell;
-use std::collections::VecDeque;
-use std::path::Path;
-use std::rc::Rc;
 use tankwright::recipe::store;
 use tankwright::ui::App;
-use tankwright::ui::files::{PathAsker, Picked};
-
-/// Answers the file dialogs from a queue the test fills.
-#[derive(Clone, Default)]
-struct Scripted(Rc<RefCell<VecDeque<Picked>>>);
-
-impl PathAsker for Scripted {
-    fn open(&mut self, _folder: &Path) -> Picked {
-        self.0.borrow_mut().pop_front().unwrap_or(Picked::Cancelled)
-    }
-    fn save(&mut self, _folder: &Path, _suggested: &str) -> Picked {
-        self.0.borrow_mut().pop_front().unwrap_or(Picked::Cancelled)
-    }
-}
+use tankwright::ui::files::Picked;
 
 fn workbench(asker: Scripted) -> Harness<'static, App> {
-    let mut harness = Harness::builder()
-        .with_size(egui::vec2(1400.0, 1400.0))
-        .build_eframe(move |cc| {
-            App::new(cc)
-                .with_field_solution(false)
-                .with_path_asker(Box::new(asker.clone()))
-        });
-    harness.run();
-    harness
+    common::window_with_asker(asker, 1400.0, 1400.0)
 }
 
 fn menu(harness: &mut Harness<'_, App>, item: &str) {

@@ -7,20 +7,16 @@
 
 use crate::common;
 
-use common::screen_text;
+use common::{QueuedAnswers as Scripted, screen_text};
 use egui::accesskit::Role;
 use egui_kittest::Harness;
 use egui_kittest::kittest::Queryable;
-use std::cell::RefCell;
-use std::collections::VecDeque;
-use std::path::Path;
-use std::rc::Rc;
 use tankwright::model::{Coil, SpacingSpec, Tank, evaluate};
 use tankwright::recipe::{Recipe, store};
 use tankwright::tuning::digits;
 use tankwright::ui::App;
 use tankwright::ui::charts::{SPACING_CHART_LABEL, TRIMMER_CHART_LABEL};
-use tankwright::ui::files::{PathAsker, Picked};
+use tankwright::ui::files::Picked;
 use tankwright::ui::teaching::{
     DIFFERENCES_HEADING, FREQUENCY_LABEL, GHOST_LABEL, INDUCTANCE_LABEL, PANEL_HEADING,
     PIN_FILE_LABEL, PIN_PRESENT_LABEL, SWEEP_PAUSE_LABEL, SWEEP_START_LABEL, sweep,
@@ -29,29 +25,9 @@ use tankwright::ui::teaching::{
 /// Seconds one harness frame lasts (egui_kittest's default step).
 const FRAME: f64 = 0.25;
 
-/// Answers the file dialogs from a queue the test fills.
-#[derive(Clone, Default)]
-struct Scripted(Rc<RefCell<VecDeque<Picked>>>);
-
-impl PathAsker for Scripted {
-    fn open(&mut self, _folder: &Path) -> Picked {
-        self.0.borrow_mut().pop_front().unwrap_or(Picked::Cancelled)
-    }
-    fn save(&mut self, _folder: &Path, _suggested: &str) -> Picked {
-        self.0.borrow_mut().pop_front().unwrap_or(Picked::Cancelled)
-    }
-}
-
 /// The window with the teaching bench opened from the View menu.
 fn bench(asker: Scripted) -> Harness<'static, App> {
-    let mut harness = Harness::builder()
-        .with_size(egui::vec2(1400.0, 1000.0))
-        .build_eframe(move |cc| {
-            App::new(cc)
-                .with_field_solution(false)
-                .with_path_asker(Box::new(asker.clone()))
-        });
-    harness.run();
+    let mut harness = common::window_with_asker(asker, 1400.0, 1000.0);
     harness.get_by_label("View").click();
     harness.run();
     harness.get_by_label("Teaching bench").click();
