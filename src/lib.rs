@@ -22,5 +22,6 @@ pub mod model;
 pub mod palette;
 pub mod physics;
 pub mod recipe;
+pub mod terminal_text;
 pub mod tuning;
 pub mod ui;

@@ -68,7 +68,7 @@ fn parse_args(args: Vec<String>) -> Result<WindowArgs, String> {
                 return Err(format!(
                     "unknown option '{}': the window takes --screenshot FILE.png, \
                      --theme light|dark and --presentation (see 'tankwright help')",
-                    crate::cli::clean(other)
+                    crate::terminal_text::clean(other)
                 ));
             }
         }

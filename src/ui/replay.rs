@@ -93,9 +93,9 @@ impl Driver {
         if self.print_shown && self.frames == PRINT_AT_FRAME {
             println!("title: {title}");
             println!("turns field: {:.2}", recipe.winding.turns);
-            println!("name field: {}", crate::cli::clean(&recipe.name));
+            println!("name field: {}", crate::terminal_text::clean(&recipe.name));
             if let Some(notice) = notice {
-                println!("notice: {}", crate::cli::clean(notice));
+                println!("notice: {}", crate::terminal_text::clean(notice));
             }
             ctx.send_viewport_cmd(egui::ViewportCommand::Close);
             return true;
