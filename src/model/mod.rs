@@ -22,4 +22,5 @@ pub use evaluate::{evaluate, evaluate_coil};
 pub use field_wire::wire_coil;
 pub use inductance_model::{Conditions, InductanceModel};
 pub use tank::{CAPACITANCE_MAX, FeedbackDivider, Tank};
+pub use warnings::AERONAUTICAL_BAND;
 pub use winding::{Coating, DiameterSpec, Gauge, SpacingSpec, Winding, WireSpec};

@@ -14,9 +14,12 @@ const ROSA_MAX_PITCH_OVER_DIAMETER: f64 = 0.5;
 const LEADS_FRACTION: f64 = 0.2;
 /// Below this r/δ the high-frequency proximity model overstates the loss.
 const MIN_RADIUS_OVER_SKIN_DEPTH: f64 = 3.0;
-/// The aeronautical band just above FM broadcast, hertz (common practice: a tank that tunes
-/// there is a hazard to flag).
-const AERONAUTICAL: (f64, f64) = (108e6, 137e6);
+/// The aeronautical band a tank must not reach, hertz: 108–117.975 MHz aeronautical
+/// radionavigation (VOR, ILS localizer) and 117.975–137 MHz aeronautical mobile (R), air
+/// traffic voice (ITU Radio Regulations, Article 5). The one home of these figures: the
+/// verdict reads them as `tuning::service::AERONAUTICAL`.
+pub const AERONAUTICAL_BAND: (f64, f64) = (108e6, 137e6);
+use AERONAUTICAL_BAND as AERONAUTICAL;
 
 fn push(out: &mut Vec<Warning>, topic: WarningTopic, message: String) {
     out.push(Warning { topic, message });

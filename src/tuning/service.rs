@@ -118,10 +118,9 @@ impl Band {
 const FM: Service = Service::FmBroadcast;
 const AM2: Service = Service::TwoMetreAmateur;
 
-/// The aeronautical band a tank must not reach, hertz: 108–117.975 MHz aeronautical
-/// radionavigation (VOR, ILS localizer) and 117.975–137 MHz aeronautical mobile (R), air
-/// traffic voice (ITU Radio Regulations, Article 5).
-pub const AERONAUTICAL: (f64, f64) = (108e6, 137e6);
+/// The aeronautical band a tank must not reach, hertz (ITU Radio Regulations, Article 5; the
+/// figures live once, in [`crate::model::AERONAUTICAL_BAND`]).
+pub const AERONAUTICAL: (f64, f64) = crate::model::AERONAUTICAL_BAND;
 
 /// The aeronautical emergency frequency, 121.5 MHz (ITU Radio Regulations Appendix 15).
 pub const AERONAUTICAL_EMERGENCY: f64 = 121.5e6;

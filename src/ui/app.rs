@@ -540,8 +540,11 @@ impl App {
                     egui::CollapsingHeader::new("Audio and drift")
                         .default_open(false)
                         .show(ui, |ui| {
-                            let tolerance =
-                                evaluation.latest().map_or(15e3, |f| f.target.tolerance);
+                            // Before the first figures: the recipe's own tolerance (its
+                            // plan's service practice unless typed), never a second copy.
+                            let tolerance = evaluation
+                                .latest()
+                                .map_or(recipe.target.tolerance(), |f| f.target.tolerance);
                             // The tank as the figures drive it (on the field solution,
                             // calibrated once there are readings), as `evaluate` does.
                             let (tank, conditions) = evaluation

@@ -3,7 +3,8 @@
 use crate::ui::theme::Theme;
 use crate::ui::units::LengthUnit;
 
-/// Storage key of the view preferences.
+/// Storage key under which an earlier version kept the view preferences in eframe's `app.ron`
+/// (read once when its state is taken over; see `working_copy`).
 pub const PREFERENCES_KEY: &str = "tankwright.view";
 
 /// How the window shows things (kept between sessions).

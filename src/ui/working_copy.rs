@@ -366,7 +366,9 @@ fn from_earlier_version(folder: &Path, out: &mut Restored) {
         return;
     };
     let get = |key: &str| values.get(key).map(String::as_str);
-    if let Some(p) = get("tankwright.view").and_then(|v| ron::from_str(v).ok()) {
+    if let Some(p) =
+        get(crate::ui::preferences::PREFERENCES_KEY).and_then(|v| ron::from_str(v).ok())
+    {
         out.session.preferences = p;
     }
     if let Some(f) = get("tankwright.files").and_then(|v| ron::from_str(v).ok()) {
