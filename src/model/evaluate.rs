@@ -22,7 +22,7 @@ fn validate_conditions(c: &Conditions) -> Result<(), InputError> {
             ),
         ));
     }
-    if !(0.5..=2.0).contains(&c.inductance_scale) {
+    if !Conditions::INDUCTANCE_SCALE_RANGE.contains(&c.inductance_scale) {
         return Err(InputError::new(
             Field::Calibration,
             format!(

@@ -162,6 +162,12 @@ impl Default for Conditions {
 }
 
 impl Conditions {
+    /// The inductance scales the model accepts, as a share of its own figure: a build further
+    /// from the model than a factor of two is another coil (common practice). The one home of
+    /// the range: the evaluation refuses outside it and the field solution's factor must meet
+    /// it.
+    pub const INDUCTANCE_SCALE_RANGE: std::ops::RangeInclusive<f64> = 0.5..=2.0;
+
     /// Whether the filament sum is computed under these conditions.
     pub fn computes_filament_sum(&self) -> bool {
         self.filament_sum || self.model == InductanceModel::FilamentSum

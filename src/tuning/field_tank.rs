@@ -345,7 +345,7 @@ pub fn matching_scale(
         }
         let next = s * (f / target).powi(2);
         let overall = base * next;
-        if !(0.5..=2.0).contains(&overall) {
+        if !Conditions::INDUCTANCE_SCALE_RANGE.contains(&overall) {
             return None;
         }
         let settled = ((next - s) / s).abs() <= SCALE_TOLERANCE;
