@@ -17,6 +17,22 @@ use crate::ui::widgets::{Readout, caution_mark, cautions_line};
 use eframe::egui::{self, RichText};
 
 /// Inductance in nanohenries with its unit.
+/// The hover beside a classical self-resonance estimate's ratio to the field solution.
+const RATIO_HOVER: &str = "This coil's classical estimate over its field-solved self-resonance \
+     (while the field solution is not at hand: the range measured against it on isolated \
+     coils of 6–25 mm and 3–12 turns)";
+
+/// This coil's own ratio of a classical self-resonance estimate to the field solution's,
+/// in words, while the field solution is solved for this coil.
+fn own_ratio(classical: f64, figures: &Figures) -> Option<String> {
+    match &figures.field {
+        FieldBasis::Solved { tank, .. } => {
+            crate::tuning::field_tank::ratio_in_words(classical, tank.self_resonance)
+        }
+        _ => None,
+    }
+}
+
 fn show_nh(henries: f64) -> String {
     format!("{:.1} nH", nh(henries))
 }
@@ -281,8 +297,9 @@ fn figures_rows(ui: &mut egui::Ui, figures: &Figures, unit: LengthUnit) {
         "1/(2π√(L·C_self)) with Medhurst's self-capacitance: the usual first estimate",
     )
     .note(
-        LUMPED_SELF_RESONANCE_BIAS.in_words(),
-        "Measured against the field solution on isolated coils of 6–25 mm and 3–12 turns",
+        own_ratio(a.self_resonance.lumped, figures)
+            .unwrap_or_else(|| LUMPED_SELF_RESONANCE_BIAS.in_words()),
+        RATIO_HOVER,
     )
     .show(ui);
     Readout::new(
@@ -305,8 +322,9 @@ fn figures_rows(ui: &mut egui::Ui, figures: &Figures, unit: LengthUnit) {
          velocity factor",
     )
     .note(
-        HELICAL_SELF_RESONANCE_BIAS.in_words(),
-        "Measured against the field solution on isolated coils of 6–25 mm and 3–12 turns",
+        own_ratio(a.self_resonance.helical, figures)
+            .unwrap_or_else(|| HELICAL_SELF_RESONANCE_BIAS.in_words()),
+        RATIO_HOVER,
     )
     .warnings(a.warnings_about(WarningTopic::SelfResonance))
     .show(ui);
