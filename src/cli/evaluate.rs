@@ -21,6 +21,24 @@ pub struct EvaluateRequest {
     /// What the verdict judges against: the target (`--target-mhz`, or the recipe's
     /// channel) and the tolerance.
     pub aim: Aim,
+    /// A recipe's bench calibration, as `recipe::figures` makes it (`None` from flags, for a
+    /// recipe without readings that fit, and with `--as-written`).
+    pub bench: Option<BenchCalibration>,
+}
+
+/// A recipe's bench calibration as [`crate::recipe::figures`] makes it, so `evaluate
+/// --recipe` states the figures `report`, `solve` and the window state.
+#[derive(Clone, Debug, PartialEq)]
+pub struct BenchCalibration {
+    /// The calibrated tank (the fitted stray).
+    pub tank: Tank,
+    /// The conditions that put the model on the calibrated field-led resonance.
+    pub conditions: Conditions,
+    /// The field-led model with the calibration's scale (`None` where the classical model
+    /// leads).
+    pub led: Option<crate::tuning::landing::FieldLed>,
+    /// Readings the calibration rests on.
+    pub readings: usize,
 }
 
 const MM: f64 = 1e-3;
@@ -130,6 +148,7 @@ impl EvaluateRequest {
             conditions,
             json: args.switch("json"),
             aim,
+            bench: None,
         })
     }
 }
@@ -202,7 +221,7 @@ fn aim_from_args(args: &Args) -> Result<Aim, ArgError> {
 
 /// Run `evaluate` on the words after the subcommand; Ok(stdout) or Err(one-line message).
 pub fn run_evaluate(words: Vec<String>) -> Result<String, String> {
-    let args = Args::parse(words, &["json"]).map_err(|e| e.to_string())?;
+    let args = Args::parse(words, &["json", "as-written"]).map_err(|e| e.to_string())?;
     // The stray, junction and drift flags are read first, so the coil's reader sees them used.
     let extras = super::stray_flags::Extras::from_args(&args).map_err(|e| e.to_string())?;
     let req = match args.text("recipe") {
@@ -210,7 +229,7 @@ pub fn run_evaluate(words: Vec<String>) -> Result<String, String> {
         None => EvaluateRequest::from_args(&args).map_err(|e| e.to_string())?,
     };
     // With a junction given, the tank's resonance includes its capacitance at the bias.
-    let mut tank = req.tank;
+    let mut tank = req.bench.as_ref().map_or(req.tank, |b| b.tank);
     tank.stray += extras.junction_across_tank();
     let classical = crate::model::evaluate(&req.winding, &tank, &req.conditions)
         .map_err(|e| format!("invalid input: {e}"))?;
@@ -228,10 +247,11 @@ pub fn run_evaluate(words: Vec<String>) -> Result<String, String> {
         FieldInput::Solved(field),
     );
     let field_led_conditions = req.conditions;
-    let req = EvaluateRequest {
-        conditions: basis.conditions(&req.conditions),
-        ..req
+    let conditions = match &req.bench {
+        Some(b) => b.conditions,
+        None => basis.conditions(&req.conditions),
     };
+    let req = EvaluateRequest { conditions, ..req };
     let analysis = crate::model::evaluate(&req.winding, &tank, &req.conditions)
         .map_err(|e| format!("invalid input: {e}"))?;
     let more = super::stray_flags::ExtraFigures::compute(&extras, &req, &analysis)?;
@@ -239,11 +259,15 @@ pub fn run_evaluate(words: Vec<String>) -> Result<String, String> {
     // The channel's next step is the one instruction that lands it, finished on field solves
     // of the proposed coil as `recipe::figures` does for the window, `report` and `solve`
     // (`tuning::landing`; the classical model only where the field solution does not lead).
-    let led =
-        matches!(basis, FieldBasis::Solved { .. }).then_some(crate::tuning::landing::FieldLed {
-            conditions: field_led_conditions,
-            scale: 1.0,
-        });
+    let led = match &req.bench {
+        Some(b) => b.led,
+        None => {
+            matches!(basis, FieldBasis::Solved { .. }).then_some(crate::tuning::landing::FieldLed {
+                conditions: field_led_conditions,
+                scale: 1.0,
+            })
+        }
+    };
     if let Some(target) = req.aim.target {
         verdict = verdict.with_advice(crate::tuning::advice::advise_on(
             &analysis.coil,
@@ -258,6 +282,12 @@ pub fn run_evaluate(words: Vec<String>) -> Result<String, String> {
         let mut object = super::json::analysis_json(&analysis);
         super::verdict::add_verdict_json(&mut object, &verdict, &analysis);
         super::json::add_field_solution(&mut object, &classical, &basis);
+        if let (Some(b), serde_json::Value::Object(map)) = (&req.bench, &mut object) {
+            map.insert(
+                "calibrated_on_readings".to_owned(),
+                serde_json::Value::from(b.readings),
+            );
+        }
         more.add_json(&mut object);
         let mut s = object.to_string();
         s.push('\n');
@@ -266,7 +296,11 @@ pub fn run_evaluate(words: Vec<String>) -> Result<String, String> {
         let mut s = super::verdict::verdict_lines(&verdict).join("\n");
         s.push_str("\n\n");
         s.push_str(&super::text::analysis_report(&analysis));
-        s.push_str(&super::text::field_report(&classical, &basis, false));
+        s.push_str(&super::text::field_report(
+            &classical,
+            &basis,
+            req.bench.is_some(),
+        ));
         s.push_str(&more.text());
         s
     })

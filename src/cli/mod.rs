@@ -88,8 +88,10 @@ usage:
                                           presentation layout (F5 switches it)
   tankwright FILE.ron                     open the window on a saved recipe
   tankwright evaluate FLAGS [--json]      print every figure for one coil
-  tankwright evaluate --recipe FILE [--json]   the same for a saved recipe as written
-                                          (its bench readings: report, solve, fit)
+  tankwright evaluate --recipe FILE [--json] [--as-written]
+                                          the same for a saved recipe, calibrated on its
+                                          bench readings as report and solve are
+                                          (--as-written: the recipe alone)
   tankwright report FILE                  a recipe as a build sheet, then every figure
   tankwright sheet FILE --out OUT.pdf     the printable build sheet, spacing chart and
                                           apprentice's worksheet (PDF)

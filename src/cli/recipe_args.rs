@@ -1,6 +1,7 @@
 //! `evaluate --recipe FILE`: the coil, tank, conditions and aim (channel and on-channel
-//! tolerance) of a saved recipe instead of flags: the recipe as written, its bench readings
-//! left to `report`, `solve` and `fit`, which calibrate on them.
+//! tolerance) of a saved recipe instead of flags, calibrated on its bench readings as
+//! `recipe::figures` does for `report`, `solve` and the window (`--as-written`: the recipe
+//! alone).
 
 use super::args::Args;
 use super::evaluate::EvaluateRequest;
@@ -10,7 +11,7 @@ use std::path::Path;
 /// The request a recipe file describes; only `--json` may stand beside `--recipe`.
 pub(crate) fn request_from_recipe(args: &Args, file: &str) -> Result<EvaluateRequest, String> {
     args.reject_unknown()
-        .map_err(|e| format!("with --recipe only --json may be given: {e}"))?;
+        .map_err(|e| format!("with --recipe only --json and --as-written may be given: {e}"))?;
     if let Some(word) = args.positional.first() {
         return Err(format!(
             "unexpected word '{}' after --recipe",
@@ -18,6 +19,19 @@ pub(crate) fn request_from_recipe(args: &Args, file: &str) -> Result<EvaluateReq
         ));
     }
     let recipe = store::load(Path::new(file)).map_err(|e| e.to_string())?;
+    // The bench readings calibrate the figures as `report`, `solve` and the window do, unless
+    // the recipe is asked for as written.
+    let bench = if args.switch("as-written") || recipe.bench_log.is_empty() {
+        None
+    } else {
+        let f = crate::recipe::figures(&recipe).map_err(|e| format!("invalid recipe: {e}"))?;
+        f.calibrated().then(|| super::evaluate::BenchCalibration {
+            tank: f.tank,
+            conditions: f.conditions,
+            led: f.led,
+            readings: f.readings_used(),
+        })
+    };
     Ok(EvaluateRequest {
         aim: crate::tuning::verdict::Aim::new(
             recipe.target.plan.clone(),
@@ -28,5 +42,6 @@ pub(crate) fn request_from_recipe(args: &Args, file: &str) -> Result<EvaluateReq
         tank: recipe.tank,
         conditions: recipe.conditions,
         json: args.switch("json"),
+        bench,
     })
 }

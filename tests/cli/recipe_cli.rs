@@ -19,7 +19,15 @@ fn key_paths(v: &Value, prefix: &str, out: &mut BTreeSet<String>) {
 #[test]
 fn evaluate_recipe_json_has_the_keys_of_the_flag_form_and_the_recipes_figures() {
     let file = asset("lantern_hill_two_metre_buffer.ron");
-    let o = run(&["evaluate", "--recipe", file.to_str().unwrap(), "--json"]);
+    // As written: the recipe's coil and tank alone (its readings calibrate the default form;
+    // see evaluate_of_a_recipe_with_readings_is_calibrated_unless_asked_as_written).
+    let o = run(&[
+        "evaluate",
+        "--recipe",
+        file.to_str().unwrap(),
+        "--json",
+        "--as-written",
+    ]);
     assert!(o.status.success(), "{}", String::from_utf8_lossy(&o.stderr));
     let from_recipe: Value = serde_json::from_str(&stdout(&o)).unwrap();
     // The same coil by flags (the tank's capacitors summed by hand: 4.7 + 2 + 0.5 × 6 pF).
@@ -179,4 +187,36 @@ fn channel_numbers_only_for_the_us_plan() {
         "{text}"
     );
     assert!(!text.contains("(channel 2"), "{text}");
+}
+
+/// Issue 20: `evaluate --recipe` on a recipe with bench readings states the calibrated figure
+/// that `report`, `solve` and the window state (`recipe::figures`), so the coil `solve`
+/// proposes evaluates to its target; `--as-written` gives the recipe alone (the figures
+/// before the readings).
+#[test]
+fn evaluate_of_a_recipe_with_readings_is_calibrated_unless_asked_as_written() {
+    let file = asset("lantern_hill_two_metre_buffer.ron");
+    let path = file.to_str().expect("utf-8");
+    let recipe = tankwright::recipe::store::load(&file).expect("opens");
+    let f = tankwright::recipe::figures(&recipe).expect("valid");
+    assert!(f.calibrated(), "the demo's readings fit");
+    let mhz = |args: &[&str]| -> (f64, serde_json::Value) {
+        let o = run(args);
+        assert!(o.status.success(), "{}", String::from_utf8_lossy(&o.stderr));
+        let v: serde_json::Value = serde_json::from_slice(&o.stdout).expect("JSON");
+        (v["resonance_mhz"].as_f64().expect("number"), v)
+    };
+    let (calibrated, v) = mhz(&["evaluate", "--recipe", path, "--json"]);
+    approx::assert_relative_eq!(calibrated * 1e6, f.analysis.resonance, max_relative = 1e-9);
+    assert_eq!(
+        v["calibrated_on_readings"].as_u64(),
+        Some(f.readings_used() as u64)
+    );
+    let (written, v) = mhz(&["evaluate", "--recipe", path, "--json", "--as-written"]);
+    approx::assert_relative_eq!(written * 1e6, f.uncalibrated.resonance, max_relative = 1e-9);
+    assert!(v.get("calibrated_on_readings").is_none());
+    assert!(
+        (written - calibrated).abs() > 0.1,
+        "the readings move the 2 m tank"
+    );
 }
