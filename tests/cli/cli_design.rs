@@ -8,15 +8,9 @@
 //! Outside source for the hand check: Thomson's formula f = 1/(2π√(LC)) (W. Thomson, Phil.
 //! Mag. 5, 1853) on the inductance and capacitance `evaluate` reports for the candidate.
 
+use crate::common::run;
 use serde_json::Value;
-use std::process::{Command, Output};
-
-fn run(args: &[&str]) -> Output {
-    Command::new(env!("CARGO_BIN_EXE_tankwright"))
-        .args(args)
-        .output()
-        .expect("the binary runs")
-}
+use std::process::Output;
 
 fn json(o: &Output) -> Value {
     assert!(o.status.success(), "{}", String::from_utf8_lossy(&o.stderr));

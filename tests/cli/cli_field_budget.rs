@@ -2,19 +2,7 @@
 //! refused before any solution starts (it was reported after 24 s of work), and a coil too
 //! big for the solution's budget is declined with the reason while the classical model leads.
 
-use std::process::Command;
-
-fn run(args: &[&str]) -> (bool, String, String) {
-    let out = Command::new(env!("CARGO_BIN_EXE_tankwright"))
-        .args(args)
-        .output()
-        .expect("the binary runs");
-    (
-        out.status.success(),
-        String::from_utf8_lossy(&out.stdout).into_owned(),
-        String::from_utf8_lossy(&out.stderr).into_owned(),
-    )
-}
+use crate::common::run_text as run;
 
 const SEVENTY_FIVE: [&str; 11] = [
     "--mean-diameter-mm",

@@ -7,19 +7,8 @@
 //! Appendix G (band gaps: a junction's contact potential lies below it); ITU-R BS.450
 //! (the stereo multiplex's data subcarrier at 57 kHz, below the 100 kHz audio limit).
 
+use crate::common::run_text as run;
 use std::process::{Command, Stdio};
-
-fn run(args: &[&str]) -> (bool, String, String) {
-    let out = Command::new(env!("CARGO_BIN_EXE_tankwright"))
-        .args(args)
-        .output()
-        .expect("the binary runs");
-    (
-        out.status.success(),
-        String::from_utf8_lossy(&out.stdout).into_owned(),
-        String::from_utf8_lossy(&out.stderr).into_owned(),
-    )
-}
 
 /// A small FM coil with a modulating junction, so every drift and modulation line is made.
 const COIL: [&str; 21] = [
