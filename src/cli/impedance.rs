@@ -20,6 +20,8 @@ struct Range {
     from: Option<f64>,
     to: Option<f64>,
     points: usize,
+    /// Whether `--points` was given (else the default, cut to what the coil allows).
+    points_given: bool,
 }
 
 fn range(args: &Args) -> Result<Range, ArgError> {
@@ -39,7 +41,8 @@ fn range(args: &Args) -> Result<Range, ArgError> {
             "--to-mhz {b} must be above --from-mhz {a}"
         )));
     }
-    let points = args.integer("points")?.unwrap_or(DEFAULT_POINTS);
+    let given = args.integer("points")?;
+    let points = given.unwrap_or(DEFAULT_POINTS);
     if !(2..=MAX_POINTS).contains(&points) {
         return Err(ArgError(format!(
             "--points {points}: give 2 to {MAX_POINTS} frequencies"
@@ -49,6 +52,7 @@ fn range(args: &Args) -> Result<Range, ArgError> {
         from: from.map(|f| f / MHZ),
         to: to.map(|f| f / MHZ),
         points: points as usize,
+        points_given: given.is_some(),
     })
 }
 
@@ -88,6 +92,17 @@ pub fn run_impedance(words: Vec<String>) -> Result<String, String> {
             ));
         }
     }
+    // Each point solves the moment matrix once: the count is bounded by the coil's size
+    // before any work (a 60-turn coil took 3.3 s for the default 40 points).
+    let most = crate::tuning::impedance::most_points(&coil, req.conditions.temperature_c)
+        .map_err(|e| e.to_string())?;
+    if range.points > most && range.points_given {
+        return Err(format!(
+            "--points {}: this coil's field solution solves at most {most} frequencies within              the {} s a solution may take; give 2–{most}",
+            range.points,
+            crate::physics::field::budget::TIME_LIMIT_SECONDS
+        ));
+    }
     let operating = (req.tank.external_capacitance() > 0.0).then(|| {
         let field = crate::tuning::field_tank::field_tank(
             &coil,
@@ -111,7 +126,17 @@ pub fn run_impedance(words: Vec<String>) -> Result<String, String> {
         s.push('\n');
         s
     } else {
-        sweep_text(&sweep, coil.lead_length())
+        let mut text = sweep_text(&sweep, coil.lead_length());
+        if sweep.points.len() < range.points {
+            let _ = writeln!(
+                text,
+                "({} points, not {}: the most this coil's field solution solves within {} s)",
+                sweep.points.len(),
+                range.points,
+                crate::physics::field::budget::TIME_LIMIT_SECONDS
+            );
+        }
+        text
     })
 }
 

@@ -118,6 +118,8 @@ pub fn run_reading(words: Vec<String>) -> Result<String, String> {
         error_ppm,
         note,
     };
+    crate::tuning::reading_reach::check(&coil, &recipe.tank, &recipe.conditions, &entry.reading())
+        .map_err(|reason| format!("--mhz: {reason}; {} is kept as it was", super::clean(file)))?;
     recipe.bench_log.push(entry);
     store::save(path, &recipe).map_err(|e| e.to_string())?;
     Ok(format!(

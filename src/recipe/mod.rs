@@ -18,6 +18,7 @@ pub mod format;
 pub mod from_design;
 pub mod load;
 pub mod rules;
+pub mod same;
 pub mod schema;
 pub mod store;
 

@@ -46,9 +46,19 @@ pub struct ImpedanceSweep {
     pub operating: Option<ImpedancePoint>,
 }
 
+/// Most frequencies a sweep of `coil` may solve within the field solution's time bound
+/// ([`crate::physics::field::budget::most_sweep_points`]), known before any work.
+pub fn most_points(coil: &Coil, temperature_c: f64) -> Result<usize, FieldError> {
+    let wire = wire_coil(coil, temperature_c);
+    let unknowns = FieldModel::unknowns(&wire, wire.segments_per_turn(), Feed::Terminals)?;
+    Ok(crate::physics::field::budget::most_sweep_points(unknowns))
+}
+
 /// Sweep `coil` at `temperature_c` over `from`…`to` hertz (defaults: 1 MHz to 1.25 × the
-/// self-resonance, or the solution's ceiling if lower) in `points` log-spaced frequencies,
-/// and solve at the `operating` frequency if given.
+/// self-resonance, or the solution's ceiling if lower) in `points` log-spaced frequencies
+/// (at most [`most_points`]: a larger count is cut to it, so the sweep's time stays bounded;
+/// the result's `points` say how many were solved), and solve at the `operating` frequency if
+/// given.
 pub fn impedance_sweep(
     coil: &Coil,
     temperature_c: f64,
@@ -68,7 +78,7 @@ pub fn impedance_sweep(
             return Err(FieldError::Frequency(f));
         }
     }
-    let count = points.max(2);
+    let count = points.clamp(2, most_points(coil, temperature_c)?);
     let ratio = (to / from).ln() / (count - 1) as f64;
     let points = (0..count)
         .map(|i| {

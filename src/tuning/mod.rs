@@ -21,6 +21,7 @@ pub mod impedance;
 pub mod landing;
 pub mod measured_coil;
 pub mod modulation;
+pub mod reading_reach;
 pub mod service;
 pub mod solve;
 pub mod spice_model;

@@ -9,6 +9,7 @@
 use crate::recipe::{BenchEntry, Figures, Recipe, rules};
 use crate::tuning::advice::Advice;
 use crate::tuning::fit::{Fit, length_uncertainty};
+use crate::tuning::reading_reach;
 use crate::ui::units::LengthUnit;
 use eframe::egui;
 
@@ -322,6 +323,12 @@ impl BenchLogPanel {
         let refusal = entry
             .as_ref()
             .and_then(|e| rules::check_reading(e, index).err());
+        // A reading this tank cannot give (above its resonance with no stray at all) is
+        // refused where it enters, with the highest it could show.
+        let beyond = entry.as_ref().and_then(|e| {
+            let coil = crate::model::Coil::from_winding(&recipe.winding).ok()?;
+            reading_reach::check(&coil, &recipe.tank, &recipe.conditions, &e.reading()).err()
+        });
         let hint = match (&entry, &refusal) {
             _ if full => format!(
                 "the log is full: a recipe keeps at most {} readings (remove old ones first)",
@@ -329,6 +336,7 @@ impl BenchLogPanel {
             ),
             (None, _) => "the coil on screen is refused: fix it first".to_owned(),
             (Some(_), Some(r)) => r.reason.clone(),
+            (Some(_), None) if beyond.is_some() => beyond.clone().unwrap_or_default(),
             (Some(e), None) => format!(
                 "records {:.4} MHz at {} and trimmer {:.0} %",
                 self.form.measured_mhz,
@@ -344,7 +352,7 @@ impl BenchLogPanel {
             };
             if ui
                 .add_enabled(
-                    valid && entry.is_some() && refusal.is_none() && !full,
+                    valid && entry.is_some() && refusal.is_none() && beyond.is_none() && !full,
                     egui::Button::new(button),
                 )
                 .on_hover_text(&hint)
@@ -372,6 +380,12 @@ impl BenchLogPanel {
                 self.form = Form::default();
             }
         });
+        if let Some(reason) = &beyond {
+            ui.colored_label(
+                ui.visuals().warn_fg_color,
+                format!("Not recorded: {reason}"),
+            );
+        }
         action
     }
 }

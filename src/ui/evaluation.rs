@@ -15,6 +15,7 @@
 
 use crate::model::InputError;
 use crate::physics::field::FieldError;
+use crate::recipe::same::same;
 use crate::recipe::{
     BenchEntry, Expectation, FIELD_SWITCHED_OFF, FieldBasis, FieldInput, Figures, Recipe,
     StraySettings, Target, expectation, figures_with,
@@ -64,14 +65,16 @@ impl Inputs {
     }
 
     /// Same inputs as `recipe`'s, compared without cloning.
+    /// NaN matches NaN (see [`same`]): a refused recipe holding NaN is not recomputed on
+    /// every frame.
     fn is_of(&self, recipe: &Recipe, field: &FieldInput) -> bool {
-        self.field == *field
-            && self.winding == recipe.winding
-            && self.tank == recipe.tank
-            && self.conditions == recipe.conditions
-            && self.target == recipe.target
-            && self.bench_log == recipe.bench_log
-            && self.stray == recipe.stray_estimate
+        same(&self.field, field)
+            && same(&self.winding, &recipe.winding)
+            && same(&self.tank, &recipe.tank)
+            && same(&self.conditions, &recipe.conditions)
+            && same(&self.target, &recipe.target)
+            && same(&self.bench_log, &recipe.bench_log)
+            && same(&self.stray, &recipe.stray_estimate)
     }
 }
 

@@ -14,6 +14,7 @@
 //! between writes, so a change is on disk within about half a second, and it writes what is
 //! left when the window closes.
 
+use crate::recipe::same::same;
 use crate::recipe::store::{self, PRIVATE_MODE, SaveError, SaveHow, SaveStep};
 use crate::recipe::{LoadError, Opened, Recipe, format};
 use crate::ui::files::FileDeskMemory;
@@ -281,7 +282,7 @@ impl Restored {
     /// Whether the working copy holds changes that were never saved to a file.
     pub fn has_unsaved_changes(&self) -> bool {
         match (&self.copy, &self.saved) {
-            (Some(copy), Some(saved)) => copy.recipe != *saved,
+            (Some(copy), Some(saved)) => !same(&copy.recipe, saved),
             (Some(_), None) => true,
             (None, _) => false,
         }
@@ -494,7 +495,11 @@ impl Keeper {
         let Some(jobs) = &self.jobs else {
             return;
         };
-        if self.sent_copy.as_ref() != Some(recipe) {
+        if !self
+            .sent_copy
+            .as_ref()
+            .is_some_and(|sent| same(sent, recipe))
+        {
             self.sent_copy = Some(recipe.clone());
             let _ = jobs.send(Job::Copy(recipe.clone()));
         }
@@ -569,7 +574,7 @@ impl SessionStateRef<'_> {
             s.preferences == self.preferences
                 && s.files == *self.files
                 && s.origin.as_deref() == self.origin
-                && s.saved == *self.saved
+                && same(&s.saved, self.saved)
                 && s.parts_on_hand == *self.parts_on_hand
         })
     }

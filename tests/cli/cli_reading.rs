@@ -165,3 +165,35 @@ fn a_receivers_sweep_gives_the_carrier_with_its_bin_as_the_error() {
     ]);
     assert!(!ok && err.contains("line 1"), "{err}");
 }
+
+/// Issue 22: one 400 MHz reading on the 2 m demo was taken in and the calibration then printed
+/// "trimmer reaches only 247.736–NaN MHz". The 2 m tank (5 turns on 5 mm, 4.7 pF fixed, a
+/// 2–8 pF trimmer) cannot resonate near 400 MHz with any stray at or above zero: the reading is
+/// refused where it enters, naming the highest frequency this tank could show, and the file is
+/// kept. The bound is the tool's own (no stray, the lowest accepted inductance scale), so a
+/// reading at the tank's modelled resonance is still taken.
+#[test]
+fn a_reading_no_stray_could_give_is_refused_with_the_tanks_highest() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let file = dir.path().join("two_metre.ron");
+    std::fs::copy(asset("lantern_hill_two_metre_buffer.ron"), &file).expect("copied");
+    let path = file.to_str().expect("utf-8");
+    let before = std::fs::read(&file).expect("read");
+    let (ok, _, err) = run_text(&["reading", "add", path, "--mhz", "400"]);
+    assert!(!ok, "a 400 MHz reading was taken");
+    assert!(err.contains("--mhz"), "{err}");
+    assert!(err.contains("above anything this tank can reach"), "{err}");
+    // The highest it could show is stated, and it lies between the tank's own resonance and
+    // the refused reading.
+    let top: f64 = err
+        .split("resonate at most at ")
+        .nth(1)
+        .and_then(|t| t.split(' ').next())
+        .and_then(|t| t.parse().ok())
+        .unwrap_or_else(|| panic!("no highest frequency in: {err}"));
+    assert!(top > 146.0 && top < 400.0, "{top} MHz");
+    assert_eq!(std::fs::read(&file).expect("read"), before, "file changed");
+    // A reading on the 2 m channel is taken.
+    let (ok, _, err) = run_text(&["reading", "add", path, "--mhz", "145.6"]);
+    assert!(ok, "{err}");
+}

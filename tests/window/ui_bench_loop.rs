@@ -170,3 +170,22 @@ fn a_reading_can_be_edited_and_removed_and_undo_brings_it_back() {
     harness.run();
     assert_eq!(harness.state().recipe().bench_log.len(), 1);
 }
+
+/// Issue 22: a reading this tank cannot give (above its resonance with no stray at all and the
+/// lowest accepted inductance scale) is not recorded: the form says why and names the highest
+/// frequency the tank could show, and the log is unchanged.
+#[test]
+fn a_reading_above_the_tanks_reach_is_not_recorded() {
+    let mut harness = workbench();
+    let before = harness.state().recipe().bench_log.len();
+    type_into(&mut harness, "Measured frequency", "400");
+    harness.get_by_label("Record reading").scroll_to_me();
+    harness.run();
+    let text = screen_text(&harness).join("\n");
+    assert!(
+        text.contains("Not recorded") && text.contains("above anything this tank can reach"),
+        "{text}"
+    );
+    click(&mut harness, "Record reading");
+    assert_eq!(harness.state().recipe().bench_log.len(), before);
+}

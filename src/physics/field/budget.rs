@@ -60,6 +60,22 @@ impl Cost {
     }
 }
 
+/// Frequencies × n³ a sweep may solve on top of its model's fixed part (the integrals and the
+/// self-resonance search, bounded by [`check`]). Measured with `tankwright impedance` in
+/// release on the project machine while other builds ran (4 December 2026; a 10 mm former,
+/// 0.8 mm wire at 2 mm a turn): going from 2 to 40 points added 0.07 s at 160 unknowns,
+/// 0.41 s at 320, 1.10 s at 455 and 2.01 s at 480 (60 turns, 3.3 s in all): about 5e-10 s
+/// × n³ a frequency. Twenty frequencies at 480 unknowns (about 1 s) keeps a whole sweep of
+/// the largest coil accepted near the 2 s of [`TIME_LIMIT_SECONDS`].
+pub const SWEEP_WORK_LIMIT: f64 = 20.0 * 480.0 * 480.0 * 480.0;
+
+/// Most frequencies a sweep of a model with `unknowns` unknowns may solve within
+/// [`SWEEP_WORK_LIMIT`] (never below 2).
+pub fn most_sweep_points(unknowns: usize) -> usize {
+    let n = unknowns.max(1) as f64;
+    ((SWEEP_WORK_LIMIT / (n * n * n)).floor() as usize).max(2)
+}
+
 /// Unknowns kept for the leads and the closing path when the helix's share is worked out
 /// (graded, about 20 a straight part; see [`super::geometry::Structure::build`]).
 pub const STRAIGHT_RESERVE: usize = 80;

@@ -39,6 +39,12 @@ impl FieldModel {
         Self::up_to(coil, per_turn, feed, coil.frequency_ceiling())
     }
 
+    /// The unknowns [`FieldModel::new`] would solve for `coil` (the wire cut, nothing
+    /// integrated: cheap), for bounding the work before it starts.
+    pub fn unknowns(coil: &WireCoil, per_turn: usize, feed: Feed) -> Result<usize, FieldError> {
+        Ok(Structure::build(coil, per_turn.max(4), feed)?.bases.len())
+    }
+
     /// As [`FieldModel::new`], for frequencies up to `max_frequency`.
     pub fn up_to(
         coil: &WireCoil,

@@ -3,6 +3,7 @@
 use super::asker::{PathAsker, Picked, SystemAsker};
 use super::folder::{suggested_file_name, with_ron_extension};
 use super::memory::FileDeskMemory;
+use crate::recipe::same::same;
 use crate::recipe::{self, Recipe, store};
 use std::path::{Path, PathBuf};
 
@@ -114,7 +115,7 @@ impl FileDesk {
 
     /// Whether `doc` differs from what was last saved or opened.
     pub fn is_dirty(&self, doc: &Recipe) -> bool {
-        *doc != self.snapshot
+        !same(doc, &self.snapshot)
     }
 
     /// The window title: the recipe's name, with "• " in front while there are unsaved changes.
