@@ -73,6 +73,10 @@ fn main() -> ExitCode {
             args.remove(0);
             finish(tankwright::cli::run_measured(args))
         }
+        Some("new") => {
+            args.remove(0);
+            finish(tankwright::cli::run_new(args))
+        }
         Some("design") => {
             args.remove(0);
             finish(tankwright::cli::run_design(args))

@@ -11,6 +11,7 @@ mod handout;
 mod impedance;
 mod json;
 mod measured;
+mod new_recipe;
 mod reading;
 mod recipe_args;
 mod report;
@@ -26,6 +27,7 @@ pub use handout::{run_chart, run_sheet, run_spice};
 pub use impedance::run_impedance;
 pub use json::analysis_json;
 pub use measured::run_measured;
+pub use new_recipe::run_new;
 pub use reading::run_reading;
 pub use report::{build_report, run_report};
 pub use text::analysis_report;
@@ -112,8 +114,12 @@ usage:
   tankwright impedance FLAGS [--from-mhz A] [--to-mhz B] [--points N] [--json]
                                           the coil's impedance against frequency, solved
                                           from its own currents (also with --recipe FILE)
-  tankwright reading add FILE (--mhz F | --spectrum SWEEP.csv) [--length-mm L] [--trimmer-pct P] [--clip-pf C]
-             [--instrument TEXT] [--error-ppm E] [--note TEXT]
+  tankwright new FILE.ron FLAGS --target-mhz F [--tolerance-khz K] [--name TEXT]
+           [--notes TEXT] [--construction NAME] [--replace]
+                                          a new recipe from the coil and tank flags above
+                                          (never over an existing file without --replace)
+  tankwright reading add FILE (--mhz F | --spectrum SWEEP.csv) [--length-mm L] [--trimmer-pct P]
+             [--clip-pf C [--clip-tolerance-pct T]] [--instrument TEXT] [--error-ppm E] [--note TEXT]
                                           append a bench reading to a recipe (saved safely;
                                           length and trimmer default to the recipe's)
   tankwright spice FILE --out TANK.cir     the tank as a SPICE netlist (the coil as a network

@@ -86,6 +86,12 @@ pub fn run_reading(words: Vec<String>) -> Result<String, String> {
     let clip = number("clip-pf")?
         .map(|v| within("clip-pf", v, 0.0, 10_000.0, " pF"))
         .transpose()?;
+    let clip_tolerance = number("clip-tolerance-pct")?
+        .map(|v| within("clip-tolerance-pct", v, 0.0, 50.0, " %"))
+        .transpose()?;
+    if clip_tolerance.is_some() && clip.is_none() {
+        return Err("--clip-tolerance-pct needs --clip-pf, the capacitor it belongs to".into());
+    }
     let error_ppm = number("error-ppm")?
         .map(|v| within("error-ppm", v, 0.0, 100_000.0, " ppm"))
         .transpose()?
@@ -117,6 +123,7 @@ pub fn run_reading(words: Vec<String>) -> Result<String, String> {
         instrument,
         error_ppm,
         note,
+        added_tolerance: clip_tolerance.map(|p| p / 100.0),
     };
     crate::tuning::reading_reach::check(&coil, &recipe.tank, &recipe.conditions, &entry.reading())
         .map_err(|reason| format!("--mhz: {reason}; {} is kept as it was", super::clean(file)))?;

@@ -85,6 +85,7 @@ pub(crate) fn to_file_form(r: &Recipe) -> RecipeFile {
                 coil_length_mm: Scaled::from_si(e.length),
                 trimmer_percent: Scaled::from_si(e.trimmer_setting),
                 added_pf: Scaled::from_si(e.added_capacitance),
+                added_tolerance_percent: e.added_tolerance.map(Scaled::from_si),
                 instrument: e.instrument.clone(),
                 error_ppm: e.error_ppm,
                 note: e.note.clone(),
@@ -209,6 +210,7 @@ pub(crate) fn from_file_form(sheet: RecipeFile) -> Recipe {
             instrument: r.instrument.clone(),
             error_ppm: r.error_ppm,
             note: r.note.clone(),
+            added_tolerance: r.added_tolerance_percent.map(Scaled::si),
         })
         .collect();
     Recipe {

@@ -41,6 +41,9 @@ pub struct BenchEntry {
     pub trimmer_setting: f64,
     /// A known capacitor clipped across the tank for this reading, farads (0 for none).
     pub added_capacitance: f64,
+    /// That capacitor's tolerance as a fraction (0.05 for ±5 %), if stated; the fit takes
+    /// [`crate::tuning::fit::CLIP_ON_TOLERANCE`] otherwise.
+    pub added_tolerance: Option<f64>,
     /// What it was measured with (free text).
     pub instrument: String,
     /// The instrument's frequency error in ppm, if known.
@@ -98,6 +101,7 @@ impl BenchEntry {
             trimmer_setting: self.trimmer_setting,
             added_capacitance: self.added_capacitance,
             error_ppm: self.error_ppm,
+            added_tolerance: self.added_tolerance,
         }
     }
 }

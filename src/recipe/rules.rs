@@ -162,6 +162,20 @@ pub fn check_reading(r: &BenchEntry, i: usize) -> Result<(), Refusal> {
             format!("instrument error {ppm} ppm is outside 0–{PPM_MAX} ppm"),
         ));
     }
+    if let Some(t) = r.added_tolerance
+        && (!t.is_finite() || !(0.0..=0.5).contains(&t))
+    {
+        return Err(Refusal::new(
+            field("added_tolerance_percent"),
+            "added_tolerance_percent",
+            i,
+            format!(
+                "clip-on capacitor tolerance {} % is outside 0–50 % (common practice: parts \
+                 are sold at ±1 % to ±20 %)",
+                crate::model::short_numbers(&format!("{}", t * 100.0))
+            ),
+        ));
+    }
     if !(0.0..=crate::model::CAPACITANCE_MAX).contains(&r.added_capacitance) {
         return Err(Refusal::new(
             field("added_pf"),

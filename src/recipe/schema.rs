@@ -434,6 +434,9 @@ pub struct ReadingSheet {
     /// A known capacitor clipped across the tank for this reading, pF (0 or absent: none).
     #[serde(default, skip_serializing_if = "is_zero_pf")]
     pub added_pf: Picofarads,
+    /// That capacitor's tolerance, percent (absent: not stated; the fit takes ±5 %).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub added_tolerance_percent: Option<Percent>,
     /// What it was measured with.
     #[serde(default)]
     pub instrument: String,

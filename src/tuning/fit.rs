@@ -57,6 +57,8 @@ pub struct Reading {
     pub trimmer_setting: f64,
     /// A known capacitance clipped across the tank for this reading, farads (0 for none).
     pub added_capacitance: f64,
+    /// That capacitor's tolerance as a fraction, if stated (else [`CLIP_ON_TOLERANCE`]).
+    pub added_tolerance: Option<f64>,
     /// The instrument's frequency error, ppm, if known.
     pub error_ppm: Option<f64>,
 }
@@ -273,6 +275,8 @@ struct Prepared {
     factor: f64,
     /// The known capacitor clipped on for this reading, farads (part of `external`).
     added: f64,
+    /// Its tolerance as a fraction (the reading's, else [`CLIP_ON_TOLERANCE`]).
+    added_tolerance: f64,
 }
 
 impl Prepared {
@@ -344,6 +348,7 @@ pub fn fit_on(
             sigma: r.sigma(),
             factor: 1.0,
             added: r.added_capacitance,
+            added_tolerance: r.added_tolerance.unwrap_or(CLIP_ON_TOLERANCE),
         });
     }
     let mut warnings = harmonics(&prepared, conditions);
@@ -491,8 +496,9 @@ pub fn fit_on(
 pub const CLIP_ON_TOLERANCE: f64 = 0.05;
 
 /// Add what the clipped-on capacitors' tolerance leaves in the parameters to their errors:
-/// the least squares run again with every such capacitor [`CLIP_ON_TOLERANCE`] larger (one
-/// part used for every reading, so fully correlated), and the shift of each parameter is added
+/// the least squares run again with every such capacitor larger by its tolerance (the
+/// reading's own, else [`CLIP_ON_TOLERANCE`]; taken as one part used for every reading, so
+/// fully correlated), and the shift of each parameter is added
 /// in quadrature to its standard error (and the product of the shifts to the covariance).
 fn clip_on_tolerance(
     prepared: &[Prepared],
@@ -506,7 +512,7 @@ fn clip_on_tolerance(
     let shifted: Vec<Prepared> = prepared
         .iter()
         .map(|p| Prepared {
-            external: p.external + CLIP_ON_TOLERANCE * p.added,
+            external: p.external + p.added_tolerance * p.added,
             ..p.clone()
         })
         .collect();

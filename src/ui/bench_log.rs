@@ -52,6 +52,9 @@ struct Form {
     /// Trimmer setting, percent; `None` takes the present setting.
     trimmer_pct: Option<f64>,
     added_pf: f64,
+    /// The clipped-on capacitor's tolerance, percent (kept with the reading while one is
+    /// clipped on).
+    added_tolerance_pct: f64,
     instrument: String,
     error_known: bool,
     error_ppm: f64,
@@ -65,6 +68,7 @@ impl Default for Form {
             length: None,
             trimmer_pct: None,
             added_pf: 0.0,
+            added_tolerance_pct: crate::tuning::fit::CLIP_ON_TOLERANCE * 100.0,
             instrument: String::new(),
             error_known: false,
             error_ppm: 10.0,
@@ -80,6 +84,10 @@ impl Form {
             length: Some(e.length),
             trimmer_pct: Some(e.trimmer_setting * 100.0),
             added_pf: e.added_capacitance * 1e12,
+            added_tolerance_pct: e
+                .added_tolerance
+                .unwrap_or(crate::tuning::fit::CLIP_ON_TOLERANCE)
+                * 100.0,
             instrument: e.instrument.clone(),
             error_known: e.error_ppm.is_some(),
             error_ppm: e.error_ppm.unwrap_or(10.0),
@@ -282,6 +290,24 @@ impl BenchLogPanel {
                 );
                 ui.end_row();
 
+                if form.added_pf > 0.0 {
+                    let label = ui.label("Its tolerance");
+                    ui.add(
+                        egui::DragValue::new(&mut form.added_tolerance_pct)
+                            .range(0.0..=50.0)
+                            .speed(0.1)
+                            .fixed_decimals(1)
+                            .prefix("± ")
+                            .suffix(" %"),
+                    )
+                    .labelled_by(label.id)
+                    .on_hover_text(
+                        "the clipped-on capacitor's tolerance as marked on it: the calibration \
+                         carries it into the stray's and the inductance's errors",
+                    );
+                    ui.end_row();
+                }
+
                 let label = ui.label("Instrument");
                 ui.add(
                     egui::TextEdit::singleline(&mut form.instrument)
@@ -317,6 +343,8 @@ impl BenchLogPanel {
             instrument: self.form.instrument.trim().to_owned(),
             error_ppm: self.form.error_known.then_some(self.form.error_ppm),
             note: self.form.note.trim().to_owned(),
+            added_tolerance: (self.form.added_pf > 0.0)
+                .then_some(self.form.added_tolerance_pct / 100.0),
         });
         let full = self.editing.is_none() && recipe.bench_log.len() >= rules::READINGS_MAX;
         let index = self.editing.unwrap_or(recipe.bench_log.len());

@@ -197,3 +197,61 @@ fn a_reading_no_stray_could_give_is_refused_with_the_tanks_highest() {
     let (ok, _, err) = run_text(&["reading", "add", path, "--mhz", "145.6"]);
     assert!(ok, "{err}");
 }
+
+/// Issue 24: the clip-on capacitor's tolerance is kept with the reading (`--clip-tolerance-pct`)
+/// and written to the file; without a capacitor it is refused, the file kept.
+#[test]
+fn the_clip_on_tolerance_is_kept_with_the_reading() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let file = dir.path().join("bench.ron");
+    std::fs::copy(asset("lantern_hill_bench_oscillator.ron"), &file).expect("copied");
+    let path = file.to_str().expect("utf-8");
+    let before = std::fs::read(&file).expect("read");
+    let (ok, _, err) = run_text(&[
+        "reading",
+        "add",
+        path,
+        "--mhz",
+        "97.5",
+        "--clip-tolerance-pct",
+        "1",
+    ]);
+    assert!(
+        !ok && err.contains("--clip-tolerance-pct needs --clip-pf"),
+        "{err}"
+    );
+    assert_eq!(std::fs::read(&file).expect("read"), before);
+    let (ok, _, err) = run_text(&[
+        "reading",
+        "add",
+        path,
+        "--mhz",
+        "97.5",
+        "--clip-pf",
+        "10",
+        "--clip-tolerance-pct",
+        "1",
+    ]);
+    assert!(ok, "{err}");
+    let text = std::fs::read_to_string(&file).expect("read");
+    assert!(text.contains("added_tolerance_percent: Some(1"), "{text}");
+    let r = store::load(&file).expect("opens");
+    let last = r.bench_log.last().expect("reading");
+    assert_eq!(last.added_capacitance, 10e-12);
+    assert_eq!(last.added_tolerance, Some(0.01));
+    let (ok, _, err) = run_text(&[
+        "reading",
+        "add",
+        path,
+        "--mhz",
+        "97.5",
+        "--clip-pf",
+        "10",
+        "--clip-tolerance-pct",
+        "80",
+    ]);
+    assert!(
+        !ok && err.contains("--clip-tolerance-pct 80: give 0–50 %"),
+        "{err}"
+    );
+}

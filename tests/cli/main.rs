@@ -11,6 +11,7 @@ mod cli_impedance;
 mod cli_impossible;
 mod cli_measured;
 mod cli_modulation;
+mod cli_new;
 mod cli_reading;
 mod cli_sheet;
 mod cli_spice;

@@ -377,6 +377,7 @@ fn calibrated_band_matches_the_scatter_of_refits() {
             trimmer_setting: s,
             added_capacitance: 0.0,
             error_ppm: Some(ppm),
+            added_tolerance: None,
         })
         .collect();
     let at = 12e-3;

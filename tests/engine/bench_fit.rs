@@ -42,6 +42,7 @@ fn reading(
         trimmer_setting: setting,
         added_capacitance: added,
         error_ppm: Some(ppm),
+        added_tolerance: None,
     }
 }
 
@@ -158,6 +159,7 @@ fn a_harmonic_is_suspected() {
         trimmer_setting: tank.trimmer_setting,
         added_capacitance: 0.0,
         error_ppm: Some(5.0),
+        added_tolerance: None,
     };
     let warned = |w: &[FitWarning]| w.iter().any(|w| matches!(w, FitWarning::Harmonic { .. }));
     // 2.02× is within the 4 % window (a capacitance of a quarter of the tank's reproduces it).
@@ -277,6 +279,7 @@ fn no_readings_and_bad_readings_are_refused_by_name() {
         trimmer_setting: 0.5,
         added_capacitance: 0.0,
         error_ppm: None,
+        added_tolerance: None,
     };
     let e = fit(&coil, &tank, &cond, &[r]).expect_err("too short");
     assert!(e.to_string().starts_with("reading 1:"), "{e}");

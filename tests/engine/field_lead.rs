@@ -125,6 +125,7 @@ fn entry(r: &Recipe, measured: f64, added: f64) -> BenchEntry {
         instrument: "counter".to_owned(),
         error_ppm: Some(1.0),
         note: String::new(),
+        added_tolerance: None,
     }
 }
 
@@ -159,6 +160,7 @@ fn one_reading_fixes_the_stray_and_keeps_the_field_solved_inductance() {
         trimmer_setting: r.tank.trimmer_setting,
         added_capacitance: 0.0,
         error_ppm: Some(1.0),
+        added_tolerance: None,
     };
     let predicted = predicted_for(&f.coil, &f.tank, &f.conditions, &reading);
     // One reading is met exactly by the fitted stray (to the fit's 0.01 pF step: ~40 Hz).

@@ -285,6 +285,7 @@ fn bench_build(
             instrument: "counter".to_owned(),
             error_ppm: Some(10.0),
             note: String::new(),
+            added_tolerance: None,
         });
     }
     None

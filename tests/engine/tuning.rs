@@ -61,6 +61,7 @@ fn a_measurement_is_corrected_to_the_target() {
         trimmer_setting: 0.0,
         added_capacitance: 0.0,
         error_ppm: Some(1.0),
+        added_tolerance: None,
     };
     let fitted = fit(&coil, &tank, &cond, &[reading]).expect("reachable");
     let extra = fitted.calibration.extra_capacitance;
@@ -127,6 +128,7 @@ fn instrument_error_as_length() {
         trimmer_setting: 0.0,
         added_capacitance: 0.0,
         error_ppm: Some(10.0),
+        added_tolerance: None,
     };
     let sigma = reading.sigma();
     assert!((sigma - 1e3).abs() < 1e-9, "{sigma}");

@@ -91,6 +91,7 @@ fn demo_with_a_reading() -> Recipe {
         instrument: "club counter".to_owned(),
         error_ppm: None,
         note: "first light".to_owned(),
+        added_tolerance: None,
     });
     recipe
 }

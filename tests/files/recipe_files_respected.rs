@@ -127,6 +127,7 @@ fn reading(mhz: f64) -> BenchEntry {
         instrument: String::new(),
         error_ppm: None,
         note: String::new(),
+        added_tolerance: None,
     }
 }
 

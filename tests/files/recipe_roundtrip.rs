@@ -20,6 +20,7 @@ fn demo_with_log() -> Recipe {
         instrument: "bench counter".to_owned(),
         error_ppm: Some(2.5),
         note: "first light, \"quoted\"# and r#\"raw\"##, a \\ backslash\nsecond line".to_owned(),
+        added_tolerance: None,
     });
     r
 }
@@ -292,16 +293,20 @@ fn file_strategy(
         proptest::option::of(num(0.0, 50.0)),
         "\\PC{0,20}",
         prop_oneof![Just(0.0), num(0.1, 100.0)],
+        proptest::option::of(num(0.0, 50.0)),
     )
-        .prop_map(|(f, l, s, instrument, ppm, note, added)| ReadingSheet {
-            measured_mhz: Scaled::from_file_units(f),
-            coil_length_mm: Scaled::from_file_units(l),
-            trimmer_percent: Scaled::from_file_units(s),
-            added_pf: Scaled::from_file_units(added),
-            instrument,
-            error_ppm: ppm,
-            note,
-        });
+        .prop_map(
+            |(f, l, s, instrument, ppm, note, added, tolerance)| ReadingSheet {
+                measured_mhz: Scaled::from_file_units(f),
+                coil_length_mm: Scaled::from_file_units(l),
+                trimmer_percent: Scaled::from_file_units(s),
+                added_pf: Scaled::from_file_units(added),
+                added_tolerance_percent: tolerance.map(Scaled::from_file_units),
+                instrument,
+                error_ppm: ppm,
+                note,
+            },
+        );
     (
         "\\PC{0,30}",
         "\\PC{0,60}",
@@ -429,6 +434,7 @@ proptest! {
             instrument: String::new(),
             error_ppm: None,
             note: String::new(),
+            added_tolerance: None,
         });
         let back = format::from_text(&format::to_text(&r)).unwrap();
         prop_assert_eq!(back, r);

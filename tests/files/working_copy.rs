@@ -109,6 +109,7 @@ fn a_working_copy_that_breaks_a_rule_comes_back_with_every_field() {
         instrument: "dip meter".to_owned(),
         error_ppm: Some(50.0),
         note: "reading kept".to_owned(),
+        added_tolerance: None,
     });
     let mut long_name = edited();
     long_name.name = "x".repeat(250);

@@ -117,6 +117,7 @@ fn bench_loop(c: &mut Criterion) {
                 trimmer_setting: setting,
                 added_capacitance: 0.0,
                 error_ppm: Some(5.0),
+                added_tolerance: None,
             }
         })
         .collect();

@@ -140,6 +140,7 @@ fn readings_of_a_build(app: &App) -> Vec<BenchEntry> {
             instrument: "counter".to_owned(),
             error_ppm: Some(10.0),
             note: String::new(),
+            added_tolerance: None,
         })
         .collect()
 }

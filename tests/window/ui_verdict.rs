@@ -188,6 +188,7 @@ fn a_bench_reading_makes_the_verdict_calibrated() {
             instrument: "counter".to_owned(),
             error_ppm: None,
             note: String::new(),
+            added_tolerance: None,
         });
     harness.run();
     harness.run();

@@ -66,6 +66,7 @@ fn a_working_copy_that_breaks_a_rule_reopens_with_every_field_and_says_why() {
         instrument: "dip meter".to_owned(),
         error_ppm: None,
         note: "kept".to_owned(),
+        added_tolerance: None,
     });
     keep_copy(dir.path(), &copy, &Recipe::demo());
     let harness = window(dir.path().to_path_buf(), None);
