@@ -209,6 +209,18 @@ mod nec {
         run(&deck(c, per_turn, Source::Terminals, &fr))[0]
     }
 
+    /// NEC's Z at the terminals at `count` frequencies from `lo` hertz in steps of `step`.
+    pub fn sweep(
+        c: &WireCoil,
+        per_turn: usize,
+        lo: f64,
+        step: f64,
+        count: usize,
+    ) -> Vec<(f64, f64)> {
+        let fr = format!("FR 0 {count} 0 0 {:.9e} {:.9e}", lo * 1e-6, step * 1e-6);
+        run(&deck(c, per_turn, Source::Terminals, &fr))
+    }
+
     /// NEC's first series resonance at the helix's middle with the terminals open (the first
     /// natural mode), hertz: a ×1.04 scan, then 21 points across the bracket, the zero of
     /// Im Z by linear interpolation.
@@ -798,4 +810,86 @@ fn tank_resonance_settles_below_the_self_resonance_for_any_capacitance() {
         assert!(tank.evaluations <= 40, "{}", tank.evaluations);
         last = f;
     }
+}
+
+/// Issue 24: a Touchstone file made from nec2c's impedance of a coil (not from a lumped
+/// network) read back into the coil's figures. The file holds S11 of the coil across one
+/// 50 ohm port (Γ = (Z − Z0)/(Z + Z0), Pozar, *Microwave Engineering*, 4th ed., 2012, §2.3), RI
+/// form, version 1.1, every 10 MHz from 10 MHz to past the first parallel resonance at the
+/// terminals. The references are nec2c's own, taken apart from the file: the resonance from
+/// a scan twenty times finer, the low-frequency inductance from X/ω at 10 MHz.
+#[test]
+fn a_touchstone_file_of_a_coil_solved_by_nec2c_gives_its_figures_back() {
+    use num_complex::Complex64;
+    use tankwright::instruments::touchstone;
+    use tankwright::tuning::measured_coil::fit_measured_coil;
+    let c = coil(10.0, 5.0, 2.0, 1.0, 5.0);
+    let per = 16;
+    let (lo, step) = (10e6, 10e6);
+    let z = nec::sweep(&c, per, lo, step, 80);
+    // The first parallel resonance: X turns from inductive to capacitive.
+    let k = z
+        .windows(2)
+        .position(|w| w[0].1 > 0.0 && w[1].1 <= 0.0)
+        .expect("the sweep passes the self-resonance");
+    let top = (k + 8).min(z.len());
+    let mut text = String::from("! nec2c's terminal impedance of a 5-turn coil\n# MHz S RI R 50\n");
+    for (i, &(r, x)) in z[..top].iter().enumerate() {
+        let zz = Complex64::new(r, x);
+        let s11 = (zz - 50.0) / (zz + 50.0);
+        writeln!(
+            text,
+            "{:.6} {:.15e} {:.15e}",
+            (lo + step * i as f64) * 1e-6,
+            s11.re,
+            s11.im
+        )
+        .expect("string");
+    }
+    let m = touchstone::read(&text, 1).expect("reads");
+    let coil_fit = fit_measured_coil(&m.samples, Some(100e6)).expect("fits");
+
+    // nec2c's resonance on a scan twenty times finer across the bracket, located on the
+    // susceptance B = Im 1/Z (smooth through the pole of X).
+    let f_k = lo + step * k as f64;
+    let fine = nec::sweep(&c, per, f_k, step / 20.0, 21);
+    let b = |(r, x): (f64, f64)| (1.0 / Complex64::new(r, x)).im;
+    let j = fine
+        .windows(2)
+        .position(|w| w[0].1 > 0.0 && w[1].1 <= 0.0)
+        .expect("the resonance in the fine scan");
+    let (b0, b1) = (b(fine[j]), b(fine[j + 1]));
+    let srf = f_k + step / 20.0 * (j as f64 - b0 / (b1 - b0));
+    // The low-frequency inductance: X/ω at 10 MHz, less the lumped rise (f/f₀)² (0.1 %).
+    let l_ref = z[0].1 / (2.0 * PI * lo) * (1.0 - (lo / srf).powi(2));
+
+    let seen = coil_fit
+        .self_resonance_seen
+        .expect("the file crosses the resonance");
+    // The file's crossing is interpolated on B over its 10 MHz step: within Δf²/(8f)
+    // (linear interpolation of a smooth curve, the fit's stated error).
+    let seen_tol = step * step / (8.0 * srf);
+    println!(
+        "self-resonance: file {:.3} MHz, nec2c fine {:.3} MHz (tolerance {:.3} MHz); network's \
+         {:.3} MHz; L {:.3} nH against nec2c's {:.3} nH; C {:.3} pF; Q {:.0} at 100 MHz; \
+         residual {:.4}",
+        seen * 1e-6,
+        srf * 1e-6,
+        seen_tol * 1e-6,
+        coil_fit.self_resonance * 1e-6,
+        coil_fit.inductance * 1e9,
+        l_ref * 1e9,
+        coil_fit.self_capacitance * 1e12,
+        coil_fit.q,
+        coil_fit.residual
+    );
+    assert!((seen - srf).abs() <= seen_tol, "{seen} against {srf}");
+    // The lumped network (L–R shunted by C) stands for the distributed coil to within the
+    // fit's stated RMS residual on X; its L is held to nec2c's to that residual.
+    assert!(
+        (coil_fit.inductance / l_ref - 1.0).abs() <= coil_fit.residual.max(1e-3),
+        "L {} against {}",
+        coil_fit.inductance,
+        l_ref
+    );
 }
