@@ -2,13 +2,13 @@
 //! measured across frequency by a network analyser, reduced to its inductance,
 //! self-capacitance, series resistance, Q and self-resonance (`tuning::measured_coil`); with a
 //! recipe, the same reduction of the field solution of the recipe's coil over the same band,
-//! and the ratios of the two.
+//! and the ratios of the two; with `--keep`, the measurement kept with the recipe, where it
+//! calibrates the inductance (`recipe::figures`).
 
 use super::args::Args;
 use crate::instruments::touchstone;
 use crate::model::Coil;
 use crate::recipe::store;
-use crate::tuning::impedance::impedance_sweep;
 use crate::tuning::measured_coil::{MeasuredCoil, fit_measured_coil};
 use serde_json::{Value, json};
 use std::fmt::Write as _;
@@ -16,8 +16,6 @@ use std::path::Path;
 
 /// Largest file read (a sweep of a few thousand points is a few hundred kilobytes).
 const MAX_BYTES: u64 = 16 * 1024 * 1024;
-/// Frequencies the field solution is sampled at for the comparison.
-const FIELD_POINTS: usize = 24;
 
 fn ports_of(file: &str) -> Result<usize, String> {
     let lower = file.to_ascii_lowercase();
@@ -52,44 +50,6 @@ fn read_text(file: &str) -> Result<String, String> {
     let bytes =
         std::fs::read(path).map_err(|e| format!("{}: cannot be read: {e}", super::clean(file)))?;
     String::from_utf8(bytes).map_err(|_| format!("{}: not a text file", super::clean(file)))
-}
-
-/// The field solution of `coil` reduced the same way, over `from`…`to` hertz (clamped to what
-/// the solution answers for), with R and Q stated nearest `at` hertz.
-fn field_reduction(
-    coil: &Coil,
-    temperature_c: f64,
-    (from, to): (f64, f64),
-    at: f64,
-) -> Result<MeasuredCoil, String> {
-    let probe = impedance_sweep(coil, temperature_c, Some(from), None, 2, None)
-        .map_err(|e| format!("the field solution of the recipe's coil: {e}"))?;
-    let to = to.min(probe.ceiling);
-    if to <= from {
-        return Err("the file's band lies above what the field solution answers for".into());
-    }
-    let sweep = impedance_sweep(
-        coil,
-        temperature_c,
-        Some(from),
-        Some(to),
-        FIELD_POINTS,
-        None,
-    )
-    .map_err(|e| format!("the field solution of the recipe's coil: {e}"))?;
-    let samples: Vec<touchstone::ImpedanceSample> = sweep
-        .points
-        .iter()
-        .map(|p| touchstone::ImpedanceSample {
-            frequency: p.frequency,
-            impedance: p.impedance,
-        })
-        .collect();
-    let mut fitted =
-        fit_measured_coil(&samples, Some(at)).map_err(|e| format!("field solution: {e}"))?;
-    // The self-resonance is the solution's own, not the line's extrapolation.
-    fitted.self_resonance_seen = Some(sweep.self_resonance);
-    Ok(fitted)
 }
 
 fn figures_json(m: &MeasuredCoil) -> Value {
@@ -158,7 +118,8 @@ fn figures_text(out: &mut String, m: &MeasuredCoil) {
 
 /// Run `measured` on the words after the subcommand; Ok(stdout) or Err(one-line message).
 pub fn run_measured(words: Vec<String>) -> Result<String, String> {
-    let args = Args::parse(words, &["json"]).map_err(|e| e.to_string())?;
+    let args = Args::parse(words, &["json", "keep"]).map_err(|e| e.to_string())?;
+    let keep = args.switch("keep");
     let at = args.number("at-mhz").map_err(|e| e.to_string())?;
     if let Some(f) = at
         && !(f > 0.0 && f < 1e5)
@@ -169,9 +130,12 @@ pub fn run_measured(words: Vec<String>) -> Result<String, String> {
     }
     let recipe_file = args.text("recipe").map(str::to_owned);
     args.reject_unknown().map_err(|e| e.to_string())?;
+    if keep && recipe_file.is_none() {
+        return Err("--keep needs --recipe R, the recipe to keep the measurement with".into());
+    }
     let [file] = args.positional.as_slice() else {
         return Err(
-            "usage: tankwright measured FILE.s1p|FILE.s2p [--recipe R] [--at-mhz F] [--json]"
+            "usage: tankwright measured FILE.s1p|FILE.s2p [--recipe R [--keep]] [--at-mhz F] [--json]"
                 .into(),
         );
     };
@@ -181,7 +145,7 @@ pub fn run_measured(words: Vec<String>) -> Result<String, String> {
         Some(r) => {
             let recipe = store::load(Path::new(r)).map_err(|e| e.to_string())?;
             let coil = Coil::from_winding(&recipe.winding).map_err(|e| e.to_string())?;
-            Some((coil, recipe.conditions.temperature_c))
+            Some((coil, recipe.conditions.temperature_c, recipe))
         }
         None => None,
     };
@@ -195,8 +159,38 @@ pub fn run_measured(words: Vec<String>) -> Result<String, String> {
         measurement.samples[measurement.samples.len() - 1].frequency,
     );
     let field = match &coil {
-        Some((c, t)) => Some(field_reduction(c, *t, (from, to), measured.at_frequency)?),
+        Some((c, t, _)) => Some(crate::tuning::measured_field::field_reduction(
+            c,
+            *t,
+            (from, to),
+            measured.at_frequency,
+        )?),
         None => None,
+    };
+    // Kept with the recipe: the coil as it is in the recipe now is the coil measured.
+    let kept = match (keep, coil, &recipe_file, &field) {
+        (true, Some((_, _, mut recipe)), Some(r), Some(f)) => {
+            let scale = measured.inductance / f.inductance;
+            if !crate::model::Conditions::INDUCTANCE_SCALE_RANGE.contains(&scale) {
+                return Err(format!(
+                    "nothing kept: the measured inductance is {scale:.3} of the field solution's \
+                     for the recipe's coil (outside 0.5–2): another coil, or a fixture not \
+                     calibrated out"
+                ));
+            }
+            let source = Path::new(file)
+                .file_name()
+                .map_or_else(|| file.clone(), |n| n.to_string_lossy().into_owned());
+            recipe.coil_measurement = Some(crate::tuning::measured_field::CoilMeasurement {
+                source,
+                winding: recipe.winding,
+                band: (from, to),
+                coil: measured,
+            });
+            store::save(Path::new(r), &recipe).map_err(|e| e.to_string())?;
+            Some((r.clone(), scale))
+        }
+        _ => None,
     };
     let fixture = match measurement.fixture {
         touchstone::Fixture::OnePort => "one port, coil across it",
@@ -215,6 +209,10 @@ pub fn run_measured(words: Vec<String>) -> Result<String, String> {
             && let Value::Object(fig) = figures_json(&measured)
         {
             map.extend(fig);
+        }
+        if let Some((r, scale)) = &kept {
+            v["kept_with"] = json!(r);
+            v["inductance_scale_on_field"] = json!(scale);
         }
         if let Some(f) = &field {
             v["field_solution"] = figures_json(f);
@@ -261,6 +259,14 @@ pub fn run_measured(words: Vec<String>) -> Result<String, String> {
             out,
             "measured / field solution: inductance {:.3}",
             measured.inductance / f.inductance
+        );
+    }
+    if let Some((r, scale)) = &kept {
+        let _ = writeln!(
+            out,
+            "kept with {}: the recipe's inductance is now calibrated at {scale:.3} of the field \
+             solution's while its bench readings cannot tell the inductance apart",
+            super::clean(r)
         );
     }
     Ok(out)

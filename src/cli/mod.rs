@@ -125,12 +125,14 @@ usage:
   tankwright spice FILE --out TANK.cir     the tank as a SPICE netlist (the coil as a network
                                           fitted to the field solution; ngspice -b TANK.cir
                                           prints resonance = VALUE in hertz)
-  tankwright measured FILE.s1p|FILE.s2p [--recipe R] [--at-mhz F] [--json]
+  tankwright measured FILE.s1p|FILE.s2p [--recipe R [--keep]] [--at-mhz F] [--json]
                                           a coil measured by a network analyser (Touchstone
                                           1.1 or 2.0; .s1p across one port, .s2p in series):
                                           its inductance, self-capacitance, resistance, Q and
                                           self-resonance; with a recipe, beside the field
-                                          solution of its coil over the same band
+                                          solution of its coil over the same band; --keep
+                                          keeps it with the recipe, where it calibrates the
+                                          inductance as bench readings would
   tankwright help                         this text
 
 evaluate flags (millimetres, picofarads, megahertz):

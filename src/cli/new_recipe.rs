@@ -66,6 +66,7 @@ pub fn run_new(mut words: Vec<String>) -> Result<String, String> {
             construction,
             ..StraySettings::default()
         },
+        coil_measurement: None,
     };
     crate::recipe::rules::judge(&recipe).map_err(|r| format!("{}: {}", r.field, r.reason))?;
     let path = Path::new(&file);

@@ -3,15 +3,17 @@
 
 use super::document::{BenchEntry, Recipe, StraySettings, Target};
 use super::schema::{
-    AimSheet, BuildingMethod, CoatingName, CoilSheet, ConditionsSheet, DiameterMm, DividerSheet,
-    ModelName, PlanName, ReadingSheet, RecipeFile, SCHEMA, Scaled, SpacingMm, StraySheet,
-    TankSheet, WireSize,
+    AimSheet, BuildingMethod, CoatingName, CoilMeasurementSheet, CoilSheet, ConditionsSheet,
+    DiameterMm, DividerSheet, ModelName, PlanName, ReadingSheet, RecipeFile, SCHEMA, Scaled,
+    SpacingMm, StraySheet, TankSheet, WireSize,
 };
 use crate::model::{
     Coating, Conditions, DiameterSpec, FeedbackDivider, Gauge, SpacingSpec, Tank, Winding, WireSpec,
 };
 use crate::tuning::BandPlan;
 use crate::tuning::construction::Construction;
+use crate::tuning::measured_coil::MeasuredCoil;
+use crate::tuning::measured_field::CoilMeasurement;
 use crate::tuning::spread::BuildTolerances;
 
 /// The file form of a recipe.
@@ -22,28 +24,7 @@ pub(crate) fn to_file_form(r: &Recipe) -> RecipeFile {
         schema: SCHEMA,
         name: r.name.clone(),
         notes: r.notes.clone(),
-        coil: CoilSheet {
-            diameter: match w.diameter {
-                DiameterSpec::Former(d) => DiameterMm::FormerMm(Scaled::from_si(d)),
-                DiameterSpec::Mean(d) => DiameterMm::MeanMm(Scaled::from_si(d)),
-            },
-            wire: match w.wire.gauge {
-                Gauge::Metric(d) => WireSize::BareMm(Scaled::from_si(d)),
-                Gauge::Awg(n) => WireSize::Awg(n),
-                Gauge::Swg(n) => WireSize::Swg(n),
-            },
-            coating: match w.wire.coating {
-                Coating::Bare => CoatingName::Bare,
-                Coating::EnamelGrade1 => CoatingName::EnamelGrade1,
-                Coating::EnamelGrade2 => CoatingName::EnamelGrade2,
-            },
-            turns: w.turns,
-            spacing: match w.spacing {
-                SpacingSpec::Length(l) => SpacingMm::LengthMm(Scaled::from_si(l)),
-                SpacingSpec::Gap(g) => SpacingMm::GapMm(Scaled::from_si(g)),
-            },
-            each_lead_mm: Scaled::from_si(w.lead_length),
-        },
+        coil: coil_sheet(w),
         tank: TankSheet {
             fixed_pf: Scaled::from_si(t.fixed),
             trimmer_min_pf: Scaled::from_si(t.trimmer_min),
@@ -92,6 +73,7 @@ pub(crate) fn to_file_form(r: &Recipe) -> RecipeFile {
             })
             .collect(),
         stray_estimate: stray_sheet(&r.stray_estimate),
+        coil_measurement: r.coil_measurement.as_ref().map(measurement_sheet),
     }
 }
 
@@ -137,31 +119,7 @@ fn stray_settings(s: &StraySheet) -> StraySettings {
 /// The recipe a parsed file describes, as written: nothing is judged here (see
 /// [`super::rules::judge`]), so a file that breaks a rule still opens with every field kept.
 pub(crate) fn from_file_form(sheet: RecipeFile) -> Recipe {
-    let c = &sheet.coil;
-    let winding = Winding {
-        diameter: match c.diameter {
-            DiameterMm::FormerMm(d) => DiameterSpec::Former(d.si()),
-            DiameterMm::MeanMm(d) => DiameterSpec::Mean(d.si()),
-        },
-        wire: WireSpec {
-            gauge: match c.wire {
-                WireSize::BareMm(d) => Gauge::Metric(d.si()),
-                WireSize::Awg(n) => Gauge::Awg(n),
-                WireSize::Swg(n) => Gauge::Swg(n),
-            },
-            coating: match c.coating {
-                CoatingName::Bare => Coating::Bare,
-                CoatingName::EnamelGrade1 => Coating::EnamelGrade1,
-                CoatingName::EnamelGrade2 => Coating::EnamelGrade2,
-            },
-        },
-        turns: c.turns,
-        spacing: match c.spacing {
-            SpacingMm::LengthMm(l) => SpacingSpec::Length(l.si()),
-            SpacingMm::GapMm(g) => SpacingSpec::Gap(g.si()),
-        },
-        lead_length: c.each_lead_mm.si(),
-    };
+    let winding = winding_of(&sheet.coil);
     let t = &sheet.tank;
     let tank = Tank {
         fixed: t.fixed_pf.si(),
@@ -222,5 +180,105 @@ pub(crate) fn from_file_form(sheet: RecipeFile) -> Recipe {
         target,
         bench_log,
         stray_estimate: stray_settings(&sheet.stray_estimate),
+        coil_measurement: sheet.coil_measurement.as_ref().map(measurement_of),
+    }
+}
+
+/// A kept coil measurement in the file's terms.
+fn measurement_sheet(m: &CoilMeasurement) -> CoilMeasurementSheet {
+    let c = &m.coil;
+    CoilMeasurementSheet {
+        source: m.source.clone(),
+        coil: coil_sheet(&m.winding),
+        lowest_mhz: Scaled::from_si(m.band.0),
+        highest_mhz: Scaled::from_si(m.band.1),
+        inductance_nh: Scaled::from_si(c.inductance),
+        self_capacitance_pf: Scaled::from_si(c.self_capacitance),
+        series_resistance_ohm: c.series_resistance,
+        stated_at_mhz: Scaled::from_si(c.at_frequency),
+        q: c.q,
+        reactance_crosses_zero_mhz: c.self_resonance_seen.map(Scaled::from_si),
+        residual_percent: Scaled::from_si(c.residual),
+        samples_used: c.used,
+    }
+}
+
+/// A file's coil measurement; the network's self-resonance follows from its L and C.
+fn measurement_of(s: &CoilMeasurementSheet) -> CoilMeasurement {
+    let (l, c) = (s.inductance_nh.si(), s.self_capacitance_pf.si());
+    let self_resonance = if c > 0.0 && l > 0.0 {
+        1.0 / (2.0 * std::f64::consts::PI * (l * c).sqrt())
+    } else {
+        f64::INFINITY
+    };
+    CoilMeasurement {
+        source: s.source.clone(),
+        winding: winding_of(&s.coil),
+        band: (s.lowest_mhz.si(), s.highest_mhz.si()),
+        coil: MeasuredCoil {
+            inductance: l,
+            self_capacitance: c,
+            series_resistance: s.series_resistance_ohm,
+            at_frequency: s.stated_at_mhz.si(),
+            q: s.q,
+            self_resonance,
+            self_resonance_seen: s.reactance_crosses_zero_mhz.map(Scaled::si),
+            residual: s.residual_percent.si(),
+            used: s.samples_used,
+        },
+    }
+}
+
+/// The winding in the file's terms.
+pub(crate) fn coil_sheet(w: &Winding) -> CoilSheet {
+    CoilSheet {
+        diameter: match w.diameter {
+            DiameterSpec::Former(d) => DiameterMm::FormerMm(Scaled::from_si(d)),
+            DiameterSpec::Mean(d) => DiameterMm::MeanMm(Scaled::from_si(d)),
+        },
+        wire: match w.wire.gauge {
+            Gauge::Metric(d) => WireSize::BareMm(Scaled::from_si(d)),
+            Gauge::Awg(n) => WireSize::Awg(n),
+            Gauge::Swg(n) => WireSize::Swg(n),
+        },
+        coating: match w.wire.coating {
+            Coating::Bare => CoatingName::Bare,
+            Coating::EnamelGrade1 => CoatingName::EnamelGrade1,
+            Coating::EnamelGrade2 => CoatingName::EnamelGrade2,
+        },
+        turns: w.turns,
+        spacing: match w.spacing {
+            SpacingSpec::Length(l) => SpacingMm::LengthMm(Scaled::from_si(l)),
+            SpacingSpec::Gap(g) => SpacingMm::GapMm(Scaled::from_si(g)),
+        },
+        each_lead_mm: Scaled::from_si(w.lead_length),
+    }
+}
+
+/// The winding of a file's coil.
+pub(crate) fn winding_of(c: &CoilSheet) -> Winding {
+    Winding {
+        diameter: match c.diameter {
+            DiameterMm::FormerMm(d) => DiameterSpec::Former(d.si()),
+            DiameterMm::MeanMm(d) => DiameterSpec::Mean(d.si()),
+        },
+        wire: WireSpec {
+            gauge: match c.wire {
+                WireSize::BareMm(d) => Gauge::Metric(d.si()),
+                WireSize::Awg(n) => Gauge::Awg(n),
+                WireSize::Swg(n) => Gauge::Swg(n),
+            },
+            coating: match c.coating {
+                CoatingName::Bare => Coating::Bare,
+                CoatingName::EnamelGrade1 => Coating::EnamelGrade1,
+                CoatingName::EnamelGrade2 => Coating::EnamelGrade2,
+            },
+        },
+        turns: c.turns,
+        spacing: match c.spacing {
+            SpacingMm::LengthMm(l) => SpacingSpec::Length(l.si()),
+            SpacingMm::GapMm(g) => SpacingSpec::Gap(g.si()),
+        },
+        lead_length: c.each_lead_mm.si(),
     }
 }

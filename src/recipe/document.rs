@@ -90,6 +90,8 @@ pub struct Recipe {
     pub bench_log: Vec<BenchEntry>,
     /// The stray estimate's building method and the tolerances of the spread.
     pub stray_estimate: StraySettings,
+    /// The coil as a network analyser measured it, if kept.
+    pub coil_measurement: Option<crate::tuning::measured_field::CoilMeasurement>,
 }
 
 impl BenchEntry {
@@ -154,6 +156,7 @@ impl Recipe {
             },
             bench_log: Vec::new(),
             stray_estimate: StraySettings::default(),
+            coil_measurement: None,
         }
     }
 }

@@ -26,8 +26,9 @@
 use super::document::Recipe;
 use crate::model::{Analysis, Coil, Conditions, InputError, Tank, evaluate, evaluate_coil};
 use crate::tuning::field_tank::{FieldBasis, FieldInput, field_tank};
-use crate::tuning::fit::{Fit, FitError, InverseSquareLine, fit_on, inverse_square_line};
+use crate::tuning::fit::{Fit, FitError, InverseSquareLine, fit_on_held, inverse_square_line};
 use crate::tuning::landing::FieldLed;
+use crate::tuning::measured_field::{MeasuredAgainstField, against_field, applies_to};
 use crate::tuning::target::{TargetFigures, target_figures_on};
 use crate::tuning::verdict::{Aim, Verdict, judge};
 
@@ -58,6 +59,10 @@ pub struct Figures {
     pub led: Option<FieldLed>,
     /// The fit of the bench readings (`None` when there are none).
     pub fit: Option<Result<Fit, FitError>>,
+    /// The kept coil measurement against the field solution of the coil as measured (`None`
+    /// when none is kept or the field solution is not at hand; the reason when it does not
+    /// apply). Its scale calibrates the inductance while the readings cannot tell it.
+    pub measured: Option<Result<MeasuredAgainstField, String>>,
     /// The straight line of 1/f² against external capacitance through the readings at the
     /// latest reading's length (`None` with fewer than two there).
     pub line: Option<InverseSquareLine>,
@@ -71,7 +76,17 @@ pub struct Figures {
 impl Figures {
     /// Whether the figures come from a model calibrated on bench readings.
     pub fn calibrated(&self) -> bool {
-        matches!(self.fit, Some(Ok(_)))
+        matches!(self.fit, Some(Ok(_))) || self.measured_scale().is_some()
+    }
+
+    /// The inductance scale the kept coil measurement puts on the field solution, when it
+    /// applies and the readings do not fit the scale themselves.
+    pub fn measured_scale(&self) -> Option<f64> {
+        let m = self.measured.as_ref()?.as_ref().ok()?;
+        match &self.fit {
+            Some(Ok(f)) if f.inductance_scale_error.is_some() => None,
+            _ => Some(m.scale),
+        }
     }
 
     /// What the figures rest on, in one line (the window's verdict and the build sheet):
@@ -83,19 +98,26 @@ impl Figures {
             FieldBasis::Held { .. } => "the field solution (updating)",
             FieldBasis::Classical { .. } => "the classical model",
         };
-        match &self.fit {
-            Some(Ok(_)) => {
+        let measured = self
+            .measured_scale()
+            .map(|s| format!("the measured coil's inductance ({s:.3} of the field solution's)"));
+        match (&self.fit, measured) {
+            (Some(Ok(_)), measured) => {
                 let n = self.readings_used();
+                let with = measured.map(|m| format!(" and {m}")).unwrap_or_default();
                 format!(
-                    "Calibrated on {n} bench reading{} (on {basis})",
+                    "Calibrated on {n} bench reading{}{with} (on {basis})",
                     if n == 1 { "" } else { "s" }
                 )
             }
-            Some(Err(_)) => {
+            (_, Some(m)) if self.fit.is_none() => {
+                format!("Calibrated on {m}, no bench readings yet (on {basis})")
+            }
+            (Some(Err(_)), _) => {
                 "Not calibrated: the bench readings could not be fitted (see the bench log)"
                     .to_owned()
             }
-            None => format!("Not calibrated: {basis} only, no bench readings yet"),
+            (None, _) => format!("Not calibrated: {basis} only, no bench readings yet"),
         }
     }
 
@@ -184,13 +206,26 @@ fn assemble(
     // The field-led model reaches the readings' coils and the proposals' only with this
     // recipe's own field solution (not while an earlier coil's factor is held).
     let field_conditions = matches!(basis, FieldBasis::Solved { .. }).then_some(recipe.conditions);
+    // A kept coil measurement calibrates the field-led model's inductance (the field solution
+    // of the coil as measured, reduced over the same band).
+    let measured = match (&recipe.coil_measurement, &field_conditions) {
+        (Some(m), Some(fc)) => {
+            Some(applies_to(m, &recipe.winding).and_then(|()| against_field(m, fc)))
+        }
+        _ => None,
+    };
+    let held = measured
+        .as_ref()
+        .and_then(|m| m.as_ref().ok())
+        .map_or(1.0, |m| m.scale);
     let fit = (!readings.is_empty()).then(|| {
-        fit_on(
+        fit_on_held(
             &coil,
             &recipe.tank,
             &base,
             &readings,
             field_conditions.as_ref(),
+            held,
         )
     });
     let mut led = field_conditions.map(|conditions| FieldLed {
@@ -213,7 +248,24 @@ fn assemble(
             let analysis = evaluate_coil(&coil, tank.external_capacitance(), &conditions);
             (tank, conditions, analysis)
         }
-        _ => (recipe.tank, base, uncalibrated.clone()),
+        _ => match &mut led {
+            // No readings that fit: the measured coil's scale alone, the present coil on the
+            // field-led model exactly at it.
+            Some(l) if held != 1.0 => {
+                l.scale = held;
+                match l.conditions_at(&coil, recipe.tank.external_capacitance()) {
+                    Some((c, _)) => {
+                        let analysis = evaluate_coil(&coil, recipe.tank.external_capacitance(), &c);
+                        (recipe.tank, c, analysis)
+                    }
+                    None => {
+                        led = None;
+                        (recipe.tank, base, uncalibrated.clone())
+                    }
+                }
+            }
+            _ => (recipe.tank, base, uncalibrated.clone()),
+        },
     };
     let target = target_figures_on(
         &coil,
@@ -240,6 +292,7 @@ fn assemble(
         field: basis,
         led,
         fit,
+        measured,
         target,
         verdict,
     })

@@ -59,5 +59,6 @@ pub fn recipe_of(
             construction,
             tolerances: settings.tolerances,
         },
+        coil_measurement: None,
     }
 }

@@ -299,7 +299,59 @@ pub fn judge(r: &Recipe) -> Result<(), Refusal> {
     for (i, reading) in r.bench_log.iter().enumerate() {
         check_reading(reading, i)?;
     }
+    if let Some(m) = &r.coil_measurement {
+        check_measurement(m)?;
+    }
     check_tolerances(&r.stray_estimate.tolerances)
+}
+
+/// A kept coil measurement by the recipe rules: a coil the model takes, a band of positive
+/// frequencies, and a network of positive inductance and resistance.
+pub fn check_measurement(
+    m: &crate::tuning::measured_field::CoilMeasurement,
+) -> Result<(), Refusal> {
+    let refuse = |key: &'static str, reason: String| {
+        Err(Refusal::new(
+            format!("coil_measurement.{key}"),
+            key,
+            0,
+            reason,
+        ))
+    };
+    if let Err(e) = crate::model::Coil::from_winding(&m.winding) {
+        return refuse("coil", format!("the coil measured: {}", e.reason));
+    }
+    let (lo, hi) = m.band;
+    if !(lo.is_finite() && hi.is_finite() && lo > 0.0 && hi > lo && hi <= 1e11) {
+        return refuse(
+            "highest_mhz",
+            "the band measured must run from above 0 up to at most 100 GHz, lowest first"
+                .to_owned(),
+        );
+    }
+    let c = &m.coil;
+    let checks: [(&'static str, f64, f64, &str); 6] = [
+        ("inductance_nh", c.inductance * 1e9, 1e6, "nH"),
+        ("self_capacitance_pf", c.self_capacitance * 1e12, 1e3, "pF"),
+        ("series_resistance_ohm", c.series_resistance, 1e6, "ohm"),
+        ("stated_at_mhz", c.at_frequency * 1e-6, 1e5, "MHz"),
+        ("q", c.q, 1e7, ""),
+        ("residual_percent", c.residual * 100.0, 1e3, "%"),
+    ];
+    for (key, v, max, unit) in checks {
+        let positive = key == "inductance_nh" || key == "stated_at_mhz";
+        if !v.is_finite() || v < 0.0 || v > max || (positive && v == 0.0) {
+            return refuse(
+                key,
+                format!(
+                    "{key} {} {unit} is outside {}–{max} {unit}",
+                    crate::model::short_numbers(&format!("{v}")),
+                    if positive { "above 0" } else { "0" }
+                ),
+            );
+        }
+    }
+    Ok(())
 }
 
 /// The file field (and its key in the text) a model field comes from.

@@ -132,6 +132,44 @@ pub struct RecipeFile {
     /// hand-wound figures on copper-clad board; not written while they are those).
     #[serde(default, skip_serializing_if = "StraySheet::is_usual")]
     pub stray_estimate: StraySheet,
+    /// The coil as a network analyser measured it (absent: none kept).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub coil_measurement: Option<CoilMeasurementSheet>,
+}
+
+/// Nanohenries.
+pub type Nanohenries = Scaled<9>;
+
+/// A coil measured across frequency and reduced to its network (see
+/// `tuning::measured_coil`), with the coil as it was and the band measured.
+#[derive(Clone, Debug, PartialEq, Serialize, Deserialize)]
+#[serde(rename = "CoilMeasurement", deny_unknown_fields)]
+pub struct CoilMeasurementSheet {
+    /// Where it came from (the file's name).
+    pub source: String,
+    /// The coil as it was when measured.
+    pub coil: CoilSheet,
+    /// Lowest frequency of the samples, MHz.
+    pub lowest_mhz: Megahertz,
+    /// Highest frequency of the samples, MHz.
+    pub highest_mhz: Megahertz,
+    /// Low-frequency inductance of the fitted network, nH.
+    pub inductance_nh: Nanohenries,
+    /// Self-capacitance of the fitted network, pF.
+    pub self_capacitance_pf: Picofarads,
+    /// Series resistance at `stated_at_mhz`, ohms.
+    pub series_resistance_ohm: f64,
+    /// Where R and Q are stated, MHz.
+    pub stated_at_mhz: Megahertz,
+    /// Q at `stated_at_mhz`.
+    pub q: f64,
+    /// Where the measured reactance crosses zero going up, MHz, if the samples reach it.
+    #[serde(default)]
+    pub reactance_crosses_zero_mhz: Option<Megahertz>,
+    /// RMS relative difference of X between the network and the samples, percent.
+    pub residual_percent: Percent,
+    /// Samples the network was fitted through.
+    pub samples_used: usize,
 }
 
 /// The stray estimate's inputs and the builder's tolerances.

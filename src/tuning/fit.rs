@@ -324,6 +324,21 @@ pub fn fit_on(
     readings: &[Reading],
     field: Option<&Conditions>,
 ) -> Result<Fit, FitError> {
+    fit_on_held(coil, tank, conditions, readings, field, 1.0)
+}
+
+/// [`fit_on`] with the inductance scale held at `held_scale` while the readings cannot tell
+/// it (one reading, or all at one capacitance and length), and started there otherwise: the
+/// scale a measured coil gives ([`crate::tuning::measured_field`]), so one reading then fixes
+/// the stray with the measured inductance kept.
+pub fn fit_on_held(
+    coil: &Coil,
+    tank: &Tank,
+    conditions: &Conditions,
+    readings: &[Reading],
+    field: Option<&Conditions>,
+    held_scale: f64,
+) -> Result<Fit, FitError> {
     if readings.is_empty() {
         return Err(FitError::NoReadings);
     }
@@ -387,8 +402,8 @@ pub fn fit_on(
     }
 
     let start = [
-        stray_alone(&prepared[0], conditions).ok_or(FitError::NoSolution)?,
-        1.0,
+        stray_alone(&prepared[0], conditions, held_scale).ok_or(FitError::NoSolution)?,
+        held_scale,
     ];
     let one_point = prepared.iter().all(|p| {
         (p.external - prepared[0].external).abs() <= 1e-9 * p.external.abs().max(1e-15)
@@ -595,8 +610,8 @@ fn harmonics(prepared: &[Prepared], conditions: &Conditions) -> Vec<FitWarning> 
 
 /// The extra capacitance that makes the model reproduce one reading (scale 1), by bisection
 /// between −(external) and +1 nF; `None` when none does.
-fn stray_alone(p: &Prepared, conditions: &Conditions) -> Option<f64> {
-    let f_at = |dc: f64| p.model(conditions, [dc, 1.0]);
+fn stray_alone(p: &Prepared, conditions: &Conditions, scale: f64) -> Option<f64> {
+    let f_at = |dc: f64| p.model(conditions, [dc, scale]);
     let (mut a, mut b) = (-p.external * (1.0 - 1e-9), 1e-9);
     // Frequency falls as capacitance rises.
     if !(f_at(a) >= p.measured && f_at(b) <= p.measured) {

@@ -20,6 +20,7 @@ pub mod fit;
 pub mod impedance;
 pub mod landing;
 pub mod measured_coil;
+pub mod measured_field;
 pub mod modulation;
 pub mod reading_reach;
 pub mod service;

@@ -4,9 +4,9 @@ use proptest::prelude::*;
 use std::path::Path;
 use tankwright::model::{Coating, Gauge, InductanceModel, WireSpec, evaluate};
 use tankwright::recipe::schema::{
-    AimSheet, BuildingMethod, CoatingName, CoilSheet, ConditionsSheet, DiameterMm, DividerSheet,
-    ModelName, PlanName, ReadingSheet, RecipeFile, Scaled, SpacingMm, StraySheet, TankSheet,
-    WireSize,
+    AimSheet, BuildingMethod, CoatingName, CoilMeasurementSheet, CoilSheet, ConditionsSheet,
+    DiameterMm, DividerSheet, ModelName, PlanName, ReadingSheet, RecipeFile, Scaled, SpacingMm,
+    StraySheet, TankSheet, WireSize,
 };
 use tankwright::recipe::{self, Recipe, demos, format, store};
 
@@ -320,6 +320,16 @@ fn file_strategy(
             stray_estimate,
         ),
         proptest::collection::vec(reading, 0..4),
+        proptest::option::of((
+            (num(1.0, 100.0), num(100.0, 500.0)),
+            num(10.0, 900.0),
+            num(0.05, 3.0),
+            num(0.001, 5.0),
+            num(10.0, 1000.0),
+            num(0.0, 20.0),
+            3usize..200,
+            proptest::option::of(num(100.0, 3000.0)),
+        )),
     )
         .prop_map(
             |(
@@ -331,7 +341,25 @@ fn file_strategy(
                 plan,
                 (channel, within, stray_estimate),
                 bench_log,
+                measurement,
             )| {
+                let coil_measurement =
+                    measurement.map(|((lo, hi), l, c, r, q, residual, used, crossing)| {
+                        CoilMeasurementSheet {
+                            source: "bench.s1p".to_owned(),
+                            coil: coil.clone(),
+                            lowest_mhz: Scaled::from_file_units(lo),
+                            highest_mhz: Scaled::from_file_units(hi),
+                            inductance_nh: Scaled::from_file_units(l),
+                            self_capacitance_pf: Scaled::from_file_units(c),
+                            series_resistance_ohm: r,
+                            stated_at_mhz: Scaled::from_file_units(lo),
+                            q,
+                            reactance_crosses_zero_mhz: crossing.map(Scaled::from_file_units),
+                            residual_percent: Scaled::from_file_units(residual),
+                            samples_used: used,
+                        }
+                    });
                 RecipeFile {
                     schema: 1,
                     name,
@@ -350,6 +378,7 @@ fn file_strategy(
                     },
                     bench_log,
                     stray_estimate,
+                    coil_measurement,
                 }
             },
         )

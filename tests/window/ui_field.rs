@@ -249,3 +249,70 @@ fn the_impedance_chart_opens_inside_a_small_window() {
         "{text:?}"
     );
 }
+
+/// Issue 24: a coil measurement kept with the recipe is drawn on the impedance chart beside the
+/// field solution and the classical estimate, with the differences in words, and it
+/// calibrates the figures (the verdict's basis line says so). The measurement is the demo
+/// coil's field solution with every impedance × 1.04 (Terman's network: L × 1.04, C / 1.04),
+/// so the window must state 1.040 of the field solution's inductance.
+#[test]
+fn a_kept_measurement_is_drawn_on_the_impedance_chart_and_calibrates() {
+    use tankwright::instruments::touchstone::ImpedanceSample;
+    use tankwright::model::Coil;
+    use tankwright::recipe::Recipe;
+    use tankwright::tuning::impedance::impedance_sweep;
+    use tankwright::tuning::measured_coil::fit_measured_coil;
+    use tankwright::tuning::measured_field::CoilMeasurement;
+    let mut recipe = Recipe::demo();
+    let coil = Coil::from_winding(&recipe.winding).expect("coil");
+    let band = (20e6, 200e6);
+    let sweep = impedance_sweep(&coil, 20.0, Some(band.0), Some(band.1), 24, None).expect("solves");
+    let samples: Vec<ImpedanceSample> = sweep
+        .points
+        .iter()
+        .map(|p| ImpedanceSample {
+            frequency: p.frequency,
+            impedance: p.impedance * 1.04,
+        })
+        .collect();
+    recipe.coil_measurement = Some(CoilMeasurement {
+        source: "wound.s1p".to_owned(),
+        winding: recipe.winding,
+        band,
+        coil: fit_measured_coil(&samples, None).expect("fits"),
+    });
+    let mut harness = Harness::builder()
+        .with_size(egui::vec2(1600.0, 1000.0))
+        .build_eframe(move |_cc| App::with_recipe(recipe.clone()));
+    harness.run();
+    // Calibrated by the measurement, the resonance is marked calibrated, not field-solved:
+    // wait for the worker's tank and sweep themselves.
+    let start = Instant::now();
+    while harness
+        .state()
+        .field_solution()
+        .is_none_or(|r| r.sweep.is_none())
+    {
+        assert!(
+            start.elapsed() < Duration::from_secs(120),
+            "the sweep never arrived"
+        );
+        std::thread::sleep(Duration::from_millis(5));
+        harness.step();
+    }
+    harness.get_by_label("Impedance of the coil").scroll_to_me();
+    harness.run();
+    harness.get_by_label("Impedance of the coil").click();
+    harness.run();
+    let text = screen_text(&harness);
+    assert!(
+        text.iter().any(|t| t.starts_with("Measured coil dotted:")
+            && t.contains("1.040 × the field solution's inductance")),
+        "{text:?}"
+    );
+    assert!(
+        text.iter()
+            .any(|t| t.contains("Calibrated on the measured coil's inductance")),
+        "{text:?}"
+    );
+}

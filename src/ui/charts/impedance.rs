@@ -9,6 +9,7 @@
 
 use crate::recipe::{FieldBasis, Figures};
 use crate::tuning::impedance::{DEFAULT_FROM, PAST_RESONANCE, classical_impedance};
+use crate::tuning::measured_field::network_impedance;
 use crate::ui::field_worker::FieldWorker;
 use eframe::egui::{self, Color32, RichText};
 use egui_plot::{Corner, GridMark, Legend, Line, LineStyle, Plot, PlotPoints, VLine};
@@ -199,6 +200,53 @@ pub fn impedance_section(ui: &mut egui::Ui, figures: Option<&Figures>, field: &F
         .map(|t| (t.self_resonance * 1e-6).log10());
     let lumped_srf = (a.self_resonance.lumped * 1e-6).log10();
     let height = (ui.available_width() * 0.5).clamp(150.0, 230.0);
+    // A coil measurement kept with the recipe: its network over the band measured, and what
+    // it says against the field solution of the coil as measured.
+    let measured = figures.measured.as_ref();
+    match measured {
+        Some(Ok(m)) => {
+            let seen = m
+                .measured
+                .self_resonance_seen
+                .map(|f| format!(", reactance crossing zero at {:.1} MHz", f * 1e-6))
+                .unwrap_or_default();
+            ui.add(
+                egui::Label::new(
+                    RichText::new(format!(
+                        "Measured coil dotted: {:.1} nH, {:.3} pF{seen}; {:.3} × the field \
+                         solution's inductance and {:.2} × its self-capacitance over the same \
+                         band.",
+                        m.measured.inductance * 1e9,
+                        m.measured.self_capacitance * 1e12,
+                        m.scale,
+                        m.measured.self_capacitance / m.field.self_capacitance
+                    ))
+                    .small(),
+                )
+                .wrap(),
+            );
+        }
+        Some(Err(reason)) => {
+            ui.add(
+                egui::Label::new(
+                    RichText::new(format!("Measured coil not used: {reason}.")).small(),
+                )
+                .wrap(),
+            );
+        }
+        None => {}
+    }
+    let measured_points: Option<Vec<(f64, Complex64)>> =
+        measured.and_then(|m| m.as_ref().ok()).map(|m| {
+            let (lo, hi) = m.band;
+            let n = 60;
+            (0..n)
+                .map(|i| {
+                    let f = lo * (hi / lo).powf(i as f64 / (n - 1) as f64);
+                    (f, network_impedance(&m.measured, f))
+                })
+                .collect()
+        });
 
     let markers = |plot_ui: &mut egui_plot::PlotUi<'_>| {
         plot_ui.vline(
@@ -247,6 +295,16 @@ pub fn impedance_section(ui: &mut egui::Ui, figures: Option<&Figures>, field: &F
                 .style(LineStyle::dashed_dense())
                 .width(1.2),
             );
+            if let Some(pts) = &measured_points {
+                let freqs: Vec<f64> = pts.iter().map(|p| p.0).collect();
+                let points = log_points(&freqs, |i| part(&pts[i].1));
+                plot_ui.line(
+                    Line::new(format!("{name} measured"), points)
+                        .color(colour)
+                        .style(LineStyle::dotted_dense())
+                        .width(1.6),
+                );
+            }
         }
         markers(plot_ui);
     });
