@@ -58,7 +58,7 @@ fn range(args: &Args) -> Result<Range, ArgError> {
 
 /// Run `impedance` on the words after the subcommand; Ok(stdout) or Err(one-line message).
 pub fn run_impedance(words: Vec<String>) -> Result<String, String> {
-    let args = Args::parse(words, &["json"]).map_err(|e| e.to_string())?;
+    let args = Args::parse(words, &["json", "as-written"]).map_err(|e| e.to_string())?;
     let range = range(&args).map_err(|e| e.to_string())?;
     let req = match args.text("recipe") {
         Some(file) => super::recipe_args::request_from_recipe(&args, file)?,
@@ -103,14 +103,22 @@ pub fn run_impedance(words: Vec<String>) -> Result<String, String> {
             crate::physics::field::budget::TIME_LIMIT_SECONDS
         ));
     }
-    let operating = (req.tank.external_capacitance() > 0.0).then(|| {
-        let field = crate::tuning::field_tank::field_tank(
-            &coil,
-            analysis.external_capacitance,
-            &req.conditions,
-        );
-        // The field-solved tank when there is one (what `evaluate` leads with).
-        field.map_or(analysis.resonance, |f| f.resonance)
+    // With a recipe calibrated on its readings, the operating frequency is the calibrated
+    // tank's (the figures' conditions put the model on the calibrated field-led resonance),
+    // as `evaluate --recipe`, `report` and the window state it.
+    let calibrated = req.bench.as_ref().map(|b| {
+        crate::model::evaluate_coil(&coil, b.tank.external_capacitance(), &b.conditions).resonance
+    });
+    let operating = calibrated.or_else(|| {
+        (req.tank.external_capacitance() > 0.0).then(|| {
+            let field = crate::tuning::field_tank::field_tank(
+                &coil,
+                analysis.external_capacitance,
+                &req.conditions,
+            );
+            // The field-solved tank when there is one (what `evaluate` leads with).
+            field.map_or(analysis.resonance, |f| f.resonance)
+        })
     });
     let sweep = impedance_sweep(
         &coil,
@@ -122,11 +130,22 @@ pub fn run_impedance(words: Vec<String>) -> Result<String, String> {
     )
     .map_err(|e| e.to_string())?;
     Ok(if req.json {
-        let mut s = sweep_json(&sweep).to_string();
+        let mut v = sweep_json(&sweep);
+        v["operating_calibrated"] = json!(calibrated.is_some());
+        let mut s = v.to_string();
         s.push('\n');
         s
     } else {
         let mut text = sweep_text(&sweep, coil.lead_length());
+        if let Some(b) = &req.bench {
+            let _ = writeln!(
+                text,
+                "(the operating frequency is the tank calibrated on the recipe's {} bench \
+                 reading{}; --as-written for the recipe alone)",
+                b.readings,
+                if b.readings == 1 { "" } else { "s" }
+            );
+        }
         if sweep.points.len() < range.points {
             let _ = writeln!(
                 text,

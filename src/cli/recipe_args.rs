@@ -19,9 +19,10 @@ pub(crate) fn request_from_recipe(args: &Args, file: &str) -> Result<EvaluateReq
         ));
     }
     let recipe = store::load(Path::new(file)).map_err(|e| e.to_string())?;
-    // The bench readings calibrate the figures as `report`, `solve` and the window do, unless
-    // the recipe is asked for as written.
-    let bench = if args.switch("as-written") || recipe.bench_log.is_empty() {
+    // The bench readings (and a kept coil measurement) calibrate the figures as `report`,
+    // `solve` and the window do, unless the recipe is asked for as written.
+    let uncalibrated = recipe.bench_log.is_empty() && recipe.coil_measurement.is_none();
+    let bench = if args.switch("as-written") || uncalibrated {
         None
     } else {
         let f = crate::recipe::figures(&recipe).map_err(|e| format!("invalid recipe: {e}"))?;

@@ -289,11 +289,21 @@ pub(crate) struct ExtraFigures {
     drift: DriftBudget,
 }
 
-/// The stray estimate's inputs from the tank as given (and the construction, if any).
+/// The stray estimate's inputs from the tank as given (and the construction, if any). With a
+/// construction the layout builds the stray itself, so the stray entered (`--stray-pf`, the
+/// builder's own figure for the same wiring) is left out of the estimate rather than added to
+/// it a second time, as the window's estimate does (`recipe::expectation`).
 fn stray_inputs(extras: &Extras, coil: &Coil, tank: &Tank, analysis: &Analysis) -> StrayInputs {
+    let tank = match extras.construction {
+        Some(_) => Tank {
+            stray: 0.0,
+            ..*tank
+        },
+        None => *tank,
+    };
     crate::tuning::stray::inputs_for(
         coil,
-        tank,
+        &tank,
         analysis.self_capacitance,
         extras.fixed_tolerance,
         extras.construction,

@@ -188,3 +188,38 @@ fn evaluate_keeps_working_when_the_field_solution_refuses() {
         v["inductance_nh"]["apparent_classical"]
     );
 }
+
+/// Issue 20: `impedance --recipe` works at the calibrated operating frequency: on a recipe with
+/// bench readings its operating point is the frequency `evaluate --recipe` states (both from
+/// `recipe::figures`), and with `--as-written` the recipe's own.
+#[test]
+fn impedance_of_a_recipe_with_readings_is_taken_at_the_calibrated_frequency() {
+    let recipe = crate::common::asset_str("lantern_hill_two_metre_buffer.ron");
+    let mhz = |args: &[&str], key: &str| -> f64 {
+        let (ok, out, err) = run(args);
+        assert!(ok, "{args:?}: {err}");
+        let v: serde_json::Value = serde_json::from_str(&out).expect("JSON");
+        let x = if key == "operating" {
+            v["operating"]["mhz"].as_f64()
+        } else {
+            v[key].as_f64()
+        };
+        x.unwrap_or_else(|| panic!("no {key} in {out}"))
+    };
+    for as_written in [false, true] {
+        let mut imp = vec!["impedance", "--recipe", &recipe, "--points", "2", "--json"];
+        let mut eva = vec!["evaluate", "--recipe", &recipe, "--json"];
+        if as_written {
+            imp.push("--as-written");
+            eva.push("--as-written");
+        }
+        let (a, b) = (mhz(&imp, "operating"), mhz(&eva, "resonance_mhz"));
+        assert!(
+            (a / b - 1.0).abs() < 1e-9,
+            "as written {as_written}: {a} against {b}"
+        );
+    }
+    let (ok, out, err) = run(&["impedance", "--recipe", &recipe, "--points", "2"]);
+    assert!(ok, "{err}");
+    assert!(out.contains("calibrated on the recipe's"), "{out}");
+}

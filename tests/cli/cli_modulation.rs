@@ -246,3 +246,44 @@ fn the_report_shows_the_new_sections() {
         assert!(out.contains(s), "missing {s}");
     }
 }
+
+/// Issue 20: `--construction` with `--stray-pf` added the stray twice in the estimate (the
+/// layout's wiring and the entered figure for the same wiring). With a construction the
+/// layout builds the stray and the entered figure is left out of the estimate, so its total
+/// is the same with or without `--stray-pf`; without a construction the entered figure is
+/// the estimate's own part.
+#[test]
+fn a_construction_and_an_entered_stray_are_not_added_twice() {
+    let total = |extra: &[&str]| -> (f64, f64) {
+        let mut args = vec![
+            "evaluate",
+            "--former-diameter-mm",
+            "6",
+            "--turns",
+            "5",
+            "--length-mm",
+            "8",
+            "--wire-mm",
+            "1",
+            "--capacitance-pf",
+            "18",
+            "--json",
+        ];
+        args.extend(extra);
+        let (ok, out, err) = crate::common::run_text(&args);
+        assert!(ok, "{err}");
+        let v: serde_json::Value = serde_json::from_str(&out).expect("JSON");
+        let b = &v["stray_breakdown_pf"];
+        (
+            b["total"]["typical"].as_f64().expect("total"),
+            b["entered_stray"]["typical"].as_f64().expect("entered"),
+        )
+    };
+    let (layout, _) = total(&["--construction", "stripboard"]);
+    let (both, entered) = total(&["--construction", "stripboard", "--stray-pf", "6"]);
+    assert_eq!(layout, both, "the entered stray was added to the layout's");
+    assert_eq!(entered, 0.0);
+    let (plain, entered) = total(&["--stray-pf", "6"]);
+    assert_eq!(entered, 6.0);
+    assert!(plain > 6.0, "{plain}");
+}
