@@ -179,5 +179,5 @@ drift budget (adds drift):
   --temperature-change-k K           (default 20)
   --capacitor-class C0G|N750|...     the fixed capacitor's class (default C0G)
   --hand-pf H --load-change-pf L     (defaults 1 and 0.5)
-  --channel-tolerance-khz T          how far the carrier may move (default 50)
+  --channel-tolerance-khz T          how far the carrier may move (default: the channel's)
 ";

@@ -8,7 +8,9 @@ use crate::model::{Analysis, Coil, Tank};
 use crate::physics::dielectric_class::{self, TemperatureClass};
 use crate::physics::junction::JunctionLaw;
 use crate::tuning::construction::Construction;
-use crate::tuning::drift::{DriftBudget, DriftInputs, DriftSource, DriftTank, drift_budget};
+use crate::tuning::drift::{
+    DriftBudget, DriftInputs, DriftSource, DriftTank, UsualChanges, drift_budget,
+};
 use crate::tuning::modulation::{
     Modulation, ModulationInputs, ModulationVerdict, Modulator, Service, judge, modulation,
 };
@@ -48,7 +50,8 @@ struct DriftFlags {
     class: TemperatureClass,
     hand: f64,
     load: f64,
-    channel_tolerance: f64,
+    /// `--channel-tolerance-khz`, hertz; `None`: the channel's own.
+    channel_tolerance: Option<f64>,
 }
 
 fn positive(args: &Args, name: &str) -> Result<Option<f64>, ArgError> {
@@ -117,7 +120,7 @@ impl Extras {
             }
         };
         let junction = Self::junction(args)?;
-        let class_name = args.text("capacitor-class").unwrap_or("C0G");
+        let class_name = args.text("capacitor-class").unwrap_or(UsualChanges::CLASS);
         let class = dielectric_class::by_name(class_name).ok_or_else(|| {
             let names: Vec<&str> = dielectric_class::CLASSES.iter().map(|c| c.code).collect();
             ArgError(format!(
@@ -125,10 +128,12 @@ impl Extras {
                 names.join(", ")
             ))
         })?;
-        let supply_v = positive(args, "supply-v")?.unwrap_or(9.0);
+        let supply_v = positive(args, "supply-v")?.unwrap_or(UsualChanges::SUPPLY_V);
         let drift = DriftFlags {
             supply_v,
-            supply_change_v: args.number("supply-change-v")?.unwrap_or(-2.0),
+            supply_change_v: args
+                .number("supply-change-v")?
+                .unwrap_or(UsualChanges::SUPPLY_CHANGE_V),
             temperature_change_k: within(
                 args,
                 "temperature-change-k",
@@ -136,7 +141,7 @@ impl Extras {
                 "K",
                 "the capacitors' temperature classes are specified over -55 to +125 °C",
             )?
-            .unwrap_or(20.0),
+            .unwrap_or(UsualChanges::TEMPERATURE_CHANGE_K),
             class,
             hand: within(
                 args,
@@ -145,8 +150,7 @@ impl Extras {
                 "pF",
                 "a hand near the coil adds capacitance",
             )?
-            .unwrap_or(1.0)
-                * PF,
+            .map_or(UsualChanges::HAND, |v| v * PF),
             load: within(
                 args,
                 "load-change-pf",
@@ -154,9 +158,8 @@ impl Extras {
                 "pF",
                 "the change the load makes to the tank",
             )?
-            .unwrap_or(0.5)
-                * PF,
-            channel_tolerance: positive(args, "channel-tolerance-khz")?.unwrap_or(50.0) * KHZ,
+            .map_or(UsualChanges::LOAD, |v| v * PF),
+            channel_tolerance: positive(args, "channel-tolerance-khz")?.map(|k| k * KHZ),
         };
         if supply_v + drift.supply_change_v <= 0.0 {
             return Err(ArgError(format!(
@@ -379,7 +382,13 @@ impl ExtraFigures {
                 fixed_class: d.class,
                 hand: d.hand,
                 load: d.load,
-                channel_tolerance: d.channel_tolerance,
+                // The channel's own tolerance unless one is given, as the window judges it: the
+                // target's (the recipe's, or its service's practice), else the practice of the
+                // service whose band holds the carrier.
+                channel_tolerance: d.channel_tolerance.unwrap_or(match req.aim.target {
+                    Some(_) => req.aim.tolerance,
+                    None => crate::tuning::verdict::Aim::typed(analysis.resonance).tolerance,
+                }),
             },
         );
         let figures = Self {
@@ -497,6 +506,7 @@ impl ExtraFigures {
                 "sum": self.drift.total / KHZ,
                 "worst_case": self.drift.worst_case / KHZ,
                 "within_tolerance": self.drift.within_tolerance,
+                "channel_tolerance": self.drift.channel_tolerance / KHZ,
                 "dominant": self.drift.dominant.map(|d| d.key()),
             }),
         );

@@ -110,6 +110,27 @@ pub struct DriftInputs {
     pub channel_tolerance: f64,
 }
 
+/// The changes budgeted when the builder gives none (common practice for a small battery
+/// oscillator on the bench): a 9 V battery running down to 7 V, 20 K warmer, a C0G fixed
+/// capacitor, a hand near the coil (1 pF) and a load change (0.5 pF). The window's audio panel
+/// and `tankwright evaluate` both start from these.
+pub struct UsualChanges;
+
+impl UsualChanges {
+    /// Supply voltage the bias is set at, volts.
+    pub const SUPPLY_V: f64 = 9.0;
+    /// Change of the supply, volts.
+    pub const SUPPLY_CHANGE_V: f64 = -2.0;
+    /// Temperature change, kelvin.
+    pub const TEMPERATURE_CHANGE_K: f64 = 20.0;
+    /// The fixed capacitor's class code.
+    pub const CLASS: &'static str = "C0G";
+    /// A hand near the coil, farads.
+    pub const HAND: f64 = 1e-12;
+    /// A load change, farads.
+    pub const LOAD: f64 = 0.5e-12;
+}
+
 /// The tank as the drift budget needs it.
 #[derive(Clone, Copy, Debug, PartialEq)]
 pub struct DriftTank {
@@ -145,6 +166,8 @@ pub struct DriftBudget {
     pub worst_case: f64,
     /// The worst case stays within the channel tolerance.
     pub within_tolerance: bool,
+    /// The channel tolerance judged against, ± hertz.
+    pub channel_tolerance: f64,
     /// The cause with the largest shift.
     pub dominant: Option<DriftSource>,
     /// Remedies, the dominant cause's first, then any other cause above a quarter of the
@@ -253,6 +276,7 @@ pub fn drift_budget(
         total,
         worst_case,
         within_tolerance: worst_case <= inputs.channel_tolerance,
+        channel_tolerance: inputs.channel_tolerance,
         dominant,
         remedies,
     }

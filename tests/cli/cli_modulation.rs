@@ -287,3 +287,50 @@ fn a_construction_and_an_entered_stray_are_not_added_twice() {
     assert_eq!(entered, 6.0);
     assert!(plain > 6.0, "{plain}");
 }
+
+/// Issue 19: the drift was judged against 50 kHz on the command line and against the
+/// channel's tolerance in the window. One rule now: the channel's own tolerance (the
+/// recipe's, or the practice of the service the target or the carrier is in, the verdict's
+/// `Aim`), unless `--channel-tolerance-khz` is given.
+#[test]
+fn the_drift_is_judged_against_the_channels_own_tolerance() {
+    use tankwright::tuning::verdict::Aim;
+    let khz = |args: &[&str]| -> f64 {
+        let (ok, out, err) = crate::common::run_text(args);
+        assert!(ok, "{err}");
+        let v: serde_json::Value = serde_json::from_str(&out).expect("JSON");
+        v["drift_total_khz"]["channel_tolerance"]
+            .as_f64()
+            .unwrap_or_else(|| panic!("no tolerance in {out}"))
+    };
+    let file = crate::common::asset("lantern_hill_bench_oscillator.ron");
+    let recipe = tankwright::recipe::store::load(&file).expect("opens");
+    let path = file.to_str().expect("utf-8");
+    assert_eq!(
+        khz(&["evaluate", "--recipe", path, "--json"]),
+        recipe.target.tolerance() / 1e3
+    );
+    let coil = [
+        "evaluate",
+        "--former-diameter-mm",
+        "6",
+        "--turns",
+        "5",
+        "--length-mm",
+        "8",
+        "--wire-mm",
+        "1",
+        "--capacitance-pf",
+        "24",
+        "--json",
+    ];
+    let fm = Aim::typed(98.3e6).tolerance / 1e3;
+    let mut with_target = coil.to_vec();
+    with_target.extend(["--target-mhz", "98.3"]);
+    assert_eq!(khz(&with_target), fm);
+    // No target: the service whose band holds the carrier (this tank sits in FM broadcast).
+    assert_eq!(khz(&coil), fm);
+    let mut given = coil.to_vec();
+    given.extend(["--channel-tolerance-khz", "50"]);
+    assert_eq!(khz(&given), 50.0);
+}

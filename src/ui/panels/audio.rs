@@ -8,7 +8,9 @@
 use crate::model::{Coil, Conditions, Tank};
 use crate::physics::dielectric_class::{CLASSES, TemperatureClass};
 use crate::physics::junction::{DEFAULT_FORWARD_KNEE, JunctionLaw};
-use crate::tuning::drift::{DriftBudget, DriftInputs, DriftSource, DriftTank, drift_budget};
+use crate::tuning::drift::{
+    DriftBudget, DriftInputs, DriftSource, DriftTank, UsualChanges, drift_budget,
+};
 use crate::tuning::modulation::{
     Modulation, ModulationInputs, ModulationVerdict, Modulator, Service, judge, modulation,
 };
@@ -86,12 +88,13 @@ impl Default for AudioPanel {
                 audio_peak_v: 0.1,
                 audio_max_khz: 15.0,
                 coupling_pf: 0.0,
-                class: CLASSES[1],
-                supply_v: 9.0,
-                supply_change_v: -2.0,
-                temperature_change_k: 20.0,
-                hand_pf: 1.0,
-                load_pf: 0.5,
+                class: crate::physics::dielectric_class::by_name(UsualChanges::CLASS)
+                    .unwrap_or(CLASSES[1]),
+                supply_v: UsualChanges::SUPPLY_V,
+                supply_change_v: UsualChanges::SUPPLY_CHANGE_V,
+                temperature_change_k: UsualChanges::TEMPERATURE_CHANGE_K,
+                hand_pf: UsualChanges::HAND * 1e12,
+                load_pf: UsualChanges::LOAD * 1e12,
             },
             model_text: String::new(),
             model_note: None,
