@@ -18,6 +18,7 @@ pub mod medhurst;
 pub mod nagaoka;
 pub mod plate;
 pub mod proximity;
+pub mod roots;
 pub mod round_wire;
 pub mod wheeler;
 pub mod wire_capacitance;

@@ -237,45 +237,19 @@ fn solve_tank(
         if gb.abs() <= 2.0 * TOLERANCE {
             (lo, hi) = (b, b);
         } else {
-            let (mut g_lo, mut g_hi);
-            if gb > 0.0 {
-                (lo, g_lo, hi, g_hi) = (a, ga, b, gb);
-            } else {
-                (lo, g_lo, hi, g_hi) = (b, gb, a, ga);
-            }
-            let mut side = 0i32;
-            for _ in 0..60 {
-                if hi - lo <= TOLERANCE {
-                    break;
-                }
-                // Regula falsi where φ is finite, else halve the bracket.
-                let x = if g_hi.is_finite() {
-                    (lo * g_hi - hi * g_lo) / (g_hi - g_lo)
-                } else {
-                    0.5 * (lo + hi)
-                };
+            // Regula falsi (Illinois) where φ is finite, else halve the bracket.
+            let stop = crate::physics::roots::Stop {
+                width: TOLERANCE,
+                relative_width: 0.0,
+                value: 2.0 * TOLERANCE,
+                steps: 60,
+            };
+            let found = crate::physics::roots::illinois((a, ga), (b, gb), stop, |x| {
                 let (g, z) = phi(x)?;
                 (last, z_last) = (x, z);
-                if g.abs() <= 2.0 * TOLERANCE {
-                    (lo, hi) = (x, x);
-                    break;
-                }
-                if g < 0.0 {
-                    lo = x;
-                    g_lo = g;
-                    if side == -1 {
-                        g_hi *= 0.5;
-                    }
-                    side = -1;
-                } else {
-                    hi = x;
-                    g_hi = g;
-                    if side == 1 {
-                        g_lo *= 0.5;
-                    }
-                    side = 1;
-                }
-            }
+                Ok::<f64, FieldError>(g)
+            })?;
+            (lo, hi) = (found.x, found.x);
         }
     }
     let ln_f = 0.5 * (lo + hi);

@@ -608,24 +608,19 @@ fn harmonics(prepared: &[Prepared], conditions: &Conditions) -> Vec<FitWarning> 
     out
 }
 
-/// The extra capacitance that makes the model reproduce one reading (scale 1), by bisection
+/// The extra capacitance that makes the model reproduce one reading at `scale`, by bisection
 /// between −(external) and +1 nF; `None` when none does.
 fn stray_alone(p: &Prepared, conditions: &Conditions, scale: f64) -> Option<f64> {
     let f_at = |dc: f64| p.model(conditions, [dc, scale]);
-    let (mut a, mut b) = (-p.external * (1.0 - 1e-9), 1e-9);
+    let (a, b) = (-p.external * (1.0 - 1e-9), 1e-9);
     // Frequency falls as capacitance rises.
     if !(f_at(a) >= p.measured && f_at(b) <= p.measured) {
         return None;
     }
-    for _ in 0..80 {
-        let mid = 0.5 * (a + b);
-        if f_at(mid) > p.measured {
-            a = mid;
-        } else {
-            b = mid;
-        }
-    }
-    Some(0.5 * (a + b))
+    Some(crate::physics::roots::bisect(a, b, 80, |dc| {
+        let f = f_at(dc);
+        f <= p.measured || f.is_nan()
+    }))
 }
 
 /// A least-squares solution: the parameters and their standard errors (`None` for one held).

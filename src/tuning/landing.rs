@@ -191,37 +191,27 @@ fn bracket(
     eps: f64,
     f_at: impl Fn(f64) -> Option<f64>,
     target: f64,
-    mut solves: usize,
+    solves: usize,
 ) -> Option<Landed> {
-    let (mut x0, mut g0, mut x1, mut g1) = (a, ga, b, gb);
-    let mut side = 0i32;
-    while solves < MAX_SOLVES {
-        let x = (x0 * g1 - x1 * g0) / (g1 - g0);
-        let f = f_at(x)?;
-        solves += 1;
-        let g = f - target;
-        if g.abs() <= eps {
-            return Some(Landed {
-                length: x,
-                resonance: f,
-                slope: (g1 - g0) / (x1 - x0),
-            });
-        }
-        if g.signum() == g0.signum() {
-            (x0, g0) = (x, g);
-            if side == -1 {
-                g1 *= 0.5;
-            }
-            side = -1;
-        } else {
-            (x1, g1) = (x, g);
-            if side == 1 {
-                g0 *= 0.5;
-            }
-            side = 1;
-        }
+    let stop = crate::physics::roots::Stop {
+        width: 0.0,
+        relative_width: 0.0,
+        value: eps,
+        steps: MAX_SOLVES.saturating_sub(solves),
+    };
+    let found = crate::physics::roots::illinois((a, ga), (b, gb), stop, |x| {
+        f_at(x).map(|f| f - target).ok_or(())
+    })
+    .ok()?;
+    if !found.converged || found.value.is_nan() {
+        return None;
     }
-    None
+    let [(x0, g0), (x1, g1)] = found.bracket;
+    Some(Landed {
+        length: found.x,
+        resonance: found.value + target,
+        slope: (g1 - g0) / (x1 - x0),
+    })
 }
 
 /// The trimmer setting (0–1) at which `coil` in `tank` resonates at `target` on the

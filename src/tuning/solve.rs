@@ -59,17 +59,9 @@ impl fmt::Display for Unreachable {
 /// maximum of f over l) is never stepped over between two points in practice.
 const SCAN_POINTS: usize = 96;
 
-fn bisect(mut lo: f64, mut hi: f64, mut above: impl FnMut(f64) -> bool) -> f64 {
-    // `above(x)` is false at lo and true at hi; 60 halvings reach f64 resolution.
-    for _ in 0..60 {
-        let mid = 0.5 * (lo + hi);
-        if above(mid) {
-            hi = mid;
-        } else {
-            lo = mid;
-        }
-    }
-    0.5 * (lo + hi)
+/// `above(x)` is false at lo and true at hi; 60 halvings reach f64 resolution.
+fn bisect(lo: f64, hi: f64, above: impl FnMut(f64) -> bool) -> f64 {
+    crate::physics::roots::bisect(lo, hi, 60, above)
 }
 
 /// Resonance (hertz) of `coil` stretched or squeezed to `length` across `external_capacitance`;

@@ -425,16 +425,10 @@ const E12_PF: [f64; 24] = [
 /// The external capacitance (farads) that puts `coil` at `frequency` (hertz): the model's
 /// resonance inverted by bisection (it falls as the capacitance grows).
 fn capacitance_for(coil: &Coil, conditions: &Conditions, frequency: f64) -> f64 {
-    let (mut lo, mut hi) = (0.0_f64, 2e-9_f64);
-    for _ in 0..80 {
-        let mid = 0.5 * (lo + hi);
-        if resonance_of(coil, mid, conditions) > frequency {
-            lo = mid;
-        } else {
-            hi = mid;
-        }
-    }
-    0.5 * (lo + hi)
+    crate::physics::roots::bisect(0.0, 2e-9, 80, |c| {
+        let f = resonance_of(coil, c, conditions);
+        f <= frequency || f.is_nan()
+    })
 }
 
 /// Which fixed capacitor, or which trimmer, keeps the whole trimmer travel inside `band`

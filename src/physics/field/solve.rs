@@ -152,30 +152,13 @@ impl FieldModel {
             lo = hi;
             g_lo = g_hi;
         }
-        let mut side = 0i32;
-        for _ in 0..100 {
-            let f = (lo * g_hi - hi * g_lo) / (g_hi - g_lo);
-            let g = sign_of(f)?;
-            if g < 0.0 {
-                lo = f;
-                g_lo = g;
-                if side == -1 {
-                    g_hi *= 0.5;
-                }
-                side = -1;
-            } else {
-                hi = f;
-                g_hi = g;
-                if side == 1 {
-                    g_lo *= 0.5;
-                }
-                side = 1;
-            }
-            if hi - lo <= 1e-7 * hi {
-                break;
-            }
-        }
-        Ok(0.5 * (lo + hi))
+        let stop = crate::physics::roots::Stop {
+            width: 0.0,
+            relative_width: 1e-7,
+            value: 0.0,
+            steps: 100,
+        };
+        Ok(crate::physics::roots::illinois((lo, g_lo), (hi, g_hi), stop, sign_of)?.x)
     }
 
     /// Self-resonance, apparent inductance and series resistance at `operating_frequency`.

@@ -216,39 +216,23 @@ fn refine(
     conditions: &Conditions,
     curve: &ScaleCurve,
     target: f64,
-    (mut a, fa): (f64, f64),
-    (mut b, fb): (f64, f64),
+    (a, fa): (f64, f64),
+    (b, fb): (f64, f64),
 ) -> f64 {
-    let (mut ga, mut gb) = (fa - target, fb - target);
-    let mut side = 0i32;
-    for _ in 0..60 {
-        if (b - a).abs() <= 1e-9 * b.abs() {
-            break;
-        }
-        let x = (a * gb - b * ga) / (gb - ga);
+    let stop = crate::physics::roots::Stop {
+        width: 0.0,
+        relative_width: 1e-9,
+        value: 1e-12 * target,
+        steps: 60,
+    };
+    // A length the model refuses (NaN) ends the search there.
+    let found = crate::physics::roots::illinois((a, fa - target), (b, fb - target), stop, |x| {
         let at = Conditions {
             inductance_scale: conditions.inductance_scale * curve.at(x / coil.mean_diameter()),
             ..*conditions
         };
         let g = resonance_at_length(coil, x, external, &at) - target;
-        if !g.is_finite() || g.abs() <= 1e-12 * target {
-            return x;
-        }
-        if (g < 0.0) == (ga < 0.0) {
-            a = x;
-            ga = g;
-            if side == -1 {
-                gb *= 0.5;
-            }
-            side = -1;
-        } else {
-            b = x;
-            gb = g;
-            if side == 1 {
-                ga *= 0.5;
-            }
-            side = 1;
-        }
-    }
-    0.5 * (a + b)
+        if g.is_finite() { Ok(g) } else { Err(x) }
+    });
+    found.map_or_else(|x| x, |f| f.x)
 }
