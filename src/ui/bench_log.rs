@@ -303,7 +303,15 @@ impl BenchLogPanel {
                     .labelled_by(label.id);
                 ui.end_row();
             });
-        let length = self.form.length.or(present_length);
+        // Kept to the field's resolution, as every typed value is: the present length (turns
+        // × pitch from a gap) is 15.090000000000001 mm, which the file would write as such.
+        let length = self.form.length.or(present_length).map(|l| {
+            crate::ui::widgets::to_si_at_resolution(
+                unit.from_metres(l),
+                unit.metres_per_unit(),
+                unit.decimals(),
+            )
+        });
         let valid = self.form.measured_mhz > 0.0 && self.form.measured_mhz.is_finite();
         // The reading as it would be recorded, judged by the recipe rules (the loader's), so
         // the log never holds a reading the file could not open with.
@@ -446,7 +454,10 @@ fn fit_ui(ui: &mut egui::Ui, figures: &Figures, unit: LengthUnit) -> Option<Benc
         && let Some(sigma) = fit.sigmas.last()
         && let Some(u) = length_uncertainty(*sigma, t.stretch_sensitivity)
     {
-        text.push_str(&format!(" (±{} from the instrument)", unit.show(u)));
+        text.push_str(&format!(
+            " ({} from the instrument)",
+            unit.show_uncertainty(u)
+        ));
     }
     ui.strong(text);
     let action = match &t.advice {

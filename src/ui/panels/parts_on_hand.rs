@@ -16,7 +16,7 @@ use crate::tuning::design::parts::{
     PartsOnHand, entries, parse_fixed_list, parse_former, parse_trimmer, parse_wire,
 };
 use crate::tuning::design::{Design, DesignSettings, fixed_label, search};
-use crate::tuning::digits::{mhz_range, mm};
+use crate::tuning::digits::{mhz_range, mm, spread_range};
 use crate::tuning::verdict::Aim;
 use eframe::egui;
 use std::sync::mpsc::{Receiver, TryRecvError, channel};
@@ -304,7 +304,7 @@ fn table(ui: &mut egui::Ui, d: &Design) -> Option<usize> {
         ui.label(format!(
             "{}; build lands within {}; reach {}; {:.0} kHz/mm; Q {:.0}",
             crate::tuning::design::parts::wire_label(&c.wire),
-            mhz_range(c.spread.0, c.spread.1),
+            spread_range(c.spread.0, c.spread.1),
             mhz_range(c.reach.0, c.reach.1),
             c.khz_per_mm().abs(),
             c.q

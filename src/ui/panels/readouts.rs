@@ -349,8 +349,9 @@ fn figures_rows(ui: &mut egui::Ui, figures: &Figures, unit: LengthUnit) {
     .show(ui);
     Readout::new(
         "Wire to cut",
-        unit.show(a.coil.wire_length()),
-        "Helix √((πD)² + p²) per turn times the turns, plus both leads",
+        unit.show_wire_to_cut(a.coil.wire_length()),
+        "Helix √((πD)² + p²) per turn times the turns, plus both leads; to the millimetre, \
+         as the report and the build sheet state it (the leads are trimmed after soldering)",
     )
     .emphasis(true)
     .show(ui);

@@ -124,8 +124,8 @@ impl StrayPanel {
         ui.add(
             egui::Label::new(format!(
                 "Expect {} from the estimate alone (typical {}).",
-                digits::mhz_range(w.low, w.high),
-                digits::mhz(w.typical)
+                digits::spread_range(w.low, w.high),
+                digits::mhz_at(w.typical, digits::spread_decimals(w.high - w.low))
             ))
             .wrap(),
         );
@@ -136,8 +136,8 @@ impl StrayPanel {
                  stray as entered ({:.2} pF): expect {} before the first measurement, a spread \
                  of {} (95 % of {} draws).",
                 entered_stray * 1e12,
-                digits::mhz_range(lo, hi),
-                digits::width(hi - lo),
+                digits::spread_range(lo, hi),
+                digits::spread_width(hi - lo),
                 crate::recipe::expectation::DRAWS
             ))
             .wrap(),
@@ -147,8 +147,8 @@ impl StrayPanel {
             ui.add(
                 egui::Label::new(format!(
                     "After the bench calibration: expect {}, a spread of {} (the fit's errors).",
-                    digits::mhz_range(lo, hi),
-                    digits::width(hi - lo)
+                    digits::spread_range(lo, hi),
+                    digits::spread_width(hi - lo)
                 ))
                 .wrap(),
             );

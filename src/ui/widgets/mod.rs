@@ -3,5 +3,5 @@
 mod quantity;
 mod readout;
 
-pub use quantity::{LABEL_WIDTH, Quantity, row_label};
+pub use quantity::{LABEL_WIDTH, Quantity, row_label, to_si_at_resolution};
 pub use readout::{Readout, caution_mark, cautions_line};

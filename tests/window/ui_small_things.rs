@@ -1,0 +1,207 @@
+//! Issue 21's small things, through the window: figures carry the digits their uncertainty
+//! allows, one rounding of the wire to cut in the window, `report` and the sheet, values kept
+//! to the field's resolution when saved, typed digits never dropped, the channel list.
+//!
+//! Sources: the Guide to the expression of uncertainty in measurement (JCGM 100:2008, "GUM"),
+//! §7.2.6: an uncertainty is stated to at most two significant digits, and the estimate is
+//! rounded to the same place; that is the rule checked for every spread on screen.
+
+use crate::common;
+
+use common::screen_text;
+use egui_kittest::Harness;
+use egui_kittest::kittest::Queryable;
+use tankwright::model::SpacingSpec;
+use tankwright::recipe::{Footing, Recipe, format, store};
+use tankwright::ui::App;
+
+const RECIPES: [&str; 4] = [
+    "assets/recipes/apprentice_enamel_exercise.ron",
+    "assets/recipes/field_day_club_channels.ron",
+    "assets/recipes/lantern_hill_bench_oscillator.ron",
+    "assets/recipes/lantern_hill_two_metre_buffer.ron",
+];
+
+fn open(recipe: Recipe) -> Harness<'static, App> {
+    let mut harness = Harness::builder()
+        .with_size(egui::vec2(1600.0, 1000.0))
+        .build_eframe(move |_cc| App::with_recipe(recipe.clone()).with_field_solution(false));
+    harness.run();
+    harness
+}
+
+fn shipped(path: &str) -> Recipe {
+    store::load(std::path::Path::new(path)).unwrap_or_else(|e| panic!("{path}: {e}"))
+}
+
+/// The number at the start of `text`, with its count of decimals.
+fn number_at(text: &str) -> Option<(f64, usize)> {
+    let digits: String = text
+        .chars()
+        .take_while(|c| c.is_ascii_digit() || *c == '.')
+        .collect();
+    let value = digits.parse().ok()?;
+    let decimals = digits.split_once('.').map_or(0, |(_, d)| d.len());
+    Some((value, decimals))
+}
+
+/// Every "low–high MHz" range in `line`, with the decimals each end is written to.
+fn ranges(line: &str) -> Vec<(f64, f64, usize)> {
+    let mut out = Vec::new();
+    for (i, _) in line.match_indices('–') {
+        let before = &line[..i];
+        let start = before
+            .rfind(|c: char| !(c.is_ascii_digit() || c == '.'))
+            .map_or(0, |p| p + 1);
+        let after = &line[i + '–'.len_utf8()..];
+        if let (Some((low, d1)), Some((high, d2))) = (number_at(&before[start..]), number_at(after))
+        {
+            let rest = &after[after
+                .find(|c: char| !(c.is_ascii_digit() || c == '.'))
+                .unwrap_or(after.len())..];
+            if rest.starts_with(" MHz") {
+                assert_eq!(d1, d2, "both ends to the same place: {line}");
+                out.push((low, high, d1));
+            }
+        }
+    }
+    out
+}
+
+#[test]
+fn every_spread_on_screen_carries_only_the_digits_its_width_allows() {
+    let mut checked = 0;
+    for path in RECIPES {
+        let harness = open(shipped(path));
+        for line in screen_text(&harness) {
+            if !line.to_lowercase().contains("expect ") {
+                continue;
+            }
+            for (low, high, decimals) in ranges(&line) {
+                let width = high - low;
+                let step = 10f64.powi(-(decimals as i32));
+                // GUM §7.2.6: the width to at most two significant digits, so the last digit
+                // written is no finer than a hundredth of the width; below 100 kHz, 1 kHz (the
+                // tank frequency's own resolution, 3 decimals) is the finest step written.
+                assert!(
+                    step >= width / 100.0 || (width < 0.1 && decimals == 3),
+                    "{path}: {decimals} decimals for a {width:.4} MHz spread: {line}"
+                );
+                checked += 1;
+            }
+        }
+    }
+    assert!(checked >= 4, "only {checked} spreads found on screen");
+}
+
+#[test]
+fn a_spread_over_a_megahertz_reads_to_a_tenth_or_a_hundredth() {
+    // The issue's case: a 9.6 MHz spread read "92.569–102.154 MHz".
+    let mut wide = 0;
+    for path in RECIPES {
+        let harness = open(shipped(path));
+        for line in screen_text(&harness) {
+            if !line.to_lowercase().contains("expect ") {
+                continue;
+            }
+            for (low, high, decimals) in ranges(&line) {
+                if high - low >= 1.0 {
+                    assert!(decimals <= 2, "{path}: {line}");
+                    wide += 1;
+                }
+            }
+        }
+    }
+    assert!(
+        wide >= 1,
+        "no spread of a megahertz or more on the shipped recipes"
+    );
+}
+
+#[test]
+fn the_wire_to_cut_reads_the_same_in_the_window_the_report_and_the_sheet() {
+    for path in RECIPES {
+        let recipe = shipped(path);
+        let harness = open(recipe.clone());
+        let text = screen_text(&harness);
+        let at = text
+            .iter()
+            .position(|t| t == "Wire to cut")
+            .unwrap_or_else(|| panic!("{path}: no wire to cut on screen"));
+        let window = text[at + 1].clone();
+        let report = tankwright::cli::build_report(&recipe).expect("report");
+        let report_line = report
+            .lines()
+            .find(|l| l.trim_start().starts_with("wire to cut"))
+            .expect("wire to cut in the report");
+        let sheet = tankwright::handout::sheet(&recipe, Footing::Classical).expect("sheet");
+        let sheet_row = sheet
+            .coil
+            .iter()
+            .find(|(name, _)| name == "wire to cut")
+            .map(|(_, v)| v.clone())
+            .expect("wire to cut on the sheet");
+        assert!(window.ends_with(" mm"), "{window}");
+        assert!(
+            report_line.contains(&format!(" {window} ")),
+            "{path}: window {window:?}, report {report_line:?}"
+        );
+        assert!(
+            sheet_row.starts_with(&format!("{window} ")),
+            "{path}: window {window:?}, sheet {sheet_row:?}"
+        );
+    }
+}
+
+#[test]
+fn no_uncertainty_is_shown_as_plus_minus_zero() {
+    for path in RECIPES {
+        let harness = open(shipped(path));
+        for line in screen_text(&harness) {
+            assert!(
+                !line.contains("±0.00 ") && !line.contains("±0.000 "),
+                "{path}: {line}"
+            );
+        }
+    }
+}
+
+#[test]
+fn a_reading_at_the_present_length_is_saved_to_the_fields_resolution() {
+    let mut recipe = Recipe::demo();
+    // A length the field cannot show exactly (turns × pitch from a gap often lands so:
+    // 15.090000000000001 mm): the next double above the demo's length.
+    let coil = tankwright::model::Coil::from_winding(&recipe.winding).expect("valid demo");
+    let length = f64::from_bits(coil.length().to_bits() + 1);
+    recipe.winding.spacing = SpacingSpec::Length(length);
+    let mut harness = open(recipe);
+    harness.get_by_label("Measured frequency").scroll_to_me();
+    harness.run();
+    harness.get_by_label("Measured frequency").focus();
+    harness.run();
+    harness.get_by_label("Measured frequency").type_text("98.1");
+    harness.run();
+    harness.key_press(egui::Key::Enter);
+    harness.run();
+    harness.get_by_label("Record reading").scroll_to_me();
+    harness.run();
+    harness.get_by_label("Record reading").click_accesskit();
+    harness.run();
+    let recipe = harness.state().recipe().clone();
+    assert_eq!(recipe.bench_log.len(), 1, "reading recorded");
+    let text = format::to_text(&recipe);
+    let line = text
+        .lines()
+        .find(|l| l.trim_start().starts_with("coil_length_mm:"))
+        .expect("the reading's length in the file");
+    let value = line
+        .trim()
+        .trim_start_matches("coil_length_mm:")
+        .trim()
+        .trim_end_matches(',');
+    let decimals = value.split_once('.').map_or(0, |(_, d)| d.len());
+    assert!(
+        decimals <= 2,
+        "the length field shows 2 decimals, the file holds {value}"
+    );
+}
