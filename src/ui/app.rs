@@ -736,6 +736,7 @@ fn recipe_header(ui: &mut egui::Ui, recipe: &mut Recipe) {
         // The recipe rules' longest name: the field cannot hold what the loader refuses.
         ui.add(
             egui::TextEdit::singleline(&mut recipe.name)
+                .id_salt("recipe_name")
                 .char_limit(crate::recipe::rules::NAME_MAX)
                 .desired_width(f32::INFINITY),
         )
@@ -746,6 +747,7 @@ fn recipe_header(ui: &mut egui::Ui, recipe: &mut Recipe) {
         .show(ui, |ui| {
             ui.add(
                 egui::TextEdit::multiline(&mut recipe.notes)
+                    .id_salt("recipe_notes")
                     .desired_rows(3)
                     .desired_width(f32::INFINITY),
             )

@@ -10,6 +10,7 @@ use crate::recipe::{BenchEntry, Figures, Recipe, rules};
 use crate::tuning::advice::Advice;
 use crate::tuning::fit::{Fit, length_uncertainty};
 use crate::ui::units::LengthUnit;
+use crate::ui::widgets::steady;
 use eframe::egui;
 
 /// What the bench log asks the app to do (applied at the end of the frame).
@@ -216,23 +217,25 @@ impl BenchLogPanel {
             .num_columns(2)
             .show(ui, |ui| {
                 let label = ui.label("Measured frequency");
-                ui.add(
-                    egui::DragValue::new(&mut form.measured_mhz)
-                        .range(0.0..=3000.0)
-                        .speed(0.01)
-                        .fixed_decimals(4)
-                        .suffix(" MHz"),
-                )
-                .labelled_by(label.id)
-                .on_hover_text("measured frequency of the tank, MHz");
+                steady(ui, "measured", |ui| {
+                    ui.add(
+                        egui::DragValue::new(&mut form.measured_mhz)
+                            .range(0.0..=3000.0)
+                            .speed(0.01)
+                            .fixed_decimals(4)
+                            .suffix(" MHz"),
+                    )
+                    .labelled_by(label.id)
+                    .on_hover_text("measured frequency of the tank, MHz")
+                });
                 ui.end_row();
 
                 let label = ui.label("Coil length as measured");
                 let mut length = form.length.or(present_length).unwrap_or(0.0);
                 let per_unit = unit.metres_per_unit();
                 let mut shown = length / per_unit;
-                let changed = ui
-                    .add(
+                let changed = steady(ui, "length", |ui| {
+                    ui.add(
                         egui::DragValue::new(&mut shown)
                             .range(0.0..=2000.0 * 1e-3 / per_unit)
                             .speed(0.01)
@@ -240,8 +243,12 @@ impl BenchLogPanel {
                             .suffix(format!(" {}", unit.suffix())),
                     )
                     .labelled_by(label.id)
-                    .on_hover_text("the coil's length when you read the frequency; defaults to the present length")
-                    .changed();
+                    .on_hover_text(
+                        "the coil's length when you read the frequency; defaults to the \
+                         present length",
+                    )
+                    .changed()
+                });
                 if changed {
                     length = shown * per_unit;
                     form.length = Some(length);
@@ -250,8 +257,8 @@ impl BenchLogPanel {
 
                 let label = ui.label("Trimmer setting then");
                 let mut trimmer = form.trimmer_pct.unwrap_or(present_trimmer);
-                if ui
-                    .add(
+                if steady(ui, "trimmer", |ui| {
+                    ui.add(
                         egui::DragValue::new(&mut trimmer)
                             .range(0.0..=100.0)
                             .speed(0.5)
@@ -260,47 +267,56 @@ impl BenchLogPanel {
                     )
                     .labelled_by(label.id)
                     .changed()
-                {
+                }) {
                     form.trimmer_pct = Some(trimmer);
                 }
                 ui.end_row();
 
                 let label = ui.label("Known capacitor clipped on");
-                ui.add(
-                    egui::DragValue::new(&mut form.added_pf)
-                        .range(0.0..=1000.0)
-                        .speed(0.1)
-                        .fixed_decimals(1)
-                        .suffix(" pF"),
-                )
-                .labelled_by(label.id)
-                .on_hover_text(
-                    "a capacitor of known value clipped across the tank for this reading (0 for \
-                     none): a second reading with one separates the coil's inductance from the \
-                     stray capacitance",
-                );
+                steady(ui, "clipped on", |ui| {
+                    ui.add(
+                        egui::DragValue::new(&mut form.added_pf)
+                            .range(0.0..=1000.0)
+                            .speed(0.1)
+                            .fixed_decimals(1)
+                            .suffix(" pF"),
+                    )
+                    .labelled_by(label.id)
+                    .on_hover_text(
+                        "a capacitor of known value clipped across the tank for this reading \
+                         (0 for none): a second reading with one separates the coil's \
+                         inductance from the stray capacitance",
+                    )
+                });
                 ui.end_row();
 
                 let label = ui.label("Instrument");
                 ui.add(
                     egui::TextEdit::singleline(&mut form.instrument)
+                        .id_salt("bench_log_instrument")
                         .hint_text("counter, dip meter, receiver…")
                         .desired_width(field_width(ui)),
                 )
                 .labelled_by(label.id);
                 ui.end_row();
                 ui.checkbox(&mut form.error_known, "Instrument error known");
-                ui.add_enabled(
-                    form.error_known,
-                    egui::DragValue::new(&mut form.error_ppm)
-                        .range(0.0..=100_000.0)
-                        .suffix(" ppm"),
-                )
-                .on_hover_text("instrument error, ppm");
+                steady(ui, "error", |ui| {
+                    ui.add_enabled(
+                        form.error_known,
+                        egui::DragValue::new(&mut form.error_ppm)
+                            .range(0.0..=100_000.0)
+                            .suffix(" ppm"),
+                    )
+                    .on_hover_text("instrument error, ppm")
+                });
                 ui.end_row();
                 let label = ui.label("Note");
-                ui.add(egui::TextEdit::singleline(&mut form.note).desired_width(field_width(ui)))
-                    .labelled_by(label.id);
+                ui.add(
+                    egui::TextEdit::singleline(&mut form.note)
+                        .id_salt("bench_log_note")
+                        .desired_width(field_width(ui)),
+                )
+                .labelled_by(label.id);
                 ui.end_row();
             });
         // Kept to the field's resolution, as every typed value is: the present length (turns

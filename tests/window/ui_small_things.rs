@@ -9,6 +9,7 @@
 use crate::common;
 
 use common::screen_text;
+use egui::accesskit::Role;
 use egui_kittest::Harness;
 use egui_kittest::kittest::Queryable;
 use tankwright::model::SpacingSpec;
@@ -203,5 +204,101 @@ fn a_reading_at_the_present_length_is_saved_to_the_fields_resolution() {
     assert!(
         decimals <= 2,
         "the length field shows 2 decimals, the file holds {value}"
+    );
+}
+
+/// Type `text` into the focused field one key at a time, a frame after each (40 ms a key, as
+/// a fast typist), calling `between` after the key numbered `at`.
+fn type_slowly(
+    harness: &mut Harness<'static, App>,
+    text: &str,
+    at: usize,
+    between: impl FnOnce(&mut App),
+) {
+    let mut between = Some(between);
+    for (i, c) in text.chars().enumerate() {
+        harness.event(egui::Event::Text(c.to_string()));
+        harness.step();
+        if i + 1 == at
+            && let Some(f) = between.take()
+        {
+            // Something above the field changes while it is being typed in (a field solution
+            // or an evaluation arriving under load): the lines above it grow.
+            f(harness.state_mut());
+            harness.step();
+            harness.step();
+        }
+    }
+    harness.key_press(egui::Key::Enter);
+    harness.run();
+}
+
+/// Focus the number field (spin button) named `label`.
+fn focus(harness: &mut Harness<'static, App>, label: &str) {
+    harness
+        .get_by_role_and_label(Role::SpinButton, label)
+        .scroll_to_me();
+    harness.run();
+    harness
+        .get_by_role_and_label(Role::SpinButton, label)
+        .focus();
+    harness.run();
+}
+
+#[test]
+fn a_typed_reading_keeps_every_digit_while_the_column_above_it_changes() {
+    let mut harness = open(Recipe::demo());
+    focus(&mut harness, "Measured frequency");
+    // Select all and type over the field's 0.0000.
+    harness.key_press_modifiers(egui::Modifiers::COMMAND, egui::Key::A);
+    harness.run();
+    // A reading arrives (another window's working copy, an undo): the log's table and the
+    // calibration appear above the form.
+    type_slowly(&mut harness, "86.05", 2, |app| add_reading(app, 98.3));
+    harness.get_by_label("Record reading").scroll_to_me();
+    harness.run();
+    harness.get_by_label("Record reading").click_accesskit();
+    harness.run();
+    let log = &harness.state().recipe().bench_log;
+    assert_eq!(log.len(), 2, "the typed reading recorded");
+    assert!(
+        (log[1].measured - 86.05e6).abs() < 1.0,
+        "typed 86.05, recorded {} MHz",
+        log[1].measured * 1e-6
+    );
+}
+
+/// A reading for the demo's present coil, as if it had come from elsewhere mid-typing.
+fn add_reading(app: &mut App, mhz: f64) {
+    let mut recipe = app.recipe().clone();
+    let coil = tankwright::model::Coil::from_winding(&recipe.winding).expect("valid");
+    recipe.bench_log.push(tankwright::recipe::BenchEntry {
+        measured: mhz * 1e6,
+        length: coil.length(),
+        trimmer_setting: recipe.tank.trimmer_setting,
+        added_capacitance: 0.0,
+        instrument: String::new(),
+        error_ppm: None,
+        note: String::new(),
+    });
+    *app.recipe_mut() = recipe;
+}
+
+#[test]
+fn a_typed_tolerance_keeps_every_digit_while_the_verdict_above_it_changes() {
+    let mut harness = open(Recipe::demo());
+    focus(&mut harness, "On channel within ±");
+    harness.key_press_modifiers(egui::Modifiers::COMMAND, egui::Key::A);
+    harness.run();
+    // The figures change mid-typing (an undo of a capacitor, a field solution arriving):
+    // the tank falls below the band, and the verdict above the field gains its lines.
+    type_slowly(&mut harness, "12.5", 2, |app| {
+        app.recipe_mut().tank.fixed = 45e-12;
+    });
+    let tolerance = harness.state().recipe().target.tolerance();
+    assert!(
+        (tolerance - 12.5e3).abs() < 1e-6,
+        "typed 12.5 kHz, the target holds {} kHz",
+        tolerance * 1e-3
     );
 }

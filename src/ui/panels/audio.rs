@@ -103,14 +103,16 @@ impl Default for AudioPanel {
 
 fn number(ui: &mut egui::Ui, label: &str, value: &mut f64, range: (f64, f64), suffix: &str) {
     let l = ui.label(label);
-    ui.add(
-        egui::DragValue::new(value)
-            .range(range.0..=range.1)
-            .speed(0.01)
-            .max_decimals(3)
-            .suffix(suffix),
-    )
-    .labelled_by(l.id);
+    crate::ui::widgets::steady(ui, label, |ui| {
+        ui.add(
+            egui::DragValue::new(value)
+                .range(range.0..=range.1)
+                .speed(0.01)
+                .max_decimals(3)
+                .suffix(suffix),
+        )
+        .labelled_by(l.id)
+    });
     ui.end_row();
 }
 
@@ -237,6 +239,7 @@ impl AudioPanel {
                 let l = ui.label(MODEL_TEXT_LABEL);
                 ui.add(
                     egui::TextEdit::multiline(&mut self.model_text)
+                        .id_salt("junction_model_line")
                         .hint_text(".model NAME D(CJO=… VJ=… M=…)")
                         .desired_rows(3)
                         .desired_width(f32::INFINITY)

@@ -101,6 +101,7 @@ impl ChannelPicker {
         let field = ui
             .add(
                 egui::TextEdit::singleline(&mut self.typed)
+                    .id_salt("channel_picker_find")
                     .hint_text("e.g. 98.7, 146.52, V40, calling")
                     .desired_width(f32::INFINITY),
             )

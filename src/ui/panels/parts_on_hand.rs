@@ -141,8 +141,12 @@ impl PartsOnHandPanel {
                     (TRIMMERS_LABEL, &mut self.text.trimmers),
                 ] {
                     let l = ui.label(label);
-                    ui.add(egui::TextEdit::singleline(text).desired_width(150.0))
-                        .labelled_by(l.id);
+                    ui.add(
+                        egui::TextEdit::singleline(text)
+                            .id_salt(("parts_on_hand", label))
+                            .desired_width(150.0),
+                    )
+                    .labelled_by(l.id);
                     ui.end_row();
                 }
                 let l = ui.label(ENAMEL_LABEL);
@@ -161,14 +165,16 @@ impl PartsOnHandPanel {
                     .labelled_by(l.id);
                 ui.end_row();
                 let l = ui.label(LEAD_LABEL);
-                ui.add(
-                    egui::DragValue::new(&mut self.text.lead_mm)
-                        .range(0.0..=50.0)
-                        .speed(0.1)
-                        .max_decimals(1)
-                        .suffix(" mm"),
-                )
-                .labelled_by(l.id);
+                crate::ui::widgets::steady(ui, LEAD_LABEL, |ui| {
+                    ui.add(
+                        egui::DragValue::new(&mut self.text.lead_mm)
+                            .range(0.0..=50.0)
+                            .speed(0.1)
+                            .max_decimals(1)
+                            .suffix(" mm"),
+                    )
+                    .labelled_by(l.id)
+                });
                 ui.end_row();
             });
         let searching = self.running.is_some();
