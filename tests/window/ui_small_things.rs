@@ -302,3 +302,84 @@ fn a_typed_tolerance_keeps_every_digit_while_the_verdict_above_it_changes() {
         tolerance * 1e-3
     );
 }
+
+/// The demo aimed at V40 on the IARU Region 1 plan (12.5 kHz raster; IARU Region 1 VHF
+/// Managers Handbook: V40 = 145.500 MHz, the mobile calling channel).
+fn region_1_demo() -> Harness<'static, App> {
+    let mut recipe = Recipe::demo();
+    recipe.target.plan = tankwright::tuning::BandPlan::TwoMetreRegion1;
+    recipe.target.channel = 145.45e6;
+    open(recipe)
+}
+
+fn open_picker(harness: &mut Harness<'static, App>) {
+    harness
+        .get_by_role_and_label(Role::ComboBox, "Channel")
+        .scroll_to_me();
+    harness.run();
+    harness
+        .get_by_role_and_label(Role::ComboBox, "Channel")
+        .click();
+    harness.run();
+    harness.run();
+}
+
+#[test]
+fn the_channel_list_writes_every_channel_on_the_plans_raster() {
+    let mut harness = region_1_demo();
+    open_picker(&mut harness);
+    let labels: Vec<String> = screen_text(&harness)
+        .into_iter()
+        .filter(|t| t.starts_with("145.") && t.contains(" MHz"))
+        .collect();
+    assert!(labels.len() >= 10, "{labels:?}");
+    for label in &labels {
+        let number = label.split(' ').next().expect("a number");
+        let decimals = number.split_once('.').map_or(0, |(_, d)| d.len());
+        // 12.5 kHz needs four decimals of MHz: every channel is written with four.
+        assert_eq!(decimals, 4, "{label} among {labels:?}");
+    }
+}
+
+#[test]
+fn enter_with_several_matches_takes_the_channel_typed_or_the_first_and_says_which() {
+    let mut harness = region_1_demo();
+    open_picker(&mut harness);
+    // "145.5" is V40 exactly, and is also the start of 145.5125, 145.525, …
+    harness
+        .get_by_role_and_label(
+            Role::TextInput,
+            tankwright::ui::panels::channel_picker::FIND_LABEL,
+        )
+        .type_text("145.5");
+    harness.run();
+    assert!(
+        screen_text(&harness)
+            .iter()
+            .any(|t| t.starts_with("Enter takes 145.5000 MHz (V40")),
+        "{:?}",
+        screen_text(&harness)
+    );
+    harness.key_press(egui::Key::Enter);
+    harness.run();
+    assert_eq!(harness.state().recipe().target.channel, 145.5e6);
+
+    // A word several channels carry: Enter takes the first listed, named beforehand.
+    open_picker(&mut harness);
+    harness
+        .get_by_role_and_label(
+            Role::TextInput,
+            tankwright::ui::panels::channel_picker::FIND_LABEL,
+        )
+        .type_text("repeater output");
+    harness.run();
+    let said = screen_text(&harness)
+        .into_iter()
+        .find(|t| t.starts_with("Enter takes "))
+        .expect("the line naming what Enter takes");
+    assert!(said.contains("V48"), "{said}");
+    harness.key_press(egui::Key::Enter);
+    harness.run();
+    // V48 = 145.000 + 48 × 0.0125 = 145.600 MHz, the first repeater output.
+    assert_eq!(harness.state().recipe().target.channel, 145.6e6);
+}
