@@ -466,6 +466,7 @@ impl App {
         let unit = preferences.unit;
         let bar = BarState {
             recipe_name: &recipe.name,
+            unsaved: files.is_dirty(recipe),
             can_undo: history.can_undo(recipe),
             can_redo: history.can_redo(recipe),
             unit,

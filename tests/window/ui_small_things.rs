@@ -11,7 +11,7 @@ use crate::common;
 use common::screen_text;
 use egui::accesskit::Role;
 use egui_kittest::Harness;
-use egui_kittest::kittest::Queryable;
+use egui_kittest::kittest::{NodeT, Queryable};
 use tankwright::model::SpacingSpec;
 use tankwright::recipe::{Footing, Recipe, format, store};
 use tankwright::ui::App;
@@ -382,4 +382,124 @@ fn enter_with_several_matches_takes_the_channel_typed_or_the_first_and_says_whic
     harness.run();
     // V48 = 145.000 + 48 × 0.0125 = 145.600 MHz, the first repeater output.
     assert_eq!(harness.state().recipe().target.channel, 145.6e6);
+}
+
+/// The window a user starts, on a recipe file whose coil is refused (turns 0), at 1280×720.
+fn restarted_on_a_refused_recipe(dir: &std::path::Path) -> Harness<'static, App> {
+    let mut recipe = Recipe::demo();
+    recipe.winding.turns = 0.0;
+    let path = dir.join("refused.ron");
+    std::fs::write(&path, format::to_text(&recipe)).expect("written");
+    let folder = dir.join("data");
+    let mut harness = Harness::builder()
+        .with_size(egui::vec2(1280.0, 720.0))
+        .build_eframe(move |_cc| {
+            App::restore(folder.clone(), Some(&path)).with_field_solution(false)
+        });
+    harness.run();
+    harness.run();
+    harness
+}
+
+#[test]
+fn after_restarting_on_a_refused_recipe_the_panels_agree_there_is_no_coil_drawn() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let harness = restarted_on_a_refused_recipe(dir.path());
+    assert!(harness.state().figures().is_none(), "the recipe is refused");
+    let text = screen_text(&harness).join("\n");
+    assert!(text.contains("No coil to draw yet"), "{text}");
+    assert!(
+        !text.contains("the last coil that could be built"),
+        "one panel says a coil is drawn, the centre says none:\n{text}"
+    );
+}
+
+#[test]
+fn the_notices_dismiss_button_is_inside_the_window_at_1280() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let harness = restarted_on_a_refused_recipe(dir.path());
+    let dismiss = harness
+        .get_by_role_and_label(Role::Button, "Dismiss")
+        .rect();
+    assert!(
+        dismiss.right() <= 1280.0 && dismiss.left() >= 0.0,
+        "Dismiss at {dismiss:?} in a 1280-point window"
+    );
+}
+
+#[test]
+fn the_unsaved_mark_is_shown_inside_the_window() {
+    let mut harness = open(Recipe::demo());
+    let mark = tankwright::ui::panels::top_bar::UNSAVED_MARK;
+    assert!(
+        harness.query_by_label(mark).is_none(),
+        "nothing changed yet"
+    );
+    harness.state_mut().recipe_mut().winding.turns = 6.0;
+    harness.run();
+    harness.get_by_label(mark);
+}
+
+#[test]
+fn the_stray_section_fits_the_left_panel_at_1280_by_720() {
+    let mut harness = Harness::builder()
+        .with_size(egui::vec2(1280.0, 720.0))
+        .build_eframe(|_cc| {
+            App::with_recipe(shipped("assets/recipes/lantern_hill_two_metre_buffer.ron"))
+                .with_field_solution(false)
+        });
+    harness.run();
+    harness
+        .get_by_label("Where the stray comes from")
+        .scroll_to_me();
+    harness.run();
+    harness
+        .get_by_label("Where the stray comes from")
+        .click_accesskit();
+    harness.run();
+    harness.run();
+    // The centre begins where the coil drawing's pane begins; nothing of the stray section
+    // (its fields and its lines of text) may reach past it.
+    let centre_left = harness
+        .root()
+        .children_recursive()
+        .filter(|n| n.accesskit_node().role() == Role::Pane)
+        .find(|p| {
+            p.children_recursive()
+                .any(|c| c.accesskit_node().label().as_deref() == Some("coil drawing"))
+        })
+        .and_then(|p| {
+            p.children_recursive()
+                .filter_map(|c| c.accesskit_node().bounding_box())
+                .map(|b| b.x0)
+                .reduce(f64::min)
+        })
+        .expect("the centre pane");
+    let mut checked = 0;
+    for node in harness.root().children_recursive() {
+        let n = node.accesskit_node();
+        let text = n.value().or_else(|| n.label()).unwrap_or_default();
+        let ours = text.starts_with("Expect ")
+            || text.starts_with("With the winding")
+            || text.starts_with("After the bench")
+            || (n.role() == Role::SpinButton && text.ends_with('±'));
+        if !ours {
+            continue;
+        }
+        let b = n.bounding_box().expect("laid out");
+        if b.x0 >= centre_left {
+            // The verdict's own "Expect …" line, in the right-hand column.
+            continue;
+        }
+        assert!(
+            b.x1 <= centre_left + 0.5,
+            "'{text}' runs to x = {} past the panel's edge at {centre_left}",
+            b.x1
+        );
+        checked += 1;
+    }
+    assert!(
+        checked >= 3,
+        "only {checked} nodes of the stray section found"
+    );
 }
