@@ -503,3 +503,29 @@ fn the_stray_section_fits_the_left_panel_at_1280_by_720() {
         "only {checked} nodes of the stray section found"
     );
 }
+
+#[test]
+fn a_bias_above_the_supply_is_said() {
+    let mut harness = Harness::builder()
+        .with_size(egui::vec2(1400.0, 2800.0))
+        .build_eframe(|_cc| App::with_recipe(Recipe::demo()).with_field_solution(false));
+    harness.run();
+    harness.get_by_label("Audio and drift").click();
+    harness.run();
+    let said = |h: &Harness<'_, App>| {
+        screen_text(h)
+            .iter()
+            .any(|t| t.starts_with("Caution: the reverse bias"))
+    };
+    // The demo's 4.5 V from a 9 V battery: nothing to say.
+    assert!(!said(&harness));
+    harness
+        .get_by_role_and_label(Role::SpinButton, "Reverse bias")
+        .set_value_accesskit(12.0);
+    harness.run();
+    harness.run();
+    assert!(
+        said(&harness),
+        "a 12 V bias from a 9 V supply taken silently"
+    );
+}

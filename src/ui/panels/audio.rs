@@ -309,6 +309,17 @@ impl AudioPanel {
                 );
             });
         ui.weak("Coupling 0 pF: the junction sits straight across the tank.");
+        // A bias the supply cannot give is said, never taken silently.
+        if let Some(why) = crate::tuning::modulation::bias_beyond_supply(
+            self.settings.bias_v,
+            self.settings.audio_peak_v,
+            self.settings.supply_v,
+        ) {
+            ui.add(
+                egui::Label::new(egui::RichText::new(why).color(crate::ui::theme::caution(ui)))
+                    .wrap(),
+            );
+        }
         self.paste_ui(ui);
         let Some(coil) = coil else {
             return;
