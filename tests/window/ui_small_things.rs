@@ -529,3 +529,37 @@ fn a_bias_above_the_supply_is_said() {
         "a 12 V bias from a 9 V supply taken silently"
     );
 }
+
+#[test]
+fn the_carrier_against_bias_hover_reads_the_curve_at_the_pointers_bias() {
+    let mut harness = Harness::builder()
+        .with_size(egui::vec2(1400.0, 2800.0))
+        .build_eframe(|_cc| App::with_recipe(Recipe::demo()).with_field_solution(false));
+    harness.run();
+    harness.get_by_label("Audio and drift").click();
+    harness.run();
+    harness.run();
+    let sweeps = harness.state().modulation_sweeps();
+    let present = sweeps.present().expect("the sweeps are computed");
+    let bias = sweeps.inputs().expect("inputs").bias_v;
+    // At the present bias the curve is the engine's present carrier (tuning::modulation),
+    // whatever height the pointer is at: the text is read from the curve, to 1 kHz.
+    let text =
+        tankwright::ui::charts::modulation::carrier_bias_hover(sweeps.carrier_over_bias(), bias)
+            .expect("on the curve");
+    let mhz: f64 = text
+        .split(' ')
+        .next()
+        .and_then(|t| t.parse().ok())
+        .expect("MHz first");
+    assert!(
+        (mhz - present.carrier * 1e-6).abs() <= 0.002,
+        "hover {text:?}, engine {} MHz",
+        present.carrier * 1e-6
+    );
+    assert!(
+        tankwright::ui::charts::modulation::carrier_bias_hover(sweeps.carrier_over_bias(), -5.0)
+            .is_none(),
+        "nothing off the curve"
+    );
+}

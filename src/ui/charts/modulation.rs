@@ -175,10 +175,7 @@ pub fn carrier_bias_chart(ui: &mut egui::Ui, sweeps: &ModulationSweeps) {
         "junction reverse bias (V)",
         "carrier (MHz)",
     )
-    .label_formatter(|pos| {
-        let p = hover_point(pos);
-        Some(format!("{:.3} MHz\n{:.2} V reverse bias", p.y, p.x))
-    })
+    .label_formatter(|pos| carrier_bias_hover(curve, hover_point(pos).x))
     .show(ui, |plot_ui| {
         plot_ui.set_plot_bounds_x(x_lo..=x_hi);
         plot_ui.set_plot_bounds_y(y_lo..=y_hi);
@@ -217,6 +214,18 @@ pub fn carrier_bias_chart(ui: &mut egui::Ui, sweeps: &ModulationSweeps) {
         );
     });
     name_chart(ui, &response.response, CARRIER_BIAS_CHART_LABEL);
+}
+
+/// The hover text of the carrier-against-bias chart at the pointer's bias `x` (volts): the
+/// curve read there, interpolated between its samples, never the pointer's own height;
+/// `None` off the curve. `curve` is [`ModulationSweeps::carrier_over_bias`] (volts, hertz).
+pub fn carrier_bias_hover(curve: &[[f64; 2]], x: f64) -> Option<String> {
+    let hz = super::hover::value_at(curve, x)?;
+    Some(format!(
+        "{}\n{:.2} V reverse bias",
+        crate::tuning::digits::mhz(hz),
+        x
+    ))
 }
 
 /// The point under the pointer (or the data point nearest it).
