@@ -563,3 +563,29 @@ fn the_carrier_against_bias_hover_reads_the_curve_at_the_pointers_bias() {
         "nothing off the curve"
     );
 }
+
+#[test]
+fn the_carrier_against_bias_chart_fits_the_left_panel_at_1280() {
+    let mut harness = Harness::builder()
+        .with_size(egui::vec2(1280.0, 720.0))
+        .build_eframe(|_cc| {
+            App::with_recipe(shipped("assets/recipes/lantern_hill_bench_oscillator.ron"))
+                .with_field_solution(false)
+        });
+    harness.run();
+    harness.get_by_label("Audio and drift").scroll_to_me();
+    harness.run();
+    harness.get_by_label("Audio and drift").click_accesskit();
+    harness.run();
+    let label = tankwright::ui::charts::modulation::CARRIER_BIAS_CHART_LABEL;
+    harness.get_by_label(label).scroll_to_me();
+    harness.run();
+    harness.run();
+    let chart = harness.get_by_label(label).rect();
+    let drawing_left = harness.get_by_label("coil drawing").rect().left();
+    assert!(
+        chart.right() < drawing_left,
+        "the chart runs to x = {} past the centre at {drawing_left}",
+        chart.right()
+    );
+}

@@ -125,11 +125,20 @@ fn spaced(lo: f64, hi: f64) -> Vec<f64> {
 
 /// A chart that only shows (no pan, zoom or drag); its legend is drawn above it
 /// ([`super::legend`]), as on the other charts, so no entry covers a curve.
-fn plain_plot(id: &str, x_label: &str, y_label: &str) -> Plot<'static> {
-    super::held_still(Plot::new(id))
-        .x_axis_label(x_label.to_owned())
-        .y_axis_label(y_label.to_owned())
-        .show_crosshair(true)
+///
+/// Its width is what the panel shows from the chart's left edge to the panel's visible right
+/// edge (the clip rectangle): inside the left panel's sideways scroll area the room egui
+/// offers grows with any wider row above (the drift table), and the chart ran past the
+/// panel's edge with the end of its bias axis hidden (issue 21).
+fn plain_plot(ui: &egui::Ui, id: &str, x_label: &str, y_label: &str) -> Plot<'static> {
+    let visible = ui.clip_rect().right() - ui.cursor().left() - ui.spacing().item_spacing.x;
+    let width = visible.min(ui.available_width()).max(160.0);
+    // 1–2–5 ticks with labels on both axes, as on the other charts (the bias axis showed
+    // only "0" with egui_plot's own spacing at this width).
+    let plot = super::held_still(Plot::new(id))
+        .width(width)
+        .show_crosshair(true);
+    super::ticks::nice_axes(plot, x_label.to_owned(), y_label)
         .height(190.0)
         .min_size(egui::vec2(160.0, 120.0))
 }
@@ -171,6 +180,7 @@ pub fn carrier_bias_chart(ui: &mut egui::Ui, sweeps: &ModulationSweeps) {
     entries.push(Entry::new("present bias", Swatch::Point(palette::PRESENT)));
     legend::show(ui, &entries);
     let response = plain_plot(
+        ui,
         "tankwright carrier against bias",
         "junction reverse bias (V)",
         "carrier (MHz)",
@@ -278,6 +288,7 @@ pub fn deviation_chart(ui: &mut egui::Ui, sweeps: &ModulationSweeps) {
     ));
     legend::show(ui, &entries);
     let response = plain_plot(
+        ui,
         "tankwright deviation against audio",
         "audio peak at the junction (V)",
         "peak deviation (kHz)",
