@@ -10,7 +10,7 @@ use crate::tuning::design::parts::{
     wire_label,
 };
 use crate::tuning::design::{Candidate, Design, DesignSettings, plan_for, search};
-use crate::tuning::digits::{mhz, mhz_range, mm};
+use crate::tuning::digits::{mhz, mhz_range, mm, spread_range};
 use crate::tuning::verdict::Aim;
 use serde_json::{Value, json};
 
@@ -197,7 +197,7 @@ fn design_text(d: &Design, target: f64) -> String {
             100.0 * c.trimmer_setting,
             mhz(c.resonance),
             mhz_range(c.reach.0, c.reach.1),
-            mhz_range(c.spread.0, c.spread.1),
+            spread_range(c.spread.0, c.spread.1),
         ));
         for r in &c.reasons {
             s.push_str(&format!("   - {r}\n"));

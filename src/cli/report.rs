@@ -117,8 +117,8 @@ fn winding_lines(r: &Recipe, coil: &Coil, a: &Analysis, out: &mut Vec<String>) {
         g.lead_length() * 1e3
     ));
     out.push(format!(
-        "  wire to cut        {:>10.1} mm   (helix plus both leads)",
-        g.wire_length() * 1e3
+        "  wire to cut        {:>13}   (helix plus both leads)",
+        crate::tuning::digits::wire_to_cut_mm(g.wire_length())
     ));
     out.push(String::new());
 }

@@ -39,8 +39,8 @@ pub fn analysis_report(a: &Analysis) -> String {
         g.length_over_diameter()
     ));
     line(format!(
-        "  wire to cut        {:>10.1} mm   (helix plus two {:.1} mm leads)",
-        g.wire_length() * 1e3,
+        "  wire to cut        {:>13}   (helix plus two {:.1} mm leads)",
+        crate::tuning::digits::wire_to_cut_mm(g.wire_length()),
         g.lead_length() * 1e3
     ));
     line("Inductance (coil only)".to_owned());

@@ -168,8 +168,8 @@ fn coil_rows(recipe: &Recipe, f: &Figures) -> Vec<Row> {
     rows.push(row(
         "wire to cut",
         format!(
-            "{} mm (the helix and both leads)",
-            digits::fixed(g.wire_length() * 1e3, 0)
+            "{} (the helix and both leads)",
+            digits::wire_to_cut_mm(g.wire_length())
         ),
     ));
     rows
@@ -287,15 +287,18 @@ fn expect_lines(recipe: &Recipe, f: &Figures) -> Vec<String> {
             digits::fixed(s.low * 1e12, 2),
             digits::fixed(s.high * 1e12, 2),
             pf(recipe.tank.stray),
-            digits::mhz_range(e.window.low, e.window.high),
-            digits::mhz(e.window.typical)
+            digits::spread_range(e.window.low, e.window.high),
+            digits::mhz_at(
+                e.window.typical,
+                digits::spread_decimals(e.window.high - e.window.low)
+            )
         ),
         format!(
             "With the stray as entered, the estimate's range around it and the builder's \
              tolerances ({}): expect {} before the first measurement (95 % of {DRAWS} \
              simulated builds).",
             settings.tolerances.in_words(),
-            digits::mhz_range(e.before.expected.0, e.before.expected.1)
+            digits::spread_range(e.before.expected.0, e.before.expected.1)
         ),
     ]
 }

@@ -284,10 +284,41 @@ impl BandPlan {
         }
     }
 
-    /// The channel as listed in a picker: frequency with the decimals it needs
-    /// ("145.2125"), then its note: "145.5 MHz (V40, simplex, mobile calling)".
+    /// Decimals (of MHz) every channel of the plan is written with in a list: those of its
+    /// raster, so one list never mixes "145.5" with "145.5125" (12.5 kHz: 4, 15 kHz: 3,
+    /// 20 kHz: 2, 100 and 200 kHz: 1). A custom list takes the fewest decimals (at least one,
+    /// at most four) that write each of its channels exactly.
+    pub fn channel_decimals(&self) -> usize {
+        match self {
+            BandPlan::UsFm | BandPlan::Fm100k | BandPlan::JapanFmWide | BandPlan::JapanFm => 1,
+            BandPlan::TwoMetreRegion1 | BandPlan::TwoMetreRegion3 => 4,
+            BandPlan::TwoMetreRegion2 => 3,
+            BandPlan::TwoMetreRegion2Step20k => 2,
+            BandPlan::Custom(_) => {
+                let channels = self.channels();
+                (1..=4)
+                    .find(|&d| {
+                        // One unit of the last decimal, hertz: 100 kHz for d = 1.
+                        let unit = 10f64.powi(6 - i32::try_from(d).unwrap_or(4));
+                        channels
+                            .iter()
+                            .all(|f| ((f / unit).round() * unit - f).abs() < 0.5)
+                    })
+                    .unwrap_or(4)
+            }
+        }
+    }
+
+    /// The channel as listed in a picker: frequency with the decimals of the plan's raster
+    /// ([`channel_decimals`](Self::channel_decimals): "145.5000", "145.2125"), then its note:
+    /// "145.5000 MHz (V40, simplex, mobile calling)".
     pub fn channel_label(&self, frequency: f64) -> String {
-        let mhz = super::digits::channel_mhz(frequency);
+        // A typed frequency off the raster keeps its own digits (100.05 is not 100.1).
+        let mhz = if self.has_channel(frequency) {
+            super::digits::fixed(frequency * 1e-6, self.channel_decimals())
+        } else {
+            super::digits::channel_mhz(frequency)
+        };
         match self.channel_note(frequency) {
             Some(note) => format!("{mhz} MHz ({note})"),
             None => format!("{mhz} MHz"),

@@ -325,3 +325,21 @@ pub fn deviation_over_audio(
         .map(|(i, &p)| [p.abs(), out[1 + 2 * i] - carrier, carrier - out[2 + 2 * i]])
         .collect()
 }
+
+/// Why a reverse bias cannot be had from the supply, or `None` when it can: a junction
+/// biased through a divider or a potentiometer from the supply sees at most the supply, and
+/// with the audio on top its reverse voltage swings to bias + audio peak (common practice: a
+/// bias network cannot raise a voltage above the rail that feeds it). Volts in.
+pub fn bias_beyond_supply(bias_v: f64, audio_peak_v: f64, supply_v: f64) -> Option<String> {
+    if !(bias_v.is_finite() && audio_peak_v.is_finite() && supply_v.is_finite()) {
+        return None;
+    }
+    let top = bias_v + audio_peak_v.abs();
+    (top > supply_v).then(|| {
+        format!(
+            "Caution: the reverse bias ({bias_v:.2} V) with the audio peak reaches {top:.2} V, \
+             above the {supply_v:.2} V supply (the drift budget's): a bias taken from that \
+             supply cannot give it. Lower the bias or the audio, or raise the supply."
+        )
+    })
+}

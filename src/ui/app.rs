@@ -466,6 +466,7 @@ impl App {
         let unit = preferences.unit;
         let bar = BarState {
             recipe_name: &recipe.name,
+            unsaved: files.is_dirty(recipe),
             can_undo: history.can_undo(recipe),
             can_redo: history.can_redo(recipe),
             unit,
@@ -736,6 +737,7 @@ fn recipe_header(ui: &mut egui::Ui, recipe: &mut Recipe) {
         // The recipe rules' longest name: the field cannot hold what the loader refuses.
         ui.add(
             egui::TextEdit::singleline(&mut recipe.name)
+                .id_salt("recipe_name")
                 .char_limit(crate::recipe::rules::NAME_MAX)
                 .desired_width(f32::INFINITY),
         )
@@ -746,6 +748,7 @@ fn recipe_header(ui: &mut egui::Ui, recipe: &mut Recipe) {
         .show(ui, |ui| {
             ui.add(
                 egui::TextEdit::multiline(&mut recipe.notes)
+                    .id_salt("recipe_notes")
                     .desired_rows(3)
                     .desired_width(f32::INFINITY),
             )

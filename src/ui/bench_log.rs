@@ -11,6 +11,7 @@ use crate::tuning::advice::Advice;
 use crate::tuning::fit::{Fit, length_uncertainty};
 use crate::tuning::reading_reach;
 use crate::ui::units::LengthUnit;
+use crate::ui::widgets::steady;
 use eframe::egui;
 
 /// What the bench log asks the app to do (applied at the end of the frame).
@@ -225,23 +226,25 @@ impl BenchLogPanel {
             .num_columns(2)
             .show(ui, |ui| {
                 let label = ui.label("Measured frequency");
-                ui.add(
-                    egui::DragValue::new(&mut form.measured_mhz)
-                        .range(0.0..=3000.0)
-                        .speed(0.01)
-                        .fixed_decimals(4)
-                        .suffix(" MHz"),
-                )
-                .labelled_by(label.id)
-                .on_hover_text("measured frequency of the tank, MHz");
+                steady(ui, "measured", |ui| {
+                    ui.add(
+                        egui::DragValue::new(&mut form.measured_mhz)
+                            .range(0.0..=3000.0)
+                            .speed(0.01)
+                            .fixed_decimals(4)
+                            .suffix(" MHz"),
+                    )
+                    .labelled_by(label.id)
+                    .on_hover_text("measured frequency of the tank, MHz")
+                });
                 ui.end_row();
 
                 let label = ui.label("Coil length as measured");
                 let mut length = form.length.or(present_length).unwrap_or(0.0);
                 let per_unit = unit.metres_per_unit();
                 let mut shown = length / per_unit;
-                let changed = ui
-                    .add(
+                let changed = steady(ui, "length", |ui| {
+                    ui.add(
                         egui::DragValue::new(&mut shown)
                             .range(0.0..=2000.0 * 1e-3 / per_unit)
                             .speed(0.01)
@@ -249,8 +252,12 @@ impl BenchLogPanel {
                             .suffix(format!(" {}", unit.suffix())),
                     )
                     .labelled_by(label.id)
-                    .on_hover_text("the coil's length when you read the frequency; defaults to the present length")
-                    .changed();
+                    .on_hover_text(
+                        "the coil's length when you read the frequency; defaults to the \
+                         present length",
+                    )
+                    .changed()
+                });
                 if changed {
                     length = shown * per_unit;
                     form.length = Some(length);
@@ -259,8 +266,8 @@ impl BenchLogPanel {
 
                 let label = ui.label("Trimmer setting then");
                 let mut trimmer = form.trimmer_pct.unwrap_or(present_trimmer);
-                if ui
-                    .add(
+                if steady(ui, "trimmer", |ui| {
+                    ui.add(
                         egui::DragValue::new(&mut trimmer)
                             .range(0.0..=100.0)
                             .speed(0.5)
@@ -269,25 +276,27 @@ impl BenchLogPanel {
                     )
                     .labelled_by(label.id)
                     .changed()
-                {
+                }) {
                     form.trimmer_pct = Some(trimmer);
                 }
                 ui.end_row();
 
                 let label = ui.label("Known capacitor clipped on");
-                ui.add(
-                    egui::DragValue::new(&mut form.added_pf)
-                        .range(0.0..=1000.0)
-                        .speed(0.1)
-                        .fixed_decimals(1)
-                        .suffix(" pF"),
-                )
-                .labelled_by(label.id)
-                .on_hover_text(
-                    "a capacitor of known value clipped across the tank for this reading (0 for \
-                     none): a second reading with one separates the coil's inductance from the \
-                     stray capacitance",
-                );
+                steady(ui, "clipped on", |ui| {
+                    ui.add(
+                        egui::DragValue::new(&mut form.added_pf)
+                            .range(0.0..=1000.0)
+                            .speed(0.1)
+                            .fixed_decimals(1)
+                            .suffix(" pF"),
+                    )
+                    .labelled_by(label.id)
+                    .on_hover_text(
+                        "a capacitor of known value clipped across the tank for this reading \
+                         (0 for none): a second reading with one separates the coil's \
+                         inductance from the stray capacitance",
+                    )
+                });
                 ui.end_row();
 
                 if form.added_pf > 0.0 {
@@ -311,26 +320,41 @@ impl BenchLogPanel {
                 let label = ui.label("Instrument");
                 ui.add(
                     egui::TextEdit::singleline(&mut form.instrument)
+                        .id_salt("bench_log_instrument")
                         .hint_text("counter, dip meter, receiver…")
                         .desired_width(field_width(ui)),
                 )
                 .labelled_by(label.id);
                 ui.end_row();
                 ui.checkbox(&mut form.error_known, "Instrument error known");
-                ui.add_enabled(
-                    form.error_known,
-                    egui::DragValue::new(&mut form.error_ppm)
-                        .range(0.0..=100_000.0)
-                        .suffix(" ppm"),
-                )
-                .on_hover_text("instrument error, ppm");
+                steady(ui, "error", |ui| {
+                    ui.add_enabled(
+                        form.error_known,
+                        egui::DragValue::new(&mut form.error_ppm)
+                            .range(0.0..=100_000.0)
+                            .suffix(" ppm"),
+                    )
+                    .on_hover_text("instrument error, ppm")
+                });
                 ui.end_row();
                 let label = ui.label("Note");
-                ui.add(egui::TextEdit::singleline(&mut form.note).desired_width(field_width(ui)))
-                    .labelled_by(label.id);
+                ui.add(
+                    egui::TextEdit::singleline(&mut form.note)
+                        .id_salt("bench_log_note")
+                        .desired_width(field_width(ui)),
+                )
+                .labelled_by(label.id);
                 ui.end_row();
             });
-        let length = self.form.length.or(present_length);
+        // Kept to the field's resolution, as every typed value is: the present length (turns
+        // × pitch from a gap) is 15.090000000000001 mm, which the file would write as such.
+        let length = self.form.length.or(present_length).map(|l| {
+            crate::ui::widgets::to_si_at_resolution(
+                unit.from_metres(l),
+                unit.metres_per_unit(),
+                unit.decimals(),
+            )
+        });
         let valid = self.form.measured_mhz > 0.0 && self.form.measured_mhz.is_finite();
         // The reading as it would be recorded, judged by the recipe rules (the loader's), so
         // the log never holds a reading the file could not open with.
@@ -488,7 +512,10 @@ fn fit_ui(ui: &mut egui::Ui, figures: &Figures, unit: LengthUnit) -> Option<Benc
         && let Some(sigma) = fit.sigmas.last()
         && let Some(u) = length_uncertainty(*sigma, t.stretch_sensitivity)
     {
-        text.push_str(&format!(" (±{} from the instrument)", unit.show(u)));
+        text.push_str(&format!(
+            " ({} from the instrument)",
+            unit.show_uncertainty(u)
+        ));
     }
     ui.strong(text);
     let action = match &t.advice {

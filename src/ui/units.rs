@@ -56,6 +56,27 @@ impl LengthUnit {
     }
 }
 
+impl LengthUnit {
+    /// The wire to cut, at the resolution one rule gives everywhere
+    /// ([`crate::tuning::digits::wire_to_cut_mm`]): whole millimetres, or in inches the
+    /// hundredth (0.25 mm) nearest.
+    pub fn show_wire_to_cut(self, metres: f64) -> String {
+        match self {
+            LengthUnit::Millimetres => crate::tuning::digits::wire_to_cut_mm(metres),
+            LengthUnit::Inches => format!(
+                "{} in",
+                crate::tuning::digits::fixed(self.from_metres(metres), 2)
+            ),
+        }
+    }
+
+    /// An uncertainty of a length at this unit's resolution: "±0.12 mm", or "under 0.01 mm"
+    /// when it rounds to nothing there.
+    pub fn show_uncertainty(self, metres: f64) -> String {
+        crate::tuning::digits::plus_minus(self.from_metres(metres), self.decimals(), self.suffix())
+    }
+}
+
 /// Farads to picofarads.
 pub fn pf(farads: f64) -> f64 {
     farads * 1e12

@@ -162,7 +162,11 @@ fn bench_readings_show_the_fitted_stray_and_narrow_the_band() {
 
     let lines = stray_lines(&harness);
     let fitted = value_of(&lines, FITTED_LABEL).expect("the fitted stray is shown");
-    assert!(fitted.ends_with(" pF") && fitted.contains('±'), "{fitted}");
+    // The value with its standard error, never "± 0.00 pF" (issue 21: "under 0.01 pF").
+    assert!(
+        fitted.ends_with(" pF") && fitted.contains("standard error") && !fitted.contains("±0.00"),
+        "{fitted}"
+    );
     let difference = value_of(&lines, DIFFERENCE_LABEL).expect("the difference is shown");
     assert!(difference.contains("the estimate's range"), "{difference}");
     // The stray as entered plus the 1.2 pF the build has beyond the model.

@@ -38,7 +38,7 @@ pub mod ruled_out;
 use crate::model::{Coil, Conditions, DiameterSpec, SpacingSpec, Tank, Winding, WireSpec};
 use crate::tuning::buildable::{self, check_length, shortest_buildable_length};
 use crate::tuning::construction::Construction;
-use crate::tuning::digits::{mhz, mhz_range, mm, width};
+use crate::tuning::digits::{mhz, mhz_range, mm, spread_range, spread_width, width};
 use crate::tuning::field_tank::{FieldBasis, FieldInput, field_tank};
 use crate::tuning::spread::BuildTolerances;
 use crate::tuning::stray::{Span, estimate_stray, inputs_for};
@@ -589,8 +589,8 @@ fn candidate(
         format!(
             "the build may land within {} ({} wide); {} reaches {}, so the trimmer brings any \
              of them onto the channel",
-            mhz_range(j.spread.0, j.spread.1),
-            width(j.spread.1 - j.spread.0),
+            spread_range(j.spread.0, j.spread.1),
+            spread_width(j.spread.1 - j.spread.0),
             format_args!("the {} trimmer", trimmer.label()),
             mhz_range(j.reach.0, j.reach.1)
         ),

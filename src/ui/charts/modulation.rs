@@ -125,11 +125,20 @@ fn spaced(lo: f64, hi: f64) -> Vec<f64> {
 
 /// A chart that only shows (no pan, zoom or drag); its legend is drawn above it
 /// ([`super::legend`]), as on the other charts, so no entry covers a curve.
-fn plain_plot(id: &str, x_label: &str, y_label: &str) -> Plot<'static> {
-    super::held_still(Plot::new(id))
-        .x_axis_label(x_label.to_owned())
-        .y_axis_label(y_label.to_owned())
-        .show_crosshair(true)
+///
+/// Its width is what the panel shows from the chart's left edge to the panel's visible right
+/// edge (the clip rectangle): inside the left panel's sideways scroll area the room egui
+/// offers grows with any wider row above (the drift table), and the chart ran past the
+/// panel's edge with the end of its bias axis hidden (issue 21).
+fn plain_plot(ui: &egui::Ui, id: &str, x_label: &str, y_label: &str) -> Plot<'static> {
+    let visible = ui.clip_rect().right() - ui.cursor().left() - ui.spacing().item_spacing.x;
+    let width = visible.min(ui.available_width()).max(160.0);
+    // 1–2–5 ticks with labels on both axes, as on the other charts (the bias axis showed
+    // only "0" with egui_plot's own spacing at this width).
+    let plot = super::held_still(Plot::new(id))
+        .width(width)
+        .show_crosshair(true);
+    super::ticks::nice_axes(plot, x_label.to_owned(), y_label)
         .height(190.0)
         .min_size(egui::vec2(160.0, 120.0))
 }
@@ -171,14 +180,12 @@ pub fn carrier_bias_chart(ui: &mut egui::Ui, sweeps: &ModulationSweeps) {
     entries.push(Entry::new("present bias", Swatch::Point(palette::PRESENT)));
     legend::show(ui, &entries);
     let response = plain_plot(
+        ui,
         "tankwright carrier against bias",
         "junction reverse bias (V)",
         "carrier (MHz)",
     )
-    .label_formatter(|pos| {
-        let p = hover_point(pos);
-        Some(format!("{:.3} MHz\n{:.2} V reverse bias", p.y, p.x))
-    })
+    .label_formatter(|pos| carrier_bias_hover(curve, hover_point(pos).x))
     .show(ui, |plot_ui| {
         plot_ui.set_plot_bounds_x(x_lo..=x_hi);
         plot_ui.set_plot_bounds_y(y_lo..=y_hi);
@@ -217,6 +224,18 @@ pub fn carrier_bias_chart(ui: &mut egui::Ui, sweeps: &ModulationSweeps) {
         );
     });
     name_chart(ui, &response.response, CARRIER_BIAS_CHART_LABEL);
+}
+
+/// The hover text of the carrier-against-bias chart at the pointer's bias `x` (volts): the
+/// curve read there, interpolated between its samples, never the pointer's own height;
+/// `None` off the curve. `curve` is [`ModulationSweeps::carrier_over_bias`] (volts, hertz).
+pub fn carrier_bias_hover(curve: &[[f64; 2]], x: f64) -> Option<String> {
+    let hz = super::hover::value_at(curve, x)?;
+    Some(format!(
+        "{}\n{:.2} V reverse bias",
+        crate::tuning::digits::mhz(hz),
+        x
+    ))
 }
 
 /// The point under the pointer (or the data point nearest it).
@@ -269,6 +288,7 @@ pub fn deviation_chart(ui: &mut egui::Ui, sweeps: &ModulationSweeps) {
     ));
     legend::show(ui, &entries);
     let response = plain_plot(
+        ui,
         "tankwright deviation against audio",
         "audio peak at the junction (V)",
         "peak deviation (kHz)",

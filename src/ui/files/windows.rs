@@ -42,13 +42,16 @@ impl FileDesk {
             return;
         };
         let mut dismiss = false;
+        // The button first, so a long notice wraps beside it and never pushes it off the
+        // window's edge (it was clipped at 1280×720).
         ui.horizontal(|ui| {
-            if notice.is_error {
-                ui.colored_label(ui.visuals().error_fg_color, &notice.text);
-            } else {
-                ui.label(&notice.text);
-            }
             dismiss = ui.small_button("Dismiss").clicked();
+            let text = if notice.is_error {
+                egui::RichText::new(&notice.text).color(ui.visuals().error_fg_color)
+            } else {
+                egui::RichText::new(&notice.text)
+            };
+            ui.add(egui::Label::new(text).wrap());
         });
         if dismiss {
             self.notice = None;

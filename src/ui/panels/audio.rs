@@ -106,14 +106,16 @@ impl Default for AudioPanel {
 
 fn number(ui: &mut egui::Ui, label: &str, value: &mut f64, range: (f64, f64), suffix: &str) {
     let l = ui.label(label);
-    ui.add(
-        egui::DragValue::new(value)
-            .range(range.0..=range.1)
-            .speed(0.01)
-            .max_decimals(3)
-            .suffix(suffix),
-    )
-    .labelled_by(l.id);
+    crate::ui::widgets::steady(ui, label, |ui| {
+        ui.add(
+            egui::DragValue::new(value)
+                .range(range.0..=range.1)
+                .speed(0.01)
+                .max_decimals(3)
+                .suffix(suffix),
+        )
+        .labelled_by(l.id)
+    });
     ui.end_row();
 }
 
@@ -240,6 +242,7 @@ impl AudioPanel {
                 let l = ui.label(MODEL_TEXT_LABEL);
                 ui.add(
                     egui::TextEdit::multiline(&mut self.model_text)
+                        .id_salt("junction_model_line")
                         .hint_text(".model NAME D(CJO=… VJ=… M=…)")
                         .desired_rows(3)
                         .desired_width(f32::INFINITY)
@@ -309,6 +312,17 @@ impl AudioPanel {
                 );
             });
         ui.weak("Coupling 0 pF: the junction sits straight across the tank.");
+        // A bias the supply cannot give is said, never taken silently.
+        if let Some(why) = crate::tuning::modulation::bias_beyond_supply(
+            self.settings.bias_v,
+            self.settings.audio_peak_v,
+            self.settings.supply_v,
+        ) {
+            ui.add(
+                egui::Label::new(egui::RichText::new(why).color(crate::ui::theme::caution(ui)))
+                    .wrap(),
+            );
+        }
         self.paste_ui(ui);
         let Some(coil) = coil else {
             return;

@@ -101,6 +101,7 @@ impl ChannelPicker {
         let field = ui
             .add(
                 egui::TextEdit::singleline(&mut self.typed)
+                    .id_salt("channel_picker_find")
                     .hint_text("e.g. 98.7, 146.52, V40, calling")
                     .desired_width(f32::INFINITY),
             )
@@ -114,7 +115,13 @@ impl ChannelPicker {
         } else {
             plan.matching(&self.typed)
         };
-        let typed = typed_frequency(&self.typed).filter(|f| !plan.has_channel(*f));
+        let number = typed_frequency(&self.typed);
+        let typed = number.filter(|f| !plan.has_channel(*f));
+        // What Enter takes: the typed frequency (off the plan), else the channel typed exactly
+        // ("145.5" is V40 though 145.5125 matches too), else the one match, else the first
+        // match in the list, which a line names before Enter is pressed.
+        let exact = number.filter(|f| plan.has_channel(*f));
+        let enter_takes = typed.or(exact).or(matching.first().copied());
         if let Some(f) = typed {
             let text = format!(
                 "Aim at {} MHz (typed, not a channel of this plan)",
@@ -125,13 +132,21 @@ impl ChannelPicker {
             }
         } else if matching.is_empty() {
             ui.label(RichText::new("No channel matches; type a frequency in MHz").weak());
+        } else if matching.len() > 1
+            && !self.typed.trim().is_empty()
+            && let Some(f) = enter_takes
+        {
+            let why = if exact.is_some() {
+                "the channel typed"
+            } else {
+                "the first of the matches"
+            };
+            ui.label(
+                RichText::new(format!("Enter takes {} ({why})", plan.channel_label(f))).weak(),
+            );
         }
-        if entered {
-            // Enter takes the typed frequency, else the one channel that matches.
-            picked = picked.or(typed).or(match matching.as_slice() {
-                [one] => Some(*one),
-                _ => None,
-            });
+        if entered && !self.typed.trim().is_empty() {
+            picked = picked.or(enter_takes);
         }
         ui.separator();
         egui::ScrollArea::vertical()

@@ -16,7 +16,7 @@ use crate::tuning::design::parts::{
     PartsOnHand, entries, parse_fixed_list, parse_former, parse_trimmer, parse_wire,
 };
 use crate::tuning::design::{Design, DesignSettings, fixed_label, search};
-use crate::tuning::digits::{mhz_range, mm};
+use crate::tuning::digits::{mhz_range, mm, spread_range};
 use crate::tuning::verdict::Aim;
 use eframe::egui;
 use std::sync::mpsc::{Receiver, TryRecvError, channel};
@@ -141,8 +141,12 @@ impl PartsOnHandPanel {
                     (TRIMMERS_LABEL, &mut self.text.trimmers),
                 ] {
                     let l = ui.label(label);
-                    ui.add(egui::TextEdit::singleline(text).desired_width(150.0))
-                        .labelled_by(l.id);
+                    ui.add(
+                        egui::TextEdit::singleline(text)
+                            .id_salt(("parts_on_hand", label))
+                            .desired_width(150.0),
+                    )
+                    .labelled_by(l.id);
                     ui.end_row();
                 }
                 let l = ui.label(ENAMEL_LABEL);
@@ -161,14 +165,16 @@ impl PartsOnHandPanel {
                     .labelled_by(l.id);
                 ui.end_row();
                 let l = ui.label(LEAD_LABEL);
-                ui.add(
-                    egui::DragValue::new(&mut self.text.lead_mm)
-                        .range(0.0..=50.0)
-                        .speed(0.1)
-                        .max_decimals(1)
-                        .suffix(" mm"),
-                )
-                .labelled_by(l.id);
+                crate::ui::widgets::steady(ui, LEAD_LABEL, |ui| {
+                    ui.add(
+                        egui::DragValue::new(&mut self.text.lead_mm)
+                            .range(0.0..=50.0)
+                            .speed(0.1)
+                            .max_decimals(1)
+                            .suffix(" mm"),
+                    )
+                    .labelled_by(l.id)
+                });
                 ui.end_row();
             });
         let searching = self.running.is_some();
@@ -304,7 +310,7 @@ fn table(ui: &mut egui::Ui, d: &Design) -> Option<usize> {
         ui.label(format!(
             "{}; build lands within {}; reach {}; {:.0} kHz/mm; Q {:.0}",
             crate::tuning::design::parts::wire_label(&c.wire),
-            mhz_range(c.spread.0, c.spread.1),
+            spread_range(c.spread.0, c.spread.1),
             mhz_range(c.reach.0, c.reach.1),
             c.khz_per_mm().abs(),
             c.q

@@ -80,13 +80,15 @@ pub fn show(ui: &mut egui::Ui, evaluation: &Evaluation, unit: LengthUnit, open: 
         }
         Err(error) => {
             heading(ui, READOUTS_HEADING);
-            refusal(ui, error);
+            refusal(ui, error, evaluation.latest().is_some());
         }
     }
 }
 
-/// The reason the input was refused, in place of the readouts.
-fn refusal(ui: &mut egui::Ui, error: &InputError) {
+/// The reason the input was refused, in place of the readouts. `last_drawn`: an earlier
+/// coil could be built and is still drawn (the centre says so); otherwise (a refused recipe
+/// opened at the start) there is nothing drawn, and this says the same as the centre.
+fn refusal(ui: &mut egui::Ui, error: &InputError, last_drawn: bool) {
     egui::Frame::new()
         .fill(theme::refusal_fill(ui))
         .stroke(egui::Stroke::new(1.0, theme::refusal(ui)))
@@ -108,10 +110,13 @@ fn refusal(ui: &mut egui::Ui, error: &InputError) {
             });
             ui.add(egui::Label::new(RichText::new(&error.reason).color(theme::refusal(ui))).wrap());
             ui.add_space(4.0);
-            ui.label(
+            ui.label(if last_drawn {
                 "Nothing you typed is lost: correct the value and the figures return. The \
-                 drawing and charts show the last coil that could be built.",
-            );
+                 drawing and charts show the last coil that could be built."
+            } else {
+                "Nothing you typed is lost: correct the value and the figures return, with the \
+                 drawing and charts (no coil of this recipe could be built yet)."
+            });
         });
 }
 
@@ -349,8 +354,9 @@ fn figures_rows(ui: &mut egui::Ui, figures: &Figures, unit: LengthUnit) {
     .show(ui);
     Readout::new(
         "Wire to cut",
-        unit.show(a.coil.wire_length()),
-        "Helix √((πD)² + p²) per turn times the turns, plus both leads",
+        unit.show_wire_to_cut(a.coil.wire_length()),
+        "Helix √((πD)² + p²) per turn times the turns, plus both leads; to the millimetre, \
+         as the report and the build sheet state it (the leads are trimmed after soldering)",
     )
     .emphasis(true)
     .show(ui);

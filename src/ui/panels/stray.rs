@@ -72,6 +72,12 @@ impl StrayPanel {
         expectation: Option<&Expectation>,
         entered_stray: f64,
     ) -> Option<f64> {
+        // The section is indented inside the left panel: its sliders take what is left of
+        // the visible width, so no field runs past the panel's edge at 1280×720 (a row wider
+        // than the panel widens the panel's content, and every line below then wraps past
+        // the edge too).
+        ui.spacing_mut().slider_width =
+            (ui.available_width() - crate::ui::widgets::LABEL_WIDTH - 92.0).clamp(40.0, 150.0);
         let label = ui.label(CONSTRUCTION_LABEL);
         egui::ComboBox::from_id_salt("tankwright construction")
             .selected_text(settings.construction.label())
@@ -85,47 +91,56 @@ impl StrayPanel {
         self.tolerances(ui, settings);
         let e = expectation?;
         let estimate = &e.estimate;
-        egui::Grid::new("tankwright stray parts")
-            .striped(true)
-            .num_columns(2)
+        // The parts in a table that scrolls sideways on its own when the panel is narrow.
+        egui::ScrollArea::horizontal()
+            .id_salt("tankwright stray parts scroll")
             .show(ui, |ui| {
-                for part in estimate.parts.iter().filter(|p| p.role == Role::Stray) {
-                    ui.label(part.kind.label()).on_hover_text(part.method);
-                    ui.label(pf(part.value));
-                    ui.end_row();
-                }
-                ui.strong("stray in all");
-                ui.strong(pf(estimate.stray_term()));
-                ui.end_row();
-                ui.label("across the coil in all");
-                ui.label(pf(estimate.total()));
-                ui.end_row();
-                if let Some(f) = e.fitted {
-                    ui.label(FITTED_LABEL).on_hover_text(
-                        "the stray as entered plus the capacitance the bench calibration \
-                         found beyond the model, with its standard error",
-                    );
-                    ui.label(format!("{:.2} ± {:.2} pF", f.value * 1e12, f.error * 1e12));
-                    ui.end_row();
-                    ui.label(DIFFERENCE_LABEL);
-                    ui.label(format!(
-                        "{} pF ({} the estimate's range)",
-                        digits::signed(f.difference * 1e12, 2),
-                        if f.within_estimate {
-                            "within"
-                        } else {
-                            "outside"
+                egui::Grid::new("tankwright stray parts")
+                    .striped(true)
+                    .num_columns(2)
+                    .show(ui, |ui| {
+                        for part in estimate.parts.iter().filter(|p| p.role == Role::Stray) {
+                            ui.label(part.kind.label()).on_hover_text(part.method);
+                            ui.label(pf(part.value));
+                            ui.end_row();
                         }
-                    ));
-                    ui.end_row();
-                }
+                        ui.strong("stray in all");
+                        ui.strong(pf(estimate.stray_term()));
+                        ui.end_row();
+                        ui.label("across the coil in all");
+                        ui.label(pf(estimate.total()));
+                        ui.end_row();
+                        if let Some(f) = e.fitted {
+                            ui.label(FITTED_LABEL).on_hover_text(
+                                "the stray as entered plus the capacitance the bench calibration \
+                         found beyond the model, with its standard error",
+                            );
+                            ui.label(format!(
+                                "{} pF, standard error {}",
+                                digits::fixed(f.value * 1e12, 2),
+                                digits::plus_minus(f.error * 1e12, 2, "pF")
+                            ));
+                            ui.end_row();
+                            ui.label(DIFFERENCE_LABEL);
+                            ui.label(format!(
+                                "{} pF ({} the estimate's range)",
+                                digits::signed(f.difference * 1e12, 2),
+                                if f.within_estimate {
+                                    "within"
+                                } else {
+                                    "outside"
+                                }
+                            ));
+                            ui.end_row();
+                        }
+                    });
             });
         let w = e.window;
         ui.add(
             egui::Label::new(format!(
                 "Expect {} from the estimate alone (typical {}).",
-                digits::mhz_range(w.low, w.high),
-                digits::mhz(w.typical)
+                digits::spread_range(w.low, w.high),
+                digits::mhz_at(w.typical, digits::spread_decimals(w.high - w.low))
             ))
             .wrap(),
         );
@@ -136,8 +151,8 @@ impl StrayPanel {
                  stray as entered ({:.2} pF): expect {} before the first measurement, a spread \
                  of {} (95 % of {} draws).",
                 entered_stray * 1e12,
-                digits::mhz_range(lo, hi),
-                digits::width(hi - lo),
+                digits::spread_range(lo, hi),
+                digits::spread_width(hi - lo),
                 crate::recipe::expectation::DRAWS
             ))
             .wrap(),
@@ -147,8 +162,8 @@ impl StrayPanel {
             ui.add(
                 egui::Label::new(format!(
                     "After the bench calibration: expect {}, a spread of {} (the fit's errors).",
-                    digits::mhz_range(lo, hi),
-                    digits::width(hi - lo)
+                    digits::spread_range(lo, hi),
+                    digits::spread_width(hi - lo)
                 ))
                 .wrap(),
             );

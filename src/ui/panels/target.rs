@@ -142,6 +142,7 @@ impl TargetPanel {
                     let response = ui
                         .add(
                             egui::TextEdit::singleline(&mut self.custom_text)
+                                .id_salt("own_channel_list")
                                 .hint_text("e.g. 98.7, 101.1, 145.5")
                                 .desired_width(wide),
                         )
@@ -224,8 +225,8 @@ fn tolerance_row(ui: &mut egui::Ui, target: &mut crate::recipe::Target) {
     let label = ui.label(TOLERANCE_LABEL).on_hover_text(TOLERANCE_NOTE);
     ui.horizontal(|ui| {
         let mut khz = target.tolerance() * 1e-3;
-        let field = ui
-            .add(
+        let field = crate::ui::widgets::steady(ui, TOLERANCE_LABEL, |ui| {
+            ui.add(
                 egui::DragValue::new(&mut khz)
                     .range(lo..=hi)
                     .speed(0.1)
@@ -234,7 +235,8 @@ fn tolerance_row(ui: &mut egui::Ui, target: &mut crate::recipe::Target) {
                     .update_while_editing(false),
             )
             .labelled_by(label.id)
-            .on_hover_text(TOLERANCE_NOTE);
+            .on_hover_text(TOLERANCE_NOTE)
+        });
         if field.changed() && khz.is_finite() {
             // Rounded to the field's 0.1 kHz before it reaches the recipe.
             let hz = ((khz.clamp(lo, hi) * 10.0).round() / 10.0) * 1e3;

@@ -5,10 +5,15 @@ use crate::ui::theme::Theme;
 use crate::ui::units::LengthUnit;
 use eframe::egui;
 
+/// Shown after the recipe's name in the bar while it has changes not yet saved.
+pub const UNSAVED_MARK: &str = "• unsaved changes";
+
 /// What the bar needs to know to draw itself.
 pub struct BarState<'a> {
     /// The recipe's name, shown in the bar.
     pub recipe_name: &'a str,
+    /// Does the recipe have changes not yet saved to its file (or to any file)?
+    pub unsaved: bool,
     /// Is there a step to undo?
     pub can_undo: bool,
     /// Is there a step to redo?
@@ -92,6 +97,12 @@ pub fn show(
         });
         ui.separator();
         ui.label(egui::RichText::new(state.recipe_name).strong());
+        // The same mark as the window title's, inside the window: a full-screen window or a
+        // desktop without title bars shows no title.
+        if state.unsaved {
+            ui.label(egui::RichText::new(UNSAVED_MARK).italics())
+                .on_hover_text("Recipe → Save keeps them in the recipe's file");
+        }
     });
     ui.horizontal(|ui| {
         if ui

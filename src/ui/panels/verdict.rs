@@ -53,14 +53,14 @@ pub fn expectation_text(e: &Expectation) -> String {
     if e.calibrated {
         format!(
             "Expect {} now (a spread of {}, from the fit's errors)",
-            digits::mhz_range(lo, hi),
-            digits::width(hi - lo)
+            digits::spread_range(lo, hi),
+            digits::spread_width(hi - lo)
         )
     } else {
         format!(
             "Expect {} before the first measurement (a spread of {})",
-            digits::mhz_range(lo, hi),
-            digits::width(hi - lo)
+            digits::spread_range(lo, hi),
+            digits::spread_width(hi - lo)
         )
     }
 }

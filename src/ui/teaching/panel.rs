@@ -338,7 +338,11 @@ fn reference_ui(
             ui.horizontal(|ui| {
                 let label = ui.label("Reference file");
                 let field = ui
-                    .add(egui::TextEdit::singleline(typed).desired_width(220.0))
+                    .add(
+                        egui::TextEdit::singleline(typed)
+                            .id_salt("reference_file")
+                            .desired_width(220.0),
+                    )
                     .labelled_by(label.id);
                 go = field.lost_focus() && ui.input(|i| i.key_pressed(egui::Key::Enter));
                 go |= ui.button("Pin").clicked();

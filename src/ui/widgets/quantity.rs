@@ -87,7 +87,10 @@ impl<'a> Quantity<'a> {
     /// Add the row. The response is the union of slider and field; `changed()` is true when
     /// either moved the value.
     pub fn show(self, ui: &mut egui::Ui) -> Response {
-        ui.horizontal(|ui| self.row(ui)).inner
+        // The row keeps its ids whatever is drawn above it (a typed value is never dropped
+        // when the lines above change mid-typing: see `steady`).
+        let name = self.label;
+        super::steady(ui, name, |ui| ui.horizontal(|ui| self.row(ui)).inner)
     }
 
     fn row(self, ui: &mut egui::Ui) -> Response {
