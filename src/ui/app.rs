@@ -75,6 +75,8 @@ pub struct App {
     driver: Option<crate::ui::replay::Driver>,
     /// The field solution, computed off the frame.
     field: crate::ui::field_worker::FieldWorker,
+    /// The charts' field shape, computed off the frame once the field solution leads.
+    shape: crate::ui::field_worker::ShapeWorker,
     /// The teaching bench (shows a derived copy of the recipe; never changes it).
     teaching: crate::ui::teaching::Teaching,
     /// Design from the parts on hand (issue 23).
@@ -151,6 +153,7 @@ impl App {
         Self {
             evaluation: Evaluation::new(&recipe, FieldInput::Unsolved(FIELD_PENDING.to_owned())),
             field: Default::default(),
+            shape: Default::default(),
             recipe,
             preferences: Preferences::default(),
             history: History::default(),
@@ -349,7 +352,21 @@ impl App {
             (true, None) => FieldState::Pending,
         };
         let input = self.evaluation.field_input(state);
-        self.evaluation.refresh(&self.recipe, input)
+        let changed = self.evaluation.refresh(&self.recipe, input);
+        // Then the charts' field shape for the figures now shown.
+        self.shape.ask(self.evaluation.shape_request(), ctx);
+        self.shape.poll();
+        self.evaluation.set_shape(self.shape.ready()) || changed
+    }
+
+    /// Whether the charts draw the field shape (for tests and captures).
+    pub fn charts_field_shaped(&self) -> bool {
+        self.evaluation.field_shaped()
+    }
+
+    /// The charts' sweeps as drawn (for tests and captures): the present figures' curves.
+    pub fn chart_sweeps(&self) -> &crate::ui::charts::ChartCache {
+        self.evaluation.sweeps()
     }
 
     /// The field solution of the present coil, once the worker has it.

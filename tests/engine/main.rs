@@ -6,6 +6,7 @@
 mod bands;
 mod batch_spread;
 mod bench_fit;
+mod chart_shape;
 mod design;
 mod field_budget;
 mod field_lead;

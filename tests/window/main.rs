@@ -11,6 +11,7 @@ mod ui_charts;
 mod ui_design;
 mod ui_export;
 mod ui_field;
+mod ui_field_shape;
 mod ui_layout;
 mod ui_new_recipe;
 mod ui_recipes;
