@@ -342,8 +342,15 @@ impl App {
     /// one has come, and bring the figures up to the recipe and the answer; true if they
     /// changed.
     fn refresh_figures(&mut self, ctx: &egui::Context) -> bool {
+        // The junction counted in the tank (the audio panel's switch) is in every figure,
+        // put there by the same function as `evaluate --junction-…`; never in the recipe.
+        let with_junction = self.audio_panel.junction_in_tank().map(|(m, bias)| Recipe {
+            tank: crate::tuning::modulation::tank_with_junction(&self.recipe.tank, &m, bias),
+            ..self.recipe.clone()
+        });
+        let recipe = with_junction.as_ref().unwrap_or(&self.recipe);
         let on = self.preferences.field_solution;
-        let request = on.then(|| field_request(&self.recipe)).flatten();
+        let request = on.then(|| field_request(recipe)).flatten();
         self.field.ask(request, ctx);
         self.field.poll();
         let state = match (on, self.field.ready()) {
@@ -352,7 +359,7 @@ impl App {
             (true, None) => FieldState::Pending,
         };
         let input = self.evaluation.field_input(state);
-        let changed = self.evaluation.refresh(&self.recipe, input);
+        let changed = self.evaluation.refresh(recipe, input);
         // Then the charts' field shape for the figures now shown.
         self.shape.ask(self.evaluation.shape_request(), ctx);
         self.shape.poll();
@@ -569,6 +576,9 @@ impl App {
                                 .map_or((recipe.tank, recipe.conditions), |f| {
                                     (f.tank, f.conditions)
                                 });
+                            // Without the junction the panel counts in it (if any): the
+                            // modulation adds it back at each bias.
+                            let tank = audio_panel.without_junction(&tank);
                             audio_panel.show(ui, coil.as_ref(), &tank, &conditions, tolerance);
                             egui::CollapsingHeader::new(MODULATION_CHARTS)
                                 .default_open(true)
