@@ -22,6 +22,7 @@ mod reference_proximity;
 mod reference_stray;
 mod reference_tank;
 mod reference_touchstone;
+mod trimmer_resolution;
 mod tuning;
 mod validation;
 mod verdict;

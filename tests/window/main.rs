@@ -18,6 +18,7 @@ mod ui_new_recipe;
 mod ui_recipes;
 mod ui_stray;
 mod ui_teaching;
+mod ui_trimmer_advice;
 mod ui_verdict;
 mod ui_workbench;
 mod ui_working_copy;
