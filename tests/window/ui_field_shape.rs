@@ -69,7 +69,7 @@ fn mhz_in(line: &str) -> f64 {
 fn the_charts_hover_and_band_follow_exact_field_solves() {
     let mut harness = workbench();
     let waited = wait_for_shape(&mut harness);
-    eprintln!("first field shape after {waited:?} (dev profile)");
+    eprintln!("first field shape after {waited:?} (this build's profile)");
     let led = led(&harness);
     let app = harness.state();
     let f = app.figures().expect("valid");
@@ -173,7 +173,7 @@ fn a_change_of_the_coil_shows_the_held_curve_then_the_field_shape() {
     let figures = harness.state().figures().expect("valid").clone();
     assert_eq!(figures.coil.turns(), 6.0);
     let waited = wait_for_shape(&mut harness);
-    eprintln!("field shape for the changed coil after {waited:?} (dev profile)");
+    eprintln!("field shape for the changed coil after {waited:?} (this build's profile)");
     let led = led(&harness);
     let f = harness.state().figures().expect("valid");
     assert_eq!(f.coil.turns(), 6.0);
