@@ -229,8 +229,7 @@ pub fn run_evaluate(words: Vec<String>) -> Result<String, String> {
         None => EvaluateRequest::from_args(&args).map_err(|e| e.to_string())?,
     };
     // With a junction given, the tank's resonance includes its capacitance at the bias.
-    let mut tank = req.bench.as_ref().map_or(req.tank, |b| b.tank);
-    tank.stray += extras.junction_across_tank();
+    let tank = extras.tank_with_junction(&req.bench.as_ref().map_or(req.tank, |b| b.tank));
     let classical = crate::model::evaluate(&req.winding, &tank, &req.conditions)
         .map_err(|e| format!("invalid input: {e}"))?;
     // The field-solved tank (a few milliseconds; see tuning::field_tank) moves the model onto

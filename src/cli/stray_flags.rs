@@ -282,6 +282,15 @@ impl Extras {
             .as_ref()
             .map_or(0.0, |j| j.modulator.across_tank(j.bias_v))
     }
+
+    /// `tank` with the junction across it at its bias
+    /// ([`crate::tuning::modulation::tank_with_junction`], as the window does), or as given
+    /// without one.
+    pub(crate) fn tank_with_junction(&self, tank: &Tank) -> Tank {
+        self.junction.as_ref().map_or(*tank, |j| {
+            crate::tuning::modulation::tank_with_junction(tank, &j.modulator, j.bias_v)
+        })
+    }
 }
 
 /// The figures the extras add, computed once for both outputs.

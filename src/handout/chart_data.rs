@@ -1,11 +1,13 @@
 //! What a chart shows, in display units (mm or %, MHz), from the engine's own sweeps
 //! ([`crate::tuning::sweep`], the same settings, range and sample count as the window's
-//! charts) over the figures of [`crate::recipe::figures()`].
+//! charts) over the figures of [`crate::recipe::figures()`], on the field shape
+//! ([`crate::tuning::landing::chart_shape`], the window's too) when the field solution leads.
 
 use crate::recipe::{Figures, Recipe};
+use crate::tuning::landing::chart_shape;
 use crate::tuning::service::AERONAUTICAL;
 use crate::tuning::sweep::{
-    CHART_SAMPLES, CHART_SETTINGS, chart_length_range, spacing_sweep, trimmer_sweep,
+    CHART_SAMPLES, CHART_SETTINGS, chart_length_range, spacing_sweep_on, trimmer_sweep_on,
 };
 
 /// Which chart.
@@ -157,15 +159,22 @@ pub fn chart_data(kind: ChartKind, recipe: &Recipe, f: &Figures) -> ChartData {
     });
     let resonance = f.target.resonance * 1e-6;
     let title = format!("{} — {}", kind.title(), recipe.name.trim());
+    let range = chart_length_range(&f.coil);
+    // The field shape over the chart when the field solution leads the figures (the
+    // classical shape through the present coil otherwise, or where it fails along the way).
+    let shape = f
+        .led
+        .and_then(|led| chart_shape(&led, &f.coil, &f.tank, range));
     match kind {
         ChartKind::Spacing => {
-            let curves = spacing_sweep(
+            let curves = spacing_sweep_on(
                 &f.coil,
                 &f.tank,
                 &f.conditions,
                 &CHART_SETTINGS,
-                chart_length_range(&f.coil),
+                range,
                 CHART_SAMPLES,
+                shape.as_ref(),
             )
             .into_iter()
             .map(|c| Curve {
@@ -190,7 +199,13 @@ pub fn chart_data(kind: ChartKind, recipe: &Recipe, f: &Figures) -> ChartData {
             }
         }
         ChartKind::Trimmer => {
-            let points = trimmer_sweep(&f.coil, &f.tank, &f.conditions, CHART_SAMPLES);
+            let points = trimmer_sweep_on(
+                &f.coil,
+                &f.tank,
+                &f.conditions,
+                CHART_SAMPLES,
+                shape.as_ref(),
+            );
             let here = f.coil.length();
             ChartData {
                 kind,

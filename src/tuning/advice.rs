@@ -40,6 +40,10 @@ pub enum Advice {
         setting: f64,
         /// The length change it replaces, metres.
         instead_of: f64,
+        /// When a whole per cent of the trimmer's travel there moves the tank more than the
+        /// channel's tolerance (the setting is finer than a hand can find): by how much, and
+        /// the smaller trimmer or series capacitor that would make it settable.
+        coarse: Option<CoarseTrimmer>,
     },
     /// No length reaches the target with the present turns.
     ChangeTurns {
@@ -52,6 +56,90 @@ pub enum Advice {
     },
     /// Nothing within reach lands the target.
     OutOfReach(String),
+}
+
+/// The resolution a hand sets a trimmer to: one per cent of its travel (about 3.6° of a
+/// half-turn trimmer's 180°: common practice for a trimmer turned with a plastic tool).
+pub const TRIMMER_HAND_STEP: f64 = 0.01;
+
+/// A trimmer too coarse for the channel at the setting proposed: one [`TRIMMER_HAND_STEP`] of
+/// its travel moves the tank more than the channel's tolerance, and what would make it
+/// settable.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct CoarseTrimmer {
+    /// How far one per cent of travel moves the resonance there, hertz.
+    pub per_step: f64,
+    /// The channel's on-channel tolerance, hertz.
+    pub tolerance: f64,
+    /// The largest span (maximum − minimum capacitance) a trimmer may have for one per cent
+    /// to move the tank by the tolerance at most, farads.
+    pub span_at_most: f64,
+    /// The largest capacitor in series with the present trimmer that does the same, farads.
+    pub series_at_most: f64,
+    /// What to add to the fixed capacitor beside that series capacitor, so that the tank keeps
+    /// its capacitance at the setting proposed, farads.
+    pub fixed_added: f64,
+}
+
+impl CoarseTrimmer {
+    /// Whether one per cent of the travel of `tank`'s trimmer at `setting` moves the
+    /// resonance of `coil` (under `conditions`) by more than `tolerance` hertz, and if so
+    /// what would not.
+    ///
+    /// # Method
+    /// The step is the resonance difference across ±½ % of travel (the classical model moved
+    /// onto the field-led resonance at the present coil; its slope in capacitance is the
+    /// field solution's within the factor's small change across one per cent). The
+    /// resonance moves in proportion to the trimmer's capacitance step, so a span scaled by
+    /// tolerance/step moves it by the tolerance. A capacitor Cs in series with the trimmer
+    /// Ct scales its steps by (Cs/(Ct + Cs))², so Cs = Ct·k/(1 − k) with k = √(tolerance/step)
+    /// does the same; it takes Ct²/(Ct + Cs) from the tank at the setting, which the fixed
+    /// capacitor gets back.
+    pub fn check(
+        coil: &Coil,
+        tank: &Tank,
+        conditions: &Conditions,
+        setting: f64,
+        tolerance: f64,
+    ) -> Option<CoarseTrimmer> {
+        let half = 0.5 * TRIMMER_HAND_STEP;
+        let s = setting.clamp(half, 1.0 - half);
+        let f = |x: f64| {
+            crate::model::evaluate::resonance_of(coil, tank.external_capacitance_at(x), conditions)
+        };
+        let per_step = (f(s - half) - f(s + half)).abs();
+        if !(per_step.is_finite() && tolerance > 0.0 && per_step > tolerance) {
+            return None;
+        }
+        let ratio = tolerance / per_step;
+        let ct = tank.trimmer_at(setting);
+        let k = ratio.sqrt();
+        let series_at_most = ct * k / (1.0 - k);
+        Some(CoarseTrimmer {
+            per_step,
+            tolerance,
+            span_at_most: (tank.trimmer_max - tank.trimmer_min) * ratio,
+            series_at_most,
+            fixed_added: ct * ct / (ct + series_at_most),
+        })
+    }
+
+    /// What to do about it, in a builder's words.
+    pub fn text(&self) -> String {
+        // Rounded down (span, series) and to the nearest (the fixed part): 0.1 pF.
+        let down = |farads: f64| (farads * 1e13).floor() / 10.0;
+        format!(
+            "a whole per cent of its travel there moves the tank {:.0} kHz, more than the \
+             ±{:.0} kHz the channel allows, so a hand cannot set it: fit a trimmer whose \
+             travel spans at most {:.1} pF, or put at most {:.1} pF in series with this one \
+             and add {:.1} pF to the fixed capacitor",
+            self.per_step * 1e-3,
+            self.tolerance * 1e-3,
+            down(self.span_at_most),
+            down(self.series_at_most),
+            self.fixed_added * 1e12
+        )
+    }
 }
 
 /// The coil and trimmer the advice lands on.
@@ -135,12 +223,20 @@ impl Advice {
             Advice::SetTrimmer {
                 setting,
                 instead_of,
-            } => format!(
-                "leave the coil (the stretch needed, {}, is below what a hand can set) and set \
-                 the trimmer to {:.0} %",
-                show(instead_of.abs()),
-                setting * 100.0
-            ),
+                coarse,
+            } => {
+                let mut s = format!(
+                    "leave the coil (the stretch needed, {}, is below what a hand can set) and \
+                     set the trimmer to {:.0} %",
+                    show(instead_of.abs()),
+                    setting * 100.0
+                );
+                if let Some(c) = coarse {
+                    s.push_str(" — though ");
+                    s.push_str(&c.text());
+                }
+                s
+            }
             Advice::ChangeTurns { from, to, length } => {
                 let quarters = ((to - from) * 4.0).round();
                 let verb = if quarters > 0.0 { "add" } else { "remove" };
@@ -191,6 +287,7 @@ pub fn advise(
         || setting_for_target(coil, tank, conditions, target).ok(),
         |_| turns_for_target(coil, external, conditions, target),
     )
+    .at_hand_resolution(coil, tank, conditions, tolerance)
 }
 
 /// The one instruction on the field-led model `led` (`None`: the classical shape, as
@@ -247,6 +344,32 @@ pub fn advise_landed(
         },
         |why| landing::turns(led, coil, external, conditions, target, why),
     )
+    .at_hand_resolution(coil, tank, conditions, tolerance)
+}
+
+impl Advice {
+    /// A trimmer setting checked against the resolution of a hand ([`CoarseTrimmer::check`]);
+    /// every other instruction as it is.
+    fn at_hand_resolution(
+        self,
+        coil: &Coil,
+        tank: &Tank,
+        conditions: &Conditions,
+        tolerance: f64,
+    ) -> Advice {
+        match self {
+            Advice::SetTrimmer {
+                setting,
+                instead_of,
+                ..
+            } => Advice::SetTrimmer {
+                setting,
+                instead_of,
+                coarse: CoarseTrimmer::check(coil, tank, conditions, setting, tolerance),
+            },
+            other => other,
+        }
+    }
 }
 
 /// The instruction from the offset, the length found (length, roots, falling) and, when
@@ -271,6 +394,7 @@ fn decide(
                 return Advice::SetTrimmer {
                     setting,
                     instead_of: change,
+                    coarse: None,
                 };
             }
             Advice::Stretch {

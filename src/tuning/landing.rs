@@ -16,7 +16,8 @@
 //!   [`LANDING`] of the target;
 //! - [`Shape`]: the factor solved at a handful of lengths and interpolated (cubic Hermite),
 //!   the field-shaped curve over the whole range, used to find the roots when the classical
-//!   shape has none or points the wrong way ([`lengths`]).
+//!   shape has none or points the wrong way ([`lengths`]), and drawn by every chart
+//!   ([`chart_shape`]).
 
 use super::field_tank::{field_resonance, matching_scale};
 use super::solve::{self, Unreachable};
@@ -268,8 +269,8 @@ pub fn land_setting(
 /// range of lengths, at the cost of one field solve per length and capacitance.
 ///
 /// # Interpolation
-/// In length, cubic Hermite with three-point slopes (held at the ends); in capacitance,
-/// linear between the capacitances solved (held outside them). The factor moves smoothly
+/// In length, cubic Hermite with three-point slopes (held at the ends); in capacitance, the
+/// polynomial through the capacitances solved (Lagrange, held outside them). The factor moves smoothly
 /// (a few per cent over the range on short leads, tens of per cent with 40 mm leads), so
 /// the resonance it gives follows the field solution to within what
 /// tests/engine/landing.rs measures along each chart.
@@ -301,22 +302,26 @@ impl Shape {
         range: (f64, f64),
         points: usize,
     ) -> Option<Shape> {
-        let lo = range.0.max(coil.shortest_length());
-        let hi = range.1.max(lo).min(crate::model::limits::LENGTH_MAX);
-        let n = points.max(2);
+        let candidates = spread_lengths(coil, range, points);
+        Shape::solve_at(led, coil, externals, &candidates)
+    }
+
+    /// Solve the field at each of `candidates` (metres, ascending; a length the model refuses
+    /// is left out) and each of `externals` (farads); `None` when fewer than two lengths
+    /// solve at every capacitance.
+    pub fn solve_at(
+        led: &FieldLed,
+        coil: &Coil,
+        externals: &[f64],
+        candidates: &[f64],
+    ) -> Option<Shape> {
+        let n = candidates.len();
         let mut capacitances: Vec<f64> = externals.to_vec();
         capacitances.sort_by(f64::total_cmp);
         capacitances.dedup();
-        // Closer together towards close-wound, where the factor moves fastest.
-        let candidates: Vec<f64> = (0..n)
-            .map(|i| {
-                let u = i as f64 / (n - 1) as f64;
-                lo + (hi - lo) * 0.5 * u * (1.0 + u)
-            })
-            .collect();
         let mut lengths = Vec::with_capacity(n);
         let mut factors = vec![Vec::with_capacity(n); capacitances.len()];
-        for &l in &candidates {
+        for &l in candidates {
             let Ok(c) = coil.with_length(l) else {
                 continue;
             };
@@ -412,6 +417,79 @@ fn hermite(x: &[f64], y: &[f64], at: f64) -> f64 {
         + (t3 - 2.0 * t2 + t) * h * slope(i)
         + (-2.0 * t3 + 3.0 * t2) * y[i + 1]
         + (t3 - t2) * h * slope(i + 1)
+}
+
+/// `points` lengths (at least two) spread over `range` (metres, kept within what the model
+/// accepts), closer together towards close-wound, where the factor moves fastest.
+fn spread_lengths(coil: &Coil, range: (f64, f64), points: usize) -> Vec<f64> {
+    let lo = range.0.max(coil.shortest_length());
+    let hi = range.1.max(lo).min(crate::model::limits::LENGTH_MAX);
+    let n = points.max(2);
+    (0..n)
+        .map(|i| {
+            let u = i as f64 / (n - 1) as f64;
+            lo + (hi - lo) * 0.5 * u * (1.0 + u)
+        })
+        .collect()
+}
+
+/// Lengths at which [`chart_shape`] solves the field, besides the present one.
+pub const CHART_SHAPE_POINTS: usize = 11;
+
+/// [`CHART_SHAPE_POINTS`] lengths over `range` for a chart: u^1.5 spacing (u even over
+/// 0–1), closer still towards close-wound than [`spread_lengths`], where the factor bends
+/// most (the first interval is 3 % of the range). Chosen by measurement on the bench demo
+/// (tests/engine/chart_shape.rs): with nine or ten lengths, or u², the worst error along the
+/// chart was 6–9 kHz, near close-wound; with these, 4.6 kHz, the rest being the field
+/// solution's own steps as its straight parts gain a segment (a few kHz either way).
+fn chart_lengths(coil: &Coil, range: (f64, f64)) -> Vec<f64> {
+    let lo = range.0.max(coil.shortest_length());
+    let hi = range.1.max(lo).min(crate::model::limits::LENGTH_MAX);
+    let n = CHART_SHAPE_POINTS;
+    (0..n)
+        .map(|i| lo + (hi - lo) * (i as f64 / (n - 1) as f64).powf(1.5))
+        .collect()
+}
+
+/// The trimmer setting whose capacitance a chart's shape solves between the ends: the
+/// present one, so the shape is exact there, unless it lies within 10 % of travel of an end
+/// (then the middle, which keeps three capacitances for the interpolation).
+fn middle_setting(present: f64) -> f64 {
+    if (0.1..=0.9).contains(&present) {
+        present
+    } else {
+        0.5
+    }
+}
+
+/// The field shape a chart of `coil` in `tank` draws over `range` (metres): the factor solved
+/// with the field at [`CHART_SHAPE_POINTS`] lengths spread over the range and at the present
+/// length, each across the trimmer's two ends and the present setting (or the middle when
+/// the present setting is near an end): 36 field solves (0.2–0.3 s in release), so the curves and the trimmer's
+/// sweep are exact at the present coil and setting and follow the field solution between
+/// (tests/engine/landing.rs measures them against exact field solves). The window's worker
+/// ([`crate::ui::field_worker`]) and the hand-outs call this one function.
+pub fn chart_shape(led: &FieldLed, coil: &Coil, tank: &Tank, range: (f64, f64)) -> Option<Shape> {
+    let mut lengths = chart_lengths(coil, range);
+    let present = coil.length();
+    let (lo, hi) = (lengths[0], lengths[lengths.len() - 1]);
+    if (lo..=hi).contains(&present) {
+        // The present length as a node; a node closer to it than a third of the smallest
+        // spacing is dropped (three-point slopes across a tiny step would be noise).
+        let gap = lengths
+            .windows(2)
+            .map(|w| w[1] - w[0])
+            .fold(f64::INFINITY, f64::min);
+        lengths.retain(|&l| (l - present).abs() >= gap / 3.0);
+        let at = lengths.partition_point(|&l| l < present);
+        lengths.insert(at, present);
+    }
+    let externals = [
+        tank.external_capacitance_at(0.0),
+        tank.external_capacitance_at(middle_setting(tank.trimmer_setting)),
+        tank.external_capacitance_at(1.0),
+    ];
+    Shape::solve_at(led, coil, &externals, &lengths)
 }
 
 /// Where the field-led resonance reaches `target`: the landed length nearest the present

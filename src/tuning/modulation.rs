@@ -7,7 +7,7 @@
 //! at RF ground), or a varactor is coupled across it through a series capacitor. The audio
 //! moves the junction's reverse bias by ± its peak; the tank's resonance follows.
 
-use crate::model::{Coil, Conditions, evaluate::resonance_of};
+use crate::model::{Coil, Conditions, Tank, evaluate::resonance_of};
 use crate::physics::junction::{JunctionLaw, series};
 
 /// The modulating element: a junction, directly across the tank or through a coupling
@@ -28,6 +28,19 @@ impl Modulator {
     pub fn across_tank(&self, reverse_v: f64) -> f64 {
         let cj = self.law.capacitance(reverse_v);
         self.coupling.map_or(cj, |cc| series(cj, cc))
+    }
+}
+
+/// `tank` with the modulator across it at its DC reverse bias `bias_v`: the junction's
+/// capacitance there (through its coupling capacitor, if any) joins the stray, so every figure
+/// of the tank (resonance, verdict, advice, charts) includes it. The one place both
+/// `evaluate --junction-…` and the window (the audio panel's "count the junction" switch)
+/// put the junction in the tank; the modulation's own figures then take the tank without it
+/// ([`modulation`]'s `other_capacitance`) and find the same carrier.
+pub fn tank_with_junction(tank: &Tank, modulator: &Modulator, bias_v: f64) -> Tank {
+    Tank {
+        stray: tank.stray + modulator.across_tank(bias_v),
+        ..*tank
     }
 }
 

@@ -106,3 +106,47 @@ pub fn trimmer_sweep(
         })
         .collect()
 }
+
+/// [`trimmer_sweep`] on the field shape when given: the resonance at the coil's own length
+/// with the shape's factor at each setting's capacitance ([`Shape::resonance_at`]); exact
+/// where the shape solved the field (the present coil at the trimmer's ends and present
+/// setting, [`super::landing::chart_shape`]).
+pub fn trimmer_sweep_on(
+    coil: &Coil,
+    tank: &Tank,
+    conditions: &Conditions,
+    samples: usize,
+    shape: Option<&Shape>,
+) -> Vec<[f64; 2]> {
+    let mut points = trimmer_sweep(coil, tank, conditions, samples);
+    if let Some(shape) = shape {
+        for p in &mut points {
+            p[1] = shape.resonance_at(coil, coil.length(), tank.external_capacitance_at(p[0]));
+        }
+    }
+    points
+}
+
+/// A band around the classical curve of `coil` across `external` (`band`: length in metres,
+/// low and high hertz, as [`super::spread`] gives it) moved onto the field shape: each point
+/// scaled by the field-shaped resonance over the classical one at its length, so the band
+/// surrounds the field-shaped curve and keeps its relative width (the spread is the model's
+/// linear propagation of the tolerances, a fraction of the resonance; the shape changes that
+/// fraction's base by a few per cent at most).
+pub fn band_on_shape(
+    band: &[[f64; 3]],
+    coil: &Coil,
+    external: f64,
+    conditions: &Conditions,
+    shape: &Shape,
+) -> Vec<[f64; 3]> {
+    band.iter()
+        .map(|&[l, lo, hi]| {
+            let classical = coil
+                .with_length(l)
+                .map_or(f64::NAN, |c| resonance_of(&c, external, conditions));
+            let r = shape.resonance_at(coil, l, external) / classical;
+            [l, lo * r, hi * r]
+        })
+        .collect()
+}

@@ -75,6 +75,8 @@ pub struct App {
     driver: Option<crate::ui::replay::Driver>,
     /// The field solution, computed off the frame.
     field: crate::ui::field_worker::FieldWorker,
+    /// The charts' field shape, computed off the frame once the field solution leads.
+    shape: crate::ui::field_worker::ShapeWorker,
     /// The teaching bench (shows a derived copy of the recipe; never changes it).
     teaching: crate::ui::teaching::Teaching,
     /// Design from the parts on hand (issue 23).
@@ -151,6 +153,7 @@ impl App {
         Self {
             evaluation: Evaluation::new(&recipe, FieldInput::Unsolved(FIELD_PENDING.to_owned())),
             field: Default::default(),
+            shape: Default::default(),
             recipe,
             preferences: Preferences::default(),
             history: History::default(),
@@ -339,8 +342,15 @@ impl App {
     /// one has come, and bring the figures up to the recipe and the answer; true if they
     /// changed.
     fn refresh_figures(&mut self, ctx: &egui::Context) -> bool {
+        // The junction counted in the tank (the audio panel's switch) is in every figure,
+        // put there by the same function as `evaluate --junction-…`; never in the recipe.
+        let with_junction = self.audio_panel.junction_in_tank().map(|(m, bias)| Recipe {
+            tank: crate::tuning::modulation::tank_with_junction(&self.recipe.tank, &m, bias),
+            ..self.recipe.clone()
+        });
+        let recipe = with_junction.as_ref().unwrap_or(&self.recipe);
         let on = self.preferences.field_solution;
-        let request = on.then(|| field_request(&self.recipe)).flatten();
+        let request = on.then(|| field_request(recipe)).flatten();
         self.field.ask(request, ctx);
         self.field.poll();
         let state = match (on, self.field.ready()) {
@@ -349,7 +359,21 @@ impl App {
             (true, None) => FieldState::Pending,
         };
         let input = self.evaluation.field_input(state);
-        self.evaluation.refresh(&self.recipe, input)
+        let changed = self.evaluation.refresh(recipe, input);
+        // Then the charts' field shape for the figures now shown.
+        self.shape.ask(self.evaluation.shape_request(), ctx);
+        self.shape.poll();
+        self.evaluation.set_shape(self.shape.ready()) || changed
+    }
+
+    /// Whether the charts draw the field shape (for tests and captures).
+    pub fn charts_field_shaped(&self) -> bool {
+        self.evaluation.field_shaped()
+    }
+
+    /// The charts' sweeps as drawn (for tests and captures): the present figures' curves.
+    pub fn chart_sweeps(&self) -> &crate::ui::charts::ChartCache {
+        self.evaluation.sweeps()
     }
 
     /// The field solution of the present coil, once the worker has it.
@@ -553,6 +577,9 @@ impl App {
                                 .map_or((recipe.tank, recipe.conditions), |f| {
                                     (f.tank, f.conditions)
                                 });
+                            // Without the junction the panel counts in it (if any): the
+                            // modulation adds it back at each bias.
+                            let tank = audio_panel.without_junction(&tank);
                             audio_panel.show(ui, coil.as_ref(), &tank, &conditions, tolerance);
                             egui::CollapsingHeader::new(MODULATION_CHARTS)
                                 .default_open(true)

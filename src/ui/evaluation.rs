@@ -22,8 +22,10 @@ use crate::recipe::{
 };
 use crate::tuning::BandPlan;
 use crate::tuning::field_tank::FieldTank;
+use crate::tuning::landing::Shape;
 use crate::ui::charts::ChartCache;
 use crate::ui::charts::modulation::ModulationSweeps;
+use crate::ui::field_worker::{ShapeRequest, ShapeResult};
 
 /// Inputs the figures were computed from.
 #[derive(Clone, PartialEq)]
@@ -89,6 +91,9 @@ pub struct Evaluation {
     uncalibrated_sweeps: ChartCache,
     expectation: Option<Expectation>,
     modulation_sweeps: ModulationSweeps,
+    /// The field shape the charts draw, with what it was solved for (the shape worker's
+    /// answer for the figures shown; dropped when they change).
+    shape: Option<(ShapeRequest, Shape)>,
 }
 
 impl Evaluation {
@@ -105,6 +110,7 @@ impl Evaluation {
             uncalibrated_sweeps: ChartCache::default(),
             expectation: None,
             modulation_sweeps: ModulationSweeps::default(),
+            shape: None,
         };
         evaluation.refresh_sweeps();
         evaluation.refresh_expectation(recipe);
@@ -125,14 +131,35 @@ impl Evaluation {
             .map(|c| c.points.iter().map(|p| p[0]).collect())
             .unwrap_or_default();
         let e = expectation(recipe, f, &lengths);
-        self.sweeps.set_band(e.band.clone(), e.calibrated);
         self.expectation = Some(e);
+        self.apply_band();
+    }
+
+    /// Hand the expectation's band to the spacing chart, moved onto the field shape when the
+    /// curves are on it ([`band_on_shape`](crate::tuning::sweep::band_on_shape)).
+    fn apply_band(&mut self) {
+        let (Some(e), Ok(f)) = (&self.expectation, &self.current) else {
+            return;
+        };
+        let band = match &self.shape {
+            Some((_, shape)) => crate::tuning::sweep::band_on_shape(
+                &e.band,
+                &f.coil,
+                f.tank.external_capacitance(),
+                &f.conditions,
+                shape,
+            ),
+            None => e.band.clone(),
+        };
+        self.sweeps.set_band(band, e.calibrated);
     }
 
     /// Bring the sweeps up to the figures shown (a no-op when they already match).
     fn refresh_sweeps(&mut self) {
         if let Some(f) = self.current.as_ref().ok().or(self.last_good.as_ref()) {
-            self.sweeps.refresh(&f.coil, &f.tank, &f.conditions);
+            let shape = self.shape.as_ref().map(|(_, s)| s);
+            self.sweeps
+                .refresh_on(&f.coil, &f.tank, &f.conditions, shape);
             if f.calibrated() {
                 self.uncalibrated_sweeps.refresh(
                     &f.coil,
@@ -141,6 +168,41 @@ impl Evaluation {
                 );
             }
         }
+    }
+
+    /// What the charts' field shape is to be solved for: the figures shown when the field
+    /// solution leads them (`None` while the classical model leads, an earlier coil's factor
+    /// is held, or the recipe is refused).
+    pub fn shape_request(&self) -> Option<ShapeRequest> {
+        let f = self.current.as_ref().ok()?;
+        Some(ShapeRequest {
+            led: f.led?,
+            coil: f.coil,
+            tank: f.tank,
+            range: self.sweeps.length_range_swept(),
+        })
+    }
+
+    /// Take the shape worker's answer: the charts are redrawn on it when it is for the
+    /// figures shown ([`shape_request`](Self::shape_request)); true if the charts changed.
+    pub fn set_shape(&mut self, answer: Option<&ShapeResult>) -> bool {
+        let wanted = self.shape_request();
+        let shape = answer
+            .filter(|a| Some(a.request) == wanted)
+            .and_then(|a| Some((a.request, a.shape.clone()?)));
+        if shape == self.shape {
+            return false;
+        }
+        self.shape = shape;
+        self.refresh_sweeps();
+        self.apply_band();
+        true
+    }
+
+    /// Whether the charts draw the field shape (else the classical shape through the
+    /// present coil: the field solution is off, pending or failed along the chart).
+    pub fn field_shaped(&self) -> bool {
+        self.shape.is_some()
     }
 
     /// What the figures take from the field solution in `state`: the worker's answer when it
@@ -178,6 +240,14 @@ impl Evaluation {
             (Err(_), Err(_)) => {}
         }
         self.inputs = inputs;
+        // A shape solved for other figures is dropped (the worker is asked again).
+        let still = self.current.as_ref().ok().and_then(|f| {
+            let (r, _) = self.shape.as_ref()?;
+            Some(f.led == Some(r.led) && f.coil == r.coil && f.tank == r.tank)
+        });
+        if still != Some(true) {
+            self.shape = None;
+        }
         self.refresh_sweeps();
         self.refresh_expectation(recipe);
         true

@@ -3,16 +3,23 @@
 //! for the chart) while the window shows the classical estimate; the answer replaces the
 //! estimate when it arrives.
 //!
+//! A second thread ([`ShapeWorker`]) then solves the field shape the charts draw
+//! ([`crate::tuning::landing::chart_shape`], some thirty field solves) for the figures shown,
+//! so the curves, their hover and the spread band follow the field solution along the chart
+//! and not only at the present coil; until it arrives the charts draw the classical shape
+//! through the field-solved point.
+//!
 //! Each change of the coil, tank capacitance or conditions starts a new generation. A
 //! solution asked for under an older generation is dropped: the thread skips queued requests
 //! that are no longer the newest, checks again between its two parts, and the window ignores
 //! any answer whose generation is not the present one. The thread ends when the window drops
 //! the worker (its request channel closes).
 
-use crate::model::{Coil, Conditions};
+use crate::model::{Coil, Conditions, Tank};
 use crate::physics::field::FieldError;
 use crate::tuning::field_tank::{FieldTank, field_tank};
 use crate::tuning::impedance::{ImpedanceSweep, impedance_sweep};
+use crate::tuning::landing::{FieldLed, Shape, chart_shape};
 use eframe::egui;
 use std::sync::Arc;
 use std::sync::atomic::{AtomicU64, Ordering};
@@ -195,4 +202,125 @@ fn send(outbox: &Sender<Done>, job: &Job, result: FieldResult) -> bool {
         job.repaint.request_repaint();
     }
     sent
+}
+
+/// What the charts' field shape is solved for: the figures' field-led model, coil and tank
+/// (calibrated once there are readings), and the lengths the spacing chart sweeps.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct ShapeRequest {
+    /// The field-led model of the figures shown ([`crate::recipe::Figures::led`]).
+    pub led: FieldLed,
+    /// The coil shown.
+    pub coil: Coil,
+    /// The tank that drives the figures.
+    pub tank: Tank,
+    /// The spacing chart's lengths, metres (shortest, longest).
+    pub range: (f64, f64),
+}
+
+/// The shape for one request: `None` when the field solution failed along the chart (the
+/// classical shape then stays drawn).
+#[derive(Clone, Debug, PartialEq)]
+pub struct ShapeResult {
+    /// What was solved.
+    pub request: ShapeRequest,
+    /// The field shape over the chart's lengths.
+    pub shape: Option<Shape>,
+}
+
+/// A shape answer with the generation it was asked under.
+type ShapeDone = (u64, ShapeResult);
+
+struct ShapeJob {
+    generation: u64,
+    request: ShapeRequest,
+    repaint: egui::Context,
+}
+
+/// The window's side of the thread that solves the charts' field shape: the same
+/// generations as [`FieldWorker`] (a request for figures that have since changed is
+/// skipped, an answer for them ignored).
+#[derive(Default)]
+pub struct ShapeWorker {
+    generation: u64,
+    newest: Arc<AtomicU64>,
+    asked: Option<ShapeRequest>,
+    channel: Option<(Sender<ShapeJob>, Receiver<ShapeDone>)>,
+    ready: Option<ShapeResult>,
+}
+
+impl ShapeWorker {
+    /// Ask for the shape of `request` (None: nothing to solve, e.g. the classical model
+    /// leads); a request equal to the last one asked is a no-op.
+    pub fn ask(&mut self, request: Option<ShapeRequest>, ctx: &egui::Context) {
+        if request == self.asked {
+            return;
+        }
+        self.generation += 1;
+        self.newest.store(self.generation, Ordering::SeqCst);
+        self.asked = request;
+        self.ready = None;
+        let Some(request) = request else {
+            return;
+        };
+        if self.channel.is_none() {
+            let (jobs, inbox) = channel::<ShapeJob>();
+            let (outbox, done) = channel();
+            let newest = Arc::clone(&self.newest);
+            self.channel = std::thread::Builder::new()
+                .name("tankwright field shape".to_owned())
+                .spawn(move || shape_work(&inbox, &outbox, &newest))
+                .ok()
+                .map(|_| (jobs, done));
+        }
+        let job = ShapeJob {
+            generation: self.generation,
+            request,
+            repaint: ctx.clone(),
+        };
+        let sent = self
+            .channel
+            .as_ref()
+            .is_some_and(|(jobs, _)| jobs.send(job).is_ok());
+        if !sent {
+            // No thread: the classical shape stays drawn.
+            self.channel = None;
+        }
+    }
+
+    /// Take any answer the thread has sent for the present request.
+    pub fn poll(&mut self) {
+        let Some((_, done)) = &self.channel else {
+            return;
+        };
+        while let Ok((generation, result)) = done.try_recv() {
+            if generation == self.generation && Some(result.request) == self.asked {
+                self.ready = Some(result);
+            }
+        }
+    }
+
+    /// The shape of the present request, once it has arrived.
+    pub fn ready(&self) -> Option<&ShapeResult> {
+        self.ready.as_ref()
+    }
+}
+
+/// The shape thread: take the newest request, solve it unless a newer one has come.
+fn shape_work(inbox: &Receiver<ShapeJob>, outbox: &Sender<(u64, ShapeResult)>, newest: &AtomicU64) {
+    while let Ok(mut job) = inbox.recv() {
+        while let Ok(newer) = inbox.try_recv() {
+            job = newer;
+        }
+        if job.generation != newest.load(Ordering::SeqCst) {
+            continue;
+        }
+        let r = &job.request;
+        let shape = chart_shape(&r.led, &r.coil, &r.tank, r.range);
+        let result = ShapeResult { request: *r, shape };
+        if outbox.send((job.generation, result)).is_err() {
+            break;
+        }
+        job.repaint.request_repaint();
+    }
 }

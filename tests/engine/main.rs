@@ -6,6 +6,7 @@
 mod bands;
 mod batch_spread;
 mod bench_fit;
+mod chart_shape;
 mod design;
 mod field_budget;
 mod field_lead;
@@ -21,6 +22,7 @@ mod reference_proximity;
 mod reference_stray;
 mod reference_tank;
 mod reference_touchstone;
+mod trimmer_resolution;
 mod tuning;
 mod validation;
 mod verdict;

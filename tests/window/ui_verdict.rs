@@ -420,7 +420,10 @@ fn the_tolerance_field_moves_the_on_channel_verdict_at_its_boundary() {
         }));
         assert!(screen_text(&harness).contains(&line), "{line:?} not shown");
     }
-    // Back to the plan's default.
+    // Back to the plan's default (brought into view first, as a user scrolls: the advice
+    // above it may run to several lines).
+    harness.get_by_label("Plan default").scroll_to_me();
+    harness.run();
     harness.get_by_label("Plan default").click();
     harness.run();
     assert_eq!(harness.state().recipe().target.tolerance, None);
@@ -434,10 +437,10 @@ fn each_method_keeps_its_hover_note_in_the_inductance_chart() {
         .with_size(egui::vec2(1400.0, 1000.0))
         .build_eframe(|cc| App::new(cc));
     harness.run();
-    // Let the field solution arrive first, so the rows above stay put while the pointer rests
-    // (the bound only stops a hung test).
+    // Let the field solution and the charts' field shape arrive first, so the rows above stay
+    // put while the pointer rests (the bound only stops a hung test).
     let start = std::time::Instant::now();
-    while harness.state().field_solution().is_none() {
+    while harness.state().field_solution().is_none() || !harness.state().charts_field_shaped() {
         assert!(
             start.elapsed().as_secs() < 120,
             "the field solution never arrived"

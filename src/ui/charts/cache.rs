@@ -1,7 +1,8 @@
 //! Sweep results kept between frames, recomputed only when the coil, tank or conditions change.
 
 use crate::model::{Coil, Conditions, Tank};
-use crate::tuning::sweep::{SpacingCurve, chart_length_range, spacing_sweep, trimmer_sweep};
+use crate::tuning::landing::Shape;
+use crate::tuning::sweep::{SpacingCurve, chart_length_range, spacing_sweep_on, trimmer_sweep_on};
 
 /// Trimmer settings the spacing chart draws a curve for (shared with the hand-outs).
 pub use crate::tuning::sweep::CHART_SETTINGS as SETTINGS;
@@ -13,6 +14,7 @@ pub(crate) use crate::tuning::sweep::CHART_SAMPLES as SAMPLES;
 #[derive(Default)]
 pub struct ChartCache {
     inputs: Option<(Coil, Tank, Conditions)>,
+    shape: Option<Shape>,
     range: (f64, f64),
     spacing: Vec<SpacingCurve>,
     trimmer: Vec<[f64; 2]>,
@@ -21,15 +23,31 @@ pub struct ChartCache {
 }
 
 impl ChartCache {
-    /// Recompute the sweeps if (coil, tank, conditions) differ from the last call; true if it recomputed.
+    /// Recompute the sweeps on the classical shape if (coil, tank, conditions) differ from the
+    /// last call; true if it recomputed.
     pub fn refresh(&mut self, coil: &Coil, tank: &Tank, conditions: &Conditions) -> bool {
+        self.refresh_on(coil, tank, conditions, None)
+    }
+
+    /// Recompute the sweeps if (coil, tank, conditions) or the field shape differ from the
+    /// last call; true if it recomputed. With a `shape` ([`crate::tuning::landing::chart_shape`]
+    /// over [`length_range_swept`](Self::length_range_swept)) every curve is the field-shaped
+    /// one; without, the classical model's shape through the present coil.
+    pub fn refresh_on(
+        &mut self,
+        coil: &Coil,
+        tank: &Tank,
+        conditions: &Conditions,
+        shape: Option<&Shape>,
+    ) -> bool {
         let inputs = (*coil, *tank, *conditions);
-        if self.inputs == Some(inputs) {
+        if self.inputs == Some(inputs) && self.shape.as_ref() == shape {
             return false;
         }
         let range = self.length_range(coil);
-        self.spacing = spacing_sweep(coil, tank, conditions, &SETTINGS, range, SAMPLES);
-        self.trimmer = trimmer_sweep(coil, tank, conditions, SAMPLES);
+        self.spacing = spacing_sweep_on(coil, tank, conditions, &SETTINGS, range, SAMPLES, shape);
+        self.trimmer = trimmer_sweep_on(coil, tank, conditions, SAMPLES, shape);
+        self.shape = shape.cloned();
         // The sweep raises the low end to the touching limit; keep what it actually used.
         self.range = self
             .spacing
@@ -61,6 +79,12 @@ impl ChartCache {
     /// Lengths swept, metres: (turns touching, longest).
     pub fn length_range_swept(&self) -> (f64, f64) {
         self.range
+    }
+
+    /// Whether the curves are on the field shape (else the classical shape through the
+    /// present coil).
+    pub fn field_shaped(&self) -> bool {
+        self.shape.is_some()
     }
 
     /// Resonance against coil length, one curve per setting in 0/25/50/75/100 %.

@@ -25,6 +25,8 @@ pub const MODEL_TEXT_LABEL: &str = "SPICE .model text";
 pub const USE_MODEL_BUTTON: &str = "Use this model";
 /// The collapsible section holding the paste box.
 pub const PASTE_SECTION: &str = "Paste a SPICE .model line";
+/// The switch that puts the junction at its bias in the tank of every figure.
+pub const COUNT_JUNCTION: &str = "Count the junction in the tank";
 
 /// The junction fields' ranges (what a pasted model must fall in): Cj0 in pF, φ in volts, m.
 const CJ0_PF_RANGE: (f64, f64) = (0.1, 1000.0);
@@ -49,6 +51,9 @@ struct Settings {
     temperature_change_k: f64,
     hand_pf: f64,
     load_pf: f64,
+    /// The junction at its bias is part of the tank for every figure of the window (the
+    /// readouts, verdict, advice and charts), as `evaluate --junction-…` counts it.
+    in_tank: bool,
 }
 
 /// The panel's inputs and the last results.
@@ -95,6 +100,7 @@ impl Default for AudioPanel {
                 temperature_change_k: UsualChanges::TEMPERATURE_CHANGE_K,
                 hand_pf: UsualChanges::HAND * 1e12,
                 load_pf: UsualChanges::LOAD * 1e12,
+                in_tank: false,
             },
             model_text: String::new(),
             model_note: None,
@@ -212,6 +218,26 @@ impl AudioPanel {
         self.settings.inputs()
     }
 
+    /// The junction and its bias when it is counted in the tank of every figure (the switch
+    /// [`COUNT_JUNCTION`]); the window puts it there with
+    /// [`crate::tuning::modulation::tank_with_junction`].
+    pub fn junction_in_tank(&self) -> Option<(Modulator, f64)> {
+        let s = &self.settings;
+        s.in_tank.then(|| (s.modulator(), s.bias_v))
+    }
+
+    /// `tank` (as the figures drive it) without the junction this panel counted in it: what
+    /// the modulation's figures and charts take as the rest of the tank.
+    pub fn without_junction(&self, tank: &Tank) -> Tank {
+        match self.junction_in_tank() {
+            Some((m, bias)) => Tank {
+                stray: tank.stray - m.across_tank(bias),
+                ..*tank
+            },
+            None => *tank,
+        }
+    }
+
     /// Read the pasted `.model` text into the junction's fields, or say why not (the text and
     /// the fields are left as they were).
     fn use_model(&mut self) {
@@ -272,8 +298,9 @@ impl AudioPanel {
             });
     }
 
-    /// Show the junction inputs, the modulation and the drift budget for `coil` in `tank`,
-    /// judged against a channel `tolerance` (± hertz).
+    /// Show the junction inputs, the modulation and the drift budget for `coil` in `tank`
+    /// (everything but the junction: [`without_junction`](Self::without_junction)), judged
+    /// against a channel `tolerance` (± hertz).
     pub fn show(
         &mut self,
         ui: &mut egui::Ui,
@@ -312,6 +339,19 @@ impl AudioPanel {
                 );
             });
         ui.weak("Coupling 0 pF: the junction sits straight across the tank.");
+        ui.checkbox(&mut s.in_tank, COUNT_JUNCTION).on_hover_text(
+            "On: the junction's capacitance at its bias joins the tank for every figure (the \
+             readouts, verdict, advice and charts), as evaluate --junction-… counts it. Off: \
+             the figures are the tank as entered, and the carrier below adds the junction to it.",
+        );
+        if s.in_tank {
+            ui.weak("The readouts, verdict, advice and charts include the junction at its bias.");
+        } else {
+            ui.weak(
+                "Not counted: the readouts and verdict are the tank as entered, without the \
+                 junction; the carrier below adds it.",
+            );
+        }
         // A bias the supply cannot give is said, never taken silently.
         if let Some(why) = crate::tuning::modulation::bias_beyond_supply(
             self.settings.bias_v,
