@@ -10,7 +10,9 @@
 //! Analysis and Feedback Amplifier Design*, 1945, chapter IV, the return ratio of a controlled
 //! source): the circuit's determinant with the source in place is det **Y**·(1 − T), so it
 //! oscillates where T is real and at least 1 (the Barkhausen criterion). The loop gain stated
-//! is T at the frequency where its phase is zero.
+//! is the transconductance over the least that makes T reach 1 at zero phase
+//! (`critical_scale` in the stage's module), which is T itself wherever T grows in
+//! proportion to g_m.
 //!
 //! Unlike the ideal-transformer view of the tapped capacitor (the emitter's load reflected to
 //! the collector by the divider ratio squared, as in K. K. Clarke and D. T. Hess,
@@ -107,25 +109,27 @@ impl Network {
         }
     }
 
-    /// The coil's admittance with the tank's capacitors at angular frequency `w`.
-    fn tank(&self, w: f64) -> Complex64 {
-        let j = Complex64::i();
-        Complex64::new(1.0, 0.0) / Complex64::new(self.series_resistance, w * self.inductance)
-            + j * w * self.tank_capacitance
+    /// The coil's admittance with the tank's capacitors at complex frequency `s`.
+    fn tank(&self, s: Complex64) -> Complex64 {
+        Complex64::new(1.0, 0.0) / (self.series_resistance + s * self.inductance)
+            + s * self.tank_capacitance
     }
 
     /// The return ratio T at angular frequency `w`.
     pub fn return_ratio(&self, w: f64) -> Complex64 {
-        let j = Complex64::i();
+        self.return_ratio_at(Complex64::new(0.0, w))
+    }
+
+    /// The return ratio T at complex frequency `s` (Laplace variable, 1/s).
+    pub fn return_ratio_at(&self, s: Complex64) -> Complex64 {
         let g_pi = self.gm / self.beta;
         let zero = Complex64::new(0.0, 0.0);
         // Nodes: 0 the tank's hot end, 1 the emitter.
         let (y, g, ctrl) = match self.topology {
             Topology::CommonBase => {
-                let y00 = self.tank(w) + j * w * (self.c_mu + self.upper);
-                let y01 = -j * w * self.upper;
-                let y11 =
-                    j * w * (self.upper + self.lower + self.c_pi) + g_pi + 1.0 / self.emitter_r;
+                let y00 = self.tank(s) + s * (self.c_mu + self.upper);
+                let y01 = -s * self.upper;
+                let y11 = s * (self.upper + self.lower + self.c_pi) + g_pi + 1.0 / self.emitter_r;
                 // g_m·v_be flows from the collector (node 0) to the emitter (node 1);
                 // v_be = −v_e.
                 (
@@ -135,9 +139,9 @@ impl Network {
                 )
             }
             Topology::CommonCollector => {
-                let ybe = j * w * (self.upper + self.c_pi) + g_pi;
-                let y00 = self.tank(w) + j * w * self.c_mu + 1.0 / self.base_r + ybe;
-                let y11 = ybe + j * w * self.lower + 1.0 / self.emitter_r;
+                let ybe = s * (self.upper + self.c_pi) + g_pi;
+                let y00 = self.tank(s) + s * self.c_mu + 1.0 / self.base_r + ybe;
+                let y11 = ybe + s * self.lower + 1.0 / self.emitter_r;
                 // g_m·v_be flows from the collector (RF ground) into the emitter (node 1);
                 // v_be = v_b − v_e.
                 (
@@ -154,23 +158,49 @@ impl Network {
         ctrl[0] * v0 + ctrl[1] * v1
     }
 
+    /// The circuit's natural frequency near `around` hertz: the root s of T(s) = 1 (the
+    /// determinant with the source in place), by Newton's method from s = j·2π·around. Its
+    /// imaginary part over 2π is the frequency a small ring runs at, its real part the ring's
+    /// growth rate (1/s; negative: it dies away). `None` when Newton's method does not settle.
+    pub fn natural_frequency(&self, around: f64) -> Option<Complex64> {
+        let mut s = Complex64::new(0.0, 2.0 * std::f64::consts::PI * around);
+        for _ in 0..60 {
+            let f = self.return_ratio_at(s) - 1.0;
+            let h = 1e-7 * s.norm();
+            let d = (self.return_ratio_at(s + h) - self.return_ratio_at(s - h)) / (2.0 * h);
+            let step = f / d;
+            s -= step;
+            if !(s.re.is_finite() && s.im.is_finite()) {
+                return None;
+            }
+            if step.norm() < 1e-13 * s.norm() {
+                return (s.im > 0.0).then_some(s);
+            }
+        }
+        None
+    }
+
     /// The frequency (hertz) nearest `around` where T's phase is zero with T's real part
-    /// positive, and T there; `None` when there is none within ±40 % of `around`.
+    /// positive, and T there; `None` when there is none within ±40 % of `around`. The search
+    /// steps out from `around` by geometrically growing offsets (1e-5 of it, then 1.4 times
+    /// as far each step) on both sides, then bisects the first sign change of Im T.
     pub fn zero_phase(&self, around: f64) -> Option<(f64, f64)> {
         let w0 = 2.0 * std::f64::consts::PI * around;
         let im = |w: f64| self.return_ratio(w).im;
-        let steps = 400;
         let mut best: Option<(f64, f64)> = None;
         for side in [1.0, -1.0] {
-            let mut a = w0;
-            for i in 1..=steps {
-                let b = w0 * (1.0 + side * 0.4 * f64::from(i) / f64::from(steps));
-                if im(a).signum() != im(b).signum() {
-                    let (mut lo, mut hi) = (a, b);
-                    for _ in 0..100 {
+            let (mut a, mut ia) = (w0, im(w0));
+            let mut offset = 1e-5;
+            while offset <= 0.4 {
+                let b = w0 * (1.0 + side * offset);
+                let ib = im(b);
+                if ia.signum() != ib.signum() {
+                    let (mut lo, mut hi, mut ilo) = (a, b, ia);
+                    for _ in 0..64 {
                         let mid = 0.5 * (lo + hi);
-                        if im(lo).signum() == im(mid).signum() {
-                            lo = mid;
+                        let imid = im(mid);
+                        if ilo.signum() == imid.signum() {
+                            (lo, ilo) = (mid, imid);
                         } else {
                             hi = mid;
                         }
@@ -185,7 +215,8 @@ impl Network {
                         break;
                     }
                 }
-                a = b;
+                (a, ia) = (b, ib);
+                offset *= 1.4;
             }
         }
         best.map(|(w, t)| (w / (2.0 * std::f64::consts::PI), t))
