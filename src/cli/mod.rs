@@ -1,5 +1,5 @@
 //! The headless commands: `evaluate` (from flags or `--recipe FILE`), `impedance`,
-//! `report FILE`, and the hand-outs `sheet` and `chart`.
+//! `report FILE`, the hand-outs `sheet` and `chart`, and the oscillator `stage`.
 //!
 //! Everything here returns strings; `main.rs` prints them and sets the exit code.
 
@@ -14,6 +14,7 @@ mod measured;
 mod reading;
 mod recipe_args;
 mod report;
+mod stage;
 mod stray_flags;
 mod text;
 mod verdict;
@@ -28,6 +29,7 @@ pub use json::analysis_json;
 pub use measured::run_measured;
 pub use reading::run_reading;
 pub use report::{build_report, run_report};
+pub use stage::{run_stage, stage_json};
 pub use text::analysis_report;
 pub use verdict::{add_verdict_json, verdict_lines};
 
@@ -125,6 +127,15 @@ usage:
                                           its inductance, self-capacitance, resistance, Q and
                                           self-resonance; with a recipe, beside the field
                                           solution of its coil over the same band
+  tankwright stage --recipe FILE --supply-v V --bias-upper-ohm R1 --bias-lower-ohm R2
+           --emitter-ohm RE (--transistor-model '.model NAME NPN(...)'
+           | --hfe B --cbe-pf C --cbc-pf C --ft-mhz F) [--topology common-base|common-collector]
+           [--battery-mah M] [--vceo-v V] [--ic-max-ma I] [--ptot-mw P] [--json]
+                                          the one-transistor Colpitts stage round the recipe's
+                                          tank (its feedback divider the tapped capacitor):
+                                          operating point, loop gain and start margin, the
+                                          frequency with the transistor's capacitances, supply
+                                          current and battery life, and what to change
   tankwright help                         this text
 
 evaluate flags (millimetres, picofarads, megahertz):

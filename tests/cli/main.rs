@@ -14,6 +14,7 @@ mod cli_modulation;
 mod cli_reading;
 mod cli_sheet;
 mod cli_spice;
+mod cli_stage;
 mod cli_verdict;
 mod common;
 mod fuzz;
