@@ -14,6 +14,7 @@ mod ui_field;
 mod ui_layout;
 mod ui_new_recipe;
 mod ui_recipes;
+mod ui_stage;
 mod ui_stray;
 mod ui_teaching;
 mod ui_verdict;
