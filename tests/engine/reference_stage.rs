@@ -343,6 +343,13 @@ fn critical_transconductance_matches_the_tapped_capacitor_hand_calculation() {
         let r_e = 1.0 / (1.0 / n.emitter_r + gm_crit_tool / alpha);
         let q_e = w * (n.lower + c_pi) * r_e;
         let rel = (gm_crit_tool - hand) / hand;
+        eprintln!(
+            "{upper}:{lower} pF: critical gm tool {:.4} mS, hand {:.4} mS ({rel:+.2e}), \
+             allowed 2/Q_e^2 = {:.1e}",
+            gm_crit_tool * 1e3,
+            hand * 1e3,
+            2.0 / (q_e * q_e)
+        );
         assert!(
             rel.abs() <= 2.0 / (q_e * q_e),
             "{upper}:{lower}: tool {gm_crit_tool:e} S, hand {hand:e} S ({rel:e}), Q_e {q_e}"

@@ -56,7 +56,7 @@ fn engine(
 #[test]
 fn the_stage_shown_is_the_engines_and_follows_the_emitter_resistor() {
     let mut harness = workbench();
-    let s = engine(&harness, Topology::CommonBase, 47e3);
+    let s = engine(&harness, Topology::CommonBase, 100e3);
     let shown = line_starting(&harness, "Loop gain ");
     assert!(
         shown.starts_with(&format!(

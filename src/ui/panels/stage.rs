@@ -70,14 +70,14 @@ type Key = (Coil, Tank, Conditions, Settings, Option<Transistor>);
 impl Default for StagePanel {
     fn default() -> Self {
         // The Lantern Hill club's bench stage (demo data): a 9 V battery, a 10 k / 10 k base
-        // divider and 47 k in the emitter, a small VHF transistor's figures.
+        // divider and 100 k in the emitter, a small VHF transistor's figures.
         Self {
             settings: Settings {
                 topology: Topology::CommonBase,
                 supply_v: 9.0,
                 upper_ohm: 10e3,
                 lower_ohm: 10e3,
-                emitter_ohm: 47e3,
+                emitter_ohm: 100e3,
                 hfe: 80.0,
                 cbe_pf: 2.0,
                 cbc_pf: 0.8,

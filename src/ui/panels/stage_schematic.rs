@@ -142,11 +142,12 @@ impl Pen<'_> {
 
 /// Draw the stage's schematic in a box of its own.
 pub fn draw(ui: &mut egui::Ui, topology: Topology, v: &Values) {
-    let (response, painter) = ui.allocate_painter(vec2(280.0, 215.0), egui::Sense::hover());
+    let (response, painter) = ui.allocate_painter(vec2(280.0, 225.0), egui::Sense::hover());
     let visuals = ui.visuals();
     let pen = Pen {
         painter: &painter,
-        origin: response.rect.min,
+        // Room above the supply rail for its label.
+        origin: response.rect.min + vec2(0.0, 10.0),
         stroke: Stroke::new(1.2, visuals.text_color()),
         text: visuals.text_color(),
     };
