@@ -11,18 +11,24 @@
 //!
 //! - [`transistor`]: the transistor's figures or `.model` line;
 //! - [`bias`]: the DC operating point;
-//! - [`loop_gain`]: the small-signal loop gain and the frequency where its phase is zero;
+//! - [`loop_gain`]: the small-signal network, its return ratio and natural frequency;
+//! - [`critical`]: the loop gain as the transconductance over the critical one, and the
+//!   steady oscillation's frequency;
+//! - [`junction`]: the base–collector junction's share of the modulation;
 //! - [`advice`]: the one change that brings the loop gain into the trade's range.
 
 pub mod advice;
 pub mod bias;
+pub mod critical;
+pub mod junction;
 pub mod loop_gain;
 pub mod transistor;
 
 use crate::model::{Coil, Conditions, Tank, evaluate::resonance_of, evaluate_coil};
-use crate::physics::junction::{JunctionLaw, series};
-use crate::tuning::modulation::{ModulationInputs, Modulator, modulation};
+use crate::physics::junction::series;
 pub use bias::{Bias, OperatingPoint, operating_point};
+pub use critical::critical_scale;
+pub use junction::{JunctionShare, junction_share};
 pub use loop_gain::{Network, Topology};
 pub use transistor::{JunctionCapacitance, Ratings, Transistor};
 
@@ -114,18 +120,6 @@ impl Start {
             Start::TooHard => "starts too hard",
         }
     }
-}
-
-/// The base–collector junction as the modulating capacitance across the tank.
-#[derive(Clone, Copy, Debug, PartialEq)]
-pub struct JunctionShare {
-    /// C_bc at the operating point, farads.
-    pub capacitance: f64,
-    /// Its share of all the capacitance the coil sees.
-    pub share: f64,
-    /// The carrier's movement per volt of collector–base voltage, hertz per volt (positive:
-    /// more reverse bias, less capacitance, a higher carrier).
-    pub hz_per_volt: f64,
 }
 
 /// Every figure of the stage (SI).
@@ -331,7 +325,14 @@ pub fn analyse(
         _ => loaded.resonance,
     };
     let tank_frequency = resonance_of(coil, tank.external_capacitance(), conditions);
-    let junction = junction_share(coil, conditions, loaded_external, &loaded, t, &op);
+    let junction = junction_share(
+        coil,
+        conditions,
+        loaded_external,
+        loaded.self_capacitance,
+        t,
+        &op,
+    );
     let mut rating_faults = Vec::new();
     let r = &t.ratings;
     if let Some(max) = r.collector_emitter_max {
@@ -397,81 +398,4 @@ pub fn analyse(
         unused: t.unused.clone(),
         advice: String::new(),
     })
-}
-
-/// The critical scale k on the transistor's active part (g_m, g_π and the diffusion
-/// capacitance τ_F·g_m, all proportional to the collector current) at which the return ratio
-/// at zero phase is exactly 1, and the frequency there; `None` when no k up to 1e4 gives it
-/// (k is held at 1e-9 when even that starts it).
-///
-/// 1/k is the loop gain stated: how many times the transconductance exceeds the least that
-/// sustains oscillation (the critical transconductance of E. Vittoz, M. Degrauwe and S. Bitz,
-/// "High-performance crystal oscillator circuits: theory and application", IEEE J. Solid-State
-/// Circuits 23(3), 1988, from memory), which is the loop gain wherever the loop gain grows in
-/// proportion to g_m. The frequency at k is the steady oscillation's: limiting lowers the
-/// fundamental's transconductance until the loop gain is 1 (the describing-function view of
-/// K. K. Clarke and D. T. Hess, *Communication Circuits: Analysis and Design*, 1971,
-/// chapter 6, from memory).
-pub fn critical_scale(network: &Network, diffusion: f64, around: f64) -> Option<(f64, f64)> {
-    let gain = |ln_k: f64| network.limited(ln_k.exp(), diffusion).zero_phase(around);
-    let (mut lo, mut hi) = (1e-9_f64.ln(), 1e4_f64.ln());
-    let above = |ln_k: f64| gain(ln_k).is_some_and(|(_, t)| t >= 1.0);
-    if above(lo) {
-        // Starts even at a billionth of the transconductance: the figure is held there.
-        return gain(lo).map(|(f, _)| (lo.exp(), f));
-    }
-    if !above(hi) {
-        return None;
-    }
-    for _ in 0..60 {
-        let mid = 0.5 * (lo + hi);
-        if above(mid) {
-            hi = mid;
-        } else {
-            lo = mid;
-        }
-    }
-    gain(hi).map(|(f, _)| (hi.exp(), f))
-}
-
-/// The base–collector junction across the tank: its capacitance, share, and the carrier's
-/// slope against the collector–base voltage by [`crate::tuning::modulation`] (the junction
-/// straight across the tank, as in the common-base stage where base and supply are both at
-/// RF ground). A fixed C_bc is taken as SPICE's default law (V_JC = 0.75 V, M_JC = 0.33,
-/// Berkeley SPICE3 manual) through the given value at the operating point.
-fn junction_share(
-    coil: &Coil,
-    conditions: &Conditions,
-    loaded_external: f64,
-    loaded: &crate::model::Analysis,
-    t: &Transistor,
-    op: &OperatingPoint,
-) -> JunctionShare {
-    let vcb = op.collector_base_v.max(0.0);
-    let law = match t.base_collector {
-        JunctionCapacitance::Law(law) => law,
-        JunctionCapacitance::Fixed(c) => {
-            JunctionLaw::new(c * (1.0 + vcb / 0.75).powf(0.33), 0.75, 0.33)
-        }
-    };
-    let c = law.capacitance(vcb);
-    let m = modulation(
-        coil,
-        loaded_external - c,
-        conditions,
-        &ModulationInputs {
-            modulator: Modulator {
-                law,
-                coupling: None,
-            },
-            bias_v: vcb,
-            audio_peak_v: 0.0,
-            audio_max_hz: 15e3,
-        },
-    );
-    JunctionShare {
-        capacitance: c,
-        share: c / (loaded_external + loaded.self_capacitance),
-        hz_per_volt: m.sensitivity,
-    }
 }
