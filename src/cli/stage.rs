@@ -6,6 +6,7 @@
 
 use super::args::{Args, short};
 use crate::recipe::store;
+use crate::tuning::stage::advice::Part;
 use crate::tuning::stage::{
     BATTERY_RANGE_MAH, Bias, FREQUENCY_ACCURACY, RESISTOR_RANGE_OHM, Ratings, SUPPLY_RANGE_V,
     StageFigures, StageInputs, Start, Topology, Transistor, stage, transistor::BETA_RANGE,
@@ -154,6 +155,19 @@ pub fn stage_json(s: &StageFigures, battery_mah: Option<f64>) -> serde_json::Val
         },
         "unused_model_parameters": s.unused,
         "advice": s.advice,
+        "advice_change": s.change.map(|c| {
+            let (scale, unit) = match c.part {
+                Part::LowerDividerCapacitor => (1e12, "pF"),
+                Part::EmitterResistor | Part::LowerBiasResistor => (1.0, "ohm"),
+            };
+            json!({
+                "part": c.part.json_name(),
+                "from": c.from * scale,
+                "to": c.to * scale,
+                "unit": unit,
+                "loop_gain": c.loop_gain,
+            })
+        }),
         "caution": crate::cautions::ONE_LINE,
     })
 }

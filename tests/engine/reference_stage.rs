@@ -371,3 +371,66 @@ fn transistor_model_lists_what_it_does_not_use() {
     assert!(Transistor::from_model(".model Q3 PNP(CJC=1p)").is_err());
     assert!(Transistor::from_model(".model Q4 NPN(CJC=1p BF=0.5)").is_err());
 }
+
+/// The advice carried out: for a stage that will not start (4 µA) and one that starts far too
+/// hard (3.5 mA), the change proposed is a value of the E12 series (IEC 60063:2015, Table 1,
+/// listed here from the standard), the stage with it has the loop gain the advice states,
+/// within 3–10, and ngspice starts it from rest with the steady frequency within the tool's
+/// stated accuracy.
+#[test]
+fn the_advice_carried_out_starts_in_ngspice() {
+    const E12: [f64; 12] = [1.0, 1.2, 1.5, 1.8, 2.2, 2.7, 3.3, 3.9, 4.7, 5.6, 6.8, 8.2];
+    let dir = tempfile::tempdir().expect("temporary directory");
+    for (k, re) in [1e6, 1e3].into_iter().enumerate() {
+        let t = tank(10.0, 22.0);
+        let i = inputs(Topology::CommonBase, re);
+        let now = analyse(&t, &i);
+        assert!(!(RELIABLE_LOOP_GAIN..=TOO_HARD_LOOP_GAIN).contains(&now.loop_gain));
+        let change = now.change.expect("a change is proposed");
+        let decade = 10f64.powf(change.to.log10().floor());
+        let mantissa = change.to / decade;
+        assert!(
+            E12.iter().any(|m| (m - mantissa).abs() < 1e-9),
+            "{} is not an E12 value",
+            change.to
+        );
+        let (i2, t2) = change.apply(&i, &t);
+        let after = analyse(&t2, &i2);
+        assert_eq!(after.loop_gain, change.loop_gain);
+        assert!(
+            (RELIABLE_LOOP_GAIN..=TOO_HARD_LOOP_GAIN).contains(&after.loop_gain),
+            "{}: loop gain {}",
+            now.advice,
+            after.loop_gain
+        );
+        let stop = 4e-6;
+        let data = dir.path().join(format!("advised{k}.txt"));
+        let control = format!(".control\nrun\nwrdata {} v(hot)\n.endc\n", data.display());
+        let net = stage_netlist(
+            &after,
+            &i2,
+            StageRun::Transient {
+                stop,
+                max_step: 1.0 / after.frequency / 80.0,
+            },
+            &control,
+        );
+        if ngspice(&net, dir.path(), &format!("advised{k}")).is_none() {
+            return;
+        }
+        let s = samples(&data);
+        let (early, late) = (swing(&s, 0.2e-6, 0.3e-6), swing(&s, stop - 0.1e-6, stop));
+        assert!(late > early, "{}: swing {early} -> {late}", now.advice);
+        let spice = unwarped(&s, 0.8 * stop, stop);
+        let rel = (after.frequency - spice) / spice;
+        eprintln!(
+            "advice '{}' carried out: loop gain {:.2}, ngspice starts it, steady {:.6} MHz \
+             against the tool's {:.6} MHz ({rel:+.2e})",
+            now.advice,
+            after.loop_gain,
+            spice * 1e-6,
+            after.frequency * 1e-6
+        );
+        assert!(rel.abs() <= FREQUENCY_ACCURACY, "{}", now.advice);
+    }
+}

@@ -179,6 +179,8 @@ pub struct StageFigures {
     pub unused: Vec<String>,
     /// One instruction: what to change, or that nothing needs changing.
     pub advice: String,
+    /// The change the advice names, if any.
+    pub change: Option<advice::Change>,
 }
 
 impl StageFigures {
@@ -250,7 +252,7 @@ pub fn stage(
     inputs: &StageInputs,
 ) -> Result<StageFigures, StageError> {
     let mut f = analyse(coil, tank, conditions, inputs)?;
-    f.advice = advice::advise(coil, tank, conditions, inputs, &f);
+    (f.advice, f.change) = advice::advise(coil, tank, conditions, inputs, &f);
     Ok(f)
 }
 
@@ -397,5 +399,6 @@ pub fn analyse(
         junction,
         unused: t.unused.clone(),
         advice: String::new(),
+        change: None,
     })
 }
