@@ -209,7 +209,8 @@ fn operating_point_matches_ngspice_op() {
 }
 
 /// Starting from rest, across bias currents from about 4 µA to 4 mA and divider ratios 1:1 to
-/// 1:5, common base (and two common-collector cases): ngspice's ring grows where the tool says
+/// 1:5, common base (and two common-collector cases, and two with the transistor given as
+/// its four figures): ngspice's ring grows where the tool says
 /// the stage starts and dies where it says it will not. Cases the tool puts within 0.8–1.25
 /// of the threshold are left out (the ring's growth there is too slow to judge in the run).
 /// Where it starts with little margin (loop gain below 3) the growing ring's frequency while
@@ -224,17 +225,24 @@ fn start_and_frequency_agree_with_ngspice_transients() {
     let mut judged = 0;
     let mut compared = 0;
     let mut compared_small = 0;
-    let mut cases: Vec<(Topology, f64, f64, f64)> = Vec::new();
+    // The last flag: the transistor from its four figures (fixed junction capacitances,
+    // written to ngspice as M = 0) instead of the `.model` line.
+    let mut cases: Vec<(Topology, f64, f64, f64, bool)> = Vec::new();
     for (upper, lower) in [(15.0, 15.0), (10.0, 22.0), (8.2, 41.0)] {
         for re in [1e6, 390e3, 100e3, 10e3, 1e3] {
-            cases.push((Topology::CommonBase, upper, lower, re));
+            cases.push((Topology::CommonBase, upper, lower, re, false));
         }
     }
-    cases.push((Topology::CommonCollector, 22.0, 47.0, 1e3));
-    cases.push((Topology::CommonCollector, 22.0, 47.0, 100e3));
-    for (k, (topology, upper, lower, re)) in cases.into_iter().enumerate() {
+    cases.push((Topology::CommonCollector, 22.0, 47.0, 1e3, false));
+    cases.push((Topology::CommonCollector, 22.0, 47.0, 100e3, false));
+    cases.push((Topology::CommonBase, 10.0, 22.0, 100e3, true));
+    cases.push((Topology::CommonBase, 10.0, 22.0, 1e6, true));
+    for (k, (topology, upper, lower, re, figures)) in cases.into_iter().enumerate() {
         let t = tank(upper, lower);
-        let i = inputs(topology, re);
+        let mut i = inputs(topology, re);
+        if figures {
+            i.transistor = Transistor::from_figures(80.0, 2e-12, 0.8e-12, 800e6);
+        }
         let f = analyse(&t, &i);
         let gain = f.loop_gain;
         let period = 1.0 / f.frequency;
@@ -258,8 +266,9 @@ fn start_and_frequency_agree_with_ngspice_transients() {
         let late = swing(&s, stop - 0.1e-6, stop);
         let grows = late > early;
         let case = format!(
-            "{} {upper}:{lower} pF, RE {re} ohm, Ic {:.4} mA: loop gain {gain:.3}, swing {early:.3e} -> {late:.3e} V",
+            "{} {upper}:{lower} pF, RE {re} ohm{}, Ic {:.4} mA: loop gain {gain:.3}, swing {early:.3e} -> {late:.3e} V",
             topology.cli_name(),
+            if figures { ", four figures" } else { "" },
             f.operating_point.collector_current * 1e3
         );
         if (0.8..=1.25).contains(&gain) {

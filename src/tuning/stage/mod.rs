@@ -53,7 +53,8 @@ pub const SMALL_SIGNAL_ACCURACY: f64 = 1e-4;
 /// but not far enough: the junctions' capacitances swing with the signal and the emitter
 /// current's harmonics flow in the divider, which a fundamental-only model does not see
 /// (against ngspice's steady oscillation of the same circuit, tests/engine/reference_stage.rs:
-/// the tool low by 0.9e-4 to 1.6e-3, more with a 1:1 divider and a higher loop gain). Harder
+/// the tool low by 0.9e-4 to 1.6e-3, more with a 1:1 divider and a higher loop gain; with
+/// fixed junction capacitances, the four-figure transistor, 2.5e-5 at a loop gain of 5). Harder
 /// starts limit on the collector's swing and run further off (measured: 0.5–1.6 % at loop
 /// gains of 30–200).
 pub const FREQUENCY_ACCURACY: f64 = 2e-3;
