@@ -23,7 +23,17 @@ fn main() -> ExitCode {
     let command = args.first().cloned();
     let headless = matches!(
         command.as_deref(),
-        Some("evaluate" | "impedance" | "report" | "sheet" | "chart" | "solve" | "fit" | "help")
+        Some(
+            "evaluate"
+                | "impedance"
+                | "report"
+                | "sheet"
+                | "chart"
+                | "solve"
+                | "fit"
+                | "stage"
+                | "help"
+        )
     );
     // A closed standard output (`>&-`) would swallow the output without an error (the
     // standard library ignores EBADF on it), and the first file opened would take its number:
@@ -80,6 +90,10 @@ fn main() -> ExitCode {
         Some("design") => {
             args.remove(0);
             finish(tankwright::cli::run_design(args))
+        }
+        Some("stage") => {
+            args.remove(0);
+            finish(tankwright::cli::run_stage(args))
         }
         Some("help") | Some("--help") | Some("-h") => finish(Ok(tankwright::cli::usage())),
         // The window opens even when the file cannot be read, and says why in it: a

@@ -1,5 +1,5 @@
 //! The headless commands: `evaluate` (from flags or `--recipe FILE`), `impedance`,
-//! `report FILE`, and the hand-outs `sheet` and `chart`.
+//! `report FILE`, the hand-outs `sheet` and `chart`, and the oscillator `stage`.
 //!
 //! Everything here returns strings; `main.rs` prints them and sets the exit code.
 
@@ -15,6 +15,7 @@ mod new_recipe;
 mod reading;
 mod recipe_args;
 mod report;
+mod stage;
 mod stray_flags;
 mod text;
 mod verdict;
@@ -30,6 +31,7 @@ pub use measured::run_measured;
 pub use new_recipe::run_new;
 pub use reading::run_reading;
 pub use report::{build_report, run_report};
+pub use stage::{run_stage, stage_json};
 pub use text::analysis_report;
 pub use verdict::{add_verdict_json, verdict_lines};
 
@@ -133,6 +135,15 @@ usage:
                                           solution of its coil over the same band; --keep
                                           keeps it with the recipe, where it calibrates the
                                           inductance as bench readings would
+  tankwright stage --recipe FILE --supply-v V --bias-upper-ohm R1 --bias-lower-ohm R2
+           --emitter-ohm RE (--transistor-model '.model NAME NPN(...)'
+           | --hfe B --cbe-pf C --cbc-pf C --ft-mhz F) [--topology common-base|common-collector]
+           [--battery-mah M] [--vceo-v V] [--ic-max-ma I] [--ptot-mw P] [--json]
+                                          the one-transistor Colpitts stage round the recipe's
+                                          tank (its feedback divider the tapped capacitor):
+                                          operating point, loop gain and start margin, the
+                                          frequency with the transistor's capacitances, supply
+                                          current and battery life, and what to change
   tankwright help                         this text
 
 evaluate flags (millimetres, picofarads, megahertz):

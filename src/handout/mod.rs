@@ -14,6 +14,7 @@ mod pdf;
 mod pdf_backend;
 mod sheet;
 mod spice_netlist;
+mod stage_netlist;
 
 pub use chart_data::{ChartData, ChartKind, Curve, chart_data};
 pub use chart_files::{CHART_SIZE, chart_png, chart_svg};
@@ -23,3 +24,4 @@ pub use export::{
 pub use pdf::sheet_pdf;
 pub use sheet::{BENCH_COLUMNS, BENCH_ROWS, Row, Sheet, sheet};
 pub use spice_netlist::{CoilNetwork, FIT_HALF_BAND, spice_netlist};
+pub use stage_netlist::{StageRun, stage_netlist};

@@ -27,6 +27,7 @@ pub mod service;
 pub mod solve;
 pub mod spice_model;
 pub mod spread;
+pub mod stage;
 pub mod stray;
 pub mod sweep;
 pub mod target;

@@ -122,8 +122,32 @@ fn logical_line(text: &str) -> String {
     out
 }
 
-/// Parse a `.model` statement (one line, or several joined by `+` continuation lines).
-pub fn parse_model(text: &str) -> Result<JunctionModel, ModelError> {
+/// A `.model` statement read into its name, device type and parameters (upper-case names,
+/// values in SI with the scale suffixes applied, in the order written).
+#[derive(Clone, Debug, PartialEq)]
+pub struct ModelStatement {
+    /// The model's name as written.
+    pub name: String,
+    /// The device type.
+    pub device: DeviceType,
+    /// NAME = VALUE pairs, names upper case, in order.
+    pub params: Vec<(String, f64)>,
+}
+
+impl ModelStatement {
+    /// The last value given for `key` (upper case).
+    pub fn get(&self, key: &str) -> Option<f64> {
+        self.params
+            .iter()
+            .rev()
+            .find(|(p, _)| p == key)
+            .map(|p| p.1)
+    }
+}
+
+/// Read a `.model` statement's name, type and parameters without judging them (the junction
+/// law is [`parse_model`]; the oscillator stage reads a transistor's other parameters here).
+pub fn parse_statement(text: &str) -> Result<ModelStatement, ModelError> {
     let line = logical_line(text);
     // Parentheses and '=' with spaces become plain separators.
     let spaced = line.replace(['(', ')', ','], " ").replace('=', " = ");
@@ -175,6 +199,20 @@ pub fn parse_model(text: &str) -> Result<JunctionModel, ModelError> {
             )));
         }
     }
+    Ok(ModelStatement {
+        name,
+        device,
+        params,
+    })
+}
+
+/// Parse a `.model` statement (one line, or several joined by `+` continuation lines).
+pub fn parse_model(text: &str) -> Result<JunctionModel, ModelError> {
+    let ModelStatement {
+        name,
+        device,
+        params,
+    } = parse_statement(text)?;
     let (cj_key, vj_key, m_key, vj_default, m_default) = match device {
         DeviceType::Diode => ("CJO", "VJ", "M", 1.0, 0.5),
         DeviceType::Npn | DeviceType::Pnp => ("CJC", "VJC", "MJC", 0.75, 0.33),

@@ -60,6 +60,7 @@ pub struct App {
     tank_panel: TankPanel,
     stray_panel: crate::ui::panels::stray::StrayPanel,
     audio_panel: crate::ui::panels::audio::AudioPanel,
+    stage_panel: crate::ui::panels::stage::StagePanel,
     target_panel: TargetPanel,
     bench_log: BenchLogPanel,
     files: FileDesk,
@@ -160,6 +161,7 @@ impl App {
             tank_panel: TankPanel::default(),
             stray_panel: Default::default(),
             audio_panel: Default::default(),
+            stage_panel: Default::default(),
             target_panel: TargetPanel::default(),
             bench_log: BenchLogPanel::default(),
             files,
@@ -478,6 +480,7 @@ impl App {
             tank_panel,
             stray_panel,
             audio_panel,
+            stage_panel,
             target_panel,
             bench_log,
             files,
@@ -591,6 +594,17 @@ impl App {
                                         modulation_charts(ui, sweeps);
                                     }
                                 });
+                        });
+                    egui::CollapsingHeader::new(crate::ui::panels::stage::SECTION)
+                        .default_open(false)
+                        .show(ui, |ui| {
+                            // The tank as the figures drive it, as `tankwright stage` takes it.
+                            let (tank, conditions) = evaluation
+                                .latest()
+                                .map_or((recipe.tank, recipe.conditions), |f| {
+                                    (f.tank, f.conditions)
+                                });
+                            stage_panel.show(ui, coil.as_ref(), &tank, &conditions);
                         });
                 });
             });

@@ -15,6 +15,7 @@ mod cli_new;
 mod cli_reading;
 mod cli_sheet;
 mod cli_spice;
+mod cli_stage;
 mod cli_verdict;
 mod common;
 mod fuzz;

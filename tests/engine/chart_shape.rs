@@ -159,6 +159,7 @@ fn the_hand_out_charts_draw_the_field_shape() {
             length,
             trimmer_setting: 0.5,
             added_capacitance: 0.0,
+            added_tolerance: None,
             instrument: "frequency counter".to_owned(),
             error_ppm: Some(2.0),
             note: String::new(),

@@ -19,6 +19,7 @@ mod reference_inductance;
 mod reference_junction;
 mod reference_loss;
 mod reference_proximity;
+mod reference_stage;
 mod reference_stray;
 mod reference_tank;
 mod reference_touchstone;

@@ -17,6 +17,7 @@ mod ui_layout;
 mod ui_new_recipe;
 mod ui_recipes;
 mod ui_small_things;
+mod ui_stage;
 mod ui_stray;
 mod ui_teaching;
 mod ui_trimmer_advice;

@@ -277,6 +277,7 @@ fn add_reading(app: &mut App, mhz: f64) {
         length: coil.length(),
         trimmer_setting: recipe.tank.trimmer_setting,
         added_capacitance: 0.0,
+        added_tolerance: None,
         instrument: String::new(),
         error_ppm: None,
         note: String::new(),

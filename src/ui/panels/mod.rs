@@ -7,6 +7,8 @@ pub mod channel_picker;
 pub mod model_dots;
 pub mod parts_on_hand;
 pub mod readouts;
+pub mod stage;
+pub mod stage_schematic;
 pub mod stray;
 pub mod tank;
 pub mod target;

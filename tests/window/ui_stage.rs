@@ -1,0 +1,151 @@
+//! The oscillator stage in the window (issue 25): the panel driven by label shows the
+//! engine's figures (`tuning::stage`, the function `tankwright stage` calls, on the tank the
+//! figures drive), follows an edit of the emitter resistor and of the topology, and reads a
+//! pasted transistor `.model` line or refuses it keeping the text. The figures themselves are
+//! checked against ngspice and a textbook hand calculation in tests/engine/reference_stage.rs.
+
+use crate::common::screen_text;
+use egui_kittest::Harness;
+use egui_kittest::kittest::Queryable;
+use tankwright::recipe::{Footing, figures_on};
+use tankwright::tuning::stage::{Bias, StageInputs, Topology, Transistor, stage};
+use tankwright::ui::App;
+use tankwright::ui::panels::stage::{
+    EMITTER_LABEL, MODEL_LABEL, SECTION, USE_FIGURES_BUTTON, USE_MODEL_BUTTON,
+};
+
+fn workbench() -> Harness<'static, App> {
+    let mut harness = Harness::builder()
+        .with_size(egui::vec2(1400.0, 3200.0))
+        .build_eframe(|cc| App::new(cc).with_field_solution(false));
+    harness.run();
+    harness.get_by_label(SECTION).click();
+    harness.run();
+    harness
+}
+
+fn line_starting(harness: &Harness<'_, App>, start: &str) -> String {
+    screen_text(harness)
+        .into_iter()
+        .find(|t| t.starts_with(start))
+        .unwrap_or_else(|| panic!("no line starting {start:?}"))
+}
+
+/// The engine's stage for the window's recipe (classical footing, as the window here runs)
+/// with the panel's demo bias and the emitter resistor `re`.
+fn engine(
+    harness: &Harness<'_, App>,
+    topology: Topology,
+    re: f64,
+) -> tankwright::tuning::stage::StageFigures {
+    let f = figures_on(harness.state().recipe(), Footing::Classical).expect("figures");
+    let inputs = StageInputs {
+        topology,
+        bias: Bias {
+            supply_v: 9.0,
+            upper: 10e3,
+            lower: 10e3,
+            emitter: re,
+        },
+        transistor: Transistor::from_figures(80.0, 2e-12, 0.8e-12, 800e6),
+        battery_charge: Some(500.0 * 3.6),
+    };
+    stage(&f.coil, &f.tank, &f.conditions, &inputs).expect("stage")
+}
+
+#[test]
+fn the_stage_shown_is_the_engines_and_follows_the_emitter_resistor() {
+    let mut harness = workbench();
+    let s = engine(&harness, Topology::CommonBase, 100e3);
+    let shown = line_starting(&harness, "Loop gain ");
+    assert!(
+        shown.starts_with(&format!(
+            "Loop gain {:.2}: {}",
+            s.loop_gain,
+            s.start.label()
+        )),
+        "{shown}"
+    );
+    let advice = line_starting(&harness, "Advice: ");
+    assert_eq!(advice, format!("Advice: {}", s.advice));
+    let runs = line_starting(&harness, "Runs at ");
+    assert!(
+        runs.contains(&format!("{:.3} MHz", s.frequency * 1e-6)),
+        "{runs}"
+    );
+
+    // A smaller emitter resistor: more current, a larger loop gain, as the engine has it.
+    harness
+        .get_by_label(EMITTER_LABEL)
+        .set_value_accesskit(4700.0);
+    harness.run();
+    let hard = engine(&harness, Topology::CommonBase, 4700.0);
+    assert!(hard.loop_gain > s.loop_gain);
+    let shown = line_starting(&harness, "Loop gain ");
+    assert!(
+        shown.starts_with(&format!("Loop gain {:.2}", hard.loop_gain)),
+        "{shown}"
+    );
+    let collector = line_starting(&harness, "Collector ");
+    assert!(
+        collector.starts_with(&format!(
+            "Collector {:.3} mA",
+            hard.operating_point.collector_current * 1e3
+        )),
+        "{collector}"
+    );
+
+    // The other topology.
+    harness
+        .get_by_label(Topology::CommonCollector.label())
+        .click();
+    harness.run();
+    let cc = engine(&harness, Topology::CommonCollector, 4700.0);
+    let shown = line_starting(&harness, "Loop gain ");
+    assert!(
+        shown.starts_with(&format!("Loop gain {:.2}", cc.loop_gain)),
+        "{shown}"
+    );
+}
+
+fn paste(harness: &mut Harness<'_, App>, text: &str) {
+    if harness.query_by_label(MODEL_LABEL).is_none() {
+        harness
+            .get_by_label("Paste a transistor's SPICE .model line")
+            .click();
+        harness.run();
+    }
+    harness
+        .get_by_label(MODEL_LABEL)
+        .set_text_value_accesskit(text);
+    harness.run();
+    harness.get_by_label(USE_MODEL_BUTTON).click();
+    harness.run();
+}
+
+#[test]
+fn a_pasted_model_is_read_or_refused_keeping_the_text() {
+    let mut harness = workbench();
+    paste(&mut harness, ".model BAD PNP(CJC=1p)");
+    let refused = line_starting(&harness, "Not read: ");
+    assert!(refused.contains("NPN"), "{refused}");
+    assert_eq!(
+        harness.get_by_label(MODEL_LABEL).value().as_deref(),
+        Some(".model BAD PNP(CJC=1p)"),
+        "the text is kept for correcting"
+    );
+    paste(
+        &mut harness,
+        ".model LHQ NPN(IS=2e-15 BF=90 CJC=0.8p TF=180p VAF=60)",
+    );
+    let read = line_starting(&harness, "Transistor from the model LHQ");
+    assert!(read.contains("Not used: VAF"), "{read}");
+    harness.get_by_label(USE_FIGURES_BUTTON).click();
+    harness.run();
+    assert!(
+        !screen_text(&harness)
+            .iter()
+            .any(|t| t.starts_with("Transistor from the model")),
+        "the figures are back"
+    );
+}
