@@ -85,17 +85,8 @@ fn request(args: &Args) -> Result<Request, ArgError> {
     let fixed = parse_fixed_list(fixed_text).map_err(|e| ArgError(format!("--fixed-pf: {e}")))?;
     let trimmers = list(args, "trimmers-pf", "2-10,4-20", parse_trimmer)?;
     let lead = args.number("lead-mm")?.unwrap_or(5.0) * MM;
-    let construction = match args.text("construction") {
-        None => Construction::CopperClad,
-        Some(k) => Construction::by_key(k).ok_or_else(|| {
-            let keys: Vec<&str> = Construction::ALL.iter().map(|c| c.key()).collect();
-            ArgError(format!(
-                "--construction '{}' is not one of {}",
-                super::clean(k),
-                keys.join(", ")
-            ))
-        })?,
-    };
+    let construction =
+        super::stray_flags::construction_flag(args)?.unwrap_or(Construction::CopperClad);
     let count = match args.integer("count")? {
         None => 5,
         Some(n) if (1..=COUNT_MAX as i32).contains(&n) => n as usize,

@@ -7,7 +7,6 @@
 use super::args::Args;
 use super::evaluate::EvaluateRequest;
 use crate::recipe::{Recipe, StraySettings, Target};
-use crate::tuning::construction::Construction;
 use std::path::Path;
 
 /// Usage line for `new`.
@@ -28,13 +27,9 @@ pub fn run_new(mut words: Vec<String>) -> Result<String, String> {
             super::clean(&file)
         ));
     }
-    let construction = match args.text("construction") {
-        None => StraySettings::default().construction,
-        Some(k) => Construction::by_key(k).ok_or_else(|| {
-            let keys: Vec<&str> = Construction::ALL.iter().map(|c| c.key()).collect();
-            format!("--construction '{k}' is not one of {}", keys.join(", "))
-        })?,
-    };
+    let construction = super::stray_flags::construction_flag(&args)
+        .map_err(|e| e.to_string())?
+        .unwrap_or(StraySettings::default().construction);
     let name = args.text("name").unwrap_or("New coil").to_owned();
     let notes = args.text("notes").unwrap_or_default().to_owned();
     let replace = args.switch("replace");

@@ -97,19 +97,27 @@ pub(crate) const TEMPERATURE_CHANGE_K: (f64, f64) = (-180.0, 180.0);
 /// covers a broadcast stereo multiplex with its data subcarrier (57 kHz, ITU-R BS.450).
 pub(crate) const AUDIO_MAX_KHZ: (f64, f64) = (0.001, 100.0);
 
+/// `--construction NAME` (`None` when not given), refused with the names it takes: the one
+/// reader for `evaluate`, `design` and `new`.
+pub(crate) fn construction_flag(args: &Args) -> Result<Option<Construction>, ArgError> {
+    args.text("construction")
+        .map(|k| {
+            Construction::by_key(k).ok_or_else(|| {
+                let keys: Vec<&str> = Construction::ALL.iter().map(|c| c.key()).collect();
+                ArgError(format!(
+                    "--construction '{}' is not one of {}",
+                    super::clean(k),
+                    keys.join(", ")
+                ))
+            })
+        })
+        .transpose()
+}
+
 impl Extras {
     /// Read the extra flags (all optional).
     pub(crate) fn from_args(args: &Args) -> Result<Self, ArgError> {
-        let construction = match args.text("construction") {
-            None => None,
-            Some(k) => Some(Construction::by_key(k).ok_or_else(|| {
-                let keys: Vec<&str> = Construction::ALL.iter().map(|c| c.key()).collect();
-                ArgError(format!(
-                    "--construction '{k}' is not one of {}",
-                    keys.join(", ")
-                ))
-            })?),
-        };
+        let construction = construction_flag(args)?;
         let fixed_tolerance = match args.number("capacitance-tolerance-pct")? {
             None => 0.05,
             Some(p) if (0.0..100.0).contains(&p) => p / 100.0,

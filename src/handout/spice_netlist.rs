@@ -18,7 +18,6 @@
 //! ωC_ext = 1/X (5e-5 at Q = 100). `.meas ac resonance WHEN vp(hot)=0` reads it between two of
 //! the sweep's points (linear interpolation over a 20 kHz step at 100 MHz).
 
-use crate::instruments::touchstone::ImpedanceSample;
 use crate::model::Coil;
 use crate::recipe::{Figures, Recipe};
 use crate::tuning::impedance::impedance_sweep;
@@ -185,14 +184,7 @@ fn fitted_coil(
         None,
     )
     .map_err(|e| format!("the field solution of the coil: {e}"))?;
-    let samples: Vec<ImpedanceSample> = sweep
-        .points
-        .iter()
-        .map(|p| ImpedanceSample {
-            frequency: p.frequency,
-            impedance: p.impedance,
-        })
-        .collect();
+    let samples = sweep.samples();
     let mut m = fit_measured_coil(&samples, Some(resonance))
         .map_err(|e| format!("the coil's network: {e}"))?;
     m.inductance *= scale;

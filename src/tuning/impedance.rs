@@ -54,6 +54,20 @@ pub fn most_points(coil: &Coil, temperature_c: f64) -> Result<usize, FieldError>
     Ok(crate::physics::field::budget::most_sweep_points(unknowns))
 }
 
+impl ImpedanceSweep {
+    /// The sweep's points as impedance samples, as a measured file gives them (for the same
+    /// reduction, [`crate::tuning::measured_coil::fit_measured_coil`]).
+    pub fn samples(&self) -> Vec<crate::instruments::touchstone::ImpedanceSample> {
+        self.points
+            .iter()
+            .map(|p| crate::instruments::touchstone::ImpedanceSample {
+                frequency: p.frequency,
+                impedance: p.impedance,
+            })
+            .collect()
+    }
+}
+
 /// Sweep `coil` at `temperature_c` over `from`…`to` hertz (defaults: 1 MHz to 1.25 × the
 /// self-resonance, or the solution's ceiling if lower) in `points` log-spaced frequencies
 /// (at most [`most_points`]: a larger count is cut to it, so the sweep's time stays bounded;

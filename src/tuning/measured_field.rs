@@ -12,7 +12,6 @@
 
 use super::impedance::impedance_sweep;
 use super::measured_coil::{MeasuredCoil, fit_measured_coil};
-use crate::instruments::touchstone::ImpedanceSample;
 use crate::model::{Coil, Conditions, Winding};
 
 /// Frequencies the field solution is sampled at for the comparison (cut to what the coil's
@@ -70,14 +69,7 @@ pub fn field_reduction(
         None,
     )
     .map_err(|e| format!("the field solution of the coil: {e}"))?;
-    let samples: Vec<ImpedanceSample> = sweep
-        .points
-        .iter()
-        .map(|p| ImpedanceSample {
-            frequency: p.frequency,
-            impedance: p.impedance,
-        })
-        .collect();
+    let samples = sweep.samples();
     let mut fitted =
         fit_measured_coil(&samples, Some(at)).map_err(|e| format!("field solution: {e}"))?;
     // The self-resonance is the solution's own, not the line's extrapolation.
