@@ -96,7 +96,7 @@ pub fn add_field_solution(v: &mut Value, classical: &Analysis, basis: &FieldBasi
         FieldBasis::Classical { why } => {
             v["inductance_nh"]["apparent"] = json!(classical.apparent_inductance * NH);
             v["self_resonance_mhz"]["field_solved"] = Value::Null;
-            v["field_solution_note"] = json!(why);
+            v["field_solution_note"] = json!(why.to_string());
         }
     }
 }

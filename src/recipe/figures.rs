@@ -25,7 +25,7 @@
 
 use super::document::Recipe;
 use crate::model::{Analysis, Coil, Conditions, InputError, Tank, evaluate, evaluate_coil};
-use crate::tuning::field_tank::{FieldBasis, FieldInput, field_tank};
+use crate::tuning::field_tank::{FieldBasis, FieldInput, Unled, field_tank};
 use crate::tuning::fit::{Fit, FitError, InverseSquareLine, fit_on_held, inverse_square_line};
 use crate::tuning::landing::FieldLed;
 use crate::tuning::measured_field::{MeasuredAgainstField, against_field, applies_to};
@@ -121,6 +121,18 @@ impl Figures {
         }
     }
 
+    /// The footing these figures stand on: classical when the field solution was switched
+    /// off for them, the field solution otherwise (also while it is pending or failed, when
+    /// the classical model stands in for it).
+    pub fn footing(&self) -> Footing {
+        match self.field {
+            FieldBasis::Classical {
+                why: Unled::SwitchedOff,
+            } => Footing::Classical,
+            _ => Footing::FieldSolution,
+        }
+    }
+
     /// How many readings the calibration rests on (0 when uncalibrated).
     pub fn readings_used(&self) -> usize {
         match &self.fit {
@@ -155,9 +167,6 @@ pub enum Footing {
     Classical,
 }
 
-/// Why the classical model leads on [`Footing::Classical`].
-pub const FIELD_SWITCHED_OFF: &str = "the field solution is switched off";
-
 impl Footing {
     /// The footing of the window's setting: on, the field solution.
     pub fn of_setting(field_solution: bool) -> Self {
@@ -174,9 +183,7 @@ impl Footing {
 pub fn figures_on(recipe: &Recipe, footing: Footing) -> Result<Figures, InputError> {
     match footing {
         Footing::FieldSolution => figures(recipe),
-        Footing::Classical => {
-            figures_with(recipe, FieldInput::Unsolved(FIELD_SWITCHED_OFF.to_owned()))
-        }
+        Footing::Classical => figures_with(recipe, FieldInput::Unsolved(Unled::SwitchedOff)),
     }
 }
 

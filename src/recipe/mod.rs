@@ -22,11 +22,11 @@ pub mod same;
 pub mod schema;
 pub mod store;
 
-pub use crate::tuning::field_tank::{FieldBasis, FieldInput};
+pub use crate::tuning::field_tank::{FieldBasis, FieldInput, Unled};
 pub use demos::demos;
 pub use document::{BenchEntry, Recipe, StraySettings, Target};
 pub use expectation::{Expectation, expectation};
-pub use figures::{FIELD_SWITCHED_OFF, Figures, Footing, figures, figures_on, figures_with};
+pub use figures::{Figures, Footing, figures, figures_on, figures_with};
 pub use format::Opened;
 pub use load::{LoadError, LoadErrorKind};
 pub use store::{SaveError, load, open, save};

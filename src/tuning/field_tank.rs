@@ -342,7 +342,35 @@ pub enum FieldInput {
     /// classical model on every step of a drag).
     Held(f64),
     /// No field solution: the classical model leads, for the reason given.
-    Unsolved(String),
+    Unsolved(Unled),
+}
+
+/// Why the classical model leads: one variant per reason, so a reader tells "being computed"
+/// from "switched off" by matching, never by comparing sentences.
+#[derive(Clone, Debug, PartialEq)]
+pub enum Unled {
+    /// The window's worker is solving the first coil (nothing to hold yet).
+    Pending,
+    /// The field solution is switched off (the View menu, or the classical footing).
+    SwitchedOff,
+    /// The inputs already carry the field solution's factor in their conditions (a derived
+    /// copy, such as the teaching bench's): nothing more to apply.
+    Carried,
+    /// The field solution declined or failed, or no factor in range meets it: why.
+    Failed(String),
+}
+
+impl std::fmt::Display for Unled {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        match self {
+            Unled::Pending => f.write_str("the field solution is being computed"),
+            Unled::SwitchedOff => f.write_str("the field solution is switched off"),
+            Unled::Carried => {
+                f.write_str("the recipe's factor on the inductance is carried in its conditions")
+            }
+            Unled::Failed(why) => f.write_str(why),
+        }
+    }
 }
 
 /// What the field solution did to the figures.
@@ -364,7 +392,7 @@ pub enum FieldBasis {
     /// The classical model as it stands.
     Classical {
         /// Why the field solution is not applied.
-        why: String,
+        why: Unled,
     },
 }
 
@@ -383,15 +411,17 @@ impl FieldBasis {
                 match matching_scale(coil, external_capacitance, conditions, tank.resonance) {
                     Some(scale) => FieldBasis::Solved { tank, scale },
                     None => FieldBasis::Classical {
-                        why: format!(
+                        why: Unled::Failed(format!(
                             "the field-solved resonance ({:.3} MHz) is further from the \
                              model's than an inductance factor of 0.5–2 explains",
                             tank.resonance * 1e-6
-                        ),
+                        )),
                     },
                 }
             }
-            FieldInput::Solved(Err(e)) => FieldBasis::Classical { why: e.to_string() },
+            FieldInput::Solved(Err(e)) => FieldBasis::Classical {
+                why: Unled::Failed(e.to_string()),
+            },
             FieldInput::Held(scale) => FieldBasis::Held { scale },
             FieldInput::Unsolved(why) => FieldBasis::Classical { why },
         }

@@ -17,8 +17,8 @@ use crate::model::InputError;
 use crate::physics::field::FieldError;
 use crate::recipe::same::same;
 use crate::recipe::{
-    BenchEntry, Expectation, FIELD_SWITCHED_OFF, FieldBasis, FieldInput, Figures, Recipe,
-    StraySettings, Target, expectation, figures_with,
+    BenchEntry, Expectation, FieldBasis, FieldInput, Figures, Footing, Recipe, StraySettings,
+    Target, Unled, expectation, figures_with,
 };
 use crate::tuning::BandPlan;
 use crate::tuning::field_tank::FieldTank;
@@ -38,20 +38,6 @@ struct Inputs {
     stray: StraySettings,
     field: FieldInput,
 }
-
-/// Where the window's field solution stands for the present recipe.
-#[derive(Clone, Copy, Debug)]
-pub enum FieldState<'a> {
-    /// Switched off: the classical model leads.
-    Off,
-    /// Asked for and not yet answered (or nothing to ask: the recipe is refused).
-    Pending,
-    /// The worker's answer for the present coil, tank capacitance and conditions.
-    Ready(&'a Result<FieldTank, FieldError>),
-}
-
-/// Why the classical model leads while the first field solution is computed.
-pub const FIELD_PENDING: &str = "the field solution is being computed";
 
 impl Inputs {
     fn of(recipe: &Recipe, field: FieldInput) -> Self {
@@ -205,18 +191,24 @@ impl Evaluation {
         self.shape.is_some()
     }
 
-    /// What the figures take from the field solution in `state`: the worker's answer when it
-    /// has one; while it is pending, the factor the figures shown already carry (held); the
-    /// classical model while there is none or it is switched off.
-    pub fn field_input(&self, state: FieldState<'_>) -> FieldInput {
-        match state {
-            FieldState::Off => FieldInput::Unsolved(FIELD_SWITCHED_OFF.to_owned()),
-            FieldState::Ready(answer) => FieldInput::Solved(answer.clone()),
-            FieldState::Pending => match self.latest().map(|f| &f.field) {
+    /// What the figures take from the field solution on `footing`, given the worker's
+    /// `answer` for the present coil (`None` while it is being computed, or when there is
+    /// nothing to ask: the recipe is refused): the answer when there is one; while it is
+    /// pending, the factor the figures shown already carry (held); the classical model while
+    /// there is none or the footing is classical.
+    pub fn field_input(
+        &self,
+        footing: Footing,
+        answer: Option<&Result<FieldTank, FieldError>>,
+    ) -> FieldInput {
+        match (footing, answer) {
+            (Footing::Classical, _) => FieldInput::Unsolved(Unled::SwitchedOff),
+            (Footing::FieldSolution, Some(answer)) => FieldInput::Solved(answer.clone()),
+            (Footing::FieldSolution, None) => match self.latest().map(|f| &f.field) {
                 Some(FieldBasis::Solved { scale, .. } | FieldBasis::Held { scale }) => {
                     FieldInput::Held(*scale)
                 }
-                _ => FieldInput::Unsolved(FIELD_PENDING.to_owned()),
+                _ => FieldInput::Unsolved(Unled::Pending),
             },
         }
     }

@@ -31,6 +31,13 @@ impl Default for Preferences {
     }
 }
 
+impl Preferences {
+    /// What the figures stand on under this setting (the one place the window keeps it).
+    pub fn footing(&self) -> crate::recipe::Footing {
+        crate::recipe::Footing::of_setting(self.field_solution)
+    }
+}
+
 /// `LengthUnit` lives in `units.rs` without serde; stored here as a short name.
 mod unit_serde {
     use crate::ui::units::LengthUnit;

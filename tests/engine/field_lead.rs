@@ -12,7 +12,9 @@
 use approx::assert_relative_eq;
 use tankwright::model::evaluate::resonance_of;
 use tankwright::model::{Coil, Conditions, InductanceModel, evaluate};
-use tankwright::recipe::{BenchEntry, FieldBasis, FieldInput, Recipe, figures, figures_with};
+use tankwright::recipe::{
+    BenchEntry, FieldBasis, FieldInput, Recipe, Unled, figures, figures_with,
+};
 use tankwright::tuning::field_tank::{field_tank, field_tank_scaled, matching_scale};
 use tankwright::tuning::fit::{Reading, predicted_for};
 
@@ -63,14 +65,14 @@ fn the_field_solved_resonance_drives_the_verdict_offset_and_advice() {
 #[test]
 fn without_a_field_solution_the_classical_model_is_the_figures() {
     let r = Recipe::demo();
-    let f = figures_with(&r, FieldInput::Unsolved("not asked".to_owned())).expect("valid");
+    let f = figures_with(&r, FieldInput::Unsolved(Unled::SwitchedOff)).expect("valid");
     let classical = evaluate(&r.winding, &r.tank, &r.conditions).expect("valid");
     assert_eq!(f.analysis, classical);
     assert_eq!(f.conditions, r.conditions);
     assert_eq!(
         f.field,
         FieldBasis::Classical {
-            why: "not asked".to_owned()
+            why: Unled::SwitchedOff
         }
     );
 }

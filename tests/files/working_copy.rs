@@ -284,7 +284,10 @@ fn the_working_copy_of_an_earlier_version_is_taken_over() {
         path: Some("/home/club/coil.ron".into()),
     };
     values.insert("tankwright.working_copy", ron::to_string(&earlier).unwrap());
-    values.insert("tankwright.view", "(unit: \"in\", theme: Light)".to_owned());
+    values.insert(
+        tankwright::ui::preferences::PREFERENCES_KEY,
+        "(unit: \"in\", theme: Light)".to_owned(),
+    );
     std::fs::write(dir.path().join("app.ron"), ron::to_string(&values).unwrap()).unwrap();
 
     let back = restore(dir.path());

@@ -129,7 +129,7 @@ pub fn confirm(
     )?;
     let q = evaluate_coil(&coil, tank.external_capacitance(), &conditions).q;
     let classical_because = match &basis {
-        FieldBasis::Classical { why } => Some(why.clone()),
+        FieldBasis::Classical { why } => Some(why.to_string()),
         _ => None,
     };
     Ok(Confirmed {

@@ -47,7 +47,8 @@ pub(super) enum Intent {
 pub(super) enum Purpose {
     Open,
     SaveAs,
-    Export(super::export::Export),
+    /// Write an export, its figures on the footing of the screen when it was asked for.
+    Export(super::export::Export, crate::recipe::Footing),
 }
 
 /// The fallback path field, shown when no system dialog can be.
@@ -76,9 +77,6 @@ pub struct FileDesk {
     pub(super) prompt: Option<PathPrompt>,
     pub(super) asker: Box<dyn PathAsker>,
     pub(super) close_confirmed: bool,
-    /// What exported figures stand on: the window's field-solution setting, so a printed
-    /// sheet matches the screen (set by the app each frame).
-    pub footing: crate::recipe::Footing,
 }
 
 impl FileDesk {
@@ -93,7 +91,6 @@ impl FileDesk {
             prompt: None,
             asker: Box::new(SystemAsker::default()),
             close_confirmed: false,
-            footing: crate::recipe::Footing::default(),
         }
     }
 

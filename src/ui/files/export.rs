@@ -94,20 +94,22 @@ impl Export {
 
 impl FileDesk {
     /// The contents of the "Export" menu. Call inside `ui.menu_button("Export", ..)`.
-    pub fn export_menu_ui(&mut self, ui: &mut egui::Ui, doc: &Recipe) {
+    /// The figures stand on `footing`, the window's.
+    pub fn export_menu_ui(&mut self, ui: &mut egui::Ui, doc: &Recipe, footing: Footing) {
         for (i, export) in Export::ALL.into_iter().enumerate() {
             if i == 1 {
                 ui.separator();
             }
             if ui.button(export.menu_label()).clicked() {
                 ui.close();
-                self.export(export, doc);
+                self.export(export, doc, footing);
             }
         }
     }
 
-    /// Ask where to write `export` for `doc`, then write it; the outcome is in the notice.
-    pub fn export(&mut self, export: Export, doc: &Recipe) {
+    /// Ask where to write `export` for `doc`, its figures on `footing`, then write it; the
+    /// outcome is in the notice.
+    pub fn export(&mut self, export: Export, doc: &Recipe, footing: Footing) {
         let folder = self.memory.folder.clone();
         if let Err(e) = std::fs::create_dir_all(&folder) {
             self.warn(format!(
@@ -121,12 +123,12 @@ impl FileDesk {
             .export(&folder, &suggested, &export.what(), export.extension())
         {
             Picked::Path(p) => {
-                self.write_export(export, doc, &export.with_extension(p));
+                self.write_export(export, doc, &export.with_extension(p), footing);
             }
             Picked::Cancelled => {}
             Picked::Unavailable(reason) => {
                 self.prompt = Some(PathPrompt {
-                    purpose: Purpose::Export(export),
+                    purpose: Purpose::Export(export, footing),
                     text: folder.join(suggested).display().to_string(),
                     reason,
                     then: None,
@@ -136,9 +138,16 @@ impl FileDesk {
         }
     }
 
-    /// Write `export` for `doc` to `path` and say how it went; true when written.
-    pub(super) fn write_export(&mut self, export: Export, doc: &Recipe, path: &Path) -> bool {
-        match export.write(doc, path, self.footing) {
+    /// Write `export` for `doc` to `path`, its figures on `footing`, and say how it went;
+    /// true when written.
+    pub(super) fn write_export(
+        &mut self,
+        export: Export,
+        doc: &Recipe,
+        path: &Path,
+        footing: Footing,
+    ) -> bool {
+        match export.write(doc, path, footing) {
             Ok(()) => {
                 self.tell(format!("exported {} to {}", export.what(), path.display()));
                 true

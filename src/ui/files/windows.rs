@@ -123,7 +123,7 @@ impl FileDesk {
         let (title, verb) = match prompt.purpose {
             Purpose::Open => ("Open a recipe".to_owned(), "Open"),
             Purpose::SaveAs => ("Save the recipe".to_owned(), "Save"),
-            Purpose::Export(e) => (format!("Export {}", e.what()), "Write the file"),
+            Purpose::Export(e, _) => (format!("Export {}", e.what()), "Write the file"),
         };
         let error = self
             .notice
@@ -167,7 +167,7 @@ impl FileDesk {
             ui.add_space(6.0);
             if let Some(existing) = &prompt.replace {
                 let with = match prompt.purpose {
-                    Purpose::Export(_) => "this export",
+                    Purpose::Export(..) => "this export",
                     Purpose::Open | Purpose::SaveAs => "this recipe",
                 };
                 ui.label(format!(
@@ -200,7 +200,7 @@ impl FileDesk {
         }
         // Typing after the question was asked withdraws it.
         let typed_path = |text: &str| match prompt.purpose {
-            Purpose::Export(e) => e.with_extension(PathBuf::from(text.trim())),
+            Purpose::Export(e, _) => e.with_extension(PathBuf::from(text.trim())),
             Purpose::Open | Purpose::SaveAs => with_ron_extension(PathBuf::from(text.trim())),
         };
         if prompt
@@ -256,14 +256,14 @@ impl FileDesk {
                     None
                 }
             }
-            Purpose::Export(export) => {
+            Purpose::Export(export, footing) => {
                 let path = export.with_extension(path);
                 if !replace && std::fs::symlink_metadata(&path).is_ok() {
                     prompt.replace = Some(path);
                     self.prompt = Some(prompt);
                     return None;
                 }
-                if self.write_export(export, doc, &path) {
+                if self.write_export(export, doc, &path, footing) {
                     if let Some(dir) = path.parent().filter(|d| !d.as_os_str().is_empty()) {
                         self.memory.folder = dir.to_path_buf();
                     }

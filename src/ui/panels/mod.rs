@@ -21,7 +21,7 @@ use crate::ui::units::LengthUnit;
 use crate::ui::widgets::Quantity;
 
 /// Something the user asked for, carried out at the end of the frame.
-#[derive(Clone, Copy, Debug, PartialEq)]
+#[derive(Clone, Debug, PartialEq)]
 #[must_use]
 pub enum Command {
     /// Go back one step.
@@ -42,6 +42,12 @@ pub enum Command {
     SetUnit(LengthUnit),
     /// Let the field solution lead the resonance (true) or the classical model (false).
     SetFieldSolution(bool),
+    /// Append a bench reading to the log.
+    RecordReading(crate::recipe::BenchEntry),
+    /// Replace the bench reading at this index.
+    ReplaceReading(usize, crate::recipe::BenchEntry),
+    /// Remove the bench reading at this index.
+    RemoveReading(usize),
 }
 
 /// A length control in the user's unit: `range_mm` and `step_mm` are in millimetres and

@@ -3,14 +3,13 @@
 
 use super::{heading, model_dots};
 use crate::model::{InputError, WarningTopic};
-use crate::recipe::FIELD_SWITCHED_OFF;
-use crate::recipe::{FieldBasis, Figures};
+use crate::recipe::{FieldBasis, Figures, Unled};
 use crate::tuning::apparent::apparent_inductance;
 use crate::tuning::digits;
 use crate::tuning::field_tank::{
     APPARENT_RISE_BIAS, HELICAL_SELF_RESONANCE_BIAS, LUMPED_SELF_RESONANCE_BIAS,
 };
-use crate::ui::evaluation::{Evaluation, FIELD_PENDING};
+use crate::ui::evaluation::Evaluation;
 use crate::ui::theme;
 use crate::ui::units::{LengthUnit, nh, pf};
 use crate::ui::widgets::{Readout, caution_mark, cautions_line};
@@ -187,12 +186,12 @@ fn figures_rows(ui: &mut egui::Ui, figures: &Figures, unit: LengthUnit) {
                 ),
             ),
             FieldBasis::Held { .. } => (BEING_COMPUTED.to_owned(), String::new()),
-            FieldBasis::Classical { why } if why == FIELD_PENDING => {
-                (BEING_COMPUTED.to_owned(), String::new())
-            }
-            FieldBasis::Classical { why } if why == FIELD_SWITCHED_OFF => {
-                (SWITCHED_OFF.to_owned(), format!("{why}."))
-            }
+            FieldBasis::Classical {
+                why: Unled::Pending,
+            } => (BEING_COMPUTED.to_owned(), String::new()),
+            FieldBasis::Classical {
+                why: why @ Unled::SwitchedOff,
+            } => (SWITCHED_OFF.to_owned(), format!("{why}.")),
             FieldBasis::Classical { why } => ("not available".to_owned(), format!("Why: {why}.")),
         };
         Readout::new(
@@ -312,8 +311,12 @@ fn figures_rows(ui: &mut egui::Ui, figures: &Figures, unit: LengthUnit) {
         match &figures.field {
             FieldBasis::Solved { tank, .. } => digits::self_resonance(tank.self_resonance),
             FieldBasis::Held { .. } => BEING_COMPUTED.to_owned(),
-            FieldBasis::Classical { why } if why == FIELD_PENDING => BEING_COMPUTED.to_owned(),
-            FieldBasis::Classical { why } if why == FIELD_SWITCHED_OFF => SWITCHED_OFF.to_owned(),
+            FieldBasis::Classical {
+                why: Unled::Pending,
+            } => BEING_COMPUTED.to_owned(),
+            FieldBasis::Classical {
+                why: Unled::SwitchedOff,
+            } => SWITCHED_OFF.to_owned(),
             FieldBasis::Classical { .. } => "not available".to_owned(),
         },
         "First parallel self-resonance at the terminals from the field solution (the wire, its \

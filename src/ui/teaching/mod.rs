@@ -23,10 +23,8 @@ pub mod reference;
 pub mod sweep;
 
 use crate::model::Coil;
-use crate::recipe::{FieldInput, Figures, Recipe};
+use crate::recipe::{FieldInput, Figures, Footing, Recipe, Unled};
 
-/// Why the derived copy applies no field solution of its own.
-const CARRIED: &str = "the recipe's factor on the inductance is carried in its conditions";
 use crate::ui::charts::ChartOverlay;
 use crate::ui::evaluation::Evaluation;
 use crate::ui::panels::bench::Extras;
@@ -64,9 +62,6 @@ pub struct Teaching {
     display: Option<Evaluation>,
     /// The last step or drag asked for a ghost whatever the time since the last change.
     discrete: bool,
-    /// The window's field-solution setting is off: a pinned reference is then evaluated on the
-    /// classical model too, so its differences compare like with like.
-    field_off: bool,
 }
 
 impl Teaching {
@@ -133,21 +128,21 @@ impl Teaching {
 
     /// Pin `recipe` as the reference, named `name`; refused (with the reason) when the engine
     /// refuses it.
-    pub fn pin(&mut self, name: String, recipe: Recipe) -> Result<(), String> {
-        let pinned = Reference::new(name, recipe, !self.field_off)?;
+    /// Its figures stand on `footing`, the window's (see [`Figures::footing`]), so its
+    /// differences compare like with like.
+    pub fn pin(&mut self, name: String, recipe: Recipe, footing: Footing) -> Result<(), String> {
+        let pinned = Reference::new(name, recipe, footing)?;
         self.reference = Some(pinned);
         Ok(())
     }
 
-    /// Follow the window's field-solution setting; a pinned reference is evaluated again on
-    /// the new footing.
-    pub fn set_field_solution(&mut self, on: bool) {
-        if self.field_off != on {
+    /// Follow the window's footing: a pinned reference on another is evaluated again on it.
+    pub fn follow_footing(&mut self, footing: Footing) {
+        if self.reference.as_ref().is_none_or(|r| r.footing == footing) {
             return;
         }
-        self.field_off = !on;
         if let Some(r) = self.reference.take() {
-            self.reference = Reference::new(r.name.clone(), r.recipe.clone(), on)
+            self.reference = Reference::new(r.name.clone(), r.recipe.clone(), footing)
                 .ok()
                 .or(Some(r));
         }
@@ -172,6 +167,7 @@ impl Teaching {
             self.display = None;
             return;
         };
+        self.follow_footing(base_figures.footing());
         let coil = base_figures.coil;
         // An edit of the recipe's length while paused: show the recipe's length again.
         if self.recipe_length != Some(coil.length()) {
@@ -200,7 +196,7 @@ impl Teaching {
         let derived = derive(recipe, base, self.length, self.hand.added());
         // The derived copy carries the recipe's driving conditions, with the field solution's
         // factor on the inductance already in them: nothing more to apply.
-        let field = || FieldInput::Unsolved(CARRIED.to_owned());
+        let field = || FieldInput::Unsolved(Unled::Carried);
         let changed = match &mut self.display {
             Some(display) => display.refresh(&derived, field()),
             None => {

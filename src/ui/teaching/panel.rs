@@ -5,7 +5,7 @@
 use super::captions::{self, Moment, Topic};
 use super::sweep::{self, STEP_COARSE, STEP_FINE};
 use super::{HAND_BUTTON_LABEL, HAND_RANGE, Teaching};
-use crate::recipe::{Figures, Recipe};
+use crate::recipe::{Figures, Footing, Recipe};
 use crate::tuning::digits;
 use crate::ui::evaluation::Evaluation;
 use crate::ui::files::ReferencePick;
@@ -213,7 +213,15 @@ pub(super) fn show(
     ui.add_space(6.0);
 
     // Against the reference: what is demonstrated (the shown length), not only the recipe.
-    reference_ui(teaching, ui, recipe, &shown, unit, files);
+    reference_ui(
+        teaching,
+        ui,
+        recipe,
+        &shown,
+        unit,
+        files,
+        base_figures.footing(),
+    );
     keep
 }
 
@@ -301,6 +309,7 @@ fn reference_ui(
     present: &Figures,
     unit: LengthUnit,
     files: &mut FileDesk,
+    footing: Footing,
 ) {
     ui.strong("Reference build");
     if !teaching.presentation {
@@ -311,17 +320,17 @@ fn reference_ui(
                 } else {
                     recipe.name.trim().to_owned()
                 };
-                let outcome = teaching.pin(name, recipe.clone());
+                let outcome = teaching.pin(name, recipe.clone(), footing);
                 teaching.pin.message = outcome.err().map(|e| (e, true));
             }
             if ui.button(PIN_FILE_LABEL).clicked() {
                 let pick = files.ask_reference();
-                pin_picked(teaching, pick, files);
+                pin_picked(teaching, pick, files, footing);
             }
             ui.menu_button("Pin a demo recipe", |ui| {
                 for (file, demo) in crate::recipe::demos() {
                     if ui.button(demo.name.clone()).clicked() {
-                        let outcome = teaching.pin(file.to_owned(), demo);
+                        let outcome = teaching.pin(file.to_owned(), demo, footing);
                         teaching.pin.message = outcome.err().map(|e| (e, true));
                         ui.close();
                     }
@@ -352,7 +361,7 @@ fn reference_ui(
             }
         }
         if let Some(pick) = typed_pick {
-            pin_picked(teaching, pick, files);
+            pin_picked(teaching, pick, files, footing);
         }
         if let Some((text, is_error)) = &teaching.pin.message {
             let mut rich = RichText::new(text);
@@ -407,9 +416,9 @@ fn reference_ui(
 }
 
 /// Pin what the file dialog (or the typed path) gave.
-fn pin_picked(teaching: &mut Teaching, pick: ReferencePick, files: &FileDesk) {
+fn pin_picked(teaching: &mut Teaching, pick: ReferencePick, files: &FileDesk, footing: Footing) {
     match pick {
-        ReferencePick::Read(name, recipe) => match teaching.pin(name.clone(), *recipe) {
+        ReferencePick::Read(name, recipe) => match teaching.pin(name.clone(), *recipe, footing) {
             Ok(()) => {
                 teaching.pin.typed = None;
                 teaching.pin.message = Some((format!("pinned {name}"), false));

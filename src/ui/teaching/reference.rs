@@ -24,6 +24,8 @@ pub struct Reference {
     pub figures: Figures,
     /// Resonance against length at its own trimmer setting: (metres, hertz).
     pub curve: Vec<[f64; 2]>,
+    /// What its figures stand on (the window's at the time).
+    pub footing: Footing,
 }
 
 /// Legend name of a reference called `name`.
@@ -32,11 +34,11 @@ pub fn legend_name(name: &str) -> String {
 }
 
 impl Reference {
-    /// Pin `recipe` as `name`, with its field solution solved here when `field_solution` is
-    /// on (the window's setting; off: the classical model); refused, with the engine's reason,
+    /// Pin `recipe` as `name`, its figures on `footing` (the window's: with its field
+    /// solution solved here, or the classical model alone); refused, with the engine's reason,
     /// if its coil or tank is.
-    pub fn new(name: String, recipe: Recipe, field_solution: bool) -> Result<Self, String> {
-        let figures = figures_on(&recipe, Footing::of_setting(field_solution))
+    pub fn new(name: String, recipe: Recipe, footing: Footing) -> Result<Self, String> {
+        let figures = figures_on(&recipe, footing)
             .map_err(|e| format!("the reference cannot be evaluated: {e}"))?;
         let coil = figures.coil;
         let curve = spacing_sweep(
@@ -56,6 +58,7 @@ impl Reference {
             recipe,
             figures,
             curve,
+            footing,
         })
     }
 
@@ -223,7 +226,8 @@ mod tests {
     #[test]
     fn a_recipe_against_itself_differs_in_nothing() {
         let recipe = Recipe::demo();
-        let pinned = Reference::new("demo".into(), recipe.clone(), true).expect("valid");
+        let pinned =
+            Reference::new("demo".into(), recipe.clone(), Footing::FieldSolution).expect("valid");
         let rows = pinned.differences(&recipe, &pinned.figures, LengthUnit::Millimetres);
         assert!(rows.iter().all(|r| r.change == "same"), "{rows:?}");
         let mut longer = recipe.clone();
@@ -240,20 +244,24 @@ mod tests {
     #[test]
     fn a_reference_is_evaluated_on_the_windows_footing() {
         let recipe = Recipe::demo();
-        let solved = Reference::new("demo".into(), recipe.clone(), true).expect("valid");
+        let solved =
+            Reference::new("demo".into(), recipe.clone(), Footing::FieldSolution).expect("valid");
         assert_eq!(solved.figures, figures(&recipe).expect("valid"));
-        let classical = Reference::new("demo".into(), recipe.clone(), false).expect("valid");
+        let classical =
+            Reference::new("demo".into(), recipe.clone(), Footing::Classical).expect("valid");
         let model = crate::model::evaluate(&recipe.winding, &recipe.tank, &recipe.conditions)
             .expect("valid");
         assert_eq!(classical.figures.analysis, model);
         // Switching the setting evaluates a pinned reference again.
         let mut bench = crate::ui::teaching::Teaching::default();
-        bench.pin("demo".into(), recipe).expect("valid");
+        bench
+            .pin("demo".into(), recipe, Footing::FieldSolution)
+            .expect("valid");
         assert_eq!(
             bench.reference().map(|r| r.figures.analysis.resonance),
             Some(solved.figures.analysis.resonance)
         );
-        bench.set_field_solution(false);
+        bench.follow_footing(Footing::Classical);
         assert_eq!(
             bench.reference().map(|r| r.figures.analysis.resonance),
             Some(model.resonance)

@@ -1,0 +1,65 @@
+//! The figures on screen: the field worker asked for the present coil, its answer taken, the
+//! evaluation brought up to the recipe, and the charts' field shape.
+
+use super::App;
+use crate::recipe::{Footing, Recipe};
+use crate::ui::field_worker::FieldRequest;
+use eframe::egui;
+
+impl App {
+    /// Hand the present coil to the field worker (a no-op when it has not changed; nothing
+    /// while the field solution is switched off or the recipe is refused), take its answer if
+    /// one has come, and bring the figures up to the recipe and the answer; true if they
+    /// changed.
+    pub(super) fn refresh_figures(&mut self, ctx: &egui::Context) -> bool {
+        // The junction counted in the tank (the audio panel's switch) is in every figure,
+        // put there by the same function as `evaluate --junction-…`; never in the recipe.
+        let with_junction = self.audio_panel.junction_in_tank().map(|(m, bias)| Recipe {
+            tank: crate::tuning::modulation::tank_with_junction(&self.recipe.tank, &m, bias),
+            ..self.recipe.clone()
+        });
+        let recipe = with_junction.as_ref().unwrap_or(&self.recipe);
+        let footing = self.preferences.footing();
+        let request = (footing == Footing::FieldSolution)
+            .then(|| field_request(recipe))
+            .flatten();
+        self.field.ask(request, ctx);
+        self.field.poll();
+        let answer = self.field.ready().map(|a| &a.tank);
+        let input = self.evaluation.field_input(footing, answer);
+        let changed = self.evaluation.refresh(recipe, input);
+        // Then the charts' field shape for the figures now shown.
+        self.shape.ask(self.evaluation.shape_request(), ctx);
+        self.shape.poll();
+        self.evaluation.set_shape(self.shape.ready()) || changed
+    }
+
+    /// Whether the charts draw the field shape (for tests and captures).
+    pub fn charts_field_shaped(&self) -> bool {
+        self.evaluation.field_shaped()
+    }
+
+    /// The charts' sweeps as drawn (for tests and captures): the present figures' curves.
+    pub fn chart_sweeps(&self) -> &crate::ui::charts::ChartCache {
+        self.evaluation.sweeps()
+    }
+
+    /// The field solution of the present coil, once the worker has it.
+    pub fn field_solution(&self) -> Option<&crate::ui::field_worker::FieldResult> {
+        self.field.ready()
+    }
+}
+
+/// What the field worker is asked to solve for `recipe` (`None` when its coil or tank is
+/// refused): the coil, everything across it but its own capacitance, and the temperature (the
+/// only condition the field solution uses, so choosing another driving model asks for
+/// nothing new; the field solution knows nothing of the bench readings either).
+fn field_request(recipe: &Recipe) -> Option<FieldRequest> {
+    let coil = crate::model::Coil::from_winding(&recipe.winding).ok()?;
+    recipe.tank.validate().ok()?;
+    Some(FieldRequest {
+        coil,
+        external_capacitance: recipe.tank.external_capacitance(),
+        conditions: crate::tuning::field_tank::field_conditions(&recipe.conditions),
+    })
+}
