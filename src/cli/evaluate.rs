@@ -4,8 +4,8 @@ use super::args::{ArgError, Args};
 use crate::model::{
     Coating, Conditions, DiameterSpec, Gauge, InductanceModel, SpacingSpec, Tank, Winding, WireSpec,
 };
-use crate::tuning::field_tank::{FieldBasis, FieldInput};
-use crate::tuning::verdict::{Aim, judge};
+use crate::recipe::{Recipe, StraySettings, Target};
+use crate::tuning::verdict::Aim;
 
 /// A coil, tank and conditions read from the command line.
 #[derive(Clone, Debug, PartialEq)]
@@ -71,6 +71,27 @@ fn model_named(name: &str) -> Result<InductanceModel, ArgError> {
 }
 
 impl EvaluateRequest {
+    /// The recipe these flags describe: no readings, the usual stray settings, aimed at the
+    /// target when one was given (without one the channel is 0 Hz, which nothing but the
+    /// aim reads: [`crate::recipe::modelled`] does not).
+    pub fn recipe(&self) -> Recipe {
+        Recipe {
+            name: "From the command line".to_owned(),
+            notes: String::new(),
+            winding: self.winding,
+            tank: self.tank,
+            conditions: self.conditions,
+            target: Target {
+                plan: self.aim.plan.clone(),
+                channel: self.aim.target.unwrap_or(0.0),
+                tolerance: Some(self.aim.tolerance),
+            },
+            bench_log: Vec::new(),
+            stray_estimate: StraySettings::default(),
+            coil_measurement: None,
+        }
+    }
+
     /// Read the request from parsed flags.
     pub fn from_args(args: &Args) -> Result<Self, ArgError> {
         let diameter = one_of(
@@ -220,71 +241,50 @@ fn aim_from_args(args: &Args) -> Result<Aim, ArgError> {
 }
 
 /// Run `evaluate` on the words after the subcommand; Ok(stdout) or Err(one-line message).
+///
+/// One pipeline with the window, `report`, `solve` and the sheet: the recipe (from the file,
+/// or built from the flags) is modelled by [`crate::recipe::modelled`] (the field solution
+/// leading, the bench readings calibrating) and aimed by [`crate::recipe::aimed`].
 pub fn run_evaluate(words: Vec<String>) -> Result<String, String> {
     let args = Args::parse(words, &["json", "as-written"]).map_err(|e| e.to_string())?;
     // The stray, junction and drift flags are read first, so the coil's reader sees them used.
     let extras = super::stray_flags::Extras::from_args(&args).map_err(|e| e.to_string())?;
-    let req = match args.text("recipe") {
-        Some(file) => super::recipe_args::request_from_recipe(&args, file)?,
-        None => EvaluateRequest::from_args(&args).map_err(|e| e.to_string())?,
-    };
-    // With a junction given, the tank's resonance includes its capacitance at the bias.
-    let tank = extras.tank_with_junction(&req.bench.as_ref().map_or(req.tank, |b| b.tank));
-    let classical = crate::model::evaluate(&req.winding, &tank, &req.conditions)
-        .map_err(|e| format!("invalid input: {e}"))?;
-    // The field-solved tank (a few milliseconds; see tuning::field_tank) moves the model onto
-    // itself: every figure below, the verdict's offset too, is the field-solved tank's.
-    let field = crate::tuning::field_tank::field_tank(
-        &classical.coil,
-        classical.external_capacitance,
-        &req.conditions,
-    );
-    let basis = FieldBasis::of(
-        &classical.coil,
-        classical.external_capacitance,
-        &req.conditions,
-        FieldInput::Solved(field),
-    );
-    let field_led_conditions = req.conditions;
-    let conditions = match &req.bench {
-        Some(b) => b.conditions,
-        None => basis.conditions(&req.conditions),
-    };
-    let req = EvaluateRequest { conditions, ..req };
-    let analysis = crate::model::evaluate(&req.winding, &tank, &req.conditions)
-        .map_err(|e| format!("invalid input: {e}"))?;
-    let more = super::stray_flags::ExtraFigures::compute(&extras, &req, &analysis)?;
-    let mut verdict = judge(&analysis.coil, &tank, &req.conditions, &req.aim);
-    // The channel's next step is the one instruction that lands it, finished on field solves
-    // of the proposed coil as `recipe::figures` does for the window, `report` and `solve`
-    // (`tuning::landing`; the classical model only where the field solution does not lead).
-    let led = match &req.bench {
-        Some(b) => b.led,
+    let json = args.switch("json");
+    let (recipe, aim) = match args.text("recipe") {
+        Some(file) => super::recipe_args::recipe_from_file(&args, file)?,
         None => {
-            matches!(basis, FieldBasis::Solved { .. }).then_some(crate::tuning::landing::FieldLed {
-                conditions: field_led_conditions,
-                scale: 1.0,
-            })
+            let req = EvaluateRequest::from_args(&args).map_err(|e| e.to_string())?;
+            (req.recipe(), req.aim)
         }
     };
-    if let Some(target) = req.aim.target {
-        verdict = verdict.with_advice(crate::tuning::advice::advise_on(
-            &analysis.coil,
-            &tank,
-            &req.conditions,
-            target,
-            req.aim.tolerance,
-            led.as_ref(),
-        ));
-    }
-    Ok(if req.json {
-        let mut object = super::json::analysis_json(&analysis);
-        super::verdict::add_verdict_json(&mut object, &verdict, &analysis);
-        super::json::add_field_solution(&mut object, &classical, &basis);
-        if let (Some(b), serde_json::Value::Object(map)) = (&req.bench, &mut object) {
+    // With a junction given, it is across the tank in every figure (as the window's switch
+    // puts it), the bench calibration included.
+    let with_junction = Recipe {
+        tank: extras.tank_with_junction(&recipe.tank),
+        ..recipe.clone()
+    };
+    let m = crate::recipe::modelled(&with_junction).map_err(|e| format!("invalid input: {e}"))?;
+    let (_, verdict) = crate::recipe::aimed(&m, &aim);
+    // The stray and drift figures take the tank as written (they add the junction
+    // themselves) under the conditions that drive the figures.
+    let req = EvaluateRequest {
+        winding: recipe.winding,
+        tank: recipe.tank,
+        conditions: m.conditions,
+        json,
+        aim,
+        bench: None,
+    };
+    let more = super::stray_flags::ExtraFigures::compute(&extras, &req, &m.analysis)?;
+    let calibrated = m.calibrated();
+    Ok(if json {
+        let mut object = super::json::analysis_json(&m.analysis);
+        super::verdict::add_verdict_json(&mut object, &verdict, &m.analysis);
+        super::json::add_field_solution(&mut object, &m.classical, &m.field);
+        if let (true, serde_json::Value::Object(map)) = (calibrated, &mut object) {
             map.insert(
                 "calibrated_on_readings".to_owned(),
-                serde_json::Value::from(b.readings),
+                serde_json::Value::from(m.readings_used()),
             );
         }
         more.add_json(&mut object);
@@ -294,11 +294,11 @@ pub fn run_evaluate(words: Vec<String>) -> Result<String, String> {
     } else {
         let mut s = super::verdict::verdict_lines(&verdict).join("\n");
         s.push_str("\n\n");
-        s.push_str(&super::text::analysis_report(&analysis));
+        s.push_str(&super::text::analysis_report(&m.analysis));
         s.push_str(&super::text::field_report(
-            &classical,
-            &basis,
-            req.bench.is_some(),
+            &m.classical,
+            &m.field,
+            calibrated,
         ));
         s.push_str(&more.text());
         s

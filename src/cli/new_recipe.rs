@@ -45,23 +45,20 @@ pub fn run_new(mut words: Vec<String>) -> Result<String, String> {
     // refuse it otherwise).
     crate::model::evaluate(&req.winding, &req.tank, &req.conditions)
         .map_err(|e| format!("invalid input: {e}"))?;
+    let from_flags = req.recipe();
     let recipe = Recipe {
         name,
         notes,
-        winding: req.winding,
-        tank: req.tank,
-        conditions: req.conditions,
         target: Target {
-            plan: req.aim.plan.clone(),
             channel,
             tolerance: tolerance_typed.then_some(req.aim.tolerance),
+            ..from_flags.target
         },
-        bench_log: Vec::new(),
         stray_estimate: StraySettings {
             construction,
             ..StraySettings::default()
         },
-        coil_measurement: None,
+        ..from_flags
     };
     crate::recipe::rules::judge(&recipe).map_err(|r| format!("{}: {}", r.field, r.reason))?;
     let path = Path::new(&file);

@@ -1,15 +1,18 @@
-//! `evaluate --recipe FILE`: the coil, tank, conditions and aim (channel and on-channel
-//! tolerance) of a saved recipe instead of flags, calibrated on its bench readings as
-//! `recipe::figures` does for `report`, `solve` and the window (`--as-written`: the recipe
-//! alone).
+//! `evaluate --recipe FILE` (and `impedance --recipe FILE`): the coil, tank, conditions,
+//! readings and aim (channel and on-channel tolerance) of a saved recipe instead of flags,
+//! calibrated on its bench readings as `recipe::figures` does for `report`, `solve` and the
+//! window (`--as-written`: the recipe alone, its readings and kept measurement left aside).
 
 use super::args::Args;
 use super::evaluate::EvaluateRequest;
-use crate::recipe::store;
+use crate::recipe::{Recipe, store};
+use crate::tuning::verdict::Aim;
 use std::path::Path;
 
-/// The request a recipe file describes; only `--json` may stand beside `--recipe`.
-pub(crate) fn request_from_recipe(args: &Args, file: &str) -> Result<EvaluateRequest, String> {
+/// The recipe a file holds and the aim it carries; only `--json` and `--as-written` may stand
+/// beside `--recipe`. With `--as-written` the readings and a kept coil measurement are left
+/// out, so nothing calibrates it.
+pub(crate) fn recipe_from_file(args: &Args, file: &str) -> Result<(Recipe, Aim), String> {
     args.reject_unknown()
         .map_err(|e| format!("with --recipe only --json and --as-written may be given: {e}"))?;
     if let Some(word) = args.positional.first() {
@@ -18,27 +21,33 @@ pub(crate) fn request_from_recipe(args: &Args, file: &str) -> Result<EvaluateReq
             super::clean(word)
         ));
     }
-    let recipe = store::load(Path::new(file)).map_err(|e| e.to_string())?;
-    // The bench readings (and a kept coil measurement) calibrate the figures as `report`,
-    // `solve` and the window do, unless the recipe is asked for as written.
-    let uncalibrated = recipe.bench_log.is_empty() && recipe.coil_measurement.is_none();
-    let bench = if args.switch("as-written") || uncalibrated {
-        None
-    } else {
-        let f = crate::recipe::figures(&recipe).map_err(|e| format!("invalid recipe: {e}"))?;
-        f.calibrated().then(|| super::evaluate::BenchCalibration {
-            tank: f.tank,
-            conditions: f.conditions,
-            led: f.led,
-            readings: f.readings_used(),
+    let mut recipe = store::load(Path::new(file)).map_err(|e| e.to_string())?;
+    if args.switch("as-written") {
+        recipe.bench_log.clear();
+        recipe.coil_measurement = None;
+    }
+    let aim = Aim::new(recipe.target.plan.clone(), Some(recipe.target.channel))
+        .with_tolerance(recipe.target.tolerance());
+    Ok((recipe, aim))
+}
+
+/// The request a recipe file describes, calibrated as `recipe::figures` calibrates it.
+pub(crate) fn request_from_recipe(args: &Args, file: &str) -> Result<EvaluateRequest, String> {
+    let (recipe, aim) = recipe_from_file(args, file)?;
+    let calibrated = !recipe.bench_log.is_empty() || recipe.coil_measurement.is_some();
+    let bench = if calibrated {
+        let m = crate::recipe::modelled(&recipe).map_err(|e| format!("invalid recipe: {e}"))?;
+        m.calibrated().then(|| super::evaluate::BenchCalibration {
+            tank: m.tank,
+            conditions: m.conditions,
+            led: m.led,
+            readings: m.readings_used(),
         })
+    } else {
+        None
     };
     Ok(EvaluateRequest {
-        aim: crate::tuning::verdict::Aim::new(
-            recipe.target.plan.clone(),
-            Some(recipe.target.channel),
-        )
-        .with_tolerance(recipe.target.tolerance()),
+        aim,
         winding: recipe.winding,
         tank: recipe.tank,
         conditions: recipe.conditions,

@@ -82,11 +82,7 @@ impl Figures {
     /// The inductance scale the kept coil measurement puts on the field solution, when it
     /// applies and the readings do not fit the scale themselves.
     pub fn measured_scale(&self) -> Option<f64> {
-        let m = self.measured.as_ref()?.as_ref().ok()?;
-        match &self.fit {
-            Some(Ok(f)) if f.inductance_scale_error.is_some() => None,
-            _ => Some(m.scale),
-        }
+        measured_scale(&self.fit, &self.measured)
     }
 
     /// What the figures rest on, in one line (the window's verdict and the build sheet):
@@ -194,12 +190,149 @@ pub fn figures_with(recipe: &Recipe, field: FieldInput) -> Result<Figures, Input
     assemble(recipe, classical, field)
 }
 
+/// The recipe's tank as the figures model it, before it is aimed at a channel: the classical
+/// model, moved onto the field solution when there is one, calibrated on the bench readings
+/// (and a kept coil measurement) when there are any. [`Figures`] is this aimed at the
+/// recipe's channel; `tankwright evaluate` aims it at the flags' target, or at none.
+#[derive(Clone, Debug, PartialEq)]
+pub struct Modelled {
+    /// The validated coil.
+    pub coil: Coil,
+    /// The tank that drives the figures (calibrated when there are readings that fit).
+    pub tank: Tank,
+    /// The conditions that drive the figures.
+    pub conditions: Conditions,
+    /// Every figure of the engine, calibrated when there are readings that fit.
+    pub analysis: Analysis,
+    /// The classical model as it stands: no field solution, no bench readings.
+    pub classical: Analysis,
+    /// Before the bench readings.
+    pub uncalibrated: Analysis,
+    /// The conditions of `uncalibrated`.
+    pub uncalibrated_conditions: Conditions,
+    /// What the field solution did to the figures.
+    pub field: FieldBasis,
+    /// The field-led model the target figures and the advice are landed on.
+    pub led: Option<FieldLed>,
+    /// The fit of the bench readings (`None` when there are none).
+    pub fit: Option<Result<Fit, FitError>>,
+    /// The kept coil measurement against the field solution of the coil as measured.
+    pub measured: Option<Result<MeasuredAgainstField, String>>,
+    /// The straight line of 1/f² against external capacitance through the readings at the
+    /// latest reading's length.
+    pub line: Option<InverseSquareLine>,
+}
+
+impl Modelled {
+    /// Whether the model is calibrated on bench readings or a kept coil measurement (as
+    /// [`Figures::calibrated`]).
+    pub fn calibrated(&self) -> bool {
+        matches!(self.fit, Some(Ok(_))) || measured_scale(&self.fit, &self.measured).is_some()
+    }
+
+    /// How many readings the calibration rests on (0 when uncalibrated).
+    pub fn readings_used(&self) -> usize {
+        match &self.fit {
+            Some(Ok(f)) => f.readings_used,
+            _ => 0,
+        }
+    }
+}
+
+/// The scale a kept coil measurement puts on the field solution, when it applies and the
+/// readings do not fit the scale themselves.
+fn measured_scale(
+    fit: &Option<Result<Fit, FitError>>,
+    measured: &Option<Result<MeasuredAgainstField, String>>,
+) -> Option<f64> {
+    let m = measured.as_ref()?.as_ref().ok()?;
+    match fit {
+        Some(Ok(f)) if f.inductance_scale_error.is_some() => None,
+        _ => Some(m.scale),
+    }
+}
+
+/// The recipe's tank modelled (see [`Modelled`]) with its field solution solved here, as
+/// [`figures`] does.
+pub fn modelled(recipe: &Recipe) -> Result<Modelled, InputError> {
+    let classical = evaluate(&recipe.winding, &recipe.tank, &recipe.conditions)?;
+    let solved = field_tank(
+        &classical.coil,
+        recipe.tank.external_capacitance(),
+        &recipe.conditions,
+    );
+    model(recipe, classical, FieldInput::Solved(solved))
+}
+
+/// The target figures and the verdict of `m` against `aim`: with a target, the target
+/// figures (landed on the field-led model) and the verdict with their advice; without one,
+/// the verdict on the band alone. The one aiming step of [`figures`] and `evaluate`.
+pub fn aimed(m: &Modelled, aim: &Aim) -> (Option<TargetFigures>, Verdict) {
+    let verdict = judge(&m.coil, &m.tank, &m.conditions, aim);
+    match aim.target {
+        Some(channel) => {
+            let target = target_figures_on(
+                &m.coil,
+                &m.tank,
+                &m.conditions,
+                &aim.plan,
+                channel,
+                aim.tolerance,
+                m.led.as_ref(),
+            );
+            let verdict = verdict.with_advice(target.advice.clone());
+            (Some(target), verdict)
+        }
+        None => (None, verdict),
+    }
+}
+
 /// The figures on the classical analysis of a valid recipe.
 fn assemble(
     recipe: &Recipe,
     classical: Analysis,
     field: FieldInput,
 ) -> Result<Figures, InputError> {
+    let m = model(recipe, classical, field)?;
+    let aim = Aim::new(recipe.target.plan.clone(), Some(recipe.target.channel))
+        .with_tolerance(recipe.target.tolerance());
+    let (Some(target), verdict) = aimed(&m, &aim) else {
+        unreachable!("a recipe's aim always has its channel");
+    };
+    let Modelled {
+        coil,
+        tank,
+        conditions,
+        analysis,
+        classical,
+        uncalibrated,
+        uncalibrated_conditions,
+        field,
+        led,
+        fit,
+        measured,
+        line,
+    } = m;
+    Ok(Figures {
+        line,
+        coil,
+        tank,
+        conditions,
+        analysis,
+        classical,
+        uncalibrated,
+        uncalibrated_conditions,
+        field,
+        led,
+        fit,
+        measured,
+        target,
+        verdict,
+    })
+}
+
+/// The model of a valid recipe on its classical analysis (see [`Modelled`]).
+fn model(recipe: &Recipe, classical: Analysis, field: FieldInput) -> Result<Modelled, InputError> {
     let coil = classical.coil;
     let external = recipe.tank.external_capacitance();
     let basis = FieldBasis::of(&coil, external, &recipe.conditions, field);
@@ -274,20 +407,8 @@ fn assemble(
             _ => (recipe.tank, base, uncalibrated.clone()),
         },
     };
-    let target = target_figures_on(
-        &coil,
-        &tank,
-        &conditions,
-        &recipe.target.plan,
-        recipe.target.channel,
-        recipe.target.tolerance(),
-        led.as_ref(),
-    );
     let line = inverse_square_line(&recipe.tank, &readings);
-    let aim = Aim::new(recipe.target.plan.clone(), Some(recipe.target.channel))
-        .with_tolerance(recipe.target.tolerance());
-    let verdict = judge(&coil, &tank, &conditions, &aim).with_advice(target.advice.clone());
-    Ok(Figures {
+    Ok(Modelled {
         line,
         coil,
         tank,
@@ -300,7 +421,5 @@ fn assemble(
         led,
         fit,
         measured,
-        target,
-        verdict,
     })
 }

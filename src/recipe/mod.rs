@@ -26,7 +26,7 @@ pub use crate::tuning::field_tank::{FieldBasis, FieldInput, Unled};
 pub use demos::demos;
 pub use document::{BenchEntry, Recipe, StraySettings, Target};
 pub use expectation::{Expectation, expectation};
-pub use figures::{Figures, Footing, figures, figures_on, figures_with};
+pub use figures::{Figures, Footing, Modelled, aimed, figures, figures_on, figures_with, modelled};
 pub use format::Opened;
 pub use load::{LoadError, LoadErrorKind};
 pub use store::{SaveError, load, open, save};
