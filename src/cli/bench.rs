@@ -115,6 +115,16 @@ pub fn run_fit(words: Vec<String>) -> Result<String, String> {
                 "points": l.points,
             })),
             "warnings": fit.warnings.iter().map(ToString::to_string).collect::<Vec<_>>(),
+            // Readings (1 = oldest) the fit suspects of being harmonics: left out, or in the
+            // fit because the recipe says to include them anyway.
+            "left_out_readings": harmonic_readings(fit, true),
+            "include_anyway_readings": recipe
+                .bench_log
+                .iter()
+                .enumerate()
+                .filter(|(_, e)| e.include_anyway)
+                .map(|(i, _)| i + 1)
+                .collect::<Vec<_>>(),
         })
         .to_string();
         s.push('\n');
@@ -161,4 +171,18 @@ pub fn run_fit(words: Vec<String>) -> Result<String, String> {
     let mut text = out.join("\n");
     text.push('\n');
     Ok(text)
+}
+
+/// The readings (1 = oldest) the fit suspects of being harmonics and left out (`left_out`
+/// true) or used.
+fn harmonic_readings(fit: &crate::tuning::fit::Fit, left: bool) -> Vec<usize> {
+    fit.warnings
+        .iter()
+        .filter_map(|w| match w {
+            crate::tuning::fit::FitWarning::Harmonic {
+                reading, left_out, ..
+            } if *left_out == left => Some(reading + 1),
+            _ => None,
+        })
+        .collect()
 }

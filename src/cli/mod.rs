@@ -124,6 +124,9 @@ usage:
              [--clip-pf C [--clip-tolerance-pct T]] [--instrument TEXT] [--error-ppm E] [--note TEXT]
                                           append a bench reading to a recipe (saved safely;
                                           length and trimmer default to the recipe's)
+  tankwright reading include FILE N [--off]
+                                          the fit takes reading N although it suspects it
+                                          of being a harmonic (--off: left out again)
   tankwright spice FILE --out TANK.cir     the tank as a SPICE netlist (the coil as a network
                                           fitted to the field solution; ngspice -b TANK.cir
                                           prints resonance = VALUE in hertz)

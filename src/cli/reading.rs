@@ -5,6 +5,12 @@
 //! from the command line, saved atomically like the window's save (the recipe's rules judge
 //! the result first, so a reading the window would refuse is refused here with the same
 //! words). Then `report`, `solve` and `fit` calibrate on it.
+//!
+//! `tankwright reading include RECIPE N [--off]`: the fit takes reading N (1 = oldest) even
+//! though it suspects it of being a harmonic (about 2× or ½× the prediction: such a reading is
+//! left out until the user includes it); `--off` leaves it to the fit again. Saved the same
+//! way; a reading number outside the log is refused with the range and the file kept as it
+//! was.
 
 use super::args::Args;
 use crate::model::Coil;
@@ -12,7 +18,8 @@ use crate::recipe::{BenchEntry, store};
 use std::path::Path;
 
 const USAGE: &str = "tankwright reading add RECIPE.ron (--mhz F | --spectrum SWEEP.csv) [--length-mm L] [--trimmer-pct P] \
-                     [--clip-pf C] [--instrument TEXT] [--error-ppm E] [--note TEXT]";
+                     [--clip-pf C] [--instrument TEXT] [--error-ppm E] [--note TEXT] \
+                     | tankwright reading include RECIPE.ron N [--off]";
 
 fn within(name: &str, v: f64, lo: f64, hi: f64, unit: &str) -> Result<f64, String> {
     if v.is_finite() && v >= lo && v <= hi {
@@ -39,16 +46,20 @@ fn read_sweep(file: &str) -> Result<String, String> {
 
 /// Run `reading` on the words after the subcommand; Ok(what was done) or Err(message).
 pub fn run_reading(words: Vec<String>) -> Result<String, String> {
-    let args = Args::parse(words, &[]).map_err(|e| e.to_string())?;
+    let args = Args::parse(words, &["off"]).map_err(|e| e.to_string())?;
     let (verb, file) = match args.positional.as_slice() {
-        [verb, file] => (verb.as_str(), file.as_str()),
+        [verb, file] if verb == "add" => (verb.as_str(), file.as_str()),
+        [verb, file, number] if verb == "include" => return include(&args, file, number),
+        [verb, ..] if verb != "add" && verb != "include" => {
+            return Err(format!(
+                "unknown reading command '{}': {USAGE}",
+                super::clean(verb)
+            ));
+        }
         _ => return Err(format!("usage: {USAGE}")),
     };
-    if verb != "add" {
-        return Err(format!(
-            "unknown reading command '{}': {USAGE}",
-            super::clean(verb)
-        ));
+    if verb != "add" || args.switch("off") {
+        return Err(format!("--off belongs to `reading include`: {USAGE}"));
     }
     let number = |name: &str| args.number(name).map_err(|e| e.to_string());
     let spectrum = args.text("spectrum").map(str::to_owned);
@@ -116,6 +127,7 @@ pub fn run_reading(words: Vec<String>) -> Result<String, String> {
     let mut recipe = store::load(path).map_err(|e| e.to_string())?;
     let coil = Coil::from_winding(&recipe.winding).map_err(|e| e.to_string())?;
     let entry = BenchEntry {
+        include_anyway: false,
         measured: mhz * 1e6,
         length: length.map_or(coil.length(), |l| l * 1e-3),
         trimmer_setting: trimmer.map_or(recipe.tank.trimmer_setting, |p| p / 100.0),
@@ -135,4 +147,50 @@ pub fn run_reading(words: Vec<String>) -> Result<String, String> {
         super::clean(file),
         super::clean(file)
     ))
+}
+
+/// `reading include FILE N [--off]`: set reading N's "include anyway" and save atomically; a
+/// number outside the log is refused with the range, the file untouched.
+fn include(args: &Args, file: &str, number: &str) -> Result<String, String> {
+    args.reject_unknown().map_err(|e| e.to_string())?;
+    let path = Path::new(file);
+    let mut recipe = store::load(path).map_err(|e| e.to_string())?;
+    let count = recipe.bench_log.len();
+    let index = number
+        .trim()
+        .parse::<usize>()
+        .ok()
+        .filter(|n| (1..=count).contains(n))
+        .ok_or_else(|| {
+            let range = match count {
+                0 => "the recipe has no readings".to_owned(),
+                1 => "give 1, its only reading".to_owned(),
+                n => format!("give 1–{n}"),
+            };
+            format!(
+                "reading {}: {range}; {} is kept as it was",
+                super::args::quoted(number),
+                super::clean(file)
+            )
+        })?
+        - 1;
+    let on = !args.switch("off");
+    recipe.bench_log[index].include_anyway = on;
+    store::save(path, &recipe).map_err(|e| e.to_string())?;
+    Ok(if on {
+        format!(
+            "reading {} of {} is now in the fit even if it is suspected of being a harmonic; \
+             `tankwright fit --recipe {}` shows the calibration\n",
+            index + 1,
+            super::clean(file),
+            super::clean(file)
+        )
+    } else {
+        format!(
+            "reading {} of {} is left to the fit again (left out while it is suspected of \
+             being a harmonic)\n",
+            index + 1,
+            super::clean(file)
+        )
+    })
 }

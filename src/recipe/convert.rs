@@ -70,6 +70,7 @@ pub(crate) fn to_file_form(r: &Recipe) -> RecipeFile {
                 instrument: e.instrument.clone(),
                 error_ppm: e.error_ppm,
                 note: e.note.clone(),
+                include_anyway: e.include_anyway,
             })
             .collect(),
         stray_estimate: stray_sheet(&r.stray_estimate),
@@ -169,6 +170,7 @@ pub(crate) fn from_file_form(sheet: RecipeFile) -> Recipe {
             error_ppm: r.error_ppm,
             note: r.note.clone(),
             added_tolerance: r.added_tolerance_percent.map(Scaled::si),
+            include_anyway: r.include_anyway,
         })
         .collect();
     Recipe {

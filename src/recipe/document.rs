@@ -50,6 +50,9 @@ pub struct BenchEntry {
     pub error_ppm: Option<f64>,
     /// Anything else worth keeping.
     pub note: String,
+    /// The user's word that the fit takes this reading even when it suspects it of being a
+    /// harmonic (about 2× or ½× the prediction); such a reading is left out otherwise.
+    pub include_anyway: bool,
 }
 
 /// The stray estimate's inputs and the builder's tolerances, kept with the recipe so the window
@@ -104,6 +107,7 @@ impl BenchEntry {
             added_capacitance: self.added_capacitance,
             error_ppm: self.error_ppm,
             added_tolerance: self.added_tolerance,
+            include_anyway: self.include_anyway,
         }
     }
 }

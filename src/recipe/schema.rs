@@ -484,6 +484,15 @@ pub struct ReadingSheet {
     /// Anything else.
     #[serde(default)]
     pub note: String,
+    /// The fit takes this reading even when it suspects it of being a harmonic (absent:
+    /// false, so files written before it read as they did).
+    #[serde(default, skip_serializing_if = "is_false")]
+    pub include_anyway: bool,
+}
+
+/// Whether a switch is off (written only when on).
+fn is_false(b: &bool) -> bool {
+    !*b
 }
 
 /// Only the version, for reading it before anything else; every other field is ignored.

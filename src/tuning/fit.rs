@@ -61,6 +61,9 @@ pub struct Reading {
     pub added_tolerance: Option<f64>,
     /// The instrument's frequency error, ppm, if known.
     pub error_ppm: Option<f64>,
+    /// The user's word that this reading enters the fit even when the fit suspects it of
+    /// being a harmonic ([`FitWarning::Harmonic`]); such a reading is left out otherwise.
+    pub include_anyway: bool,
 }
 
 impl Reading {
@@ -143,8 +146,11 @@ pub enum FitWarning {
         ratio: &'static str,
         /// The model's prediction for that reading, hertz.
         predicted: f64,
-        /// Left out of the calibration (while other readings are not suspected).
+        /// Left out of the calibration (while other readings are not suspected and the user
+        /// has not included it: [`Reading::include_anyway`]).
         left_out: bool,
+        /// In the calibration because the user included it anyway.
+        included: bool,
     },
     /// Some readings carry no instrument error; [`ASSUMED_ERROR_PPM`] was used.
     AssumedError {
@@ -190,6 +196,7 @@ impl fmt::Display for FitWarning {
                 ratio,
                 predicted,
                 left_out,
+                included,
             } => write!(
                 f,
                 "reading {} is about {ratio} the predicted {:.3} MHz: is this a harmonic, or the \
@@ -197,7 +204,9 @@ impl fmt::Display for FitWarning {
                 reading + 1,
                 predicted * 1e-6,
                 if *left_out {
-                    " It is left out of the calibration."
+                    " It is left out of the calibration until you include it."
+                } else if *included {
+                    " It is in the calibration because you included it."
                 } else {
                     ""
                 }
@@ -367,20 +376,31 @@ pub fn fit_on_held(
         });
     }
     let mut warnings = harmonics(&prepared, conditions);
-    // Suspected harmonics are left out while any reading is not suspected.
-    let suspected: Vec<usize> = warnings
-        .iter()
-        .filter_map(|w| match w {
-            FitWarning::Harmonic { reading, .. } => Some(*reading),
-            _ => None,
-        })
-        .collect();
+    // Suspected harmonics are left out unless the user included them, while any reading is
+    // not suspected (when every reading is, the prediction itself is in doubt: all are used).
+    let mut suspected: Vec<usize> = Vec::new();
+    for w in &mut warnings {
+        if let FitWarning::Harmonic {
+            reading, included, ..
+        } = w
+        {
+            if readings[*reading].include_anyway {
+                *included = true;
+            } else {
+                suspected.push(*reading);
+            }
+        }
+    }
     let leave_out = !suspected.is_empty() && suspected.len() < prepared.len();
     let mut left: Vec<(usize, Prepared)> = Vec::new();
     let mut used: Vec<usize> = Vec::with_capacity(prepared.len());
     if leave_out {
         for w in &mut warnings {
-            if let FitWarning::Harmonic { left_out, .. } = w {
+            if let FitWarning::Harmonic {
+                reading, left_out, ..
+            } = w
+                && suspected.contains(reading)
+            {
                 *left_out = true;
             }
         }
@@ -602,6 +622,7 @@ fn harmonics(prepared: &[Prepared], conditions: &Conditions) -> Vec<FitWarning> 
                 ratio: name,
                 predicted,
                 left_out: false,
+                included: false,
             });
         }
     }

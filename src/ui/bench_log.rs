@@ -32,6 +32,22 @@ pub enum BenchLogAction {
     SetTurns(f64, f64),
 }
 
+/// Accessible name of the checkbox that puts reading `index` (0 = oldest) in the fit although
+/// the fit suspects it of being a harmonic.
+pub fn include_label(index: usize) -> String {
+    format!("Include reading {} in the fit anyway", index + 1)
+}
+
+/// Whether the fit suspects reading `index` of being a harmonic (left out, or included by the
+/// user).
+fn suspected(fit: Option<&Fit>, index: usize) -> bool {
+    fit.is_some_and(|f| {
+        f.warnings.iter().any(|w| {
+            matches!(w, crate::tuning::fit::FitWarning::Harmonic { reading, .. } if *reading == index)
+        })
+    })
+}
+
 /// Accessible name of the button that carries out the advice.
 pub const APPLY_ADVICE_LABEL: &str = "Apply the advice";
 
@@ -204,6 +220,28 @@ impl BenchLogPanel {
                 }
                 ui.add(egui::Label::new(egui::RichText::new(text).weak()).wrap());
             });
+            // A reading the fit suspects of being a harmonic is left out until the user
+            // includes it (the fit's warning above says why).
+            if suspected(fit, i) {
+                let mut on = e.include_anyway;
+                if ui
+                    .checkbox(&mut on, include_label(i))
+                    .on_hover_text(
+                        "This reading is near 2×, 3×, ½× or ⅓× the prediction, so the fit \
+                         leaves it out as a likely harmonic or the wrong tank. Tick it if you \
+                         are sure it is the tank's own resonance.",
+                    )
+                    .changed()
+                {
+                    action = Some(BenchLogAction::Replace(
+                        i,
+                        BenchEntry {
+                            include_anyway: on,
+                            ..e.clone()
+                        },
+                    ));
+                }
+            }
         }
         action
     }
@@ -358,7 +396,13 @@ impl BenchLogPanel {
         let valid = self.form.measured_mhz > 0.0 && self.form.measured_mhz.is_finite();
         // The reading as it would be recorded, judged by the recipe rules (the loader's), so
         // the log never holds a reading the file could not open with.
+        // An edit keeps the reading's "include anyway" (set by its own checkbox).
+        let include_anyway = self
+            .editing
+            .and_then(|i| recipe.bench_log.get(i))
+            .is_some_and(|e| e.include_anyway);
         let entry = length.map(|length| BenchEntry {
+            include_anyway,
             measured: self.form.measured_mhz * 1e6,
             length,
             trimmer_setting: (self.form.trimmer_pct.unwrap_or(present_trimmer) / 100.0)

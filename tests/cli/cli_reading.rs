@@ -255,3 +255,83 @@ fn the_clip_on_tolerance_is_kept_with_the_reading() {
         "{err}"
     );
 }
+
+/// Issue 20: `reading include FILE N [--off]` sets the reading's "include anyway", saved like
+/// `reading add`; the fit then takes a reading it suspects of being a harmonic (left out
+/// before). The readings are the demo's tank by its own field solution (the truth here) at the
+/// trimmer's two ends, and one at twice the first (a counter on the second harmonic; common
+/// practice). A reading number outside the log is refused with the range, the file
+/// byte-identical.
+#[test]
+fn a_suspected_harmonic_is_included_from_the_command_line() {
+    use tankwright::recipe::{BenchEntry, Recipe};
+    let dir = tempfile::tempdir().expect("temp dir");
+    let file = dir.path().join("bench.ron");
+    let path = file.to_str().expect("utf-8");
+    let mut r = Recipe::demo();
+    let coil = tankwright::model::Coil::from_winding(&r.winding).expect("coil");
+    for setting in [0.0, 1.0] {
+        let measured = tankwright::tuning::field_tank::field_tank(
+            &coil,
+            r.tank.external_capacitance_at(setting),
+            &r.conditions,
+        )
+        .expect("solves")
+        .resonance;
+        r.bench_log.push(BenchEntry {
+            measured,
+            length: coil.length(),
+            trimmer_setting: setting,
+            added_capacitance: 0.0,
+            added_tolerance: None,
+            instrument: "counter".to_owned(),
+            error_ppm: Some(1.0),
+            note: String::new(),
+            include_anyway: false,
+        });
+    }
+    let mut harmonic = r.bench_log[0].clone();
+    harmonic.measured *= 2.0;
+    r.bench_log.push(harmonic);
+    store::save(&file, &r).expect("saved");
+    let fit = |want_used: u64| {
+        let (ok, out, err) = run_text(&["fit", "--recipe", path, "--json"]);
+        assert!(ok, "{err}");
+        let v: serde_json::Value = serde_json::from_str(&out).expect("JSON");
+        assert_eq!(v["readings_used"].as_u64(), Some(want_used), "{out}");
+        v
+    };
+    let v = fit(2);
+    assert_eq!(v["left_out_readings"], serde_json::json!([3]), "{v}");
+
+    let (ok, said, err) = run_text(&["reading", "include", path, "3"]);
+    assert!(ok, "{err}");
+    assert!(said.contains("reading 3"), "{said}");
+    assert!(store::load(&file).expect("opens").bench_log[2].include_anyway);
+    assert!(
+        std::fs::read_to_string(&file)
+            .expect("text")
+            .contains("include_anyway: true")
+    );
+    let v = fit(3);
+    assert_eq!(v["include_anyway_readings"], serde_json::json!([3]), "{v}");
+    assert_eq!(v["left_out_readings"], serde_json::json!([]), "{v}");
+
+    let (ok, _, err) = run_text(&["reading", "include", path, "3", "--off"]);
+    assert!(ok, "{err}");
+    assert!(!store::load(&file).expect("opens").bench_log[2].include_anyway);
+    fit(2);
+
+    // Bad numbers: refused with the range, the file untouched to the byte.
+    let before = std::fs::read(&file).expect("read");
+    for bad in ["0", "4", "x", "2.5"] {
+        let (ok, _, err) = run_text(&["reading", "include", path, bad]);
+        assert!(!ok, "{bad} accepted");
+        assert!(err.contains("1–3"), "{bad}: {err}");
+        assert!(err.contains("kept as it was"), "{bad}: {err}");
+        assert_eq!(std::fs::read(&file).expect("read"), before, "{bad}");
+    }
+    let (ok, _, err) = run_text(&["reading", "include", path]);
+    assert!(!ok);
+    assert!(err.contains("usage"), "{err}");
+}

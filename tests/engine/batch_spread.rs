@@ -372,6 +372,7 @@ fn calibrated_band_matches_the_scatter_of_refits() {
     let exact: Vec<Reading> = [0.0, 0.5, 1.0]
         .iter()
         .map(|&s| Reading {
+            include_anyway: false,
             measured: resonance_of(&c, truth_tank.external_capacitance_at(s), &truth),
             length: c.length(),
             trimmer_setting: s,
@@ -409,6 +410,7 @@ fn calibrated_band_matches_the_scatter_of_refits() {
             let noisy: Vec<Reading> = exact
                 .iter()
                 .map(|r| Reading {
+                    include_anyway: false,
                     measured: r.measured * (1.0 + ppm * 1e-6 * normal(&mut rng)),
                     ..*r
                 })

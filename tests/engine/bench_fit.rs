@@ -37,6 +37,7 @@ fn reading(
         &truth.conditions(cond),
     );
     Reading {
+        include_anyway: false,
         measured: exact * (1.0 + noise * ppm * 1e-6),
         length,
         trimmer_setting: setting,
@@ -154,6 +155,7 @@ fn a_harmonic_is_suspected() {
     let (coil, tank, cond) = demo();
     let predicted = resonance_of(&coil, tank.external_capacitance(), &cond);
     let r = Reading {
+        include_anyway: false,
         measured: 2.0 * predicted * 1.01,
         length: coil.length(),
         trimmer_setting: tank.trimmer_setting,
@@ -274,6 +276,7 @@ fn no_readings_and_bad_readings_are_refused_by_name() {
     let (coil, tank, cond) = demo();
     assert!(fit(&coil, &tank, &cond, &[]).is_err());
     let r = Reading {
+        include_anyway: false,
         measured: 98e6,
         length: coil.shortest_length() * 0.5,
         trimmer_setting: 0.5,

@@ -30,6 +30,7 @@ fn with_readings(extra: f64, scale: f64, at: &[(f64, f64)], error_ppm: f64) -> R
         .expect("solves")
         .resonance;
         r.bench_log.push(BenchEntry {
+            include_anyway: false,
             measured,
             length: coil.length(),
             trimmer_setting: setting,
@@ -173,4 +174,72 @@ fn the_field_solved_self_capacitance_resonates_the_meter_inductance_at_the_self_
         // self-resonance (the coils' operating points are at a tenth of it or less).
         assert!((rise / lumped - 1.0).abs() < 0.1, "{rise} vs {lumped}");
     }
+}
+
+/// Issue 20: a reading the fit suspects of being a harmonic is left out until the user
+/// includes it ([`BenchEntry::include_anyway`]); included, it is one of the readings the
+/// weighted least squares (Press et al., *Numerical Recipes*, 3rd ed., 2007, §15.4) minimise,
+/// so its residual falls and the calibration moves towards it, and the warning says it is in.
+/// The readings are synthesised from the field solution of the demo's coil (the truth), one
+/// of them at twice the tank's frequency (a counter on the second harmonic).
+#[test]
+fn a_suspected_harmonic_is_used_once_included() {
+    let (extra, scale) = (0.5e-12, 1.01);
+    let mut r = with_readings(extra, scale, &[(0.0, 0.0), (1.0, 0.0)], 1.0);
+    let mut third = r.bench_log[0].clone();
+    third.measured *= 2.0;
+    r.bench_log.push(third);
+    let left = figures(&r)
+        .expect("valid")
+        .fit
+        .expect("readings")
+        .expect("fits");
+    assert_eq!(left.readings_used, 2, "left out by default");
+    r.bench_log[2].include_anyway = true;
+    let used = figures(&r)
+        .expect("valid")
+        .fit
+        .expect("readings")
+        .expect("fits");
+    assert_eq!(used.readings_used, 3, "used once included");
+    assert!(
+        used.warnings.iter().any(|w| matches!(
+            w,
+            FitWarning::Harmonic {
+                reading: 2,
+                left_out: false,
+                included: true,
+                ..
+            }
+        )),
+        "{:?}",
+        used.warnings
+    );
+    assert!(
+        used.warnings
+            .iter()
+            .any(|w| w.to_string().contains("because you included it"))
+    );
+    // In the least squares: its residual is smaller than when it was left out, and the
+    // calibration is pulled off the truth (the reading is not the tank's resonance).
+    eprintln!(
+        "residual of the 2x reading: left out {:.1} kHz, included {:.1} kHz; stray {:.3} -> {:.3} pF",
+        left.residuals[2] * 1e-3,
+        used.residuals[2] * 1e-3,
+        left.calibration.extra_capacitance * 1e12,
+        used.calibration.extra_capacitance * 1e12
+    );
+    assert!(used.residuals[2].abs() < left.residuals[2].abs());
+    assert!(
+        (used.calibration.extra_capacitance - extra).abs()
+            > (left.calibration.extra_capacitance - extra).abs()
+    );
+    // Its residual far beyond the counter's 1 ppm is flagged.
+    assert!(
+        used.warnings
+            .iter()
+            .any(|w| matches!(w, FitWarning::Inconsistent { .. })),
+        "{:?}",
+        used.warnings
+    );
 }

@@ -278,6 +278,7 @@ fn bench_build(
         r.tank.trimmer_setting = 0.5;
         let measured = truth(&r, 0.5);
         r.bench_log.push(BenchEntry {
+            include_anyway: false,
             measured,
             length: wound,
             trimmer_setting: 0.5,

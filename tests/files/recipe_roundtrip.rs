@@ -13,6 +13,7 @@ use tankwright::recipe::{self, Recipe, demos, format, store};
 fn demo_with_log() -> Recipe {
     let mut r = Recipe::demo();
     r.bench_log.push(recipe::BenchEntry {
+        include_anyway: false,
         measured: 99.134e6,
         length: 8.0e-3,
         trimmer_setting: 0.5,
@@ -294,9 +295,11 @@ fn file_strategy(
         "\\PC{0,20}",
         prop_oneof![Just(0.0), num(0.1, 100.0)],
         proptest::option::of(num(0.0, 50.0)),
+        any::<bool>(),
     )
         .prop_map(
-            |(f, l, s, instrument, ppm, note, added, tolerance)| ReadingSheet {
+            |(f, l, s, instrument, ppm, note, added, tolerance, include_anyway)| ReadingSheet {
+                include_anyway,
                 measured_mhz: Scaled::from_file_units(f),
                 coil_length_mm: Scaled::from_file_units(l),
                 trimmer_percent: Scaled::from_file_units(s),
@@ -456,6 +459,7 @@ proptest! {
         r.target.channel = channel;
         r.target.tolerance = tolerance;
         r.bench_log.push(recipe::BenchEntry {
+            include_anyway: false,
             measured,
             length,
             trimmer_setting: setting,

@@ -102,6 +102,7 @@ fn a_working_copy_that_breaks_a_rule_comes_back_with_every_field() {
     crowded.notes = "notes kept".to_owned();
     let mut low_reading = edited();
     low_reading.bench_log.push(BenchEntry {
+        include_anyway: false,
         measured: 0.5e6,
         length: 12e-3,
         trimmer_setting: 0.5,

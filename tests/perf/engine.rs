@@ -112,6 +112,7 @@ fn bench_loop(c: &mut Criterion) {
                 &truth.conditions(&r.conditions),
             );
             tankwright::tuning::fit::Reading {
+                include_anyway: false,
                 measured: f,
                 length: coil.length(),
                 trimmer_setting: setting,

@@ -273,6 +273,7 @@ fn add_reading(app: &mut App, mhz: f64) {
     let mut recipe = app.recipe().clone();
     let coil = tankwright::model::Coil::from_winding(&recipe.winding).expect("valid");
     recipe.bench_log.push(tankwright::recipe::BenchEntry {
+        include_anyway: false,
         measured: mhz * 1e6,
         length: coil.length(),
         trimmer_setting: recipe.tank.trimmer_setting,

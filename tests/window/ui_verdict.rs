@@ -181,6 +181,7 @@ fn a_bench_reading_makes_the_verdict_calibrated() {
         .recipe_mut()
         .bench_log
         .push(tankwright::recipe::BenchEntry {
+            include_anyway: false,
             measured: figures.analysis.resonance - 1.0e6,
             length: figures.coil.length(),
             trimmer_setting: tank.trimmer_setting,

@@ -59,6 +59,7 @@ fn a_working_copy_that_breaks_a_rule_reopens_with_every_field_and_says_why() {
     copy.name = "Reading under a megahertz".to_owned();
     copy.notes = "notes kept".to_owned();
     copy.bench_log.push(BenchEntry {
+        include_anyway: false,
         measured: 0.5e6,
         length: 8e-3,
         trimmer_setting: 0.5,
