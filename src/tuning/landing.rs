@@ -350,12 +350,16 @@ impl Shape {
     }
 
     /// The interpolated factor at `length` across `external` farads: in capacitance, the
-    /// polynomial through every capacitance solved (Lagrange; three at most are asked for),
-    /// `external` held within their range.
+    /// polynomial through every capacitance solved (Lagrange; three at most are asked for).
+    /// Beyond the capacitances solved it is carried on for up to half their span (a hand's
+    /// 1–2 pF past the top of a trimmer's travel on the teaching bench: held there instead, the
+    /// factor missed exact field solves by up to 14 kHz on the bench demo, carried on it stays
+    /// within the chart's 5 kHz, tests/engine/chart_shape.rs), held past that.
     pub fn factor_at_capacitance(&self, length: f64, external: f64) -> f64 {
         let c = &self.capacitances;
         let m = c.len();
-        let x = external.clamp(c[0], c[m - 1]);
+        let reach = 0.5 * (c[m - 1] - c[0]);
+        let x = external.clamp(c[0] - reach, c[m - 1] + reach);
         (0..m)
             .map(|j| {
                 let weight: f64 = (0..m)
@@ -377,6 +381,18 @@ impl Shape {
             };
             resonance_of(&c, external, &cond)
         })
+    }
+
+    /// The classical model's conditions moved onto the field shape at `length` across
+    /// `external` farads (the interpolated factor as the overall inductance scale): what a
+    /// derived copy of the coil at another length carries, such as the teaching bench's, so
+    /// its figures are the shape's there (tests/engine/chart_shape.rs measures them against
+    /// exact field solves over the teaching sweep's lengths).
+    pub fn conditions_at(&self, length: f64, external: f64) -> Conditions {
+        Conditions {
+            inductance_scale: self.factor_at_capacitance(length, external),
+            ..self.conditions
+        }
     }
 
     /// The lengths at which the factor was solved, metres.

@@ -18,6 +18,17 @@ pub fn chart_length_range(coil: &Coil) -> (f64, f64) {
     (lo, hi)
 }
 
+/// The lengths the teaching bench's sweep runs between, metres: the coil's shortest
+/// buildable length (close-wound; bare wire keeps its minimum gap) to the longest a solver
+/// proposes, widened to hold the coil's own length. Inside [`chart_length_range`] (same low
+/// end, and its high end is at least both of these), so the charts' field shape
+/// ([`super::landing::chart_shape`]) reaches every length the sweep shows.
+pub fn teaching_range(coil: &Coil) -> (f64, f64) {
+    let lo = coil.shortest_length();
+    let hi = coil.longest_proposed_length().max(coil.length()).max(lo);
+    (lo, hi)
+}
+
 /// Resonance against coil length at one trimmer setting.
 #[derive(Clone, Debug, PartialEq)]
 pub struct SpacingCurve {

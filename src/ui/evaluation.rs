@@ -80,6 +80,12 @@ pub struct Evaluation {
     /// The field shape the charts draw, with what it was solved for (the shape worker's
     /// answer for the figures shown; dropped when they change).
     shape: Option<(ShapeRequest, Shape)>,
+    /// The field shape of the model before the bench readings (scale 1 on the field
+    /// solution, the recipe's tank), for the "before calibration" curve.
+    uncalibrated_shape: Option<(ShapeRequest, Shape)>,
+    /// A shape lent by another evaluation whose coil this one shows at another length (the
+    /// teaching bench's derived copy draws on the window's shape).
+    lent_shape: Option<Shape>,
 }
 
 impl Evaluation {
@@ -97,6 +103,8 @@ impl Evaluation {
             expectation: None,
             modulation_sweeps: ModulationSweeps::default(),
             shape: None,
+            uncalibrated_shape: None,
+            lent_shape: None,
         };
         evaluation.refresh_sweeps();
         evaluation.refresh_expectation(recipe);
@@ -127,8 +135,8 @@ impl Evaluation {
         let (Some(e), Ok(f)) = (&self.expectation, &self.current) else {
             return;
         };
-        let band = match &self.shape {
-            Some((_, shape)) => crate::tuning::sweep::band_on_shape(
+        let band = match self.drawn_shape() {
+            Some(shape) => crate::tuning::sweep::band_on_shape(
                 &e.band,
                 &f.coil,
                 f.tank.external_capacitance(),
@@ -143,17 +151,83 @@ impl Evaluation {
     /// Bring the sweeps up to the figures shown (a no-op when they already match).
     fn refresh_sweeps(&mut self) {
         if let Some(f) = self.current.as_ref().ok().or(self.last_good.as_ref()) {
-            let shape = self.shape.as_ref().map(|(_, s)| s);
+            let shape = self
+                .shape
+                .as_ref()
+                .map(|(_, s)| s)
+                .or(self.lent_shape.as_ref());
             self.sweeps
                 .refresh_on(&f.coil, &f.tank, &f.conditions, shape);
             if f.calibrated() {
-                self.uncalibrated_sweeps.refresh(
+                self.uncalibrated_sweeps.refresh_on(
                     &f.coil,
                     &self.inputs.tank,
                     &f.uncalibrated_conditions,
+                    self.uncalibrated_shape.as_ref().map(|(_, s)| s),
                 );
             }
         }
+    }
+
+    /// The shape the charts draw: the worker's for these figures, else one lent.
+    fn drawn_shape(&self) -> Option<&Shape> {
+        self.shape
+            .as_ref()
+            .map(|(_, s)| s)
+            .or(self.lent_shape.as_ref())
+    }
+
+    /// The field shape the charts draw (the worker's answer for the figures shown), for a
+    /// derived copy of the coil at another length to carry (the teaching bench).
+    pub fn shape(&self) -> Option<&Shape> {
+        self.shape.as_ref().map(|(_, s)| s)
+    }
+
+    /// Draw the charts on `shape`, solved for the same coil at another length (the window's,
+    /// lent to the teaching bench's derived copy, whose own figures carry no field-led model
+    /// to ask a worker with); true if the charts changed.
+    pub fn lend_shape(&mut self, shape: Option<&Shape>) -> bool {
+        if self.lent_shape.as_ref() == shape {
+            return false;
+        }
+        self.lent_shape = shape.cloned();
+        self.refresh_sweeps();
+        self.apply_band();
+        true
+    }
+
+    /// What the "before calibration" curve's field shape is to be solved for: the figures'
+    /// field-led model at scale 1 on the recipe's tank, while the figures shown are
+    /// calibrated and the field solution leads.
+    pub fn uncalibrated_shape_request(&self) -> Option<ShapeRequest> {
+        let f = self.current.as_ref().ok().filter(|f| f.calibrated())?;
+        let led = f.led?;
+        Some(ShapeRequest {
+            led: crate::tuning::landing::FieldLed { scale: 1.0, ..led },
+            coil: f.coil,
+            tank: self.inputs.tank,
+            range: self.uncalibrated_sweeps.length_range_swept(),
+        })
+    }
+
+    /// Take the worker's answer for the "before calibration" curve's shape; true if the
+    /// curve changed.
+    pub fn set_uncalibrated_shape(&mut self, answer: Option<&ShapeResult>) -> bool {
+        let wanted = self.uncalibrated_shape_request();
+        let shape = answer
+            .filter(|a| Some(a.request) == wanted)
+            .and_then(|a| Some((a.request, a.shape.clone()?)));
+        if shape == self.uncalibrated_shape {
+            return false;
+        }
+        self.uncalibrated_shape = shape;
+        self.refresh_sweeps();
+        true
+    }
+
+    /// Whether the "before calibration" curve is on the field shape.
+    pub fn uncalibrated_field_shaped(&self) -> bool {
+        self.uncalibrated_shape.is_some()
     }
 
     /// What the charts' field shape is to be solved for: the figures shown when the field
@@ -188,7 +262,7 @@ impl Evaluation {
     /// Whether the charts draw the field shape (else the classical shape through the
     /// present coil: the field solution is off, pending or failed along the chart).
     pub fn field_shaped(&self) -> bool {
-        self.shape.is_some()
+        self.drawn_shape().is_some()
     }
 
     /// What the figures take from the field solution on `footing`, given the worker's
@@ -239,6 +313,17 @@ impl Evaluation {
         });
         if still != Some(true) {
             self.shape = None;
+        }
+        let still = self.current.as_ref().ok().and_then(|f| {
+            let (r, _) = self.uncalibrated_shape.as_ref()?;
+            Some(
+                f.led.map(|l| l.conditions) == Some(r.led.conditions)
+                    && f.coil == r.coil
+                    && self.inputs.tank == r.tank,
+            )
+        });
+        if still != Some(true) {
+            self.uncalibrated_shape = None;
         }
         self.refresh_sweeps();
         self.refresh_expectation(recipe);

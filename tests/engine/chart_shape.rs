@@ -15,7 +15,8 @@ use tankwright::model::{Coil, Tank};
 use tankwright::recipe::{BenchEntry, Recipe, figures};
 use tankwright::tuning::landing::{FieldLed, chart_shape};
 use tankwright::tuning::sweep::{
-    CHART_SETTINGS, chart_length_range, spacing_sweep, spacing_sweep_on, trimmer_sweep_on,
+    CHART_SETTINGS, chart_length_range, spacing_sweep, spacing_sweep_on, teaching_range,
+    trimmer_sweep_on,
 };
 
 /// The chart's stated accuracy against exact field solves, hertz.
@@ -217,5 +218,65 @@ fn the_hand_out_charts_draw_the_field_shape() {
                 p.1
             );
         }
+    }
+}
+
+/// Issue 20: the teaching bench's sweep and captions on the field shape. The bench shows the
+/// coil at each length of its sweep ([`teaching_range`]) with a hand's 0–2 pF on the stray
+/// (common practice: 1–2 pF), its figures on the charts' own shape (the window's, over
+/// [`chart_length_range`], which holds every length the sweep reaches): the frequency every
+/// caption names through `Shape::conditions_at`, the trimmer's travel the capacitance
+/// caption names read off the shape at the travel's ends. Held to exact field solves of each
+/// coil ([`FieldLed::resonance`]) within the chart's stated 5 kHz. The classical shape
+/// through the present coil, which the bench drew before, is printed for comparison.
+#[test]
+fn the_teaching_sweep_follows_exact_field_solves() {
+    use tankwright::model::evaluate::resonance_of;
+    for (lead, setting, scale) in [(5e-3, 0.5, 1.0), (25e-3, 0.3, 1.0), (5e-3, 0.5, 1.04)] {
+        let (r, coil) = demo_with(lead, setting);
+        let led = FieldLed {
+            conditions: r.conditions,
+            scale,
+        };
+        let range = teaching_range(&coil);
+        let chart = chart_length_range(&coil);
+        assert!(
+            chart.0 <= range.0 && range.1 <= chart.1,
+            "{range:?} {chart:?}"
+        );
+        let shape = chart_shape(&led, &coil, &r.tank, chart).expect("the shape solves");
+        let (present, _) = led
+            .conditions_at(&coil, r.tank.external_capacitance())
+            .expect("solves");
+        let (mut worst, mut worst_held) = (0.0_f64, 0.0_f64);
+        for &l in &probes(range, 23) {
+            let c = coil.with_length(l).expect("valid");
+            for hand in [0.0, 1e-12, 2e-12] {
+                let tank = Tank {
+                    stray: r.tank.stray + hand,
+                    ..r.tank
+                };
+                let ext = tank.external_capacitance();
+                let exact = led.resonance(&c, ext).expect("solves");
+                let shown = resonance_of(&c, ext, &shape.conditions_at(l, ext));
+                worst = worst.max((shown - exact).abs());
+                worst_held = worst_held.max((resonance_of(&c, ext, &present) - exact).abs());
+                for end in [0.0, 1.0] {
+                    let ext = tank.external_capacitance_at(end);
+                    let exact = led.resonance(&c, ext).expect("solves");
+                    worst = worst.max((shape.resonance_at(&coil, l, ext) - exact).abs());
+                }
+            }
+        }
+        eprintln!(
+            "teaching sweep, leads {:.0} mm, trimmer {:.0} %, scale {scale}: within {:.2} kHz of \
+             exact field solves (classical shape through the present coil: {:.0} kHz)",
+            lead * 1e3,
+            setting * 100.0,
+            worst * 1e-3,
+            worst_held * 1e-3
+        );
+        assert!(worst <= CHART_ACCURACY, "{:.2} kHz", worst * 1e-3);
+        assert!(worst_held > 10.0 * worst, "{worst_held} against {worst}");
     }
 }

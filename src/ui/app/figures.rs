@@ -31,7 +31,26 @@ impl App {
         // Then the charts' field shape for the figures now shown.
         self.shape.ask(self.evaluation.shape_request(), ctx);
         self.shape.poll();
-        self.evaluation.set_shape(self.shape.ready()) || changed
+        let shaped = self.evaluation.set_shape(self.shape.ready());
+        // And the "before calibration" curve's, while the figures are calibrated.
+        self.uncalibrated_shape
+            .ask(self.evaluation.uncalibrated_shape_request(), ctx);
+        self.uncalibrated_shape.poll();
+        let before = self
+            .evaluation
+            .set_uncalibrated_shape(self.uncalibrated_shape.ready());
+        shaped || before || changed
+    }
+
+    /// Whether the "before calibration" curve is on the field shape (for tests).
+    pub fn uncalibrated_curve_field_shaped(&self) -> bool {
+        self.evaluation.uncalibrated_field_shaped()
+    }
+
+    /// The "before calibration" sweeps as drawn, while the figures are calibrated (for
+    /// tests).
+    pub fn uncalibrated_chart_sweeps(&self) -> Option<&crate::ui::charts::ChartCache> {
+        self.evaluation.uncalibrated_sweeps()
     }
 
     /// Whether the charts draw the field shape (for tests and captures).

@@ -65,6 +65,9 @@ pub struct App {
     field: crate::ui::field_worker::FieldWorker,
     /// The charts' field shape, computed off the frame once the field solution leads.
     shape: crate::ui::field_worker::ShapeWorker,
+    /// The "before calibration" curve's field shape, computed off the frame while the figures
+    /// are calibrated.
+    uncalibrated_shape: crate::ui::field_worker::ShapeWorker,
     /// The teaching bench (shows a derived copy of the recipe; never changes it).
     teaching: crate::ui::teaching::Teaching,
     /// Design from the parts on hand (issue 23).
@@ -142,6 +145,7 @@ impl App {
             evaluation: Evaluation::new(&recipe, FieldInput::Unsolved(Unled::Pending)),
             field: Default::default(),
             shape: Default::default(),
+            uncalibrated_shape: Default::default(),
             recipe,
             preferences: Preferences::default(),
             history: History::default(),

@@ -59,6 +59,9 @@ pub struct Moment {
     pub hand: f64,
     /// The resonance without the hand, hertz (the bench's figure before the hand came).
     pub without_hand: Option<f64>,
+    /// The trimmer's travel at this coil on the field shape (low, high hertz), when the
+    /// field solution leads; `None`: the figures' own window.
+    pub travel: Option<(f64, f64)>,
 }
 
 /// The caption that fits the moment: the hand while it is held, touching turns at the
@@ -115,7 +118,7 @@ fn topic_caption(
         ),
         Topic::Capacitance => {
             let tank = &shown.tank;
-            let (low, high) = shown.target.window;
+            let (low, high) = moment.travel.unwrap_or(shown.target.window);
             format!(
                 "The trimmer ({:.1} pF at {:.0} %), the fixed capacitor ({:.1} pF) and the \
                  stray ({:.1} pF) sit across the coil beside its own {:.2} pF: {:.2} pF in all. \
@@ -221,6 +224,7 @@ mod tests {
             hand_held: false,
             hand: 1e-12,
             without_hand: None,
+            travel: None,
         };
         let unit = LengthUnit::Millimetres;
         let spacing = caption(Topic::Spacing, &shown, &moment, unit);
@@ -251,6 +255,7 @@ mod tests {
             hand_held: false,
             hand: 1e-12,
             without_hand: None,
+            travel: None,
         };
         assert!(demo.analysis.resonance < 108e6);
         let text = caption(Topic::Spacing, &demo, &at_rest, unit);
@@ -269,6 +274,7 @@ mod tests {
             hand_held: true,
             hand: 1e-12,
             without_hand: Some(demo.analysis.resonance + 3.07e6),
+            travel: None,
         };
         let text = caption(Topic::Hand, &demo, &held, unit);
         assert!(text.contains("the hand's own shift: -3.070 MHz"), "{text}");

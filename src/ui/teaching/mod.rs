@@ -24,6 +24,7 @@ pub mod sweep;
 
 use crate::model::Coil;
 use crate::recipe::{FieldInput, Figures, Footing, Recipe, Unled};
+use crate::tuning::landing::Shape;
 
 use crate::ui::charts::ChartOverlay;
 use crate::ui::evaluation::Evaluation;
@@ -62,6 +63,9 @@ pub struct Teaching {
     display: Option<Evaluation>,
     /// The last step or drag asked for a ghost whatever the time since the last change.
     discrete: bool,
+    /// The trimmer's travel at the demonstrated coil on the window's field shape (low, high
+    /// hertz; `None` on the classical shape): what the capacitance caption names.
+    travel: Option<(f64, f64)>,
 }
 
 impl Teaching {
@@ -188,22 +192,46 @@ impl Teaching {
             self.length = Some(self.sweep.advance(from, sweep::range(&coil), dt));
             ctx.request_repaint();
         }
-        self.refresh(ctx, recipe, base_figures);
+        self.refresh(ctx, recipe, base_figures, base.shape());
     }
 
-    /// Recompute the derived copy and follow its changes with the ghost.
-    fn refresh(&mut self, ctx: &egui::Context, recipe: &Recipe, base: &Figures) {
-        let derived = derive(recipe, base, self.length, self.hand.added());
-        // The derived copy carries the recipe's driving conditions, with the field solution's
-        // factor on the inductance already in them: nothing more to apply.
+    /// Recompute the derived copy and follow its changes with the ghost. `shape`: the
+    /// window's field shape (`None` while the classical model leads or it is being solved),
+    /// which the derived copy's figures, charts and the travel its captions name are read
+    /// from at the demonstrated length.
+    fn refresh(
+        &mut self,
+        ctx: &egui::Context,
+        recipe: &Recipe,
+        base: &Figures,
+        shape: Option<&Shape>,
+    ) {
+        let derived = derive(recipe, base, self.length, self.hand.added(), shape);
+        // The derived copy carries the driving conditions, with the field solution's factor
+        // on the inductance already in them (the shape's at its length): nothing more to
+        // apply.
         let field = || FieldInput::Unsolved(Unled::Carried);
-        let changed = match &mut self.display {
+        let mut changed = match &mut self.display {
             Some(display) => display.refresh(&derived, field()),
             None => {
                 self.display = Some(Evaluation::new(&derived, field()));
                 true
             }
         };
+        if let Some(display) = &mut self.display {
+            changed |= display.lend_shape(shape);
+        }
+        self.travel = shape.and_then(|shape| {
+            let coil = crate::model::Coil::from_winding(&derived.winding).ok()?;
+            let at = |s: f64| {
+                shape.resonance_at(
+                    &coil,
+                    coil.length(),
+                    derived.tank.external_capacitance_at(s),
+                )
+            };
+            Some((at(1.0), at(0.0)))
+        });
         if changed {
             ctx.request_repaint();
         }
@@ -219,8 +247,8 @@ impl Teaching {
 
     /// After the panels: bring the derived copy up to what they changed this frame.
     pub fn settle(&mut self, ctx: &egui::Context, recipe: &Recipe, base: &Evaluation) {
-        if let (true, Some(base)) = (self.on, base.latest()) {
-            self.refresh(ctx, recipe, base);
+        if let (true, Some(figures)) = (self.on, base.latest()) {
+            self.refresh(ctx, recipe, figures, base.shape());
         }
     }
 
@@ -302,18 +330,31 @@ impl Teaching {
 /// The recipe as the bench shows it: its winding at `length` (when given), the tank and
 /// conditions that drive its figures (calibrated when there are readings, so that the hand is
 /// added after the calibration and not fitted away) with `hand` farads more stray, and no
-/// readings of its own.
-pub fn derive(recipe: &Recipe, base: &Figures, length: Option<f64>, hand: f64) -> Recipe {
+/// readings of its own. With the window's field `shape`, the conditions carry the shape's
+/// factor at that length and capacitance (`Shape::conditions_at`: within the chart's 5 kHz
+/// of exact field solves over the sweep, tests/engine/chart_shape.rs), else the figures'
+/// factor solved at the recipe's own coil.
+pub fn derive(
+    recipe: &Recipe,
+    base: &Figures,
+    length: Option<f64>,
+    hand: f64,
+    shape: Option<&Shape>,
+) -> Recipe {
     let mut winding = recipe.winding;
     if let Some(length) = length {
         crate::ui::panels::winding::set_length(&mut winding, &base.coil, length);
     }
     let mut tank = base.tank;
     tank.stray += hand;
+    let conditions = match (shape, Coil::from_winding(&winding)) {
+        (Some(shape), Ok(coil)) => shape.conditions_at(coil.length(), tank.external_capacitance()),
+        _ => base.conditions,
+    };
     Recipe {
         winding,
         tank,
-        conditions: base.conditions,
+        conditions,
         bench_log: Vec::new(),
         ..recipe.clone()
     }

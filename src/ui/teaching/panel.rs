@@ -185,6 +185,7 @@ pub(super) fn show(
                     .map(|g| g.resonance)
             })
             .flatten(),
+        travel: teaching.travel,
     };
     let followed = captions::follow(&shown, &moment);
     let topic = teaching.topic.unwrap_or(followed);

@@ -19,13 +19,11 @@ pub const SECONDS_RANGE: (f64, f64) = (4.0, 60.0);
 /// Longest frame the sweep moves through at once, seconds (a stalled frame does not jump).
 const LONGEST_FRAME: f64 = 0.25;
 
-/// The lengths the sweep runs between, metres: the coil's shortest buildable length
-/// (close-wound; bare wire keeps its minimum gap) to the longest a solver proposes, widened
-/// to hold the coil's own length.
+/// The lengths the sweep runs between, metres ([`crate::tuning::sweep::teaching_range`]: the
+/// coil's shortest buildable length to the longest a solver proposes, widened to hold the
+/// coil's own length).
 pub fn range(coil: &Coil) -> (f64, f64) {
-    let lo = coil.shortest_length();
-    let hi = coil.longest_proposed_length().max(coil.length()).max(lo);
-    (lo, hi)
+    crate::tuning::sweep::teaching_range(coil)
 }
 
 /// The sweep's state.
