@@ -83,6 +83,9 @@ pub struct Evaluation {
     /// The field shape of the model before the bench readings (scale 1 on the field
     /// solution, the recipe's tank), for the "before calibration" curve.
     uncalibrated_shape: Option<(ShapeRequest, Shape)>,
+    /// The classical formulas' sweeps (no field solution's factor), drawn dotted for
+    /// comparison while the charts are on the field shape.
+    classical_sweeps: ChartCache,
     /// A shape lent by another evaluation whose coil this one shows at another length (the
     /// teaching bench's derived copy draws on the window's shape).
     lent_shape: Option<Shape>,
@@ -105,6 +108,7 @@ impl Evaluation {
             shape: None,
             uncalibrated_shape: None,
             lent_shape: None,
+            classical_sweeps: ChartCache::default(),
         };
         evaluation.refresh_sweeps();
         evaluation.refresh_expectation(recipe);
@@ -158,6 +162,10 @@ impl Evaluation {
                 .or(self.lent_shape.as_ref());
             self.sweeps
                 .refresh_on(&f.coil, &f.tank, &f.conditions, shape);
+            if self.shape.is_some() {
+                self.classical_sweeps
+                    .refresh(&f.coil, &f.tank, &self.inputs.conditions);
+            }
             if f.calibrated() {
                 self.uncalibrated_sweeps.refresh_on(
                     &f.coil,
@@ -175,6 +183,23 @@ impl Evaluation {
             .as_ref()
             .map(|(_, s)| s)
             .or(self.lent_shape.as_ref())
+    }
+
+    /// The classical formulas' curves for comparison (the recipe's own conditions, no field
+    /// solution's factor, on the tank the figures drive), while the charts draw the field
+    /// shape solved for these figures.
+    pub fn classical_comparison(&self) -> Option<crate::ui::charts::ClassicalComparison<'_>> {
+        let f = self.current.as_ref().ok()?;
+        self.shape.as_ref()?;
+        let coil = &f.coil;
+        Some(crate::ui::charts::ClassicalComparison {
+            cache: &self.classical_sweeps,
+            here: crate::model::evaluate::resonance_of(
+                coil,
+                f.tank.external_capacitance(),
+                &self.inputs.conditions,
+            ),
+        })
     }
 
     /// The field shape the charts draw (the worker's answer for the figures shown), for a

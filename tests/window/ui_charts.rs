@@ -212,6 +212,7 @@ fn chart_harness(axis: SpacingAxis) -> Harness<'static, ChartState> {
                 let analysis = evaluate_coil(&s.coil, s.tank.external_capacitance(), &s.conditions);
                 let view = ChartView {
                     uncalibrated: None,
+                    classical: None,
                     readings: &[],
                     cache: &s.cache,
                     coil: &s.coil,
@@ -318,6 +319,7 @@ fn charts_draw_before_the_first_refresh() {
         .build_ui(move |ui| {
             let view = ChartView {
                 uncalibrated: None,
+                classical: None,
                 readings: &[],
                 cache: &cache,
                 coil: &coil,
@@ -506,6 +508,7 @@ fn hover_reads_the_curves_at_the_pointers_length() {
     ] {
         let view = ChartView {
             uncalibrated: None,
+            classical: None,
             readings: &[],
             cache: &cache,
             coil: &coil,

@@ -42,6 +42,11 @@ impl App {
         shaped || before || changed
     }
 
+    /// The classical formulas' comparison the charts draw (for tests).
+    pub fn classical_comparison(&self) -> Option<crate::ui::charts::ClassicalComparison<'_>> {
+        self.evaluation.classical_comparison()
+    }
+
     /// Whether the "before calibration" curve is on the field shape (for tests).
     pub fn uncalibrated_curve_field_shaped(&self) -> bool {
         self.evaluation.uncalibrated_field_shaped()

@@ -80,10 +80,39 @@ pub fn spacing_text(view: &ChartView<'_>, x: f64) -> String {
             ));
         }
     }
+    if let Some(classical) = view.classical
+        && let Some(curve) = classical
+            .cache
+            .spacing_curve_nearest(view.tank.trimmer_setting)
+        && let Some(hz) = value_at(&curve.points, length)
+    {
+        let field = view
+            .cache
+            .spacing_curve_nearest(curve.setting)
+            .and_then(|c| value_at(&c.points, length));
+        lines.push(classical_line(
+            &format!("{:.0} %", curve.setting * 100.0),
+            hz,
+            field,
+        ));
+    }
     if !any {
         lines.push("beyond the lengths swept".to_owned());
     }
     lines.join("\n")
+}
+
+/// The classical comparison's hover line: "textbook formulas (Nagaoka/Wheeler), 50 %:
+/// 99.123 MHz (+1.234 MHz from the field solution)".
+fn classical_line(at: &str, hz: f64, field: Option<f64>) -> String {
+    let diff = field.map_or(String::new(), |f| {
+        format!(" ({} from the field solution)", digits::offset(hz - f))
+    });
+    format!(
+        "{}, {at}: {}{diff}",
+        super::CLASSICAL_CURVE_LABEL,
+        digits::mhz(hz)
+    )
 }
 
 /// The trimmer chart's hover text at plot x `x` (percent): the setting, then the resonance
@@ -91,9 +120,15 @@ pub fn spacing_text(view: &ChartView<'_>, x: f64) -> String {
 pub fn trimmer_text(view: &ChartView<'_>, x: f64) -> String {
     let setting = x / 100.0;
     let mut lines = vec![format!("trimmer {} %", digits::fixed(x, 1))];
-    match value_at(view.cache.trimmer_curve(), setting) {
+    let field = value_at(view.cache.trimmer_curve(), setting);
+    match field {
         Some(hz) => lines.push(format!("resonance {}", digits::mhz(hz))),
         None => lines.push("outside the trimmer's travel".to_owned()),
+    }
+    if let Some(classical) = view.classical
+        && let Some(hz) = value_at(classical.cache.trimmer_curve(), setting)
+    {
+        lines.push(classical_line("this spacing", hz, field));
     }
     lines.join("\n")
 }

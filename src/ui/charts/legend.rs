@@ -3,7 +3,7 @@
 //! half the curves). Entries wrap onto as many rows as the width needs.
 
 use super::palette;
-use super::{AERONAUTICAL, AERONAUTICAL_BAND_LABEL, ChartView};
+use super::{AERONAUTICAL, AERONAUTICAL_BAND_LABEL, CLASSICAL_CURVE_LABEL, ChartView};
 use eframe::egui::{self, Color32};
 
 /// How an entry's swatch is drawn.
@@ -13,6 +13,8 @@ pub enum Swatch {
     Line(Color32),
     /// A dashed line.
     Dashed(Color32),
+    /// A dotted line.
+    Dotted(Color32),
     /// A shaded band.
     Band(Color32),
     /// A point.
@@ -97,6 +99,14 @@ fn paint_swatch(p: &egui::Painter, rect: egui::Rect, swatch: Swatch) {
                 2.0,
             ));
         }
+        Swatch::Dotted(c) => {
+            p.add(egui::Shape::dotted_line(
+                &[egui::pos2(l, mid), egui::pos2(r, mid)],
+                c,
+                3.0,
+                1.0,
+            ));
+        }
         Swatch::Band(c) => {
             p.rect_filled(rect.shrink2(egui::vec2(1.0, 2.0)), 1.0, c);
         }
@@ -158,6 +168,20 @@ fn shared(view: &ChartView<'_>, y_mhz: (f64, f64), readings: bool) -> Vec<Entry>
     out
 }
 
+/// The classical comparison's entry, with how far the classical formulas put this coil from
+/// the field solution: "textbook formulas (Nagaoka/Wheeler): +1.234 MHz from the field
+/// solution here" (dotted).
+pub fn classical_entry(view: &ChartView<'_>) -> Option<Entry> {
+    let c = view.classical?;
+    Some(Entry::new(
+        format!(
+            "{CLASSICAL_CURVE_LABEL}: {} from the field solution here",
+            crate::tuning::digits::offset(c.here - view.resonance_hz)
+        ),
+        Swatch::Dotted(palette::CLASSICAL),
+    ))
+}
+
 /// The spacing chart's legend for a frequency axis of `y_mhz`.
 pub fn spacing_entries(
     view: &ChartView<'_>,
@@ -181,6 +205,7 @@ pub fn spacing_entries(
             Swatch::Dashed(palette::UNCALIBRATED),
         ));
     }
+    out.extend(classical_entry(view));
     // The teaching bench's ghost and pinned reference, by the names they carry.
     out.extend(
         view.overlays
@@ -206,6 +231,7 @@ pub fn trimmer_entries(
         ),
         Entry::new("this setting", Swatch::Point(palette::PRESENT)),
     ];
+    out.extend(classical_entry(view));
     out.extend(shared(view, y_mhz, readings));
     out
 }

@@ -59,12 +59,30 @@ pub struct ReadingMark {
     pub measured: f64,
 }
 
+/// Name of the classical comparison curve (our own words for the shape the classical formulas
+/// give: Nagaoka's coefficient, or its short form by Wheeler, with Rosa's corrections and the
+/// leads; the driving model of [`crate::model::InductanceModel`]).
+pub const CLASSICAL_CURVE_LABEL: &str = "textbook formulas (Nagaoka/Wheeler)";
+
+/// The classical comparison the charts draw once the field shape is shown.
+#[derive(Clone, Copy)]
+pub struct ClassicalComparison<'a> {
+    /// The classical formulas' sweeps for the same coil and tank, without the field
+    /// solution's factor.
+    pub cache: &'a ChartCache,
+    /// Their resonance at the present coil and setting, hertz.
+    pub here: f64,
+}
+
 /// Everything the charts draw from (borrowed; drawing never changes the model).
 pub struct ChartView<'a> {
     /// Sweeps computed for `coil` and `tank` by [`ChartCache::refresh`].
     pub cache: &'a ChartCache,
     /// The uncalibrated model's sweeps, when the figures are calibrated on bench readings.
     pub uncalibrated: Option<&'a ChartCache>,
+    /// The classical formulas' curves for comparison, while the curves are on the field
+    /// shape.
+    pub classical: Option<ClassicalComparison<'a>>,
     /// The bench readings, drawn as points.
     pub readings: &'a [ReadingMark],
     /// The present coil.
@@ -146,6 +164,8 @@ pub(crate) mod palette {
     pub const READING: Color32 = egui(crate::palette::READING);
     /// The model before calibration.
     pub const UNCALIBRATED: Color32 = egui(crate::palette::UNCALIBRATED);
+    /// The classical formulas' comparison curve.
+    pub const CLASSICAL: Color32 = egui(crate::palette::CLASSICAL);
     /// The target channel.
     pub const TARGET: Color32 = egui(crate::palette::TARGET);
     /// The aeronautical band: a warning red of our own, readable on both themes.

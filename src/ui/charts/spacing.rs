@@ -1,8 +1,8 @@
 //! Resonance against spacing, one curve per trimmer setting.
 
 use super::{
-    ChartView, aeronautical_band, held_bounds, hover, legend, palette, pointer_x, present_marker,
-    reading_points, still_plot, target_channel,
+    CLASSICAL_CURVE_LABEL, ChartView, aeronautical_band, held_bounds, hover, legend, palette,
+    pointer_x, present_marker, reading_points, still_plot, target_channel,
 };
 use crate::tuning::sweep::SpacingCurve;
 use eframe::egui;
@@ -95,6 +95,26 @@ pub fn spacing_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
                     .width(1.4),
                 );
             }
+        }
+        if let Some(classical) = view.classical
+            && let Some(curve) = classical
+                .cache
+                .spacing_curve_nearest(view.tank.trimmer_setting)
+        {
+            let points: PlotPoints<'_> = curve
+                .points
+                .iter()
+                .map(|p| [view.x_of_length(p[0]), p[1] * 1e-6])
+                .collect();
+            plot_ui.line(
+                Line::new(
+                    format!("{CLASSICAL_CURVE_LABEL}, {:.0} %", curve.setting * 100.0),
+                    points,
+                )
+                .color(palette::CLASSICAL)
+                .style(LineStyle::dotted_dense())
+                .width(1.4),
+            );
         }
         super::overlay::draw(plot_ui, view);
         reading_points(plot_ui, view, |r| view.x_of_length(r.length));

@@ -1,8 +1,8 @@
 //! Resonance against trimmer setting at the present spacing.
 
 use super::{
-    ChartView, aeronautical_band, held_bounds, hover, legend, palette, pointer_x, present_marker,
-    reading_points, still_plot, target_channel,
+    CLASSICAL_CURVE_LABEL, ChartView, aeronautical_band, held_bounds, hover, legend, palette,
+    pointer_x, present_marker, reading_points, still_plot, target_channel,
 };
 use eframe::egui;
 use egui_plot::{Line, PlotPoints};
@@ -49,6 +49,20 @@ pub fn trimmer_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
                 .color(palette::trimmer(&visuals, 0.5))
                 .width(1.8),
         );
+        if let Some(classical) = view.classical {
+            let points: PlotPoints<'_> = classical
+                .cache
+                .trimmer_curve()
+                .iter()
+                .map(|p| [p[0] * 100.0, p[1] * 1e-6])
+                .collect();
+            plot_ui.line(
+                Line::new(CLASSICAL_CURVE_LABEL, points)
+                    .color(palette::CLASSICAL)
+                    .style(egui_plot::LineStyle::dotted_dense())
+                    .width(1.4),
+            );
+        }
         target_channel(plot_ui, view);
         aeronautical_band(plot_ui, (bounds[2], bounds[3]));
         let at_length = ChartView {

@@ -73,6 +73,7 @@ pub fn show(
     let view = ChartView {
         cache: evaluation.sweeps(),
         uncalibrated: evaluation.uncalibrated_sweeps(),
+        classical: evaluation.classical_comparison(),
         readings: &readings,
         coil: &figures.coil,
         tank: &figures.tank,
