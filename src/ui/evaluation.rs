@@ -25,7 +25,7 @@ use crate::tuning::field_tank::FieldTank;
 use crate::tuning::landing::Shape;
 use crate::ui::charts::ChartCache;
 use crate::ui::charts::modulation::ModulationSweeps;
-use crate::ui::field_worker::{ShapeRequest, ShapeResult};
+use crate::ui::field_worker::{FiguresRequest, FiguresResult, ShapeRequest, ShapeResult};
 
 /// Inputs the figures were computed from.
 #[derive(Clone, PartialEq)]
@@ -83,6 +83,9 @@ pub struct Evaluation {
     /// The field shape of the model before the bench readings (scale 1 on the field
     /// solution, the recipe's tank), for the "before calibration" curve.
     uncalibrated_shape: Option<(ShapeRequest, Shape)>,
+    /// The figures asked of the figures worker, while those shown hold the field solution's
+    /// factor at the present coil ([`FieldInput::Held`]) until they arrive.
+    pending: Option<FiguresRequest>,
     /// The classical formulas' sweeps (no field solution's factor), drawn dotted for
     /// comparison while the charts are on the field shape.
     classical_sweeps: ChartCache,
@@ -109,6 +112,7 @@ impl Evaluation {
             uncalibrated_shape: None,
             lent_shape: None,
             classical_sweeps: ChartCache::default(),
+            pending: None,
         };
         evaluation.refresh_sweeps();
         evaluation.refresh_expectation(recipe);
@@ -226,7 +230,15 @@ impl Evaluation {
     /// calibrated and the field solution leads.
     pub fn uncalibrated_shape_request(&self) -> Option<ShapeRequest> {
         let f = self.current.as_ref().ok().filter(|f| f.calibrated())?;
-        let led = f.led?;
+        let Some(led) = f.led else {
+            // Kept for this coil and tank while the figures are being landed.
+            return self
+                .uncalibrated_shape
+                .as_ref()
+                .filter(|_| self.pending.is_some())
+                .map(|(r, _)| *r)
+                .filter(|r| r.coil == f.coil && r.tank == self.inputs.tank);
+        };
         Some(ShapeRequest {
             led: crate::tuning::landing::FieldLed { scale: 1.0, ..led },
             coil: f.coil,
@@ -260,12 +272,22 @@ impl Evaluation {
     /// is held, or the recipe is refused).
     pub fn shape_request(&self) -> Option<ShapeRequest> {
         let f = self.current.as_ref().ok()?;
-        Some(ShapeRequest {
-            led: f.led?,
-            coil: f.coil,
-            tank: f.tank,
-            range: self.sweeps.length_range_swept(),
-        })
+        match f.led {
+            Some(led) => Some(ShapeRequest {
+                led,
+                coil: f.coil,
+                tank: f.tank,
+                range: self.sweeps.length_range_swept(),
+            }),
+            // While the figures are being landed, the shape already drawn for this coil and
+            // tank is kept (a change of the target alone needs no new shape).
+            None if self.pending.is_some() => self
+                .shape
+                .as_ref()
+                .map(|(r, _)| *r)
+                .filter(|r| r.coil == f.coil && r.tank == f.tank),
+            None => None,
+        }
     }
 
     /// Take the shape worker's answer: the charts are redrawn on it when it is for the
@@ -323,36 +345,85 @@ impl Evaluation {
             return false;
         }
         let inputs = Inputs::of(recipe, field.clone());
-        let next = figures_with(recipe, field);
+        // A field solution's answer lands every figure away from the present coil on field
+        // solves: too long for a frame, so the figures worker computes them while the figures
+        // shown hold the answer's factor at the present coil (exact there).
+        self.pending = None;
+        let next = match held_meanwhile(recipe, &field) {
+            Some(held) => {
+                self.pending = Some(FiguresRequest {
+                    recipe: recipe.clone(),
+                    field,
+                });
+                figures_with(recipe, held)
+            }
+            None => figures_with(recipe, field),
+        };
+        self.inputs = inputs;
+        self.install(next, recipe);
+        true
+    }
+
+    /// The figures to ask the figures worker for (`None`: the figures shown are complete).
+    pub fn figures_request(&self) -> Option<FiguresRequest> {
+        self.pending.clone()
+    }
+
+    /// Whether the figures shown hold the field solution's factor while the worker computes
+    /// them on it (the window marks them "updating").
+    pub fn is_updating(&self) -> bool {
+        self.pending.is_some()
+    }
+
+    /// Take the figures worker's answer: shown when it is for the figures asked (a stale
+    /// one is dropped); true if the figures changed.
+    pub fn set_figures(&mut self, answer: Option<&FiguresResult>) -> bool {
+        let Some(answer) = answer else {
+            return false;
+        };
+        let Some(pending) = &self.pending else {
+            return false;
+        };
+        if !same(&answer.request.recipe, &pending.recipe) || answer.request.field != pending.field {
+            return false;
+        }
+        self.pending = None;
+        let recipe = answer.request.recipe.clone();
+        self.install(answer.figures.clone(), &recipe);
+        true
+    }
+
+    /// Show `next` as the figures of `recipe`: the last good ones kept while it is refused,
+    /// shapes solved for other figures dropped, the sweeps and expectation brought up to it.
+    fn install(&mut self, next: Result<Figures, InputError>, recipe: &Recipe) {
         let previous = std::mem::replace(&mut self.current, next);
         match (&self.current, previous) {
             (Ok(_), _) => self.last_good = None,
             (Err(_), Ok(good)) => self.last_good = Some(good),
             (Err(_), Err(_)) => {}
         }
-        self.inputs = inputs;
         // A shape solved for other figures is dropped (the worker is asked again).
         let still = self.current.as_ref().ok().and_then(|f| {
             let (r, _) = self.shape.as_ref()?;
-            Some(f.led == Some(r.led) && f.coil == r.coil && f.tank == r.tank)
+            let led = f.led == Some(r.led) || (f.led.is_none() && self.pending.is_some());
+            Some(led && f.coil == r.coil && f.tank == r.tank)
         });
         if still != Some(true) {
             self.shape = None;
         }
         let still = self.current.as_ref().ok().and_then(|f| {
             let (r, _) = self.uncalibrated_shape.as_ref()?;
-            Some(
-                f.led.map(|l| l.conditions) == Some(r.led.conditions)
-                    && f.coil == r.coil
-                    && self.inputs.tank == r.tank,
-            )
+            let led = match f.led {
+                Some(l) => l.conditions == r.led.conditions,
+                None => self.pending.is_some(),
+            };
+            Some(led && f.coil == r.coil && self.inputs.tank == r.tank)
         });
         if still != Some(true) {
             self.uncalibrated_shape = None;
         }
         self.refresh_sweeps();
         self.refresh_expectation(recipe);
-        true
     }
 
     /// Where the build can be expected to land (the stray estimate, the spread before any
@@ -414,5 +485,25 @@ impl Evaluation {
     /// Channels of the recipe's band plan, hertz, ascending.
     pub fn channels(&self) -> &[f64] {
         &self.channels
+    }
+}
+
+/// What the figures take from the field solution while the figures worker lands them on
+/// `field` (`None`: nothing to wait for, compute them at once): for a solution of this coil
+/// that the model meets, its factor at the present coil, held (the present coil's figures
+/// are then the field solution's, every figure away from it on that one factor).
+fn held_meanwhile(recipe: &Recipe, field: &FieldInput) -> Option<FieldInput> {
+    if !matches!(field, FieldInput::Solved(Ok(_))) {
+        return None;
+    }
+    let coil = crate::model::Coil::from_winding(&recipe.winding).ok()?;
+    match FieldBasis::of(
+        &coil,
+        recipe.tank.external_capacitance(),
+        &recipe.conditions,
+        field.clone(),
+    ) {
+        FieldBasis::Solved { scale, .. } => Some(FieldInput::Held(scale)),
+        _ => None,
     }
 }

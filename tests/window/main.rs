@@ -12,6 +12,7 @@ mod ui_design;
 mod ui_export;
 mod ui_field;
 mod ui_field_shape;
+mod ui_figures_worker;
 mod ui_include_reading;
 mod ui_junction_tank;
 mod ui_layout;

@@ -171,7 +171,15 @@ fn another_driving_model_asks_for_nothing_new_and_stays_field_solved() {
     harness.step();
     harness.step();
     // The field solution uses only the temperature: the same answer serves, and the factor
-    // moves the new model onto it in the same frame (no "updating", no other figure).
+    // moves the new model onto it in the same frame (the same resonance at once; the figures
+    // away from the present coil are landed again off the frame, marked "updating" until
+    // then, issue 20).
+    assert_eq!(
+        harness.state().field_solution().map(|r| r.request),
+        Some(asked)
+    );
+    assert_eq!(readout_with_mark(&harness, RESONANCE).0, before.0);
+    wait_for_field(&mut harness);
     assert_eq!(
         harness.state().field_solution().map(|r| r.request),
         Some(asked)
@@ -286,12 +294,13 @@ fn a_kept_measurement_is_drawn_on_the_impedance_chart_and_calibrates() {
         .build_eframe(move |_cc| App::with_recipe(recipe.clone()));
     harness.run();
     // Calibrated by the measurement, the resonance is marked calibrated, not field-solved:
-    // wait for the worker's tank and sweep themselves.
+    // wait for the worker's tank and sweep themselves, and for the figures landed on them.
     let start = Instant::now();
     while harness
         .state()
         .field_solution()
         .is_none_or(|r| r.sweep.is_none())
+        || harness.state().updating()
     {
         assert!(
             start.elapsed() < Duration::from_secs(120),

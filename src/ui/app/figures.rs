@@ -27,7 +27,12 @@ impl App {
         self.field.poll();
         let answer = self.field.ready().map(|a| &a.tank);
         let input = self.evaluation.field_input(footing, answer);
-        let changed = self.evaluation.refresh(recipe, input);
+        let mut changed = self.evaluation.refresh(recipe, input);
+        // The figures on the field solution, landed off the frame (held meanwhile).
+        self.figures_worker
+            .ask(self.evaluation.figures_request(), ctx);
+        self.figures_worker.poll();
+        changed |= self.evaluation.set_figures(self.figures_worker.ready());
         // Then the charts' field shape for the figures now shown.
         self.shape.ask(self.evaluation.shape_request(), ctx);
         self.shape.poll();
@@ -56,6 +61,15 @@ impl App {
     /// tests).
     pub fn uncalibrated_chart_sweeps(&self) -> Option<&crate::ui::charts::ChartCache> {
         self.evaluation.uncalibrated_sweeps()
+    }
+
+    /// Whether anything shown is still being computed off the frame: the field solution, the
+    /// figures landed on it, or the charts' field shape (the window marks it "updating").
+    pub fn updating(&self) -> bool {
+        self.field.is_working()
+            || self.evaluation.is_updating()
+            || self.shape.is_working()
+            || self.uncalibrated_shape.is_working()
     }
 
     /// Whether the charts draw the field shape (for tests and captures).

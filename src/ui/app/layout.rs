@@ -118,6 +118,7 @@ impl App {
 
     /// The top bar: the menus, undo and redo, the unit, the theme and the field solution.
     fn top_bar(&mut self, ui: &mut egui::Ui, commands: &mut Vec<Command>) -> Option<FileAction> {
+        let updating = self.updating();
         let Self {
             recipe,
             preferences,
@@ -136,6 +137,7 @@ impl App {
             unit: preferences.unit,
             theme: preferences.theme,
             field_solution: preferences.field_solution,
+            updating,
         };
         egui::Panel::top("top_bar").show(ui, |ui| {
             top_bar::show(

@@ -68,6 +68,9 @@ pub struct App {
     /// The "before calibration" curve's field shape, computed off the frame while the figures
     /// are calibrated.
     uncalibrated_shape: crate::ui::field_worker::ShapeWorker,
+    /// The figures landed on the field solution, computed off the frame when its answer
+    /// arrives.
+    figures_worker: crate::ui::field_worker::FiguresWorker,
     /// The teaching bench (shows a derived copy of the recipe; never changes it).
     teaching: crate::ui::teaching::Teaching,
     /// Design from the parts on hand (issue 23).
@@ -146,6 +149,7 @@ impl App {
             field: Default::default(),
             shape: Default::default(),
             uncalibrated_shape: Default::default(),
+            figures_worker: Default::default(),
             recipe,
             preferences: Preferences::default(),
             history: History::default(),

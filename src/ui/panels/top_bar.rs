@@ -8,6 +8,10 @@ use eframe::egui;
 /// Shown after the recipe's name in the bar while it has changes not yet saved.
 pub const UNSAVED_MARK: &str = "• unsaved changes";
 
+/// Shown in the bar while figures or curves are being computed off the frame (the figures
+/// shown meanwhile hold the field solution's factor, the curves the classical shape).
+pub const UPDATING_MARK: &str = "updating…";
+
 /// What the bar needs to know to draw itself.
 pub struct BarState<'a> {
     /// The recipe's name, shown in the bar.
@@ -24,6 +28,8 @@ pub struct BarState<'a> {
     pub theme: Theme,
     /// Whether the field solution leads the resonance.
     pub field_solution: bool,
+    /// Whether figures or curves are being computed off the frame.
+    pub updating: bool,
 }
 
 /// The View menu's entry that lets the field solution lead the resonance.
@@ -102,6 +108,14 @@ pub fn show(
         if state.unsaved {
             ui.label(egui::RichText::new(UNSAVED_MARK).italics())
                 .on_hover_text("Recipe → Save keeps them in the recipe's file");
+        }
+        if state.updating {
+            ui.label(egui::RichText::new(UPDATING_MARK).weak().italics())
+                .on_hover_text(
+                    "The field solution, the figures landed on it or the charts' field shape \
+                     for this coil are being computed; meanwhile the figures hold the field \
+                     solution's factor and the curves the classical shape",
+                );
         }
     });
     ui.horizontal(|ui| {
