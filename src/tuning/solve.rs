@@ -7,6 +7,7 @@
 //! every root and bisects each, and proposes the root nearest the present length.
 
 use crate::model::{Coil, Conditions, Tank, evaluate::resonance_of};
+use crate::units::to_mhz;
 use std::fmt;
 
 /// Why no spacing or setting reaches the target.
@@ -38,18 +39,18 @@ impl fmt::Display for Unreachable {
             Unreachable::AboveEvenCloseWound { close_wound } => write!(
                 f,
                 "even at its lowest ({:.3} MHz) the tank resonates above the target: add a turn or capacitance",
-                close_wound * 1e-6
+                to_mhz(*close_wound)
             ),
             Unreachable::BelowEvenStretched { stretched } => write!(
                 f,
                 "even at its highest ({:.3} MHz) the tank resonates below the target: remove a turn or capacitance",
-                stretched * 1e-6
+                to_mhz(*stretched)
             ),
             Unreachable::OutsideTrimmer { low, high } => write!(
                 f,
                 "the trimmer reaches only {:.3}–{:.3} MHz at this spacing",
-                low * 1e-6,
-                high * 1e-6
+                to_mhz(*low),
+                to_mhz(*high)
             ),
         }
     }

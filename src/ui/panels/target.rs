@@ -6,12 +6,13 @@ use crate::recipe::Target;
 use crate::tuning::BandPlan;
 use crate::ui::evaluation::Evaluation;
 use crate::ui::theme;
-use crate::ui::units::{LengthUnit, mhz};
+use crate::ui::units::LengthUnit;
+use crate::units::to_mhz;
 use eframe::egui::{self, RichText};
 
 /// A frequency in MHz with as many decimals as it needs (one at least, four at most).
 pub fn show_mhz(hz: f64) -> String {
-    let text = format!("{:.4}", mhz(hz));
+    let text = format!("{:.4}", to_mhz(hz));
     let trimmed = text.trim_end_matches('0');
     let trimmed = if trimmed.ends_with('.') {
         format!("{trimmed}0")

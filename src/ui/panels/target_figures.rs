@@ -6,8 +6,9 @@ use super::target::show_mhz;
 use crate::recipe::Figures;
 use crate::recipe::Target;
 use crate::ui::theme;
-use crate::ui::units::{LengthUnit, mhz};
+use crate::ui::units::LengthUnit;
 use crate::ui::widgets::{Readout, cautions_line};
+use crate::units::to_mhz;
 use eframe::egui;
 
 /// Channels listed in the hover note of "Channels in reach".
@@ -59,7 +60,7 @@ pub fn show(
             "Model before calibration",
             format!(
                 "{:.3} MHz ({})",
-                mhz(before),
+                to_mhz(before),
                 crate::tuning::digits::offset(before - t.channel)
             ),
             "What the model predicted before the bench readings calibrated it (on the field \
@@ -71,7 +72,7 @@ pub fn show(
     }
     Readout::new(
         "Trimmer reaches",
-        format!("{:.3}–{:.3} MHz", mhz(t.window.0), mhz(t.window.1)),
+        format!("{:.3}–{:.3} MHz", to_mhz(t.window.0), to_mhz(t.window.1)),
         "Resonance with the trimmer at its maximum and at its minimum, at this spacing",
     )
     .show(ui);
