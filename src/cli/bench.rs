@@ -78,12 +78,12 @@ pub fn run_solve(words: Vec<String>) -> Result<String, String> {
         "the classical model (no bench readings yet)".to_owned()
     };
     Ok(format!(
-        "To land {} MHz, by {model}:\n  {advice}\n  coil: {} turns, {:.3} mm long; trimmer at {:.0} %\n  predicted: {:.3} MHz\n",
+        "To land {} MHz, by {model}:\n  {advice}\n  coil: {} turns, {:.3} mm long; trimmer at {:.0} %\n  predicted: {}\n",
         crate::tuning::digits::channel_mhz(f.target.channel),
         p.turns,
         to_mm(p.length),
         p.trimmer_setting * 100.0,
-        to_mhz(predicted)
+        crate::tuning::digits::mhz(predicted)
     ))
 }
 

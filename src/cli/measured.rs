@@ -84,21 +84,21 @@ fn figures_text(out: &mut String, m: &MeasuredCoil) {
     );
     let _ = writeln!(
         out,
-        "  series resistance           {:.4} Ω at {:.3} MHz",
+        "  series resistance           {:.4} Ω at {}",
         m.series_resistance,
-        to_mhz(m.at_frequency)
+        crate::tuning::digits::mhz(m.at_frequency)
     );
     let _ = writeln!(
         out,
-        "  Q                           {:.0} at {:.3} MHz",
+        "  Q                           {:.0} at {}",
         m.q,
-        to_mhz(m.at_frequency)
+        crate::tuning::digits::mhz(m.at_frequency)
     );
     if m.self_resonance.is_finite() {
         let _ = writeln!(
             out,
-            "  self-resonance              {:.2} MHz (from the fitted network)",
-            to_mhz(m.self_resonance)
+            "  self-resonance              {} (from the fitted network)",
+            crate::tuning::digits::mhz_at(m.self_resonance, 2)
         );
     } else {
         let _ = writeln!(
@@ -107,7 +107,11 @@ fn figures_text(out: &mut String, m: &MeasuredCoil) {
         );
     }
     if let Some(f) = m.self_resonance_seen {
-        let _ = writeln!(out, "  reactance crosses zero at   {:.2} MHz", to_mhz(f));
+        let _ = writeln!(
+            out,
+            "  reactance crosses zero at   {}",
+            crate::tuning::digits::mhz_at(f, 2)
+        );
     }
     let _ = writeln!(
         out,
@@ -237,12 +241,11 @@ pub fn run_measured(words: Vec<String>) -> Result<String, String> {
     let mut out = String::new();
     let _ = writeln!(
         out,
-        "{} ({fixture}, {:.0} Ω), {} samples from {:.3} to {:.3} MHz",
+        "{} ({fixture}, {:.0} Ω), {} samples over {}",
         super::clean(file),
         measurement.reference_ohm,
         measurement.samples.len(),
-        to_mhz(from),
-        to_mhz(to)
+        crate::tuning::digits::mhz_range(from, to)
     );
     let _ = writeln!(
         out,

@@ -23,7 +23,7 @@
 
 use super::solve::resonance_at_length;
 use crate::model::{Coil, Conditions, Tank, evaluate::resonance_of};
-use crate::units::{from_ppm, to_khz, to_mhz, to_pf};
+use crate::units::{from_ppm, to_khz, to_pf};
 use std::f64::consts::PI;
 use std::fmt;
 
@@ -193,10 +193,10 @@ impl fmt::Display for FitWarning {
                 left_out,
             } => write!(
                 f,
-                "reading {} is about {ratio} the predicted {:.3} MHz: is this a harmonic, or the \
+                "reading {} is about {ratio} the predicted {}: is this a harmonic, or the \
                  wrong tank?{}",
                 reading + 1,
-                to_mhz(*predicted),
+                super::digits::mhz(*predicted),
                 if *left_out {
                     " It is left out of the calibration."
                 } else {

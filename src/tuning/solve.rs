@@ -7,7 +7,6 @@
 //! every root and bisects each, and proposes the root nearest the present length.
 
 use crate::model::{Coil, Conditions, Tank, evaluate::resonance_of};
-use crate::units::to_mhz;
 use std::fmt;
 
 /// Why no spacing or setting reaches the target.
@@ -38,19 +37,18 @@ impl fmt::Display for Unreachable {
         match self {
             Unreachable::AboveEvenCloseWound { close_wound } => write!(
                 f,
-                "even at its lowest ({:.3} MHz) the tank resonates above the target: add a turn or capacitance",
-                to_mhz(*close_wound)
+                "even at its lowest ({}) the tank resonates above the target: add a turn or capacitance",
+                super::digits::mhz(*close_wound)
             ),
             Unreachable::BelowEvenStretched { stretched } => write!(
                 f,
-                "even at its highest ({:.3} MHz) the tank resonates below the target: remove a turn or capacitance",
-                to_mhz(*stretched)
+                "even at its highest ({}) the tank resonates below the target: remove a turn or capacitance",
+                super::digits::mhz(*stretched)
             ),
             Unreachable::OutsideTrimmer { low, high } => write!(
                 f,
-                "the trimmer reaches only {:.3}–{:.3} MHz at this spacing",
-                to_mhz(*low),
-                to_mhz(*high)
+                "the trimmer reaches only {} at this spacing",
+                super::digits::mhz_range(*low, *high)
             ),
         }
     }
