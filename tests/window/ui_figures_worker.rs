@@ -109,3 +109,36 @@ fn an_answer_for_a_coil_since_changed_is_dropped() {
     assert!(!harness.state().updating());
     agrees_with_headless(&harness);
 }
+
+/// Issue 20: where the field solution leads, the readouts give the coil's self-capacitance
+/// from it (the capacitance that resonates the low-frequency inductance at the field-solved
+/// self-resonance; Medhurst 1947's table stays beside it as the classical comparison) and name
+/// the inductance an LCR meter reads (low frequency) apart from the apparent inductance at the
+/// operating frequency. The figures are `recipe::figures`' own field-solved tank (held to
+/// nec2c in tests/engine/reference_field.rs), as printed to their digits.
+#[test]
+fn the_readouts_give_the_field_self_capacitance_and_the_meter_inductance() {
+    use tankwright::ui::panels::readouts::METER_INDUCTANCE;
+    let mut harness = workbench();
+    settle(&mut harness);
+    let headless = figures(harness.state().recipe()).expect("valid");
+    let tank = headless.field.tank().expect("the demo coil solves");
+    let text = crate::common::screen_text(&harness);
+    let after = |name: &str| {
+        let at = text
+            .iter()
+            .position(|t| t == name)
+            .unwrap_or_else(|| panic!("no readout {name:?}"));
+        text[at + 1].clone()
+    };
+    assert_eq!(
+        after(METER_INDUCTANCE),
+        format!("{:.1} nH", tank.low_frequency_inductance * 1e9)
+    );
+    assert_eq!(
+        after("Self-capacitance"),
+        format!("{:.2} pF", tank.self_capacitance() * 1e12)
+    );
+    // The meter's inductance lies below the apparent inductance at the operating frequency.
+    assert!(tank.low_frequency_inductance < tank.apparent_inductance);
+}

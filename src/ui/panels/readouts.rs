@@ -57,6 +57,9 @@ pub const BEING_COMPUTED: &str = "being computed";
 pub const SWITCHED_OFF: &str = "switched off";
 /// Word after the resonance when the model is calibrated on bench readings.
 pub const CALIBRATED: &str = "calibrated";
+/// Name of the readout with the inductance an LCR meter reads (low frequency), shown when
+/// the field solution is at hand.
+pub const METER_INDUCTANCE: &str = "Inductance an LCR meter reads";
 /// Word after the resonance when the field solution sets it.
 pub const FIELD_SOLVED: &str = "field-solved";
 /// Word after the resonance while the field solution of a changed coil is computed (the
@@ -280,14 +283,50 @@ fn figures_rows(ui: &mut egui::Ui, figures: &Figures, unit: LengthUnit) {
         }
     }
 
+    if let Some(tank) = figures.field.tank() {
+        Readout::new(
+            METER_INDUCTANCE,
+            show_nh(tank.low_frequency_inductance),
+            "The low-frequency inductance of the coil with its leads and the path beneath it \
+             (field solution): what an LCR meter reads at its test frequency, below the \
+             apparent inductance at the operating frequency",
+        )
+        .note(FIELD_SOLVED, "From the field solution")
+        .show(ui);
+    }
+
     ui.add_space(4.0);
-    Readout::new(
-        "Self-capacitance",
-        show_pf(a.self_capacitance),
-        "Medhurst 1947 table: H × diameter in cm (pF), coil standing on one end, about ±5 %",
-    )
-    .warnings(a.warnings_about(WarningTopic::SelfCapacitance))
-    .show(ui);
+    match figures.field.tank() {
+        // Where the field solution leads, the coil's own capacitance is its figure; Medhurst's
+        // stays beside it as the classical comparison.
+        Some(tank) => {
+            let field = tank.self_capacitance();
+            let medhurst = a.self_capacitance;
+            let more = format!(
+                "Medhurst 1947 table (classical, the coil standing on one end): {} pF, {:.2} × \
+                 the field solution's",
+                digits::fixed(to_pf(medhurst), 2),
+                medhurst / field
+            );
+            Readout::new(
+                "Self-capacitance",
+                show_pf(field),
+                "The capacitance that resonates the meter's inductance at the field-solved \
+                 self-resonance, 1/((2π·f_self)²·L₀), field solution",
+            )
+            .note(FIELD_SOLVED, "From the field solution")
+            .more(move || more.clone())
+            .warnings(a.warnings_about(WarningTopic::SelfCapacitance))
+            .show(ui);
+        }
+        None => Readout::new(
+            "Self-capacitance",
+            show_pf(a.self_capacitance),
+            "Medhurst 1947 table: H × diameter in cm (pF), coil standing on one end, about ±5 %",
+        )
+        .warnings(a.warnings_about(WarningTopic::SelfCapacitance))
+        .show(ui),
+    }
     Readout::new(
         "Total capacitance",
         show_pf(a.total_capacitance),
