@@ -243,3 +243,48 @@ fn a_suspected_harmonic_is_used_once_included() {
         used.warnings
     );
 }
+
+/// Issue 20: the shipped demos' bench readings are consistent with the model they are
+/// fitted on: every residual within the fit's flag limit of three instrument errors
+/// (`RESIDUAL_LIMIT`; common practice for a reading's consistency), no reading suspected of
+/// being a harmonic, and no fit warning of inconsistency. (The 2 m demo once fitted with
+/// residuals of −858 and +213 kHz, 573 × its instrument error.) Weighted least squares: Press
+/// et al., *Numerical Recipes*, 3rd ed., 2007, §15.4.
+#[test]
+fn the_shipped_demos_readings_fit_within_their_instrument_errors() {
+    use tankwright::tuning::fit::RESIDUAL_LIMIT;
+    let mut fitted = 0;
+    for (name, r) in tankwright::recipe::demos() {
+        if r.bench_log.is_empty() {
+            continue;
+        }
+        let fit = figures(&r)
+            .expect("valid")
+            .fit
+            .expect("readings")
+            .unwrap_or_else(|e| panic!("{name}: {e}"));
+        for (i, (res, sigma)) in fit.residuals.iter().zip(&fit.sigmas).enumerate() {
+            eprintln!(
+                "{name}: reading {} off the fit by {:+.3} kHz (instrument ±{:.2} kHz)",
+                i + 1,
+                res * 1e-3,
+                sigma * 1e-3
+            );
+            assert!(
+                res.abs() <= RESIDUAL_LIMIT * sigma,
+                "{name}: reading {}",
+                i + 1
+            );
+        }
+        assert!(
+            !fit.warnings.iter().any(|w| matches!(
+                w,
+                FitWarning::Harmonic { .. } | FitWarning::Inconsistent { .. }
+            )),
+            "{name}: {:?}",
+            fit.warnings
+        );
+        fitted += 1;
+    }
+    assert!(fitted >= 2, "the demos with readings: {fitted}");
+}
