@@ -280,13 +280,30 @@ impl Evaluation {
                 range: self.sweeps.length_range_swept(),
             }),
             // While the figures are being landed, the shape already drawn for this coil and
-            // tank is kept (a change of the target alone needs no new shape).
-            None if self.pending.is_some() => self
-                .shape
-                .as_ref()
-                .map(|(r, _)| *r)
-                .filter(|r| r.coil == f.coil && r.tank == f.tank),
-            None => None,
+            // tank is kept (a change of the target alone needs no new shape); failing that,
+            // with no readings and no kept measurement the landed figures' field-led model is
+            // known already (scale 1 on the recipe's own tank), so the shape is solved beside
+            // them rather than after.
+            None => {
+                let pending = self.pending.as_ref()?;
+                let kept = self
+                    .shape
+                    .as_ref()
+                    .map(|(r, _)| *r)
+                    .filter(|r| r.coil == f.coil && r.tank == f.tank);
+                let r = &pending.recipe;
+                kept.or_else(|| {
+                    (r.bench_log.is_empty() && r.coil_measurement.is_none()).then(|| ShapeRequest {
+                        led: crate::tuning::landing::FieldLed {
+                            conditions: r.conditions,
+                            scale: 1.0,
+                        },
+                        coil: f.coil,
+                        tank: f.tank,
+                        range: self.sweeps.length_range_swept(),
+                    })
+                })
+            }
         }
     }
 
