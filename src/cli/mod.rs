@@ -182,6 +182,7 @@ modulating junction (adds modulation; the tank then includes the junction at its
   --junction-model '.model NAME D(CJO=.. VJ=.. M=..)'  or a SPICE line (D, NPN, PNP)
   --bias-v V             the junction's DC reverse bias
   --audio-peak-v A       audio peak voltage at the junction (default 0)
+  --rf-peak-v R          RF peak voltage across the tank (default 2, common practice)
   --coupling-pf C        series coupling capacitor (absent: junction straight across the tank)
   --audio-max-khz F      highest audio frequency for Carson's bandwidth (default 15)
 

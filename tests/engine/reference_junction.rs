@@ -199,6 +199,7 @@ fn deviation_is_the_resonance_at_the_peak_capacitances() {
             bias_v: 4.0,
             audio_peak_v: 0.8,
             audio_max_hz: 15e3,
+            rf_peak_v: tankwright::tuning::modulation::TANK_RF_PEAK_V,
         };
         let out = modulation(&coil, 18e-12, &cond, &inputs);
         let across = |c: f64| coupling.map_or(c, |cc| c * cc / (c + cc));
@@ -252,6 +253,7 @@ fn distortion_estimate_matches_a_fourier_sum_of_the_swing() {
                 bias_v: 3.0,
                 audio_peak_v: va,
                 audio_max_hz: 15e3,
+                rf_peak_v: tankwright::tuning::modulation::TANK_RF_PEAK_V,
             },
         );
         assert_eq!(
@@ -286,6 +288,7 @@ fn service_limits_and_advice() {
             bias_v: 4.0,
             audio_peak_v: 1.0,
             audio_max_hz: 15e3,
+            rf_peak_v: tankwright::tuning::modulation::TANK_RF_PEAK_V,
         },
     );
     let narrow = judge(&out, Service::TwoMetreNarrowBand);
@@ -319,6 +322,7 @@ fn chart_sweeps_match_the_point_figures() {
                 bias_v: 4.0,
                 audio_peak_v: p,
                 audio_max_hz: 15e3,
+                rf_peak_v: tankwright::tuning::modulation::TANK_RF_PEAK_V,
             },
         );
         let tol = 1e-9 * point.carrier;

@@ -65,6 +65,7 @@ fn the_deviation_shown_is_the_engines_and_drift_follows_the_capacitor_class() {
             bias_v: 3.0,
             audio_peak_v: 0.5,
             audio_max_hz: 15e3,
+            rf_peak_v: tankwright::tuning::modulation::TANK_RF_PEAK_V,
         },
     );
     let line = line_starting(&harness, "Carrier ");
@@ -100,6 +101,7 @@ fn engine(harness: &Harness<'_, App>, law: JunctionLaw, bias_v: f64, audio_peak_
             bias_v,
             audio_peak_v,
             audio_max_hz: 15e3,
+            rf_peak_v: tankwright::tuning::modulation::TANK_RF_PEAK_V,
         },
     );
     format!(
@@ -216,6 +218,7 @@ fn sweeps_are_recomputed_only_when_their_inputs_change() {
         bias_v: 4.5,
         audio_peak_v: 0.1,
         audio_max_hz: 15e3,
+        rf_peak_v: tankwright::tuning::modulation::TANK_RF_PEAK_V,
     };
     let mut s = ModulationSweeps::default();
     assert!(s.refresh(&coil, &recipe.tank, &recipe.conditions, &inputs));

@@ -54,6 +54,7 @@ pub fn junction_share(
             bias_v: vcb,
             audio_peak_v: 0.0,
             audio_max_hz: 15e3,
+            rf_peak_v: crate::tuning::modulation::TANK_RF_PEAK_V,
         },
     );
     JunctionShare {

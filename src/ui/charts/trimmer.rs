@@ -35,7 +35,10 @@ pub fn trimmer_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
             view,
             &visuals,
             (bounds[2], bounds[3]),
-            !same_length.is_empty(),
+            (
+                same_length.iter().any(|r| !r.clipped()),
+                same_length.iter().any(|r| r.clipped()),
+            ),
         ),
     );
 

@@ -25,6 +25,8 @@ pub const MODEL_TEXT_LABEL: &str = "SPICE .model text";
 pub const USE_MODEL_BUTTON: &str = "Use this model";
 /// The collapsible section holding the paste box.
 pub const PASTE_SECTION: &str = "Paste a SPICE .model line";
+/// The field of the RF peak across the tank (it swings the junction beside the audio).
+pub const RF_PEAK_LABEL: &str = "RF peak across the tank";
 /// The switch that puts the junction at its bias in the tank of every figure.
 pub const COUNT_JUNCTION: &str = "Count the junction in the tank";
 
@@ -43,6 +45,8 @@ struct Settings {
     forward_knee: f64,
     bias_v: f64,
     audio_peak_v: f64,
+    /// The RF peak across the tank, volts (it swings the junction beside the audio).
+    rf_peak_v: f64,
     audio_max_khz: f64,
     coupling_pf: f64,
     class: TemperatureClass,
@@ -91,6 +95,7 @@ impl Default for AudioPanel {
                 forward_knee: DEFAULT_FORWARD_KNEE,
                 bias_v: 4.5,
                 audio_peak_v: 0.1,
+                rf_peak_v: crate::tuning::modulation::TANK_RF_PEAK_V,
                 audio_max_khz: 15.0,
                 coupling_pf: 0.0,
                 class: crate::physics::dielectric_class::by_name(UsualChanges::CLASS)
@@ -208,6 +213,7 @@ impl Settings {
             bias_v: self.bias_v,
             audio_peak_v: self.audio_peak_v,
             audio_max_hz: self.audio_max_khz * 1e3,
+            rf_peak_v: self.rf_peak_v,
         }
     }
 }
@@ -318,6 +324,7 @@ impl AudioPanel {
                 number(ui, "Grading exponent", &mut s.m, M_RANGE, "");
                 number(ui, "Reverse bias", &mut s.bias_v, (0.0, 30.0), " V");
                 number(ui, "Audio peak", &mut s.audio_peak_v, (0.0, 5.0), " V");
+                number(ui, RF_PEAK_LABEL, &mut s.rf_peak_v, (0.0, 50.0), " V");
                 let before = s.audio_max_khz;
                 number(
                     ui,
@@ -435,6 +442,7 @@ impl AudioPanel {
                 m.carson_bandwidth * 1e-3
             ),
         );
+        wrap(ui, swing_words(m, self.settings.audio_peak_v));
         let v = &r.verdict;
         if Service::applying_to(r.modulation.carrier).is_none() {
             wrap(
@@ -566,4 +574,22 @@ fn change_text(source: DriftSource, change: f64) -> String {
         "F" => format!("{:+.2} pF", change * 1e12),
         unit => format!("{change:+.1} {unit}"),
     }
+}
+
+/// The junction's swing in words: the audio's and the RF's peaks beside each other and the
+/// least reverse voltage they leave ("Swings on the junction: audio ±0.10 V, RF ±2.00 V peak
+/// (…); least reverse voltage 2.40 V.").
+fn swing_words(m: &Modulation, audio_peak_v: f64) -> String {
+    format!(
+        "Swings on the junction: audio ±{:.2} V, RF ±{:.2} V peak; least reverse voltage \
+         {:.2} V{}.",
+        audio_peak_v.abs(),
+        m.rf_at_junction,
+        m.least_reverse_v,
+        if m.forward_on_peaks {
+            " (driven forward on the peaks)"
+        } else {
+            ""
+        }
+    )
 }
