@@ -48,6 +48,8 @@ enum Swatch {
 
 /// Width of the legend's column at scale 1 (a 960-pixel-wide chart), pixels.
 const LEGEND_WIDTH: f64 = 250.0;
+/// Where the legend's names start in its column at scale 1, pixels (the swatches end at 32).
+const LEGEND_TEXT_LEFT: f64 = 40.0;
 
 /// Where the parts of a chart go on a drawing `size` pixels at `scale`: the title's height
 /// along the top, and below it the plot (axes and their labels) on the left and the legend in
@@ -58,15 +60,19 @@ pub struct ChartLayout {
     pub title_height: u32,
     /// The x where the legend's column starts (the plot ends there), pixels.
     pub legend_left: u32,
+    /// The x where the legend's names start (its swatches lie left of it), pixels.
+    pub legend_text_left: u32,
 }
 
 /// The layout of a chart drawn `size` pixels at `scale` ([`draw`] uses it).
 pub fn layout(size: (u32, u32), scale: f64) -> ChartLayout {
     let px = |v: f64| (v * scale).round().max(1.0) as u32;
     let legend = px(LEGEND_WIDTH).min(size.0 / 3);
+    let legend_left = size.0.saturating_sub(legend);
     ChartLayout {
         title_height: px(40.0),
-        legend_left: size.0.saturating_sub(legend),
+        legend_left,
+        legend_text_left: legend_left + px(LEGEND_TEXT_LEFT),
     }
 }
 
@@ -247,7 +253,7 @@ fn draw_legend<DB: DrawingBackend>(
     let s = |v: f64| (v * scale).round() as i32;
     let style = TextStyle::from((FAMILY, 13.0 * scale).into_font()).color(&BLACK);
     let (width, _) = area.dim_in_pixel();
-    let text_left = s(40.0);
+    let text_left = s(LEGEND_TEXT_LEFT);
     let text_width = (width as i32 - text_left - s(6.0)).max(s(40.0));
     let line_height = s(17.0);
     let mut y = s(14.0);

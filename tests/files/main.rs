@@ -5,6 +5,7 @@
 
 mod file_safety;
 mod handout_files;
+mod handout_issue21;
 mod recipe_files_respected;
 mod recipe_malformed;
 mod recipe_roundtrip;

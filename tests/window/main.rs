@@ -12,6 +12,7 @@ mod ui_design;
 mod ui_export;
 mod ui_field;
 mod ui_field_shape;
+mod ui_issue21_charts;
 mod ui_junction_tank;
 mod ui_layout;
 mod ui_new_recipe;
