@@ -233,7 +233,7 @@ pub fn chart_data(kind: ChartKind, recipe: &Recipe, f: &Figures) -> ChartData {
                         (
                             e.length * 1e3,
                             e.measured * 1e-6,
-                            e.added_capacitance * 1e12,
+                            crate::units::to_pf(e.added_capacitance),
                         )
                     })
                     .collect(),
@@ -275,7 +275,7 @@ pub fn chart_data(kind: ChartKind, recipe: &Recipe, f: &Figures) -> ChartData {
                         (
                             e.trimmer_setting * 100.0,
                             e.measured * 1e-6,
-                            e.added_capacitance * 1e12,
+                            crate::units::to_pf(e.added_capacitance),
                         )
                     })
                     .collect(),

@@ -77,7 +77,10 @@ impl ReadingMark {
 
 /// A clipped-on capacitance as its marker's label: "+10.0 pF".
 pub fn clip_words(farads: f64) -> String {
-    format!("+{} pF", crate::tuning::digits::fixed(farads * 1e12, 1))
+    format!(
+        "+{} pF",
+        crate::tuning::digits::fixed(crate::units::to_pf(farads), 1)
+    )
 }
 
 pub use crate::tuning::sweep::FIXED_CURVE_LABEL;
