@@ -9,7 +9,7 @@
 
 use crate::common::screen_text;
 use egui_kittest::Harness;
-use egui_kittest::kittest::Queryable;
+use egui_kittest::kittest::{NodeT, Queryable};
 use tankwright::model::{Coil, Conditions, Tank, evaluate_coil};
 use tankwright::recipe::{BenchEntry, Recipe, figures, store};
 use tankwright::ui::App;
@@ -185,4 +185,24 @@ fn presentation_legends_are_projector_sized() {
         projected >= LEGEND_POINTS,
         "presentation legend {projected} pt, under {LEGEND_POINTS}"
     );
+}
+
+/// The Export menu greys the trimmer chart of a fixed tank (no setting moves its resonance)
+/// and keeps the spacing chart; a tank with a trimmer offers both.
+#[test]
+fn the_export_menu_offers_no_trimmer_chart_for_a_fixed_tank() {
+    for (path, fixed) in [(RECIPES[0], true), (RECIPES[2], false)] {
+        let mut harness = open(shipped(path), (1600.0, 1000.0));
+        harness.get_by_label("Export").click();
+        harness.run();
+        for ext in ["SVG", "PNG"] {
+            let (trimmer, spacing) = (
+                format!("Trimmer chart as {ext}…"),
+                format!("Spacing chart as {ext}…"),
+            );
+            let disabled = |label: &str| harness.get_by_label(label).accesskit_node().is_disabled();
+            assert_eq!(disabled(&trimmer), fixed, "{path}: trimmer {ext}");
+            assert!(!disabled(&spacing), "{path}: spacing {ext}");
+        }
+    }
 }
