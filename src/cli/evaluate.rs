@@ -89,6 +89,7 @@ impl EvaluateRequest {
             bench_log: Vec::new(),
             stray_estimate: StraySettings::default(),
             coil_measurement: None,
+            stage: None,
         }
     }
 

@@ -5,7 +5,7 @@ use super::document::{BenchEntry, Recipe, StraySettings, Target};
 use super::schema::{
     AimSheet, BuildingMethod, CoatingName, CoilMeasurementSheet, CoilSheet, ConditionsSheet,
     DiameterMm, DividerSheet, ModelName, PlanName, ReadingSheet, RecipeFile, SCHEMA, Scaled,
-    SpacingMm, StraySheet, TankSheet, WireSize,
+    SpacingMm, StageSheet, StraySheet, TankSheet, TopologyName, TransistorSheet, WireSize,
 };
 use crate::model::{
     Coating, Conditions, DiameterSpec, FeedbackDivider, Gauge, SpacingSpec, Tank, Winding, WireSpec,
@@ -15,6 +15,7 @@ use crate::tuning::construction::Construction;
 use crate::tuning::measured_coil::MeasuredCoil;
 use crate::tuning::measured_field::CoilMeasurement;
 use crate::tuning::spread::BuildTolerances;
+use crate::tuning::stage::{Bias, Ratings, StageSettings, Topology, TransistorSpec};
 
 /// The file form of a recipe.
 pub(crate) fn to_file_form(r: &Recipe) -> RecipeFile {
@@ -74,6 +75,75 @@ pub(crate) fn to_file_form(r: &Recipe) -> RecipeFile {
             .collect(),
         stray_estimate: stray_sheet(&r.stray_estimate),
         coil_measurement: r.coil_measurement.as_ref().map(measurement_sheet),
+        stage: r.stage.as_ref().map(stage_sheet),
+    }
+}
+
+/// 1 mAh in coulombs.
+const MAH: f64 = 3.6;
+
+/// The stage's settings in the file's terms.
+fn stage_sheet(s: &StageSettings) -> StageSheet {
+    StageSheet {
+        topology: match s.topology {
+            Topology::CommonBase => TopologyName::CommonBase,
+            Topology::CommonCollector => TopologyName::CommonCollector,
+        },
+        supply_v: s.bias.supply_v,
+        bias_upper_ohm: s.bias.upper,
+        bias_lower_ohm: s.bias.lower,
+        emitter_ohm: s.bias.emitter,
+        transistor: match &s.transistor {
+            TransistorSpec::Figures { hfe, cbe, cbc, ft } => TransistorSheet::Figures {
+                hfe: *hfe,
+                cbe_pf: Scaled::from_si(*cbe),
+                cbc_pf: Scaled::from_si(*cbc),
+                ft_mhz: Scaled::from_si(*ft),
+            },
+            TransistorSpec::Model(text) => TransistorSheet::SpiceModel(text.clone()),
+        },
+        vceo_v: s.ratings.collector_emitter_max,
+        ic_max_ma: s.ratings.collector_max.map(Scaled::from_si),
+        ptot_mw: s.ratings.dissipation_max.map(Scaled::from_si),
+        battery_mah: s.battery_charge.map(|q| q / MAH),
+        clapp_pf: s.clapp.map(Scaled::from_si),
+    }
+}
+
+/// The stage's settings a file gives (judged afterwards, as the rest).
+fn stage_settings(s: &StageSheet) -> StageSettings {
+    StageSettings {
+        topology: match s.topology {
+            TopologyName::CommonBase => Topology::CommonBase,
+            TopologyName::CommonCollector => Topology::CommonCollector,
+        },
+        bias: Bias {
+            supply_v: s.supply_v,
+            upper: s.bias_upper_ohm,
+            lower: s.bias_lower_ohm,
+            emitter: s.emitter_ohm,
+        },
+        transistor: match &s.transistor {
+            TransistorSheet::Figures {
+                hfe,
+                cbe_pf,
+                cbc_pf,
+                ft_mhz,
+            } => TransistorSpec::Figures {
+                hfe: *hfe,
+                cbe: cbe_pf.si(),
+                cbc: cbc_pf.si(),
+                ft: ft_mhz.si(),
+            },
+            TransistorSheet::SpiceModel(text) => TransistorSpec::Model(text.clone()),
+        },
+        ratings: Ratings {
+            collector_emitter_max: s.vceo_v,
+            collector_max: s.ic_max_ma.map(Scaled::si),
+            dissipation_max: s.ptot_mw.map(Scaled::si),
+        },
+        battery_charge: s.battery_mah.map(|m| m * MAH),
+        clapp: s.clapp_pf.map(Scaled::si),
     }
 }
 
@@ -181,6 +251,7 @@ pub(crate) fn from_file_form(sheet: RecipeFile) -> Recipe {
         bench_log,
         stray_estimate: stray_settings(&sheet.stray_estimate),
         coil_measurement: sheet.coil_measurement.as_ref().map(measurement_of),
+        stage: sheet.stage.as_ref().map(stage_settings),
     }
 }
 

@@ -50,6 +50,9 @@ fn doc_comments() -> Field {
         });
         top.field("bench_log")
             .with_doc("Measurements, oldest first.");
+        top.field("stage").with_doc(
+            "The oscillator stage: topology CommonBase or CommonCollector; volts, ohms; transistor Figures(hfe, cbe_pf, cbc_pf, ft_mhz) or SpiceModel(\".model NAME NPN(...)\"); clapp_pf only with CommonCollector.",
+        );
         top.field("stray_estimate").with_doc(
             "building_method: CopperClad, GroundPlaneBoard, Stripboard, Perfboard or Breadboard; the tolerances are ± bounds.",
         );

@@ -60,5 +60,6 @@ pub fn recipe_of(
             tolerances: settings.tolerances,
         },
         coil_measurement: None,
+        stage: None,
     }
 }

@@ -135,6 +135,75 @@ pub struct RecipeFile {
     /// The coil as a network analyser measured it (absent: none kept).
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub coil_measurement: Option<CoilMeasurementSheet>,
+    /// The oscillator stage round the tank (absent: none set; older files have none).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub stage: Option<StageSheet>,
+}
+
+/// Milliamperes (of a rating).
+pub type Milliamperes = Scaled<3>;
+/// Milliwatts (of a rating).
+pub type Milliwatts = Scaled<3>;
+
+/// The one-transistor stage round the tank: volts, ohms, pF, MHz, mA, mW, mAh.
+#[derive(Clone, Debug, PartialEq, Serialize, Deserialize)]
+#[serde(rename = "Stage", deny_unknown_fields)]
+pub struct StageSheet {
+    /// Which Colpitts stage.
+    pub topology: TopologyName,
+    /// Supply, volts.
+    pub supply_v: f64,
+    /// Base divider, supply to base, ohms.
+    pub bias_upper_ohm: f64,
+    /// Base divider, base to ground, ohms.
+    pub bias_lower_ohm: f64,
+    /// Emitter resistor, ohms.
+    pub emitter_ohm: f64,
+    /// The transistor.
+    pub transistor: TransistorSheet,
+    /// Collector–emitter rating, volts (absent: not checked).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub vceo_v: Option<f64>,
+    /// Collector current rating, mA (absent: not checked).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub ic_max_ma: Option<Milliamperes>,
+    /// Dissipation rating, mW (absent: not checked).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub ptot_mw: Option<Milliwatts>,
+    /// The battery's capacity, mAh (absent: no battery life stated).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub battery_mah: Option<f64>,
+    /// A Clapp series capacitor between the tank and the base, pF (common collector only;
+    /// absent: none).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub clapp_pf: Option<Picofarads>,
+}
+
+/// The stage's topology.
+#[derive(Clone, Copy, Debug, PartialEq, Eq, Serialize, Deserialize)]
+pub enum TopologyName {
+    /// Base at RF ground, the tank in the collector.
+    CommonBase,
+    /// Collector at RF ground, the tank at the base.
+    CommonCollector,
+}
+
+/// The stage's transistor.
+#[derive(Clone, Debug, PartialEq, Serialize, Deserialize)]
+pub enum TransistorSheet {
+    /// The four figures of a data sheet.
+    Figures {
+        /// Current gain.
+        hfe: f64,
+        /// Base–emitter capacitance, pF.
+        cbe_pf: Picofarads,
+        /// Base–collector capacitance, pF.
+        cbc_pf: Picofarads,
+        /// Transit frequency, MHz.
+        ft_mhz: Megahertz,
+    },
+    /// A SPICE `.model NAME NPN(...)` line as pasted.
+    SpiceModel(String),
 }
 
 /// Nanohenries.

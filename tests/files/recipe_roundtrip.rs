@@ -379,6 +379,7 @@ fn file_strategy(
                     bench_log,
                     stray_estimate,
                     coil_measurement,
+                    stage: None,
                 }
             },
         )

@@ -49,6 +49,7 @@ fn engine(
         },
         transistor: Transistor::from_figures(80.0, 2e-12, 0.8e-12, 800e6),
         battery_charge: Some(500.0 * 3.6),
+        clapp: None,
     };
     stage(&f.coil, &f.tank, &f.conditions, &inputs).expect("stage")
 }
@@ -147,5 +148,68 @@ fn a_pasted_model_is_read_or_refused_keeping_the_text() {
             .iter()
             .any(|t| t.starts_with("Transistor from the model")),
         "the figures are back"
+    );
+}
+
+/// The stage's settings are the recipe's (issue 19: one home, saved with it): nothing is set
+/// until a change, then each change lands in `Recipe::stage`, the Clapp capacitor with the
+/// common-collector stage, and the figures shown are the engine's for the settings kept.
+#[test]
+fn the_stage_settings_are_kept_in_the_recipe() {
+    use tankwright::ui::panels::stage::{CLAPP_LABEL, CLAPP_SWITCH};
+    let mut harness = workbench();
+    assert_eq!(
+        harness.state().recipe().stage,
+        None,
+        "nothing set before a change"
+    );
+    harness
+        .get_by_label(EMITTER_LABEL)
+        .set_value_accesskit(4700.0);
+    harness.run();
+    let kept = harness.state().recipe().stage.clone().expect("kept");
+    assert_eq!(kept.bias.emitter, 4700.0);
+    assert_eq!(kept.topology, Topology::CommonBase);
+    harness
+        .get_by_label(Topology::CommonCollector.label())
+        .click();
+    harness.run();
+    harness.get_by_label(CLAPP_SWITCH).click();
+    harness.run();
+    harness.get_by_label(CLAPP_LABEL).set_value_accesskit(6.8);
+    harness.run();
+    let kept = harness.state().recipe().stage.clone().expect("kept");
+    assert_eq!(kept.topology, Topology::CommonCollector);
+    let clapp = kept.clapp.expect("a Clapp capacitor");
+    assert!((clapp - 6.8e-12).abs() < 1e-24, "{clapp}");
+    let f = figures_on(harness.state().recipe(), Footing::Classical).expect("figures");
+    let s = stage(
+        &f.coil,
+        &f.tank,
+        &f.conditions,
+        &kept.inputs().expect("inputs"),
+    )
+    .expect("stage");
+    let shown = line_starting(&harness, "Loop gain ");
+    assert!(
+        shown.starts_with(&format!("Loop gain {:.2}", s.loop_gain)),
+        "{shown}"
+    );
+    let runs = line_starting(&harness, "Runs at ");
+    assert!(
+        runs.contains(&format!("{:.3} MHz", s.frequency * 1e-6)),
+        "{runs}"
+    );
+    // Back to common base: the Clapp capacitor goes with the common-collector stage.
+    harness.get_by_label(Topology::CommonBase.label()).click();
+    harness.run();
+    assert_eq!(
+        harness
+            .state()
+            .recipe()
+            .stage
+            .as_ref()
+            .and_then(|s| s.clapp),
+        None
     );
 }

@@ -227,7 +227,7 @@ impl App {
         egui::CollapsingHeader::new(panels::stage::SECTION)
             .default_open(false)
             .show(ui, |ui| {
-                stage_panel.show(ui, coil.as_ref(), &tank, &conditions);
+                stage_panel.show(ui, &mut recipe.stage, coil.as_ref(), &tank, &conditions);
             });
     }
 
