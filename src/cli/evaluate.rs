@@ -90,6 +90,7 @@ impl EvaluateRequest {
             stray_estimate: StraySettings::default(),
             coil_measurement: None,
             stage: None,
+            audio: Default::default(),
         }
     }
 

@@ -95,6 +95,8 @@ pub struct Recipe {
     /// The oscillator stage round the tank, if set (its bias, transistor, battery, Clapp
     /// capacitor).
     pub stage: Option<crate::tuning::stage::StageSettings>,
+    /// The audio panel's junction, audio and drift changes (the usual ones until set).
+    pub audio: crate::tuning::audio::AudioSettings,
 }
 
 impl BenchEntry {
@@ -161,6 +163,7 @@ impl Recipe {
             stray_estimate: StraySettings::default(),
             coil_measurement: None,
             stage: None,
+            audio: Default::default(),
         }
     }
 }

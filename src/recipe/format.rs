@@ -191,6 +191,24 @@ pub fn read_text(text: &str) -> Result<Opened, LoadError> {
     if let Err(r) = super::rules::check_sizes(file.bench_log.len(), channels) {
         return Err(refusal_error(r, text));
     }
+    // A capacitor class this build does not know cannot be held (the recipe keeps the class
+    // itself, not its name): refused here, naming the classes it knows.
+    if crate::physics::dielectric_class::by_name(&file.audio.fixed_class).is_none() {
+        let known: Vec<&str> = crate::physics::dielectric_class::CLASSES
+            .iter()
+            .map(|c| c.code)
+            .collect();
+        return Err(LoadError::new(
+            LoadErrorKind::Invalid,
+            format!(
+                "the fixed capacitor's class '{}' is not one of {}",
+                crate::terminal_text::clean(&file.audio.fixed_class),
+                known.join(", ")
+            ),
+        )
+        .about("audio.fixed_class".to_owned())
+        .at(super::load::locate_key(text, "fixed_class", 0)));
+    }
     let recipe = from_file_form(file);
     let refusal = judge(&recipe, text);
     Ok(Opened { recipe, refusal })

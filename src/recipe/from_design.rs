@@ -61,5 +61,6 @@ pub fn recipe_of(
         },
         coil_measurement: None,
         stage: None,
+        audio: Default::default(),
     }
 }

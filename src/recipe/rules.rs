@@ -305,6 +305,9 @@ pub fn judge(r: &Recipe) -> Result<(), Refusal> {
     if let Some(s) = &r.stage {
         check_stage(s)?;
     }
+    r.audio
+        .check()
+        .map_err(|e| Refusal::new(format!("audio.{}", e.key), e.key, 0, e.reason))?;
     check_tolerances(&r.stray_estimate.tolerances)
 }
 

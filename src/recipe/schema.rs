@@ -138,6 +138,60 @@ pub struct RecipeFile {
     /// The oscillator stage round the tank (absent: none set; older files have none).
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub stage: Option<StageSheet>,
+    /// The audio panel's junction, audio and drift changes (absent: the usual ones; not
+    /// written while they are those).
+    #[serde(default, skip_serializing_if = "AudioSheet::is_usual")]
+    pub audio: AudioSheet,
+}
+
+/// The modulating junction, the audio and the drift budget's changes: pF, V, kHz, K.
+#[derive(Clone, Debug, PartialEq, Serialize, Deserialize)]
+#[serde(rename = "Audio", deny_unknown_fields, default)]
+pub struct AudioSheet {
+    /// The junction's zero-bias capacitance, pF.
+    pub junction_cj0_pf: Picofarads,
+    /// Its contact potential, volts.
+    pub junction_potential_v: f64,
+    /// Its grading exponent.
+    pub grading_exponent: f64,
+    /// SPICE's forward-bias coefficient FC.
+    pub forward_knee: f64,
+    /// The junction's DC reverse bias, volts.
+    pub reverse_bias_v: f64,
+    /// The audio's peak at the junction, volts.
+    pub audio_peak_v: f64,
+    /// The highest audio frequency, kHz (absent: the service's).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub audio_max_khz: Option<Kilohertz>,
+    /// A coupling capacitor in series with the junction, pF (0: straight across the tank).
+    pub coupling_pf: Picofarads,
+    /// The fixed capacitor's temperature class (EIA-198 code, e.g. C0G).
+    pub fixed_class: String,
+    /// The supply the bias is set at, volts.
+    pub drift_supply_v: f64,
+    /// The supply's change, volts.
+    pub supply_change_v: f64,
+    /// The temperature's change, kelvin.
+    pub temperature_change_k: f64,
+    /// A hand near the coil, pF.
+    pub hand_pf: Picofarads,
+    /// A load change, pF.
+    pub load_change_pf: Picofarads,
+    /// The junction at its bias counts in the tank of every figure.
+    pub junction_in_tank: bool,
+}
+
+impl AudioSheet {
+    /// Whether these are the usual settings (then the file leaves them out).
+    pub fn is_usual(&self) -> bool {
+        *self == Self::default()
+    }
+}
+
+impl Default for AudioSheet {
+    fn default() -> Self {
+        super::convert::audio_sheet(&crate::tuning::audio::AudioSettings::default())
+    }
 }
 
 /// Milliamperes (of a rating).

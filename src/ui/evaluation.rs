@@ -4,7 +4,8 @@
 //! [`crate::recipe::expectation()`], `tuning::sweep`); this is the one place that keeps its
 //! answers between frames — the figures (on the field solution once the worker has it,
 //! calibrated once there are bench readings), the target figures, the advice, the charts'
-//! sweeps and the spread band around the present curve — so an idle frame computes
+//! sweeps, the spread band around the present curve and the audio panel's figures — so an
+//! idle frame computes
 //! nothing, and the sweeps are always those of the figures shown (the same coil, tank and
 //! conditions).
 //!
@@ -21,11 +22,22 @@ use crate::recipe::{
     Target, Unled, expectation, figures_with,
 };
 use crate::tuning::BandPlan;
+use crate::tuning::audio::{AudioFigures, AudioSettings, audio_figures};
 use crate::tuning::field_tank::FieldTank;
 use crate::tuning::landing::Shape;
 use crate::ui::charts::ChartCache;
 use crate::ui::charts::modulation::ModulationSweeps;
 use crate::ui::field_worker::{ShapeRequest, ShapeResult};
+
+/// What the audio figures were computed for: the coil, the tank without the junction, the
+/// conditions, the settings and the channel's tolerance.
+type AudioKey = (
+    crate::model::Coil,
+    crate::model::Tank,
+    crate::model::Conditions,
+    AudioSettings,
+    f64,
+);
 
 /// Inputs the figures were computed from.
 #[derive(Clone, PartialEq)]
@@ -77,6 +89,8 @@ pub struct Evaluation {
     uncalibrated_sweeps: ChartCache,
     expectation: Option<Expectation>,
     modulation_sweeps: ModulationSweeps,
+    /// The audio panel's figures with what they were computed for.
+    audio: Option<(AudioKey, AudioFigures)>,
     /// The field shape the charts draw, with what it was solved for (the shape worker's
     /// answer for the figures shown; dropped when they change).
     shape: Option<(ShapeRequest, Shape)>,
@@ -96,6 +110,7 @@ impl Evaluation {
             uncalibrated_sweeps: ChartCache::default(),
             expectation: None,
             modulation_sweeps: ModulationSweeps::default(),
+            audio: None,
             shape: None,
         };
         evaluation.refresh_sweeps();
@@ -279,6 +294,26 @@ impl Evaluation {
         self.modulation_sweeps
             .refresh(&coil, tank, conditions, inputs);
         Some(&self.modulation_sweeps)
+    }
+
+    /// The audio panel's figures for its `settings` with the junction across `tank` (the tank
+    /// as the figures drive it, without the junction) on the coil shown, judged against
+    /// `tolerance` (± hertz): recomputed only when one of these changes. `None` while there is
+    /// no valid coil.
+    pub fn audio(
+        &mut self,
+        tank: &crate::model::Tank,
+        conditions: &crate::model::Conditions,
+        settings: &AudioSettings,
+        tolerance: f64,
+    ) -> Option<&AudioFigures> {
+        let coil = self.latest()?.coil;
+        let key: AudioKey = (coil, *tank, *conditions, *settings, tolerance);
+        if self.audio.as_ref().is_none_or(|(k, _)| !same(k, &key)) {
+            let figures = audio_figures(&coil, tank, conditions, settings, tolerance);
+            self.audio = Some((key, figures));
+        }
+        self.audio.as_ref().map(|(_, f)| f)
     }
 
     /// The modulation charts' sweeps as last computed (for tests and captures).

@@ -380,6 +380,7 @@ fn file_strategy(
                     stray_estimate,
                     coil_measurement,
                     stage: None,
+                    audio: Default::default(),
                 }
             },
         )

@@ -141,3 +141,66 @@ fn a_stage_value_out_of_range_is_refused_at_the_load_with_the_range() {
     let err = format::from_text(&clapp.replacen("LHQ NPN(", "LHQ PNP(", 1)).expect_err("refused");
     assert_eq!(err.field.as_deref(), Some("stage.transistor"), "{err}");
 }
+
+/// The audio panel's settings kept in the file (issue 19): absent while they are the usual
+/// ones (older files read as before), written in display units when set, read back
+/// unchanged, and refused at the load with the range when out of it. The ranges are the
+/// audio panel's own (`tuning::audio`); the modulation's figures are checked against ngspice
+/// in tests/engine/reference_junction.rs.
+#[test]
+fn the_audio_settings_are_kept_in_the_file_and_judged() {
+    use tankwright::tuning::audio::AudioSettings;
+    let usual = format::to_text(&Recipe::demo());
+    assert!(!usual.contains("audio:"), "not written while usual");
+    assert_eq!(
+        format::from_text(&usual).expect("reads").audio,
+        AudioSettings::default()
+    );
+    let mut r = Recipe::demo();
+    r.audio.junction.cj0 = 5.6e-12;
+    r.audio.bias_v = 3.0;
+    r.audio.audio_max = Some(3e3);
+    r.audio.coupling = 10e-12;
+    r.audio.hand = 2e-12;
+    r.audio.in_tank = true;
+    r.audio.fixed_class = tankwright::physics::dielectric_class::by_name("N750").expect("class");
+    let dir = tempfile::tempdir().expect("temporary directory");
+    let path = dir.path().join("audio.ron");
+    store::save(&path, &r).expect("saves");
+    assert_eq!(store::load(&path).expect("opens"), r);
+    let text = std::fs::read_to_string(&path).expect("text");
+    for needle in [
+        "junction_cj0_pf: 5.6",
+        "reverse_bias_v: 3.0",
+        "audio_max_khz: Some(3.0)",
+        "coupling_pf: 10.0",
+        "hand_pf: 2.0",
+        "junction_in_tank: true",
+    ] {
+        assert!(text.contains(needle), "missing {needle} in\n{text}");
+    }
+    let cases = [
+        (
+            "reverse_bias_v: 3.0",
+            "reverse_bias_v: 40.0",
+            "audio.reverse_bias_v",
+            "0–30 V",
+        ),
+        (
+            "junction_cj0_pf: 5.6",
+            "junction_cj0_pf: 0.01",
+            "audio.junction_cj0_pf",
+            "0.1–1000 pF",
+        ),
+        ("hand_pf: 2.0", "hand_pf: 11.0", "audio.hand_pf", "0–10 pF"),
+    ];
+    for (from, to, field, range) in cases {
+        let err = format::from_text(&text.replacen(from, to, 1)).expect_err("refused");
+        assert_eq!(err.field.as_deref(), Some(field), "{err}");
+        assert!(err.reason.contains(range), "{to}: {err}");
+    }
+    let err = format::from_text(&text.replacen("fixed_class: \"", "fixed_class: \"X9", 1))
+        .expect_err("an unknown class is refused");
+    assert_eq!(err.field.as_deref(), Some("audio.fixed_class"), "{err}");
+    assert!(err.reason.contains("C0G"), "{err}");
+}

@@ -211,12 +211,14 @@ impl App {
                     .map_or(recipe.target.tolerance(), |f| f.target.tolerance);
                 // Without the junction the panel counts in it (if any): the modulation adds
                 // it back at each bias.
-                let tank = audio_panel.without_junction(&tank);
-                audio_panel.show(ui, coil.as_ref(), &tank, &conditions, tolerance);
+                let tank = recipe.audio.without_junction(&tank);
+                let figures = evaluation.audio(&tank, &conditions, &recipe.audio, tolerance);
+                let audio_max = figures.map_or(15e3, |f| f.audio_max);
+                audio_panel.show(ui, &mut recipe.audio, figures, tolerance);
                 egui::CollapsingHeader::new(MODULATION_CHARTS)
                     .default_open(true)
                     .show(ui, |ui| {
-                        let inputs = audio_panel.inputs();
+                        let inputs = recipe.audio.inputs_with(audio_max);
                         if let Some(sweeps) =
                             evaluation.modulation_sweeps(&tank, &conditions, &inputs)
                         {
