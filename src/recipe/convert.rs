@@ -101,6 +101,7 @@ pub(crate) fn audio_sheet(a: &AudioSettings) -> AudioSheet {
         hand_pf: Scaled::from_si(a.hand),
         load_change_pf: Scaled::from_si(a.load),
         junction_in_tank: a.in_tank,
+        transistor_beside_pf: Scaled::from_si(a.beside),
     }
 }
 
@@ -128,6 +129,7 @@ fn audio_settings(s: &AudioSheet) -> AudioSettings {
             hand: s.hand_pf.si(),
             load: s.load_change_pf.si(),
             in_tank: s.junction_in_tank,
+            beside: s.transistor_beside_pf.si(),
         }
     }
 }

@@ -179,6 +179,10 @@ pub struct AudioSheet {
     pub load_change_pf: Picofarads,
     /// The junction at its bias counts in the tank of every figure.
     pub junction_in_tank: bool,
+    /// The oscillator transistor's other capacitances beside its junction, pF (taken with
+    /// the stage's own junction; 0: none).
+    #[serde(skip_serializing_if = "is_zero_pf")]
+    pub transistor_beside_pf: Picofarads,
 }
 
 impl AudioSheet {

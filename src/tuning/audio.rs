@@ -34,6 +34,8 @@ pub const SUPPLY_RANGE_V: (f64, f64) = (1.0, 30.0);
 pub const SUPPLY_CHANGE_RANGE_V: (f64, f64) = (-30.0, 30.0);
 /// Accepted temperature change, kelvin.
 pub const TEMPERATURE_CHANGE_RANGE_K: (f64, f64) = (-80.0, 80.0);
+/// Accepted capacitance beside the junction, farads.
+pub const BESIDE_RANGE_F: (f64, f64) = (0.0, 1e-9);
 /// Accepted hand capacitance, farads.
 pub const HAND_RANGE_F: (f64, f64) = (0.0, 10e-12);
 /// Accepted load change, farads.
@@ -68,6 +70,10 @@ pub struct AudioSettings {
     /// The junction at its bias counts in the tank of every figure (as `evaluate
     /// --junction-…` counts it).
     pub in_tank: bool,
+    /// Capacitance beside the junction that the tank as entered does not hold, farads: the
+    /// oscillator transistor's other capacitances through the divider, taken with the stage
+    /// transistor's own junction ([`AudioSettings::use_stage_junction`]); 0 otherwise.
+    pub beside: f64,
 }
 
 impl Default for AudioSettings {
@@ -92,6 +98,7 @@ impl Default for AudioSettings {
             hand: UsualChanges::HAND,
             load: UsualChanges::LOAD,
             in_tank: false,
+            beside: 0.0,
         }
     }
 }
@@ -140,10 +147,52 @@ impl AudioSettings {
         }
     }
 
+    /// Everything across the coil but the junction for the audio's figures and charts:
+    /// `tank` (as the figures drive it) without the junction these settings count in it, with
+    /// the capacitance [`beside`](Self::beside) it added to the stray.
+    pub fn rest_of_tank(&self, tank: &Tank) -> Tank {
+        let t = self.without_junction(tank);
+        Tank {
+            stray: t.stray + self.beside,
+            ..t
+        }
+    }
+
+    /// Modulate with the oscillator stage's own base–collector junction (`share`, from
+    /// `tuning::stage`, for a stage round `tank` as the figures drive it): its law, its bias
+    /// at the operating point, straight across the tank, and the stage's other capacitances
+    /// beside it, so the carrier's slope here is the stage's. Refused (settings unchanged)
+    /// when the junction reaches the tank through a Clapp capacitor.
+    pub fn use_stage_junction(
+        &mut self,
+        share: &crate::tuning::stage::JunctionShare,
+        tank: &Tank,
+    ) -> Result<(), String> {
+        let rest = share.rest.ok_or_else(|| {
+            "through a Clapp capacitor the stage's junction is not across the tank; the stage \
+             panel gives its carrier's slope"
+                .to_owned()
+        })?;
+        let entered = self.without_junction(tank).external_capacitance();
+        self.junction = share.law;
+        self.bias_v = share.bias_v;
+        self.coupling = 0.0;
+        self.beside = (rest - entered).max(0.0);
+        Ok(())
+    }
+
     /// The first setting out of its range, or `Ok`.
     pub fn check(&self) -> Result<(), AudioRefused> {
         let j = &self.junction;
-        let items: [Limit<'_>; 13] = [
+        let items: [Limit<'_>; 14] = [
+            (
+                "transistor_beside_pf",
+                "the capacitance beside the junction",
+                self.beside,
+                BESIDE_RANGE_F,
+                1e12,
+                "pF",
+            ),
             ("junction_cj0_pf", "Cj0", j.cj0, CJ0_RANGE_F, 1e12, "pF"),
             (
                 "junction_potential_v",

@@ -381,3 +381,67 @@ fn the_audio_settings_are_kept_in_the_recipe() {
         "{line}"
     );
 }
+
+/// Issue 25: the audio panel offers the oscillator stage's own transistor as the modulating
+/// junction. Taken, the law and bias are the stage's (its collector–base junction at the
+/// operating point) and the carrier's slope the panel works with is the stage panel's figure
+/// for the same junction in the same tank (both through `tuning::modulation`, whose junction
+/// law is checked against ngspice's operating-point capacitance in
+/// tests/engine/reference_junction.rs). Through a Clapp capacitor the junction is not across
+/// the tank, and taking it is refused in words.
+#[test]
+fn the_stage_transistors_junction_modulates_at_the_stages_own_slope() {
+    use tankwright::recipe::{Footing, figures_on};
+    use tankwright::tuning::audio::audio_figures;
+    use tankwright::tuning::stage::{Topology, stage};
+    use tankwright::ui::panels::audio::USE_STAGE_JUNCTION;
+    let mut harness = workbench();
+    set(&mut harness, "Audio peak", 0.0);
+    harness.get_by_label(USE_STAGE_JUNCTION).click();
+    harness.run();
+    let recipe = harness.state().recipe().clone();
+    let f = figures_on(&recipe, Footing::Classical).expect("figures");
+    let settings = recipe.stage.clone().unwrap_or_default();
+    let s = stage(
+        &f.coil,
+        &f.tank,
+        &f.conditions,
+        &settings.inputs().expect("inputs"),
+    )
+    .expect("stage")
+    .junction;
+    assert_eq!(recipe.audio.junction, s.law);
+    assert_eq!(recipe.audio.bias_v, s.bias_v);
+    assert_eq!(recipe.audio.coupling, 0.0);
+    let a = audio_figures(
+        &f.coil,
+        &recipe.audio.rest_of_tank(&f.tank),
+        &f.conditions,
+        &recipe.audio,
+        recipe.target.tolerance(),
+    );
+    let rel = (a.modulation.sensitivity - s.hz_per_volt) / s.hz_per_volt;
+    assert!(
+        rel.abs() <= 1e-6,
+        "panel {} Hz/V, stage {} Hz/V",
+        a.modulation.sensitivity,
+        s.hz_per_volt
+    );
+    let line = line_starting(&harness, "Carrier ");
+    let slope = format!("{:.1} kHz per volt", s.hz_per_volt * 1e-3);
+    assert!(line.contains(&slope), "{line} lacks {slope}");
+
+    // A Clapp stage: refused, the settings unchanged.
+    let before = harness.state().recipe().audio;
+    let recipe = harness.state_mut().recipe_mut();
+    let mut clapp = recipe.stage.clone().unwrap_or_default();
+    clapp.topology = Topology::CommonCollector;
+    clapp.clapp = Some(10e-12);
+    recipe.stage = Some(clapp);
+    harness.run();
+    harness.get_by_label(USE_STAGE_JUNCTION).click();
+    harness.run();
+    let refused = line_starting(&harness, "Not taken: ");
+    assert!(refused.contains("Clapp"), "{refused}");
+    assert_eq!(harness.state().recipe().audio, before);
+}

@@ -20,6 +20,15 @@ pub struct JunctionShare {
     /// The carrier's movement per volt of collector–base voltage, hertz per volt (positive:
     /// more reverse bias, less capacitance, a higher carrier).
     pub hz_per_volt: f64,
+    /// The junction's law (its own, or a fixed C_bc as SPICE's default law: [`bias_law`]).
+    pub law: JunctionLaw,
+    /// Its reverse bias at the operating point (V_CB), volts.
+    pub bias_v: f64,
+    /// Everything across the coil beside the junction (but the coil's self-capacitance),
+    /// farads, when the junction sits straight across the tank; `None` through a Clapp
+    /// capacitor. With the law and the bias, what the audio panel needs to modulate with this
+    /// junction in this stage's tank.
+    pub rest: Option<f64>,
 }
 
 /// What the coil sees besides the junction, farads.
@@ -84,6 +93,9 @@ pub fn junction_share(
                 capacitance: c,
                 share: c / total,
                 hz_per_volt: m.sensitivity,
+                law,
+                bias_v: vcb,
+                rest: Some(across.external(0.0)),
             }
         }
         Some(cs) => {
@@ -94,6 +106,9 @@ pub fn junction_share(
                 capacitance: c,
                 share: p * p * c / total,
                 hz_per_volt: (f(vcb + h) - f(vcb - h)) / (2.0 * h),
+                law,
+                bias_v: vcb,
+                rest: None,
             }
         }
     }

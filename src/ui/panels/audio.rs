@@ -36,7 +36,12 @@ pub struct AudioPanel {
     model_text: String,
     /// What became of the last "Use this model": a summary, or why it was refused.
     model_note: Option<Result<String, String>>,
+    /// Why the stage's junction was not taken, after the last try.
+    stage_note: Option<String>,
 }
+
+/// The button that takes the oscillator stage's own base–collector junction.
+pub const USE_STAGE_JUNCTION: &str = "Use the stage transistor's base–collector junction";
 
 /// A number field showing an SI value in display units (`scale` display units per SI unit):
 /// written back only when the field was changed, so a value is never rounded by being shown.
@@ -193,15 +198,40 @@ impl AudioPanel {
 
     /// Show the junction inputs (the recipe's `settings`), the modulation and the drift
     /// budget (`figures`, the one cache's for these settings, the coil and the tank without the
-    /// junction), judged against a channel `tolerance` (± hertz).
+    /// junction), judged against a channel `tolerance` (± hertz). True when
+    /// [`USE_STAGE_JUNCTION`] was pressed (the window then takes the stage's junction and
+    /// reports back through [`stage_junction_taken`](Self::stage_junction_taken)).
     pub fn show(
         &mut self,
         ui: &mut egui::Ui,
         settings: &mut AudioSettings,
         figures: Option<&AudioFigures>,
         tolerance: f64,
-    ) {
+    ) -> bool {
         let s = settings;
+        let asked = ui
+            .button(USE_STAGE_JUNCTION)
+            .on_hover_text(
+                "The oscillator stage's transistor (the recipe's stage, or the demo stage) as the \
+                 modulating junction: its law, its collector–base voltage as the bias, straight \
+                 across the tank, with the stage's other capacitances beside it, so the carrier's \
+                 slope here is the stage panel's.",
+            )
+            .clicked();
+        if let Some(why) = &self.stage_note {
+            let colour = ui.visuals().error_fg_color;
+            ui.add(
+                egui::Label::new(egui::RichText::new(format!("Not taken: {why}.")).color(colour))
+                    .wrap(),
+            );
+        }
+        if s.beside > 0.0 {
+            ui.weak(format!(
+                "With the stage's transistor: {:.2} pF of its other capacitances beside the \
+                 junction.",
+                s.beside * 1e12
+            ));
+        }
         egui::Grid::new("tankwright junction inputs")
             .num_columns(2)
             .show(ui, |ui| {
@@ -271,7 +301,7 @@ impl AudioPanel {
         }
         self.paste_ui(ui, s);
         let Some(r) = figures else {
-            return;
+            return asked;
         };
         let m = &r.modulation;
         let wrap = |ui: &mut egui::Ui, text: String| {
@@ -338,6 +368,12 @@ impl AudioPanel {
         );
         ui.add_space(4.0);
         drift_ui(ui, s, r, tolerance);
+        asked
+    }
+
+    /// What became of taking the stage's junction: `Ok`, or why not (said in the panel).
+    pub fn stage_junction_taken(&mut self, taken: Result<(), String>) {
+        self.stage_note = taken.err();
     }
 }
 
