@@ -25,9 +25,19 @@ use crate::tuning::BandPlan;
 use crate::tuning::audio::{AudioFigures, AudioSettings, audio_figures};
 use crate::tuning::field_tank::FieldTank;
 use crate::tuning::landing::Shape;
+use crate::tuning::stage::StageSettings;
 use crate::ui::charts::ChartCache;
+use crate::ui::charts::Operating;
 use crate::ui::charts::modulation::ModulationSweeps;
 use crate::ui::field_worker::{ShapeRequest, ShapeResult};
+
+/// What the stage's operating frequency was computed for.
+type StageKey = (
+    crate::model::Coil,
+    crate::model::Tank,
+    crate::model::Conditions,
+    StageSettings,
+);
 
 /// What the audio figures were computed for: the coil, the tank without the junction, the
 /// conditions, the settings and the channel's tolerance.
@@ -89,6 +99,9 @@ pub struct Evaluation {
     uncalibrated_sweeps: ChartCache,
     expectation: Option<Expectation>,
     modulation_sweeps: ModulationSweeps,
+    /// The oscillator stage kept in the recipe, what its operating frequency was computed
+    /// for, and that frequency for the charts.
+    stage: Option<(StageKey, Option<Operating>)>,
     /// The audio panel's figures with what they were computed for.
     audio: Option<(AudioKey, AudioFigures)>,
     /// The field shape the charts draw, with what it was solved for (the shape worker's
@@ -111,6 +124,7 @@ impl Evaluation {
             expectation: None,
             modulation_sweeps: ModulationSweeps::default(),
             audio: None,
+            stage: None,
             shape: None,
         };
         evaluation.refresh_sweeps();
@@ -314,6 +328,33 @@ impl Evaluation {
             self.audio = Some((key, figures));
         }
         self.audio.as_ref().map(|(_, f)| f)
+    }
+
+    /// Bring the oscillator stage's operating frequency up to the stage `settings` kept in the
+    /// recipe round the figures shown (`tuning::stage::analyse`, the function of the stage
+    /// panel and `tankwright stage`): recomputed only when the settings or the figures'
+    /// coil, tank or conditions change; nothing without a stage kept.
+    pub fn refresh_stage(&mut self, settings: Option<&StageSettings>) {
+        let Some((settings, f)) = settings.zip(self.latest()) else {
+            self.stage = None;
+            return;
+        };
+        let key: StageKey = (f.coil, f.tank, f.conditions, settings.clone());
+        if self.stage.as_ref().is_some_and(|(k, _)| same(k, &key)) {
+            return;
+        }
+        let operating = settings
+            .inputs()
+            .and_then(|i| crate::tuning::stage::analyse(&f.coil, &f.tank, &f.conditions, &i))
+            .ok()
+            .and_then(|s| Operating::shown(s.frequency, s.pulling));
+        self.stage = Some((key, operating));
+    }
+
+    /// Where the stage kept in the recipe runs, when it differs from the tank's resonance
+    /// (for the charts).
+    pub fn operating(&self) -> Option<Operating> {
+        self.stage.as_ref().and_then(|(_, o)| *o)
     }
 
     /// The modulation charts' sweeps as last computed (for tests and captures).

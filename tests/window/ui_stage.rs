@@ -213,3 +213,54 @@ fn the_stage_settings_are_kept_in_the_recipe() {
         None
     );
 }
+
+/// Issue 25: with a stage kept in the recipe, the charts carry the stage's operating frequency
+/// (the tank with the transistor's capacitances, `tuning::stage`, checked against ngspice in
+/// tests/engine/reference_stage.rs) where it differs from the tank's, named with the pulling
+/// in kHz in both legends; without a stage kept, nothing.
+#[test]
+fn the_charts_carry_the_stages_operating_frequency_and_its_pulling() {
+    use tankwright::tuning::stage::StageSettings;
+    let mut harness = Harness::builder()
+        .with_size(egui::vec2(1400.0, 1000.0))
+        .build_eframe(|cc| App::new(cc).with_field_solution(false));
+    harness.run();
+    assert_eq!(harness.state().chart_operating(), None, "no stage kept");
+    assert!(
+        !screen_text(&harness)
+            .iter()
+            .any(|t| t.starts_with("oscillator runs at")),
+        "no line without a stage"
+    );
+    let settings = StageSettings::default();
+    harness.state_mut().recipe_mut().stage = Some(settings.clone());
+    harness.run();
+    let f = figures_on(harness.state().recipe(), Footing::Classical).expect("figures");
+    let s = stage(
+        &f.coil,
+        &f.tank,
+        &f.conditions,
+        &settings.inputs().expect("inputs"),
+    )
+    .expect("stage");
+    assert!(
+        s.pulling.abs() > 1e3,
+        "the demo stage pulls: {} Hz",
+        s.pulling
+    );
+    let shown = harness.state().chart_operating().expect("on the charts");
+    assert_eq!((shown.frequency, shown.pulling), (s.frequency, s.pulling));
+    // The tank alone is the present point the charts mark.
+    assert!((s.tank_frequency - f.analysis.resonance).abs() < 1e-6);
+    let label = format!(
+        "oscillator runs at {:.3} MHz (pulled {}{:.0} kHz)",
+        s.frequency * 1e-6,
+        if s.pulling < 0.0 { "-" } else { "+" },
+        s.pulling.abs() * 1e-3
+    );
+    let entries = screen_text(&harness)
+        .into_iter()
+        .filter(|t| *t == label)
+        .count();
+    assert_eq!(entries, 2, "one legend entry above each chart: {label}");
+}

@@ -36,7 +36,15 @@ impl App {
         // Then the charts' field shape for the figures now shown.
         self.shape.ask(self.evaluation.shape_request(), ctx);
         self.shape.poll();
+        // The stage kept in the recipe, for the charts' operating-frequency line.
+        self.evaluation.refresh_stage(self.recipe.stage.as_ref());
         self.evaluation.set_shape(self.shape.ready()) || changed
+    }
+
+    /// Where the stage kept in the recipe runs, as the charts show it (for tests and
+    /// captures).
+    pub fn chart_operating(&self) -> Option<crate::ui::charts::Operating> {
+        self.evaluation.operating()
     }
 
     /// Whether the charts draw the field shape (for tests and captures).

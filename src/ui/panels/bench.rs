@@ -85,6 +85,7 @@ pub fn show(
         },
         unit,
         overlays: extras.overlays,
+        operating: evaluation.operating(),
     };
     let chart_height = ui.available_height();
     let (spacing_pick, trimmer_pick) = if extras.spacing_only {
