@@ -1,6 +1,7 @@
 //! Tankwright: a workbench for hand-wound single-layer air-core coils in VHF LC tanks.
 //!
-//! Layers, each depending only on those above it in this list:
+//! Layers, each depending only on those above it in this list ([`units`], the conversions to
+//! and from display units, and [`palette`] are used by all):
 //! - [`physics`]: pure formulas, SI units, each citing its source;
 //! - [`model`]: the coil and tank as a builder gives them, validated, and `evaluate()`;
 //! - [`tuning`]: sweeps for charts, sensitivities, solving for a target channel, band plans;
@@ -25,3 +26,4 @@ pub mod recipe;
 pub mod terminal_text;
 pub mod tuning;
 pub mod ui;
+pub mod units;

@@ -6,6 +6,7 @@
 use super::args::Args;
 use crate::recipe::{Figures, Recipe, figures, store};
 use crate::tuning::fit::inverse_square_line;
+use crate::units::{from_mhz, to_khz, to_khz_per_mm, to_mhz, to_mm, to_nh, to_pf};
 use serde_json::json;
 use std::path::Path;
 
@@ -26,7 +27,7 @@ fn recipe_from(args: &Args, command: &str) -> Result<Recipe, String> {
         if !(1.0..=3000.0).contains(&mhz) {
             return Err(format!("--target-mhz {mhz} is outside 1–3000 MHz"));
         }
-        recipe.target.channel = mhz * 1e6;
+        recipe.target.channel = from_mhz(mhz);
     }
     if let Some(pct) = trimmer {
         if !(0.0..=100.0).contains(&pct) {
@@ -55,11 +56,11 @@ pub fn run_solve(words: Vec<String>) -> Result<String, String> {
         .ok_or_else(|| "the proposed coil is refused by the model".to_owned())?;
     if args.switch("json") {
         let mut s = json!({
-            "target_mhz": f.target.channel * 1e-6,
-            "length_mm": p.length * 1e3,
+            "target_mhz": to_mhz(f.target.channel),
+            "length_mm": to_mm(p.length),
             "turns": p.turns,
             "trimmer_pct": p.trimmer_setting * 100.0,
-            "resonance_mhz": predicted * 1e-6,
+            "resonance_mhz": to_mhz(predicted),
             "calibrated": f.calibrated(),
             "resonance_source": f.field.json_name(),
             "readings_used": f.readings_used(),
@@ -77,12 +78,12 @@ pub fn run_solve(words: Vec<String>) -> Result<String, String> {
         "the classical model (no bench readings yet)".to_owned()
     };
     Ok(format!(
-        "To land {} MHz, by {model}:\n  {advice}\n  coil: {} turns, {:.3} mm long; trimmer at {:.0} %\n  predicted: {:.3} MHz\n",
+        "To land {} MHz, by {model}:\n  {advice}\n  coil: {} turns, {:.3} mm long; trimmer at {:.0} %\n  predicted: {}\n",
         crate::tuning::digits::channel_mhz(f.target.channel),
         p.turns,
-        p.length * 1e3,
+        to_mm(p.length),
         p.trimmer_setting * 100.0,
-        predicted * 1e-6
+        crate::tuning::digits::mhz(predicted)
     ))
 }
 
@@ -100,18 +101,18 @@ pub fn run_fit(words: Vec<String>) -> Result<String, String> {
     let line = inverse_square_line(&recipe.tank, &recipe.readings());
     if args.switch("json") {
         let mut s = json!({
-            "stray_pf": stray * 1e12,
-            "stray_pf_error": fit.extra_capacitance_error * 1e12,
-            "extra_pf": fit.calibration.extra_capacitance * 1e12,
+            "stray_pf": to_pf(stray),
+            "stray_pf_error": to_pf(fit.extra_capacitance_error),
+            "extra_pf": to_pf(fit.calibration.extra_capacitance),
             "inductance_scale": fit.calibration.inductance_scale,
             "inductance_scale_error": fit.inductance_scale_error,
-            "residuals_khz": fit.residuals.iter().map(|r| r * 1e-3).collect::<Vec<_>>(),
-            "instrument_errors_khz": fit.sigmas.iter().map(|s| s * 1e-3).collect::<Vec<_>>(),
+            "residuals_khz": fit.residuals.iter().copied().map(to_khz).collect::<Vec<_>>(),
+            "instrument_errors_khz": fit.sigmas.iter().copied().map(to_khz).collect::<Vec<_>>(),
             "readings_used": fit.readings_used,
-            "stretch_khz_per_mm": f.target.stretch_sensitivity * 1e-6,
+            "stretch_khz_per_mm": to_khz_per_mm(f.target.stretch_sensitivity),
             "inverse_square_line": line.map(|l| json!({
-                "inductance_nh": l.inductance * 1e9,
-                "hidden_pf": l.hidden_capacitance * 1e12,
+                "inductance_nh": to_nh(l.inductance),
+                "hidden_pf": to_pf(l.hidden_capacitance),
                 "points": l.points,
             })),
             "warnings": fit.warnings.iter().map(ToString::to_string).collect::<Vec<_>>(),
@@ -123,10 +124,10 @@ pub fn run_fit(words: Vec<String>) -> Result<String, String> {
     let mut out = vec![format!("Calibrated on {} reading(s):", fit.readings_used)];
     out.push(format!(
         "  stray              {:>8.2} ± {:.2} pF   ({:+.2} pF beyond the recipe's {:.2} pF)",
-        stray * 1e12,
-        fit.extra_capacitance_error * 1e12,
-        fit.calibration.extra_capacitance * 1e12,
-        recipe.tank.stray * 1e12
+        to_pf(stray),
+        to_pf(fit.extra_capacitance_error),
+        to_pf(fit.calibration.extra_capacitance),
+        to_pf(recipe.tank.stray)
     ));
     out.push(match fit.inductance_scale_error {
         Some(e) => format!(
@@ -139,19 +140,19 @@ pub fn run_fit(words: Vec<String>) -> Result<String, String> {
         out.push(format!(
             "  reading {:<2}         {:>+8.2} kHz off the fit (instrument ±{:.2} kHz)",
             i + 1,
-            r * 1e-3,
-            s * 1e-3
+            to_khz(*r),
+            to_khz(*s)
         ));
     }
     out.push(format!(
         "  stretch moves it   {:>8.1} kHz per mm (calibrated)",
-        f.target.stretch_sensitivity * 1e-6
+        to_khz_per_mm(f.target.stretch_sensitivity)
     ));
     if let Some(l) = line {
         out.push(format!(
             "  1/f² line          {:>8.1} nH, {:.2} pF hidden ({} readings at one length)",
-            l.inductance * 1e9,
-            l.hidden_capacitance * 1e12,
+            to_nh(l.inductance),
+            to_pf(l.hidden_capacitance),
             l.points
         ));
     }

@@ -12,11 +12,8 @@ use crate::tuning::design::parts::{
 use crate::tuning::design::{Candidate, Design, DesignSettings, plan_for, search};
 use crate::tuning::digits::{mhz, mhz_range, mm, spread_range};
 use crate::tuning::verdict::Aim;
+use crate::units::{from_mm, to_mhz, to_mm, to_pf};
 use serde_json::{Value, json};
-
-const MM: f64 = 1e-3;
-const PF: f64 = 1e12;
-const MHZ: f64 = 1e-6;
 
 /// Most candidates `--count` accepts.
 pub const COUNT_MAX: usize = 20;
@@ -84,7 +81,7 @@ fn request(args: &Args) -> Result<Request, ArgError> {
     })?;
     let fixed = parse_fixed_list(fixed_text).map_err(|e| ArgError(format!("--fixed-pf: {e}")))?;
     let trimmers = list(args, "trimmers-pf", "2-10,4-20", parse_trimmer)?;
-    let lead = args.number("lead-mm")?.unwrap_or(5.0) * MM;
+    let lead = from_mm(args.number("lead-mm")?.unwrap_or(5.0));
     let construction =
         super::stray_flags::construction_flag(args)?.unwrap_or(Construction::CopperClad);
     let count = match args.integer("count")? {
@@ -139,25 +136,25 @@ pub fn candidate_json(c: &Candidate) -> Value {
         Coating::EnamelGrade2 => json!(2),
     };
     json!({
-        "former_mm": c.former / MM,
-        "wire_mm": c.wire.bare_diameter().map(|d| d / MM),
+        "former_mm": to_mm(c.former),
+        "wire_mm": c.wire.bare_diameter().map(to_mm),
         "wire": wire_label(&c.wire),
         "enamel": enamel,
         "turns": c.turns,
-        "length_mm": c.length / MM,
-        "lead_mm": c.lead_length / MM,
-        "fixed_pf": c.fixed * PF,
-        "trimmer_min_pf": c.trimmer.min * PF,
-        "trimmer_max_pf": c.trimmer.max * PF,
+        "length_mm": to_mm(c.length),
+        "lead_mm": to_mm(c.lead_length),
+        "fixed_pf": to_pf(c.fixed),
+        "trimmer_min_pf": to_pf(c.trimmer.min),
+        "trimmer_max_pf": to_pf(c.trimmer.max),
         "trimmer_pct": c.trimmer_setting * 100.0,
-        "stray_pf": c.stray * PF,
-        "resonance_mhz": c.resonance * MHZ,
-        "trimmer_reach_mhz": [c.reach.0 * MHZ, c.reach.1 * MHZ],
-        "resonance_range_mhz": [c.spread.0 * MHZ, c.spread.1 * MHZ],
+        "stray_pf": to_pf(c.stray),
+        "resonance_mhz": to_mhz(c.resonance),
+        "trimmer_reach_mhz": [to_mhz(c.reach.0), to_mhz(c.reach.1)],
+        "resonance_range_mhz": [to_mhz(c.spread.0), to_mhz(c.spread.1)],
         "khz_per_mm": c.khz_per_mm(),
         "q": c.q,
-        "self_resonance_mhz": c.self_resonance * MHZ,
-        "wire_to_cut_mm": c.wire_to_cut / MM,
+        "self_resonance_mhz": to_mhz(c.self_resonance),
+        "wire_to_cut_mm": to_mm(c.wire_to_cut),
         "resonance_source": if c.field_solved { "field_solved" } else { "classical" },
         "reasons": c.reasons,
     })

@@ -6,6 +6,7 @@ use crate::model::{
 };
 use crate::recipe::{Recipe, StraySettings, Target};
 use crate::tuning::verdict::Aim;
+use crate::units::{from_mm, from_pf};
 
 /// A coil, tank and conditions read from the command line.
 #[derive(Clone, Debug, PartialEq)]
@@ -40,9 +41,6 @@ pub struct BenchCalibration {
     /// Readings the calibration rests on.
     pub readings: usize,
 }
-
-const MM: f64 = 1e-3;
-const PF: f64 = 1e-12;
 
 fn one_of<T>(
     args: &Args,
@@ -101,8 +99,8 @@ impl EvaluateRequest {
             "mean-diameter-mm",
             "former-diameter-mm",
             "the diameter",
-            |d| DiameterSpec::Mean(d * MM),
-            |d| DiameterSpec::Former(d * MM),
+            |d| DiameterSpec::Mean(from_mm(d)),
+            |d| DiameterSpec::Former(from_mm(d)),
         )?;
         let turns = args
             .number("turns")?
@@ -112,15 +110,15 @@ impl EvaluateRequest {
             "length-mm",
             "gap-mm",
             "the spacing",
-            |l| SpacingSpec::Length(l * MM),
-            |g| SpacingSpec::Gap(g * MM),
+            |l| SpacingSpec::Length(from_mm(l)),
+            |g| SpacingSpec::Gap(from_mm(g)),
         )?;
         let gauge = match (
             args.number("wire-mm")?,
             args.integer("awg")?,
             args.integer("swg")?,
         ) {
-            (Some(d), None, None) => Gauge::Metric(d * MM),
+            (Some(d), None, None) => Gauge::Metric(from_mm(d)),
             (None, Some(n), None) => Gauge::Awg(n),
             (None, None, Some(n)) => Gauge::Swg(n),
             (None, None, None) => {
@@ -140,11 +138,11 @@ impl EvaluateRequest {
             Some(2) => Coating::EnamelGrade2,
             Some(g) => return Err(ArgError(format!("--enamel {g}: the grade is 1 or 2"))),
         };
-        let lead = args.number("lead-mm")?.unwrap_or(0.0) * MM;
+        let lead = from_mm(args.number("lead-mm")?.unwrap_or(0.0));
         let trimmer = trimmer_from_args(args)?;
         let aim = aim_from_args(args)?;
-        let capacitance = args.number("capacitance-pf")?.unwrap_or(0.0) * PF;
-        let stray = args.number("stray-pf")?.unwrap_or(0.0) * PF;
+        let capacitance = from_pf(args.number("capacitance-pf")?.unwrap_or(0.0));
+        let stray = from_pf(args.number("stray-pf")?.unwrap_or(0.0));
         let mut conditions = Conditions::default();
         if let Some(t) = args.number("temperature-c")? {
             conditions.temperature_c = t;
@@ -212,7 +210,7 @@ fn trimmer_from_args(args: &Args) -> Result<(f64, f64, f64), ArgError> {
             "--trimmer-pct {pct} is outside 0–100 (0 = minimum capacitance)"
         )));
     }
-    Ok((min * PF, max * PF, pct / 100.0))
+    Ok((from_pf(min), from_pf(max), pct / 100.0))
 }
 
 /// `--target-mhz` (any frequency in 1–3000 MHz) and `--tolerance-khz` (default: the

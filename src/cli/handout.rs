@@ -64,8 +64,8 @@ pub fn run_spice(words: Vec<String>) -> Result<String, String> {
     )
     .map_err(|e| e.to_string())?;
     Ok(format!(
-        "wrote the tank's netlist to {out} (resonance {:.6} MHz; run: ngspice -b {out})\n",
-        f.analysis.resonance * 1e-6
+        "wrote the tank's netlist to {out} (resonance {}; run: ngspice -b {out})\n",
+        crate::tuning::digits::mhz_at(f.analysis.resonance, 6)
     ))
 }
 

@@ -5,11 +5,10 @@ use super::args::{ArgError, Args};
 use super::evaluate::EvaluateRequest;
 use crate::model::Coil;
 use crate::tuning::impedance::{ImpedancePoint, ImpedanceSweep, impedance_sweep};
+use crate::units::{from_mhz, to_mhz, to_nh};
 use serde_json::{Value, json};
 use std::fmt::Write as _;
 
-const MHZ: f64 = 1e-6;
-const NH: f64 = 1e9;
 /// Most points a sweep may ask for (each is one solution of the moment matrix).
 const MAX_POINTS: i32 = 2000;
 /// Points when `--points` is not given.
@@ -49,8 +48,8 @@ fn range(args: &Args) -> Result<Range, ArgError> {
         )));
     }
     Ok(Range {
-        from: from.map(|f| f / MHZ),
-        to: to.map(|f| f / MHZ),
+        from: from.map(from_mhz),
+        to: to.map(from_mhz),
         points: points as usize,
         points_given: given.is_some(),
     })
@@ -83,12 +82,12 @@ pub fn run_impedance(words: Vec<String>) -> Result<String, String> {
             && hz > ceiling
         {
             return Err(format!(
-                "--{name} {} is outside the solved range: above {:.1} MHz, the highest \
+                "--{name} {} is outside the solved range: above {}, the highest \
                  frequency solved for this coil (where its wire is 1.5 wavelengths long); \
-                 give 0–{:.1} MHz",
-                super::args::short(hz * MHZ),
-                ceiling * MHZ,
-                ceiling * MHZ
+                 give 0–{}",
+                super::args::short(to_mhz(hz)),
+                crate::tuning::digits::mhz_at(ceiling, 1),
+                crate::tuning::digits::mhz_at(ceiling, 1)
             ));
         }
     }
@@ -161,11 +160,11 @@ pub fn run_impedance(words: Vec<String>) -> Result<String, String> {
 
 fn point_json(p: &ImpedancePoint) -> Value {
     json!({
-        "mhz": p.frequency * MHZ,
+        "mhz": to_mhz(p.frequency),
         "r_ohm": p.impedance.re,
         "x_ohm": p.impedance.im,
         "abs_ohm": p.impedance.norm(),
-        "apparent_nh": p.apparent_inductance() * NH,
+        "apparent_nh": to_nh(p.apparent_inductance()),
         "q": finite_or_null(p.quality()),
     })
 }
@@ -178,8 +177,8 @@ fn finite_or_null(x: f64) -> Value {
 pub fn sweep_json(s: &ImpedanceSweep) -> Value {
     json!({
         "method": "field solution (thin-wire method of moments)",
-        "self_resonance_mhz": s.self_resonance * MHZ,
-        "ceiling_mhz": s.ceiling * MHZ,
+        "self_resonance_mhz": to_mhz(s.self_resonance),
+        "ceiling_mhz": to_mhz(s.ceiling),
         "segments": s.segments,
         "operating": s.operating.as_ref().map(point_json),
         "points": s.points.iter().map(point_json).collect::<Vec<_>>(),
@@ -211,11 +210,11 @@ pub fn sweep_text(s: &ImpedanceSweep, lead_length: f64) -> String {
     if let Some(p) = &s.operating {
         let _ = writeln!(
             out,
-            "at the operating frequency {:.3} MHz: R {:.4} ohm, X {:.3} ohm, X/w {:.2} nH",
-            p.frequency * MHZ,
+            "at the operating frequency {}: R {:.4} ohm, X {:.3} ohm, X/w {:.2} nH",
+            crate::tuning::digits::mhz(p.frequency),
             p.impedance.re,
             p.impedance.im,
-            p.apparent_inductance() * NH
+            to_nh(p.apparent_inductance())
         );
     }
     let _ = writeln!(
@@ -227,11 +226,11 @@ pub fn sweep_text(s: &ImpedanceSweep, lead_length: f64) -> String {
         let _ = writeln!(
             out,
             "{:>12.4} {:>12.5} {:>12.4} {:>12.4} {:>12.3} {:>9.1}",
-            p.frequency * MHZ,
+            to_mhz(p.frequency),
             p.impedance.re,
             p.impedance.im,
             p.impedance.norm(),
-            p.apparent_inductance() * NH,
+            to_nh(p.apparent_inductance()),
             p.quality()
         );
     }

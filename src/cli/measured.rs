@@ -10,6 +10,7 @@ use crate::instruments::touchstone;
 use crate::model::Coil;
 use crate::recipe::store;
 use crate::tuning::measured_coil::{MeasuredCoil, fit_measured_coil};
+use crate::units::{from_mhz, to_mhz, to_nh, to_pf};
 use serde_json::{Value, json};
 use std::fmt::Write as _;
 use std::path::Path;
@@ -54,17 +55,17 @@ fn read_text(file: &str) -> Result<String, String> {
 
 fn figures_json(m: &MeasuredCoil) -> Value {
     json!({
-        "inductance_nh": m.inductance * 1e9,
-        "self_capacitance_pf": m.self_capacitance * 1e12,
+        "inductance_nh": to_nh(m.inductance),
+        "self_capacitance_pf": to_pf(m.self_capacitance),
         "series_resistance_ohm": m.series_resistance,
-        "at_mhz": m.at_frequency * 1e-6,
+        "at_mhz": to_mhz(m.at_frequency),
         "q": m.q,
         "self_resonance_mhz": if m.self_resonance.is_finite() {
-            json!(m.self_resonance * 1e-6)
+            json!(to_mhz(m.self_resonance))
         } else {
             Value::Null
         },
-        "self_resonance_seen_mhz": m.self_resonance_seen.map(|f| f * 1e-6),
+        "self_resonance_seen_mhz": m.self_resonance_seen.map(to_mhz),
         "residual_pct": m.residual * 100.0,
         "samples_used": m.used,
     })
@@ -74,30 +75,30 @@ fn figures_text(out: &mut String, m: &MeasuredCoil) {
     let _ = writeln!(
         out,
         "  inductance (low-frequency)  {:.2} nH",
-        m.inductance * 1e9
+        to_nh(m.inductance)
     );
     let _ = writeln!(
         out,
         "  self-capacitance            {:.3} pF",
-        m.self_capacitance * 1e12
+        to_pf(m.self_capacitance)
     );
     let _ = writeln!(
         out,
-        "  series resistance           {:.4} Ω at {:.3} MHz",
+        "  series resistance           {:.4} Ω at {}",
         m.series_resistance,
-        m.at_frequency * 1e-6
+        crate::tuning::digits::mhz(m.at_frequency)
     );
     let _ = writeln!(
         out,
-        "  Q                           {:.0} at {:.3} MHz",
+        "  Q                           {:.0} at {}",
         m.q,
-        m.at_frequency * 1e-6
+        crate::tuning::digits::mhz(m.at_frequency)
     );
     if m.self_resonance.is_finite() {
         let _ = writeln!(
             out,
-            "  self-resonance              {:.2} MHz (from the fitted network)",
-            m.self_resonance * 1e-6
+            "  self-resonance              {} (from the fitted network)",
+            crate::tuning::digits::mhz_at(m.self_resonance, 2)
         );
     } else {
         let _ = writeln!(
@@ -106,7 +107,11 @@ fn figures_text(out: &mut String, m: &MeasuredCoil) {
         );
     }
     if let Some(f) = m.self_resonance_seen {
-        let _ = writeln!(out, "  reactance crosses zero at   {:.2} MHz", f * 1e-6);
+        let _ = writeln!(
+            out,
+            "  reactance crosses zero at   {}",
+            crate::tuning::digits::mhz_at(f, 2)
+        );
     }
     let _ = writeln!(
         out,
@@ -152,7 +157,7 @@ pub fn run_measured(words: Vec<String>) -> Result<String, String> {
     let text = read_text(file)?;
     let measurement =
         touchstone::read(&text, ports).map_err(|e| format!("{}: {e}", super::clean(file)))?;
-    let measured = fit_measured_coil(&measurement.samples, at.map(|f| f * 1e6))
+    let measured = fit_measured_coil(&measurement.samples, at.map(from_mhz))
         .map_err(|e| format!("{}: {e}", super::clean(file)))?;
     let (from, to) = (
         measurement.samples[0].frequency,
@@ -201,7 +206,7 @@ pub fn run_measured(words: Vec<String>) -> Result<String, String> {
             "file": file,
             "fixture": fixture,
             "reference_ohm": measurement.reference_ohm,
-            "band_mhz": [from * 1e-6, to * 1e-6],
+            "band_mhz": [to_mhz(from), to_mhz(to)],
             "model": "inductance L with series resistance R, shunted by self-capacitance C; \
                       1/(X/ω) = 1/L − ω²C fitted by least squares",
         });
@@ -236,12 +241,11 @@ pub fn run_measured(words: Vec<String>) -> Result<String, String> {
     let mut out = String::new();
     let _ = writeln!(
         out,
-        "{} ({fixture}, {:.0} Ω), {} samples from {:.3} to {:.3} MHz",
+        "{} ({fixture}, {:.0} Ω), {} samples over {}",
         super::clean(file),
         measurement.reference_ohm,
         measurement.samples.len(),
-        from * 1e-6,
-        to * 1e-6
+        crate::tuning::digits::mhz_range(from, to)
     );
     let _ = writeln!(
         out,

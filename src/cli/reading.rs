@@ -9,6 +9,7 @@
 use super::args::Args;
 use crate::model::Coil;
 use crate::recipe::{BenchEntry, store};
+use crate::units::{from_mhz, from_mm, from_pf, to_mhz, to_ppm};
 use std::path::Path;
 
 const USAGE: &str = "tankwright reading add RECIPE.ron (--mhz F | --spectrum SWEEP.csv) [--length-mm L] [--trimmer-pct P] \
@@ -67,8 +68,8 @@ pub fn run_reading(words: Vec<String>) -> Result<String, String> {
             let c = crate::instruments::sweep_csv::carrier(&text)
                 .map_err(|e| format!("{}: {e}", super::clean(csv)))?;
             (
-                c.frequency * 1e-6,
-                Some(c.error / c.frequency * 1e6),
+                to_mhz(c.frequency),
+                Some(to_ppm(c.error / c.frequency)),
                 Some(format!(
                     "carrier from a receiver sweep ({:.1} dB above its median, {} bins)",
                     c.above_median_db, c.bins
@@ -116,10 +117,10 @@ pub fn run_reading(words: Vec<String>) -> Result<String, String> {
     let mut recipe = store::load(path).map_err(|e| e.to_string())?;
     let coil = Coil::from_winding(&recipe.winding).map_err(|e| e.to_string())?;
     let entry = BenchEntry {
-        measured: mhz * 1e6,
-        length: length.map_or(coil.length(), |l| l * 1e-3),
+        measured: from_mhz(mhz),
+        length: length.map_or(coil.length(), from_mm),
         trimmer_setting: trimmer.map_or(recipe.tank.trimmer_setting, |p| p / 100.0),
-        added_capacitance: clip.unwrap_or(0.0) * 1e-12,
+        added_capacitance: from_pf(clip.unwrap_or(0.0)),
         instrument,
         error_ppm,
         note,

@@ -7,6 +7,7 @@ use crate::tuning::BandPlan;
 use crate::tuning::bands::us_fm_channel_number;
 use crate::tuning::buildable::former_drills;
 use crate::tuning::digits;
+use crate::units::{to_khz, to_khz_per_mm, to_mhz, to_mm, to_pf};
 use std::path::Path;
 
 /// Run `report` on the words after the subcommand; Ok(stdout) or Err(one-line message).
@@ -63,13 +64,13 @@ fn winding_lines(r: &Recipe, coil: &Coil, a: &Analysis, out: &mut Vec<String>) {
     out.push(match w.diameter {
         DiameterSpec::Former(d) => format!(
             "  former             {:>10.3} mm   (mean diameter {:.3} mm)",
-            d * 1e3,
-            g.mean_diameter() * 1e3
+            to_mm(d),
+            to_mm(g.mean_diameter())
         ),
         DiameterSpec::Mean(d) => format!(
             "  mean diameter      {:>10.3} mm   (former {:.3} mm)",
-            d * 1e3,
-            g.former_diameter() * 1e3
+            to_mm(d),
+            to_mm(g.former_diameter())
         ),
     });
     let drills = former_drills(coil);
@@ -85,17 +86,17 @@ fn winding_lines(r: &Recipe, coil: &Coil, a: &Analysis, out: &mut Vec<String>) {
         ));
     }
     let size = match w.wire.gauge {
-        Gauge::Awg(n) => format!("AWG {n} ({:.3} mm)", g.wire_bare() * 1e3),
-        Gauge::Swg(n) => format!("SWG {n} ({:.3} mm)", g.wire_bare() * 1e3),
-        Gauge::Metric(d) => format!("{:.3} mm", d * 1e3),
+        Gauge::Awg(n) => format!("AWG {n} ({:.3} mm)", to_mm(g.wire_bare())),
+        Gauge::Swg(n) => format!("SWG {n} ({:.3} mm)", to_mm(g.wire_bare())),
+        Gauge::Metric(d) => format!("{:.3} mm", to_mm(d)),
     };
     let coating = match w.wire.coating {
         Coating::Bare => "bare copper".to_owned(),
         Coating::EnamelGrade1 => {
-            format!("enamel grade 1, {:.3} mm overall", g.wire_overall() * 1e3)
+            format!("enamel grade 1, {:.3} mm overall", to_mm(g.wire_overall()))
         }
         Coating::EnamelGrade2 => {
-            format!("enamel grade 2, {:.3} mm overall", g.wire_overall() * 1e3)
+            format!("enamel grade 2, {:.3} mm overall", to_mm(g.wire_overall()))
         }
     };
     out.push(format!("  wire               {size}, {coating}"));
@@ -103,18 +104,18 @@ fn winding_lines(r: &Recipe, coil: &Coil, a: &Analysis, out: &mut Vec<String>) {
     out.push(match w.spacing {
         SpacingSpec::Length(l) => format!(
             "  length (N x pitch) {:>10.3} mm   (gap {:.3} mm between turns)",
-            l * 1e3,
-            g.gap() * 1e3
+            to_mm(l),
+            to_mm(g.gap())
         ),
         SpacingSpec::Gap(gap) => format!(
             "  gap between turns  {:>10.3} mm   (length {:.3} mm)",
-            gap * 1e3,
-            g.length() * 1e3
+            to_mm(gap),
+            to_mm(g.length())
         ),
     });
     out.push(format!(
         "  leads              {:>10.1} mm each",
-        g.lead_length() * 1e3
+        to_mm(g.lead_length())
     ));
     out.push(format!(
         "  wire to cut        {:>13}   (helix plus both leads)",
@@ -126,28 +127,28 @@ fn winding_lines(r: &Recipe, coil: &Coil, a: &Analysis, out: &mut Vec<String>) {
 fn tank_lines(r: &Recipe, out: &mut Vec<String>) {
     let t = &r.tank;
     out.push("Tank".to_owned());
-    out.push(format!("  fixed              {:>10.2} pF", t.fixed * 1e12));
+    out.push(format!("  fixed              {:>10.2} pF", to_pf(t.fixed)));
     if t.trimmer_max > 0.0 {
         out.push(format!(
             "  trimmer            {:>10.2} pF   ({:.1}–{:.1} pF at {:.0} %)",
-            t.trimmer_at(t.trimmer_setting) * 1e12,
-            t.trimmer_min * 1e12,
-            t.trimmer_max * 1e12,
+            to_pf(t.trimmer_at(t.trimmer_setting)),
+            to_pf(t.trimmer_min),
+            to_pf(t.trimmer_max),
             t.trimmer_setting * 100.0
         ));
     }
-    out.push(format!("  stray              {:>10.2} pF", t.stray * 1e12));
+    out.push(format!("  stray              {:>10.2} pF", to_pf(t.stray)));
     if let Some(f) = t.feedback {
         out.push(format!(
             "  feedback divider   {:>10.2} pF   ({:.1} pF over {:.1} pF, in series)",
-            f.series_capacitance() * 1e12,
-            f.upper * 1e12,
-            f.lower * 1e12
+            to_pf(f.series_capacitance()),
+            to_pf(f.upper),
+            to_pf(f.lower)
         ));
     }
     out.push(format!(
         "  across the coil    {:>10.2} pF   (without its self-capacitance)",
-        t.external_capacitance() * 1e12
+        to_pf(t.external_capacitance())
     ));
     out.push(String::new());
 }
@@ -165,11 +166,11 @@ fn target_lines(r: &Recipe, f: &Figures, out: &mut Vec<String>) {
         .unwrap_or_default();
     out.push(format!(
         "  channel            {:>10.4} MHz{number}",
-        target * 1e-6
+        to_mhz(target)
     ));
     out.push(format!(
         "  resonance now      {:>10.3} MHz   offset {}",
-        t.resonance * 1e-6,
+        to_mhz(t.resonance),
         digits::offset(t.offset)
     ));
     // What the figures rest on, in the words the window and the sheet use.
@@ -177,14 +178,14 @@ fn target_lines(r: &Recipe, f: &Figures, out: &mut Vec<String>) {
     match &t.length_for_target {
         Ok(l) => out.push(format!(
             "  length for target  {:>10.3} mm   ({} mm from now)",
-            l * 1e3,
-            digits::signed((l - f.coil.length()) * 1e3, 3)
+            to_mm(*l),
+            digits::signed(to_mm(l - f.coil.length()), 3)
         )),
         Err(e) => out.push(format!("  length for target  not proposed: {e}")),
     }
     out.push(format!(
         "  stretch moves it   {:>10.1} kHz per mm",
-        t.stretch_sensitivity * 1e-6
+        to_khz_per_mm(t.stretch_sensitivity)
     ));
     if r.tank.trimmer_max > r.tank.trimmer_min {
         match &t.setting_for_target {
@@ -223,8 +224,8 @@ fn bench_lines(r: &Recipe, f: &Figures, out: &mut Vec<String>) {
         out.push(format!(
             "  {}. {:.4} MHz at {:.2} mm, trimmer {:.0} % ({instrument}{error}){note}",
             i + 1,
-            e.measured * 1e-6,
-            e.length * 1e3,
+            to_mhz(e.measured),
+            to_mm(e.length),
             e.trimmer_setting * 100.0
         ));
     }
@@ -232,8 +233,8 @@ fn bench_lines(r: &Recipe, f: &Figures, out: &mut Vec<String>) {
         Some(Ok(fit)) => {
             out.push(format!(
                 "  calibration: {:+.2} ± {:.2} pF beyond the model",
-                fit.calibration.extra_capacitance * 1e12,
-                fit.extra_capacitance_error * 1e12
+                to_pf(fit.calibration.extra_capacitance),
+                to_pf(fit.extra_capacitance_error)
             ));
             match fit.inductance_scale_error {
                 Some(e) => out.push(format!(
@@ -248,7 +249,7 @@ fn bench_lines(r: &Recipe, f: &Figures, out: &mut Vec<String>) {
                 out.push(format!(
                     "  reading {} is {:+.1} kHz off the fit",
                     i + 1,
-                    r * 1e-3
+                    to_khz(*r)
                 ));
             }
             for w in &fit.warnings {

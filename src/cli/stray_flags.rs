@@ -18,10 +18,8 @@ use crate::tuning::spice_model::{CONTACT_POTENTIAL_V, parse_model};
 use crate::tuning::stray::{
     PartKind, Span, StrayEstimate, StrayInputs, estimate_stray, frequency_window,
 };
+use crate::units::{from_khz, from_pf, to_khz, to_mhz, to_pf};
 use serde_json::{Value, json};
-
-const PF: f64 = 1e-12;
-const KHZ: f64 = 1e3;
 
 /// The extra flags, read before the coil's own (so that the coil's reader does not refuse
 /// them as unknown).
@@ -158,7 +156,7 @@ impl Extras {
                 "pF",
                 "a hand near the coil adds capacitance",
             )?
-            .map_or(UsualChanges::HAND, |v| v * PF),
+            .map_or(UsualChanges::HAND, from_pf),
             load: within(
                 args,
                 "load-change-pf",
@@ -166,8 +164,8 @@ impl Extras {
                 "pF",
                 "the change the load makes to the tank",
             )?
-            .map_or(UsualChanges::LOAD, |v| v * PF),
-            channel_tolerance: positive(args, "channel-tolerance-khz")?.map(|k| k * KHZ),
+            .map_or(UsualChanges::LOAD, from_pf),
+            channel_tolerance: positive(args, "channel-tolerance-khz")?.map(from_khz),
         };
         if supply_v + drift.supply_change_v <= 0.0 {
             return Err(ArgError(format!(
@@ -235,7 +233,7 @@ impl Extras {
                         short(vj)
                     )));
                 }
-                (JunctionLaw::new(c * PF, vj, m), Vec::new())
+                (JunctionLaw::new(from_pf(c), vj, m), Vec::new())
             }
             ((None, None, None), Some(text)) => {
                 let parsed =
@@ -275,11 +273,11 @@ impl Extras {
         Ok(Some(JunctionFlags {
             modulator: Modulator {
                 law,
-                coupling: coupling.map(|c| c * PF),
+                coupling: coupling.map(from_pf),
             },
             bias_v,
             audio_peak_v: audio.unwrap_or(0.0).abs(),
-            audio_max_hz: audio_max.unwrap_or(15.0) * KHZ,
+            audio_max_hz: from_khz(audio_max.unwrap_or(15.0)),
             ignored,
         }))
     }
@@ -372,8 +370,8 @@ impl ExtraFigures {
         if tank_total + d.load <= 0.0 {
             return Err(format!(
                 "--load-change-pf {} takes the tank's {:.2} pF to zero or below",
-                short(d.load / PF),
-                tank_total / PF
+                short(to_pf(d.load)),
+                to_pf(tank_total)
             ));
         }
         let warm = req.conditions.temperature_c + d.temperature_change_k;
@@ -469,35 +467,35 @@ impl ExtraFigures {
             parts.insert(
                 kind.key().to_owned(),
                 json!({
-                    "low": value.low / PF,
-                    "typical": value.typical / PF,
-                    "high": value.high / PF,
+                    "low": to_pf(value.low),
+                    "typical": to_pf(value.typical),
+                    "high": to_pf(value.high),
                 }),
             );
         }
         let total = self.estimate.total();
         parts.insert(
             "total".to_owned(),
-            json!({"low": total.low / PF, "typical": total.typical / PF, "high": total.high / PF}),
+            json!({"low": to_pf(total.low), "typical": to_pf(total.typical), "high": to_pf(total.high)}),
         );
         obj.insert("stray_breakdown_pf".to_owned(), Value::Object(parts));
         obj.insert(
             "resonance_range_mhz".to_owned(),
-            json!({"low": self.window.low * 1e-6, "high": self.window.high * 1e-6}),
+            json!({"low": to_mhz(self.window.low), "high": to_mhz(self.window.high)}),
         );
         obj.insert(
             "modulation".to_owned(),
             match &self.modulation {
                 None => Value::Null,
                 Some((m, verdict, ignored)) => json!({
-                    "junction_pf": m.junction_at_bias / PF,
-                    "junction_at_peaks_pf": [m.junction_at_high_bias / PF, m.junction_at_low_bias / PF],
-                    "carrier_mhz": m.carrier * 1e-6,
-                    "deviation_up_khz": m.deviation_up / KHZ,
-                    "deviation_down_khz": m.deviation_down / KHZ,
-                    "sensitivity_khz_per_v": m.sensitivity / KHZ,
+                    "junction_pf": to_pf(m.junction_at_bias),
+                    "junction_at_peaks_pf": [to_pf(m.junction_at_high_bias), to_pf(m.junction_at_low_bias)],
+                    "carrier_mhz": to_mhz(m.carrier),
+                    "deviation_up_khz": to_khz(m.deviation_up),
+                    "deviation_down_khz": to_khz(m.deviation_down),
+                    "sensitivity_khz_per_v": to_khz(m.sensitivity),
                     "distortion_pct": m.distortion * 100.0,
-                    "carson_bandwidth_khz": m.carson_bandwidth / KHZ,
+                    "carson_bandwidth_khz": to_khz(m.carson_bandwidth),
                     "deviation_within_limit": verdict.deviation_ok,
                     "advice": verdict.advice,
                     "model_parameters_ignored": ignored,
@@ -512,7 +510,7 @@ impl ExtraFigures {
                 json!({
                     "source": l.source.key(),
                     "change": change_text(l.source, l.change),
-                    "shift_khz": l.shift / KHZ,
+                    "shift_khz": to_khz(l.shift),
                 })
             })
             .collect();
@@ -520,10 +518,10 @@ impl ExtraFigures {
         obj.insert(
             "drift_total_khz".to_owned(),
             json!({
-                "sum": self.drift.total / KHZ,
-                "worst_case": self.drift.worst_case / KHZ,
+                "sum": to_khz(self.drift.total),
+                "worst_case": to_khz(self.drift.worst_case),
                 "within_tolerance": self.drift.within_tolerance,
-                "channel_tolerance": self.drift.channel_tolerance / KHZ,
+                "channel_tolerance": to_khz(self.drift.channel_tolerance),
                 "dominant": self.drift.dominant.map(|d| d.key()),
             }),
         );
@@ -536,20 +534,20 @@ impl ExtraFigures {
             s.push_str(&format!(
                 "  {:<34} {:>7.2} {:>7.2} {:>7.2}\n",
                 p.kind.label(),
-                p.value.low / PF,
-                p.value.typical / PF,
-                p.value.high / PF
+                to_pf(p.value.low),
+                to_pf(p.value.typical),
+                to_pf(p.value.high)
             ));
         }
         let t = self.estimate.total();
         s.push_str(&format!(
             "  {:<34} {:>7.2} {:>7.2} {:>7.2}\n  resonance range    {:.3}–{:.3} MHz\n",
             "total",
-            t.low / PF,
-            t.typical / PF,
-            t.high / PF,
-            self.window.low * 1e-6,
-            self.window.high * 1e-6
+            to_pf(t.low),
+            to_pf(t.typical),
+            to_pf(t.high),
+            to_mhz(self.window.low),
+            to_mhz(self.window.high)
         ));
         if let Some((m, verdict, ignored)) = &self.modulation {
             s.push_str(&format!(
@@ -557,14 +555,14 @@ impl ExtraFigures {
                  deviation          +{:.2} / -{:.2} kHz, {:.2} kHz/V\n  \
                  distortion         {:>10.2} % second harmonic\n  \
                  Carson bandwidth   {:>10.1} kHz\n",
-                m.junction_at_bias / PF,
-                m.junction_at_high_bias / PF,
-                m.junction_at_low_bias / PF,
-                m.deviation_up / KHZ,
-                m.deviation_down / KHZ,
-                m.sensitivity / KHZ,
+                to_pf(m.junction_at_bias),
+                to_pf(m.junction_at_high_bias),
+                to_pf(m.junction_at_low_bias),
+                to_khz(m.deviation_up),
+                to_khz(m.deviation_down),
+                to_khz(m.sensitivity),
                 m.distortion * 100.0,
-                m.carson_bandwidth / KHZ
+                to_khz(m.carson_bandwidth)
             ));
             for a in &verdict.advice {
                 s.push_str(&format!("  {a}\n"));
@@ -582,13 +580,13 @@ impl ExtraFigures {
                 "  {:<34} {:>12} {:>+9.2} kHz\n",
                 l.source.label(),
                 change_text(l.source, l.change),
-                l.shift / KHZ
+                to_khz(l.shift)
             ));
         }
         s.push_str(&format!(
             "  total {:+.2} kHz, worst case {:.2} kHz: {}\n",
-            self.drift.total / KHZ,
-            self.drift.worst_case / KHZ,
+            to_khz(self.drift.total),
+            to_khz(self.drift.worst_case),
             if self.drift.within_tolerance {
                 "within the channel tolerance"
             } else {
@@ -607,6 +605,6 @@ fn change_text(source: DriftSource, change: f64) -> String {
     match source.unit() {
         "V" => format!("{change:+.2} V"),
         "K" => format!("{change:+.1} K"),
-        _ => format!("{:+.2} pF", change / PF),
+        _ => format!("{:+.2} pF", to_pf(change)),
     }
 }

@@ -6,6 +6,7 @@ use crate::tuning::digits;
 use crate::tuning::field_tank::{
     APPARENT_RISE_BIAS, FieldBasis, HELICAL_SELF_RESONANCE_BIAS, LUMPED_SELF_RESONANCE_BIAS,
 };
+use crate::units::{to_mhz, to_mm, to_nh, to_pf, to_um};
 
 /// A plain-text report with units, one figure a line.
 pub fn analysis_report(a: &Analysis) -> String {
@@ -19,20 +20,20 @@ pub fn analysis_report(a: &Analysis) -> String {
     line("Coil".to_owned());
     line(format!(
         "  mean diameter      {:>10.3} mm   (former {:.3} mm)",
-        g.mean_diameter() * 1e3,
-        g.former_diameter() * 1e3
+        to_mm(g.mean_diameter()),
+        to_mm(g.former_diameter())
     ));
     line(format!(
         "  wire               {:>10.3} mm bare, {:.3} mm overall",
-        g.wire_bare() * 1e3,
-        g.wire_overall() * 1e3
+        to_mm(g.wire_bare()),
+        to_mm(g.wire_overall())
     ));
     line(format!("  turns              {:>10.2}", g.turns()));
     line(format!(
         "  length (N x pitch) {:>10.3} mm   pitch {:.3} mm, gap {:.3} mm",
-        g.length() * 1e3,
-        g.pitch() * 1e3,
-        g.gap() * 1e3
+        to_mm(g.length()),
+        to_mm(g.pitch()),
+        to_mm(g.gap())
     ));
     line(format!(
         "  l/D                {:>10.3}",
@@ -41,7 +42,7 @@ pub fn analysis_report(a: &Analysis) -> String {
     line(format!(
         "  wire to cut        {:>13}   (helix plus two {:.1} mm leads)",
         crate::tuning::digits::wire_to_cut_mm(g.wire_length()),
-        g.lead_length() * 1e3
+        to_mm(g.lead_length())
     ));
     line("Inductance (coil only)".to_owned());
     line(format!(
@@ -55,21 +56,21 @@ pub fn analysis_report(a: &Analysis) -> String {
             ""
         };
         match i.by_model(m) {
-            Some(v) => line(format!("  {:<18} {:>10.2} nH{mark}", m.label(), v * 1e9)),
+            Some(v) => line(format!("  {:<18} {:>10.2} nH{mark}", m.label(), to_nh(v))),
             None => line(format!("  {:<18} {:>10}", m.label(), "not computed")),
         }
         if m == InductanceModel::RoundWire {
             line(format!(
                 "  {:<18} {:>10.2} nH",
                 "  (uniform current)",
-                i.round_wire_low_freq * 1e9
+                to_nh(i.round_wire_low_freq)
             ));
         }
     }
-    line(format!("  leads (both)       {:>10.2} nH", i.leads * 1e9));
+    line(format!("  leads (both)       {:>10.2} nH", to_nh(i.leads)));
     line(format!(
         "  total              {:>10.2} nH",
-        a.total_inductance * 1e9
+        to_nh(a.total_inductance)
     ));
     line(format!(
         "  apparent           {}",
@@ -77,7 +78,7 @@ pub fn analysis_report(a: &Analysis) -> String {
             Ok(l) => format!(
                 "{:>10.2} nH   at the resonance, L/(1 - (f/f_self)^2); its rise over L \
                  measures {} rise",
-                l * 1e9,
+                to_nh(l),
                 APPARENT_RISE_BIAS.in_words()
             ),
             Err(why) => why.reason().to_owned(),
@@ -86,16 +87,16 @@ pub fn analysis_report(a: &Analysis) -> String {
     line("Capacitance".to_owned());
     line(format!(
         "  self (Medhurst)    {:>10.3} pF   H = {:.3}",
-        a.self_capacitance * 1e12,
+        to_pf(a.self_capacitance),
         a.medhurst_factor
     ));
     line(format!(
         "  external           {:>10.3} pF",
-        a.external_capacitance * 1e12
+        to_pf(a.external_capacitance)
     ));
     line(format!(
         "  total              {:>10.3} pF",
-        a.total_capacitance * 1e12
+        to_pf(a.total_capacitance)
     ));
     line("Resonance".to_owned());
     line(format!(
@@ -115,7 +116,7 @@ pub fn analysis_report(a: &Analysis) -> String {
     line("Loss".to_owned());
     line(format!(
         "  skin depth         {:>10.2} µm",
-        a.skin_depth * 1e6
+        to_um(a.skin_depth)
     ));
     line(format!(
         "  R_ac / R_dc        {:>10.2}   proximity factor {:.2}",
@@ -144,12 +145,12 @@ pub fn field_report(classical: &Analysis, basis: &FieldBasis, calibrated: bool) 
         FieldBasis::Solved { tank: f, scale } => {
             s.push_str(&format!(
                 "  tank               {:>10.4} MHz   apparent inductance {:.2} nH (X/omega)\n",
-                f.resonance * 1e-6,
-                f.apparent_inductance * 1e9
+                to_mhz(f.resonance),
+                to_nh(f.apparent_inductance)
             ));
             s.push_str(&format!(
                 "  self-resonance     {:>10.0} MHz   (first parallel, at the terminals)\n",
-                f.self_resonance * 1e-6
+                to_mhz(f.self_resonance)
             ));
             s.push_str(&format!(
                 "  series resistance  {:>10.4} ohm   Q {:.0} (skin effect and radiation only)\n",
@@ -160,11 +161,11 @@ pub fn field_report(classical: &Analysis, basis: &FieldBasis, calibrated: bool) 
             s.push_str(&format!(
                 "  inductance (meter) {:>10.2} nH   what an LCR meter reads, well below the \
                  self-resonance\n",
-                f.low_frequency_inductance * 1e9
+                to_nh(f.low_frequency_inductance)
             ));
             s.push_str(&format!(
                 "  self-capacitance   {:>10.3} pF   (resonates it at the self-resonance)\n",
-                f.self_capacitance() * 1e12
+                to_pf(f.self_capacitance())
             ));
             // This coil's own ratios of the classical estimates to the field solution (the
             // range measured over many coils stands beside each estimate above).
@@ -199,7 +200,7 @@ pub fn field_report(classical: &Analysis, basis: &FieldBasis, calibrated: bool) 
             s.push_str(&format!(
                 "  {lead}: the model's inductance x {scale:.4} meets it\n  (classical model \
                  alone: {:.4} MHz)\n",
-                classical.resonance * 1e-6
+                to_mhz(classical.resonance)
             ));
         }
         FieldBasis::Held { scale } => s.push_str(&format!(

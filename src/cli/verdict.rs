@@ -4,6 +4,7 @@
 use crate::model::{Analysis, WarningTopic};
 use crate::tuning::digits::{mhz, mhz_range};
 use crate::tuning::verdict::{FlagKind, Verdict};
+use crate::units::{to_khz, to_mhz};
 use serde_json::{Value, json};
 
 /// The verdict as report lines: channel, band safety, buildability, each flag, harmonics,
@@ -51,14 +52,14 @@ pub fn add_verdict_json(object: &mut Value, v: &Verdict, a: &Analysis) {
     };
     map.insert(
         "trimmer_reach_mhz".to_owned(),
-        json!({ "low": v.reach.low * 1e-6, "high": v.reach.high * 1e-6 }),
+        json!({ "low": to_mhz(v.reach.low), "high": to_mhz(v.reach.high) }),
     );
     map.insert(
         "harmonics_mhz".to_owned(),
         json!(
             v.harmonics
                 .iter()
-                .map(|h| h.frequency * 1e-6)
+                .map(|h| to_mhz(h.frequency))
                 .collect::<Vec<_>>()
         ),
     );
@@ -69,17 +70,17 @@ pub fn add_verdict_json(object: &mut Value, v: &Verdict, a: &Analysis) {
                 .iter()
                 .map(|h| json!({
                     "order": h.order,
-                    "mhz": h.frequency * 1e-6,
-                    "low_mhz": h.low * 1e-6,
-                    "high_mhz": h.high * 1e-6,
+                    "mhz": to_mhz(h.frequency),
+                    "low_mhz": to_mhz(h.low),
+                    "high_mhz": to_mhz(h.high),
                     "falls_in": h.falls_in,
                 }))
                 .collect::<Vec<_>>()
         ),
     );
-    map.insert("target_mhz".to_owned(), json!(v.target.map(|t| t * 1e-6)));
-    map.insert("offset_khz".to_owned(), json!(v.offset.map(|o| o * 1e-3)));
-    map.insert("tolerance_khz".to_owned(), json!(v.tolerance * 1e-3));
+    map.insert("target_mhz".to_owned(), json!(v.target.map(to_mhz)));
+    map.insert("offset_khz".to_owned(), json!(v.offset.map(to_khz)));
+    map.insert("tolerance_khz".to_owned(), json!(to_khz(v.tolerance)));
     map.insert("on_channel".to_owned(), json!(v.on_channel));
     map.insert("next_step".to_owned(), json!(v.next_step()));
     map.insert(

@@ -119,9 +119,9 @@ pub fn carrier(text: &str) -> Result<Carrier, SweepError> {
         return Err(SweepError {
             line: 0,
             reason: format!(
-                "no carrier: the strongest bin ({:.3} MHz) stands only {above:.1} dB above the \
+                "no carrier: the strongest bin ({}) stands only {above:.1} dB above the \
                  median of the sweep (at least {MIN_ABOVE_MEDIAN_DB} dB is needed)",
-                frequency * 1e-6
+                crate::tuning::digits::mhz(frequency)
             ),
         });
     }

@@ -186,15 +186,22 @@ struct Shared {
     depth_scale: f64,
 }
 
-fn shared(shape: &Shape, conditions: &Conditions) -> Option<Shared> {
-    let rosa = match conditions.model {
-        InductanceModel::RoundWire => true,
-        InductanceModel::CurrentSheet => false,
-        // No column form yet: these take the per-point path (a new model must choose here).
+/// The column form a model has on the batch path, if any: `Some(true)` with Rosa's round-wire
+/// correction, `Some(false)` as the current sheet alone, `None` for the per-point path. No
+/// `_ =>` arm: a new model must choose here, and the batch test walks
+/// [`InductanceModel::ALL`] through this.
+pub const fn column_form(model: InductanceModel) -> Option<bool> {
+    match model {
+        InductanceModel::RoundWire => Some(true),
+        InductanceModel::CurrentSheet => Some(false),
         InductanceModel::FilamentSum
         | InductanceModel::Lundin1985
-        | InductanceModel::Wheeler1928 => return None,
-    };
+        | InductanceModel::Wheeler1928 => None,
+    }
+}
+
+fn shared(shape: &Shape, conditions: &Conditions) -> Option<Shared> {
+    let rosa = column_form(conditions.model)?;
     let (d, n, w) = (shape.mean_diameter, shape.turns, shape.wire_bare);
     // The driving inductance (coil and leads) is scaled as a whole, as the per-point path
     // does (a bench calibration's inductance scale).

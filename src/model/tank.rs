@@ -1,6 +1,7 @@
 //! The capacitive side of the tank.
 
 use super::error::{Field, InputError};
+use crate::units::to_pf;
 
 /// Two capacitors in series across the tank (the feedback divider of a Colpitts oscillator).
 #[derive(Clone, Copy, Debug, PartialEq)]
@@ -95,8 +96,8 @@ fn capacitance_refusal(field: Field, what: &str, value: f64) -> InputError {
         field,
         format!(
             "{what} {:.3} pF is outside 0–{:.0} pF",
-            value * 1e12,
-            CAPACITANCE_MAX * 1e12
+            to_pf(value),
+            to_pf(CAPACITANCE_MAX)
         ),
     )
 }
@@ -113,8 +114,8 @@ impl Tank {
                 Field::Trimmer,
                 format!(
                     "trimmer maximum {:.2} pF is below its minimum {:.2} pF",
-                    self.trimmer_max * 1e12,
-                    self.trimmer_min * 1e12
+                    to_pf(self.trimmer_max),
+                    to_pf(self.trimmer_min)
                 ),
             ));
         }

@@ -9,6 +9,7 @@ use super::document::{BenchEntry, Recipe};
 use crate::model::Field;
 use crate::tuning::BandPlan;
 use crate::tuning::spread::BuildTolerances;
+use crate::units::{to_khz, to_mhz, to_mm, to_nh, to_pf};
 
 /// Frequencies a recipe may name, MHz: wider than any VHF tank, narrow enough to catch typos.
 pub const FREQUENCY_MHZ: (f64, f64) = (1.0, 3000.0);
@@ -21,7 +22,7 @@ pub const NAME_MAX: usize = 200;
 /// Largest instrument error accepted, ppm.
 pub const PPM_MAX: f64 = 1e6;
 /// Longest coil length a bench reading may record, mm (as the model's limit).
-pub const BENCH_LENGTH_MAX_MM: f64 = crate::model::limits::LENGTH_MAX * 1e3;
+pub const BENCH_LENGTH_MAX_MM: f64 = to_mm(crate::model::limits::LENGTH_MAX);
 /// Most bench readings a recipe keeps. A coil is trimmed in tens of readings, not thousands;
 /// the window lists every reading and works out the latest correction on each frame, so a
 /// log of tens of thousands (a pasted data dump) made every mouse event cost about a second.
@@ -132,9 +133,9 @@ pub fn check_sizes(readings: usize, channels: usize) -> Result<(), Refusal> {
 /// One bench reading (the `i`th, 0-based) by the recipe rules.
 pub fn check_reading(r: &BenchEntry, i: usize) -> Result<(), Refusal> {
     let field = |key: &str| format!("bench_log[{i}].{key}");
-    check_frequency_mhz(r.measured / 1e6, "the measured frequency")
+    check_frequency_mhz(to_mhz(r.measured), "the measured frequency")
         .map_err(|reason| Refusal::new(field("measured_mhz"), "measured_mhz", i, reason))?;
-    let l = r.length * 1e3;
+    let l = to_mm(r.length);
     if !l.is_finite() || l <= 0.0 || l > BENCH_LENGTH_MAX_MM {
         return Err(Refusal::new(
             field("coil_length_mm"),
@@ -183,8 +184,8 @@ pub fn check_reading(r: &BenchEntry, i: usize) -> Result<(), Refusal> {
             i,
             format!(
                 "added capacitance {} pF is outside 0–{:.0} pF",
-                r.added_capacitance * 1e12,
-                crate::model::CAPACITANCE_MAX * 1e12
+                to_pf(r.added_capacitance),
+                to_pf(crate::model::CAPACITANCE_MAX)
             ),
         ));
     }
@@ -201,7 +202,7 @@ pub fn check_channels(channels_hz: &[f64]) -> Result<(), Refusal> {
     }
     check_sizes(0, channels_hz.len())?;
     for (i, &f) in channels_hz.iter().enumerate() {
-        check_frequency_mhz(f / 1e6, &format!("channel {}", i + 1)).map_err(at)?;
+        check_frequency_mhz(to_mhz(f), &format!("channel {}", i + 1)).map_err(at)?;
     }
     Ok(())
 }
@@ -214,21 +215,21 @@ pub fn check_tolerances(t: &BuildTolerances) -> Result<(), Refusal> {
         (
             "former_tolerance_mm",
             "former tolerance",
-            t.former_diameter * 1e3,
+            to_mm(t.former_diameter),
             mm,
             "mm",
         ),
         (
             "length_tolerance_mm",
             "length tolerance",
-            t.length * 1e3,
+            to_mm(t.length),
             mm,
             "mm",
         ),
         (
             "wire_tolerance_mm",
             "wire tolerance",
-            t.wire_diameter * 1e3,
+            to_mm(t.wire_diameter),
             mm,
             "mm",
         ),
@@ -284,10 +285,10 @@ pub fn judge(r: &Recipe) -> Result<(), Refusal> {
     if let BandPlan::Custom(list) = &r.target.plan {
         check_channels(list)?;
     }
-    check_frequency_mhz(r.target.channel / 1e6, "the target channel")
+    check_frequency_mhz(to_mhz(r.target.channel), "the target channel")
         .map_err(|reason| Refusal::new("aim.channel_mhz", "channel_mhz", 0, reason))?;
     if let Some(t) = r.target.tolerance {
-        check_tolerance_khz(t / 1e3).map_err(|reason| {
+        check_tolerance_khz(to_khz(t)).map_err(|reason| {
             Refusal::new(
                 "aim.on_channel_within_khz",
                 "on_channel_within_khz",
@@ -344,10 +345,10 @@ pub fn check_measurement(
     }
     let c = &m.coil;
     let checks: [(&'static str, f64, f64, &str); 6] = [
-        ("inductance_nh", c.inductance * 1e9, 1e6, "nH"),
-        ("self_capacitance_pf", c.self_capacitance * 1e12, 1e3, "pF"),
+        ("inductance_nh", to_nh(c.inductance), 1e6, "nH"),
+        ("self_capacitance_pf", to_pf(c.self_capacitance), 1e3, "pF"),
         ("series_resistance_ohm", c.series_resistance, 1e6, "ohm"),
-        ("stated_at_mhz", c.at_frequency * 1e-6, 1e5, "MHz"),
+        ("stated_at_mhz", to_mhz(c.at_frequency), 1e5, "MHz"),
         ("q", c.q, 1e7, ""),
         ("residual_percent", c.residual * 100.0, 1e3, "%"),
     ];

@@ -7,6 +7,7 @@
 use super::landing::{self, FieldLed};
 use super::solve::{Unreachable, length_for_target, setting_for_target, turns_for_target};
 use crate::model::{Coil, Conditions, Tank};
+use crate::units::{to_khz, to_mm, to_pf};
 use std::fmt;
 
 /// The smallest change in coil length a builder can set by hand, metres (about 0.1 mm: common
@@ -133,11 +134,11 @@ impl CoarseTrimmer {
              ±{:.0} kHz the channel allows, so a hand cannot set it: fit a trimmer whose \
              travel spans at most {:.1} pF, or put at most {:.1} pF in series with this one \
              and add {:.1} pF to the fixed capacitor",
-            self.per_step * 1e-3,
-            self.tolerance * 1e-3,
+            to_khz(self.per_step),
+            to_khz(self.tolerance),
             down(self.span_at_most),
             down(self.series_at_most),
-            self.fixed_added * 1e12
+            to_pf(self.fixed_added)
         )
     }
 }
@@ -251,7 +252,7 @@ impl Advice {
             Advice::OutOfReach(why) => why.clone(),
             Advice::OnChannel { offset } => format!(
                 "on channel ({:+.1} kHz): leave the coil and the trimmer as they are",
-                offset * 1e-3
+                to_khz(*offset)
             ),
         }
     }
@@ -259,7 +260,7 @@ impl Advice {
 
 impl fmt::Display for Advice {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
-        f.write_str(&self.text(|m| format!("{:.2} mm", m * 1e3)))
+        f.write_str(&self.text(|m| format!("{:.2} mm", to_mm(m))))
     }
 }
 

@@ -6,6 +6,7 @@
 //! recalled rather than checked against the document, "from memory".
 
 use super::service::{Band, Service};
+use crate::units::{to_khz, to_mhz};
 
 /// A list of channel centres to aim at.
 #[derive(Clone, Debug, PartialEq)]
@@ -243,7 +244,7 @@ impl BandPlan {
     /// IARU Region 1 designator, a calling frequency, the segment. `None` for an unnamed
     /// frequency.
     pub fn channel_note(&self, frequency: f64) -> Option<String> {
-        let khz = (frequency / 1e3).round() as i64;
+        let khz = to_khz(frequency).round() as i64;
         match self {
             BandPlan::UsFm => us_fm_channel_number(frequency).map(|n| format!("channel {n}")),
             BandPlan::TwoMetreRegion1 => {
@@ -315,7 +316,7 @@ impl BandPlan {
     pub fn channel_label(&self, frequency: f64) -> String {
         // A typed frequency off the raster keeps its own digits (100.05 is not 100.1).
         let mhz = if self.has_channel(frequency) {
-            super::digits::fixed(frequency * 1e-6, self.channel_decimals())
+            super::digits::fixed(to_mhz(frequency), self.channel_decimals())
         } else {
             super::digits::channel_mhz(frequency)
         };

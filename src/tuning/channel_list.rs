@@ -4,6 +4,7 @@
 //! number, 1e9 MHz) is refused with a message naming the entry, and a list loses nothing
 //! silently: duplicates are removed with a note saying so.
 
+use crate::units::{from_mhz, to_mhz};
 use std::fmt;
 
 /// Frequencies a target or channel may name, hertz: wider than any VHF tank, narrow enough
@@ -46,8 +47,8 @@ pub fn check_frequency(hz: f64, what: &str) -> Result<f64, TypedFrequencyError> 
         return Err(TypedFrequencyError(format!(
             "{what} {} MHz is outside {}–{} MHz",
             shortest_mhz(hz),
-            lo * 1e-6,
-            hi * 1e-6
+            to_mhz(lo),
+            to_mhz(hi)
         )));
     }
     Ok(hz)
@@ -70,7 +71,7 @@ pub fn parse_target_mhz(text: &str) -> Result<f64, TypedFrequencyError> {
     let mhz: f64 = t
         .parse()
         .map_err(|_| TypedFrequencyError(format!("'{t}' is not a frequency in MHz")))?;
-    check_frequency(mhz * 1e6, "the target")
+    check_frequency(from_mhz(mhz), "the target")
 }
 
 /// A custom channel list typed as MHz values separated by commas, semicolons or spaces.
@@ -103,7 +104,7 @@ pub fn parse_channel_list(text: &str) -> Result<ChannelList, TypedFrequencyError
                 i + 1
             ))
         })?;
-        hz.push(check_frequency(mhz * 1e6, &format!("entry {}", i + 1))?);
+        hz.push(check_frequency(from_mhz(mhz), &format!("entry {}", i + 1))?);
     }
     // Whole hertz: the same channel typed as 99.1 and 99.10 is one channel.
     let mut whole: Vec<f64> = hz.iter().map(|f| f.round()).collect();
@@ -132,9 +133,9 @@ pub fn parse_channel_list(text: &str) -> Result<ChannelList, TypedFrequencyError
 /// MHz with as many decimals as needed (up to 6: whole hertz), for messages.
 fn shortest_mhz(hz: f64) -> String {
     if !hz.is_finite() || hz.abs() >= 1e15 {
-        return format!("{}", hz * 1e-6);
+        return format!("{}", to_mhz(hz));
     }
-    let s = format!("{:.6}", hz * 1e-6);
+    let s = format!("{:.6}", to_mhz(hz));
     let s = s.trim_end_matches('0').trim_end_matches('.');
     s.to_owned()
 }

@@ -5,8 +5,9 @@
 
 use super::stray::{LeadLayout, PadLayout, Span, StrayInputs, StripLayout};
 
-const MM: f64 = 1e-3;
-const PF: f64 = 1e-12;
+// One millimetre and one picofarad in SI, for the tables of typical values below.
+const MM: f64 = crate::units::from_mm(1.0);
+const PF: f64 = crate::units::from_pf(1.0);
 
 /// A way of building the circuit.
 #[derive(Clone, Copy, Debug, PartialEq, Eq, Hash)]

@@ -8,6 +8,7 @@
 //! cut is stated to the millimetre everywhere ([`wire_to_cut_mm`]); an uncertainty that rounds
 //! to nothing at the shown resolution is said to be below it ([`plus_minus`]).
 
+use crate::units::{to_khz, to_mhz, to_mm};
 /// `value` with `decimals` decimals, never "-0.0…": a value that rounds to zero is shown
 /// unsigned. Non-finite values read "—".
 pub fn fixed(value: f64, decimals: usize) -> String {
@@ -33,7 +34,7 @@ pub fn signed(value: f64, decimals: usize) -> String {
 
 /// A tank frequency in MHz to 1 kHz, without the unit: "98.700".
 pub fn mhz_plain(hz: f64) -> String {
-    fixed(hz * 1e-6, 3)
+    fixed(to_mhz(hz), 3)
 }
 
 /// A tank frequency in MHz to 1 kHz: "98.700 MHz".
@@ -49,14 +50,14 @@ pub fn mhz_range(low: f64, high: f64) -> String {
 /// A self-resonance in MHz to 1 MHz: "412 MHz" (the estimates are rough; more digits would
 /// promise what they do not hold).
 pub fn self_resonance(hz: f64) -> String {
-    format!("{} MHz", fixed(hz * 1e-6, 0))
+    format!("{} MHz", fixed(to_mhz(hz), 0))
 }
 
 /// A channel or typed target in MHz with the decimals it needs, one to four: "98.7",
 /// "146.52", "145.2125" (channels are exact; a 12.5 kHz raster needs the fourth decimal,
 /// which [`mhz`]'s 1 kHz would round away).
 pub fn channel_mhz(hz: f64) -> String {
-    let s = fixed(hz * 1e-6, 4);
+    let s = fixed(to_mhz(hz), 4);
     if !s.contains('.') {
         return s;
     }
@@ -72,12 +73,12 @@ pub fn channel_mhz(hz: f64) -> String {
 /// ("+12.3 kHz", "+999.9 kHz"), in MHz to 1 kHz beyond ("-9.336 MHz"). Zero reads
 /// "0.0 kHz".
 pub fn offset(hz: f64) -> String {
-    let khz = hz * 1e-3;
+    let khz = to_khz(hz);
     // Decide on the figure as shown, so 999.96 kHz does not read "+1000.0 kHz".
     if fixed(khz.abs(), 1).parse::<f64>().unwrap_or(f64::INFINITY) < 1000.0 {
         format!("{} kHz", signed(khz, 1))
     } else {
-        format!("{} MHz", signed(hz * 1e-6, 3))
+        format!("{} MHz", signed(to_mhz(hz), 3))
     }
 }
 
@@ -88,7 +89,7 @@ pub fn width(hz: f64) -> String {
 
 /// A length in millimetres with `decimals` decimals: "8.00 mm", never "-0.00 mm".
 pub fn mm(metres: f64, decimals: usize) -> String {
-    format!("{} mm", fixed(metres * 1e3, decimals))
+    format!("{} mm", fixed(to_mm(metres), decimals))
 }
 
 /// Decimals (of MHz) for the figures of a spread `width_hz` wide: enough to give the width two
@@ -97,7 +98,7 @@ pub fn mm(metres: f64, decimals: usize) -> String {
 /// digits beyond are inside the spread's own uncertainty (a 95 % interval from a few thousand
 /// draws moves in its second figure from run to run).
 pub fn spread_decimals(width_hz: f64) -> usize {
-    let width_mhz = width_hz.abs() * 1e-6;
+    let width_mhz = to_mhz(width_hz.abs());
     if !width_mhz.is_finite() || width_mhz <= 0.0 {
         return 3;
     }
@@ -108,14 +109,14 @@ pub fn spread_decimals(width_hz: f64) -> usize {
 
 /// A frequency in MHz at `decimals`, with the unit: "98.7 MHz".
 pub fn mhz_at(hz: f64, decimals: usize) -> String {
-    format!("{} MHz", fixed(hz * 1e-6, decimals))
+    format!("{} MHz", fixed(to_mhz(hz), decimals))
 }
 
 /// A spread's range with the digits its width allows ([`spread_decimals`]): "92.6–102.2 MHz"
 /// for a 9.6 MHz spread, "98.412–98.451 MHz" for a 39 kHz one.
 pub fn spread_range(low: f64, high: f64) -> String {
     let d = spread_decimals(high - low);
-    format!("{}–{} MHz", fixed(low * 1e-6, d), fixed(high * 1e-6, d))
+    format!("{}–{} MHz", fixed(to_mhz(low), d), fixed(to_mhz(high), d))
 }
 
 /// A spread's width to two significant figures (1 kHz at the finest): "9.6 MHz",
@@ -125,11 +126,11 @@ pub fn spread_width(hz: f64) -> String {
     let d = spread_decimals(hz);
     if hz >= 1e6 || d == 0 {
         // One or two significant figures above 1 MHz: d is 0 or 1 here.
-        format!("{} MHz", fixed(hz * 1e-6, d.min(1)))
+        format!("{} MHz", fixed(to_mhz(hz), d.min(1)))
     } else {
         // Below 1 MHz in kHz: the same resolution, 10^(3 - d) kHz.
         let step = 10f64.powi(3 - i32::try_from(d).unwrap_or(3));
-        format!("{} kHz", fixed((hz * 1e-3 / step).round() * step, 0))
+        format!("{} kHz", fixed((to_khz(hz) / step).round() * step, 0))
     }
 }
 
@@ -137,7 +138,7 @@ pub fn spread_width(hz: f64) -> String {
 /// millimetres and its leads are trimmed after soldering, so a finer figure promises nothing
 /// (common practice). The window, `report` and the sheet all state it so.
 pub fn wire_to_cut_mm(metres: f64) -> String {
-    format!("{} mm", fixed(metres * 1e3, 0))
+    format!("{} mm", fixed(to_mm(metres), 0))
 }
 
 /// An uncertainty `value` shown at `decimals` with `unit`: "±0.12 mm"; when it rounds to zero

@@ -412,9 +412,9 @@ impl FieldBasis {
                     Some(scale) => FieldBasis::Solved { tank, scale },
                     None => FieldBasis::Classical {
                         why: Unled::Failed(format!(
-                            "the field-solved resonance ({:.3} MHz) is further from the \
+                            "the field-solved resonance ({}) is further from the \
                              model's than an inductance factor of 0.5–2 explains",
-                            tank.resonance * 1e-6
+                            super::digits::mhz(tank.resonance)
                         )),
                     },
                 }

@@ -23,6 +23,7 @@
 
 use super::solve::resonance_at_length;
 use crate::model::{Coil, Conditions, Tank, evaluate::resonance_of};
+use crate::units::{from_ppm, to_khz, to_pf};
 use std::f64::consts::PI;
 use std::fmt;
 
@@ -71,7 +72,7 @@ impl Reading {
 
     /// The reading's standard error, hertz.
     pub fn sigma(&self) -> f64 {
-        self.error_ppm.unwrap_or(ASSUMED_ERROR_PPM).abs().max(1e-3) * 1e-6 * self.measured
+        from_ppm(self.error_ppm.unwrap_or(ASSUMED_ERROR_PPM).abs().max(1e-3)) * self.measured
     }
 }
 
@@ -160,7 +161,7 @@ impl fmt::Display for FitWarning {
                 f,
                 "the fit needs {:.2} pF of stray, below zero: check the fixed capacitor's value \
                  and the trimmer's range",
-                total * 1e12
+                to_pf(*total)
             ),
             FitWarning::ScaleUndetermined { reason } => write!(
                 f,
@@ -176,7 +177,7 @@ impl fmt::Display for FitWarning {
                 "reading {} is {:+.1} kHz from the fit, {:.0} times its instrument error: a \
                  misread or a coil that moved",
                 reading + 1,
-                residual * 1e-3,
+                to_khz(*residual),
                 (residual / sigma).abs()
             ),
             FitWarning::ScaleImplausible { scale } => write!(
@@ -192,10 +193,10 @@ impl fmt::Display for FitWarning {
                 left_out,
             } => write!(
                 f,
-                "reading {} is about {ratio} the predicted {:.3} MHz: is this a harmonic, or the \
+                "reading {} is about {ratio} the predicted {}: is this a harmonic, or the \
                  wrong tank?{}",
                 reading + 1,
-                predicted * 1e-6,
+                super::digits::mhz(*predicted),
                 if *left_out {
                     " It is left out of the calibration."
                 } else {

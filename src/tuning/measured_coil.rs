@@ -144,8 +144,8 @@ pub fn fit_measured_coil(
     let series_resistance = chosen.impedance.re * detune * detune;
     if series_resistance.is_nan() || series_resistance <= 0.0 {
         return Err(FitRefusal(format!(
-            "the resistance at {:.3} MHz is not positive: the file's losses are below its accuracy",
-            chosen.frequency * 1e-6
+            "the resistance at {} is not positive: the file's losses are below its accuracy",
+            crate::tuning::digits::mhz(chosen.frequency)
         )));
     }
     Ok(MeasuredCoil {

@@ -12,6 +12,7 @@
 use crate::model::{Coil, Conditions, Tank};
 use crate::tuning::fit::Reading;
 use crate::tuning::solve::resonance_at_length;
+use crate::units::to_mm;
 
 /// Hertz: the tank's resonance for `reading`'s coil length, trimmer setting and added
 /// capacitance with no stray and the inductance at the lowest accepted scale (an upper bound
@@ -46,15 +47,15 @@ pub fn check(
     let top = highest_possible(coil, tank, conditions, reading);
     if top.is_finite() && reading.measured > top {
         return Err(format!(
-            "{:.3} MHz is above anything this tank can reach: with no stray at all and the \
+            "{} is above anything this tank can reach: with no stray at all and the \
              inductance at {} of the model's, the coil at {:.2} mm and the trimmer at {:.0} % \
-             resonate at most at {:.3} MHz; is it a harmonic or another signal? Check the \
+             resonate at most at {}; is it a harmonic or another signal? Check the \
              instrument's reading",
-            reading.measured * 1e-6,
+            super::digits::mhz(reading.measured),
             Conditions::INDUCTANCE_SCALE_RANGE.start(),
-            reading.length * 1e3,
+            to_mm(reading.length),
             reading.trimmer_setting * 100.0,
-            top * 1e-6
+            super::digits::mhz(top)
         ));
     }
     Ok(())

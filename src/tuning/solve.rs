@@ -37,19 +37,18 @@ impl fmt::Display for Unreachable {
         match self {
             Unreachable::AboveEvenCloseWound { close_wound } => write!(
                 f,
-                "even at its lowest ({:.3} MHz) the tank resonates above the target: add a turn or capacitance",
-                close_wound * 1e-6
+                "even at its lowest ({}) the tank resonates above the target: add a turn or capacitance",
+                super::digits::mhz(*close_wound)
             ),
             Unreachable::BelowEvenStretched { stretched } => write!(
                 f,
-                "even at its highest ({:.3} MHz) the tank resonates below the target: remove a turn or capacitance",
-                stretched * 1e-6
+                "even at its highest ({}) the tank resonates below the target: remove a turn or capacitance",
+                super::digits::mhz(*stretched)
             ),
             Unreachable::OutsideTrimmer { low, high } => write!(
                 f,
-                "the trimmer reaches only {:.3}–{:.3} MHz at this spacing",
-                low * 1e-6,
-                high * 1e-6
+                "the trimmer reaches only {} at this spacing",
+                super::digits::mhz_range(*low, *high)
             ),
         }
     }

@@ -11,6 +11,7 @@
 use super::stray::Span;
 use crate::model::batch::{SweepColumns, resonance_over_lengths};
 use crate::model::{Coil, Conditions, evaluate::resonance_of};
+use crate::units::to_mm;
 use rand_core::{Rng, SeedableRng};
 use rand_xoshiro::Xoshiro256PlusPlus;
 
@@ -76,9 +77,9 @@ impl BuildTolerances {
     pub fn in_words(&self) -> String {
         format!(
             "former ±{:.2} mm, length ±{:.2} mm, wire ±{:.3} mm, turns ±{}, fixed capacitor ±{} %",
-            self.former_diameter * 1e3,
-            self.length * 1e3,
-            self.wire_diameter * 1e3,
+            to_mm(self.former_diameter),
+            to_mm(self.length),
+            to_mm(self.wire_diameter),
             self.turns,
             self.fixed_fraction * 100.0
         )

@@ -10,6 +10,7 @@ use crate::model::{Coil, Conditions, evaluate::resonance_of};
 use crate::physics::{
     coil_ground, coplanar, junction::JunctionLaw, junction::series, plate, wire_capacitance,
 };
+use crate::units::to_mm;
 
 /// Low, typical and high values of one quantity (SI units of the quantity).
 #[derive(Clone, Copy, Debug, PartialEq)]
@@ -372,8 +373,8 @@ impl StrayInputs {
             if h.low <= 0.5 * self.coil_mean_diameter {
                 return Err(StrayInputError(format!(
                     "coil height over the plane {:.2} mm must exceed the coil's radius {:.2} mm",
-                    h.low * 1e3,
-                    0.5 * self.coil_mean_diameter * 1e3
+                    to_mm(h.low),
+                    to_mm(0.5 * self.coil_mean_diameter)
                 )));
             }
         }
@@ -385,15 +386,15 @@ impl StrayInputs {
                 if h.low <= 0.5 * l.wire_diameter {
                     return Err(StrayInputError(format!(
                         "lead height {:.2} mm must exceed the wire's radius",
-                        h.low * 1e3
+                        to_mm(h.low)
                     )));
                 }
             }
             if l.spacing.low <= l.wire_diameter {
                 return Err(StrayInputError(format!(
                     "lead spacing {:.2} mm must exceed the wire diameter {:.2} mm",
-                    l.spacing.low * 1e3,
-                    l.wire_diameter * 1e3
+                    to_mm(l.spacing.low),
+                    to_mm(l.wire_diameter)
                 )));
             }
         }

@@ -1,4 +1,5 @@
-//! Display units at the edge: SI inside, millimetres or inches, pF, nH, MHz on screen.
+//! How lengths are shown in the window: millimetres or inches (the conversions themselves are
+//! [`crate::units`]).
 
 /// How lengths are shown.
 #[derive(Clone, Copy, Debug, PartialEq, Eq, Default)]
@@ -14,7 +15,8 @@ impl LengthUnit {
     /// Metres per display unit.
     pub fn metres_per_unit(self) -> f64 {
         match self {
-            LengthUnit::Millimetres => 1e-3,
+            LengthUnit::Millimetres => crate::units::from_mm(1.0),
+            // Exact by definition (the international inch, 1959).
             LengthUnit::Inches => 0.0254,
         }
     }
@@ -75,19 +77,4 @@ impl LengthUnit {
     pub fn show_uncertainty(self, metres: f64) -> String {
         crate::tuning::digits::plus_minus(self.from_metres(metres), self.decimals(), self.suffix())
     }
-}
-
-/// Farads to picofarads.
-pub fn pf(farads: f64) -> f64 {
-    farads * 1e12
-}
-
-/// Henries to nanohenries.
-pub fn nh(henries: f64) -> f64 {
-    henries * 1e9
-}
-
-/// Hertz to megahertz.
-pub fn mhz(hertz: f64) -> f64 {
-    hertz * 1e-6
 }

@@ -14,6 +14,7 @@ use crate::tuning::solve::{stretch_sensitivity, trimmer_window};
 use crate::tuning::spread::{TankParts, linear_band, spread};
 use crate::tuning::stray::Span;
 use crate::tuning::verdict::{Aim, Flag, FlagKind, Reach, band_flags};
+use crate::units::to_pf;
 
 /// Monte Carlo draws and seed of the confirmed spread: the figures of
 /// `recipe::expectation` (tests/engine/design.rs holds the two equal).
@@ -141,8 +142,8 @@ pub fn judge_candidate(
     );
     let trimmer = format!(
         "the {}–{} pF trimmer",
-        super::parts::short(tank.trimmer_min * 1e12),
-        super::parts::short(tank.trimmer_max * 1e12)
+        super::parts::short(to_pf(tank.trimmer_min)),
+        super::parts::short(to_pf(tank.trimmer_max))
     );
     // The travel as the verdict judges it (the trimmer's whole reach at this coil); the
     // travel of a build at the spread's edge is told in the reasons, not refused.

@@ -48,7 +48,8 @@ pub use landing::{Method, ScaleCurve};
 use parts::{PartsError, PartsOnHand, TrimmerPart, short, wire_label};
 use ruled_out::Tally;
 
-const PF: f64 = 1e-12;
+// One picofarad in SI, for the table of typical values below.
+const PF: f64 = crate::units::from_pf(1.0);
 
 /// How the search judges and how much it confirms.
 #[derive(Clone, Debug, PartialEq)]
@@ -394,7 +395,7 @@ fn describe(parts: &PartsOnHand, key: [usize; 4], turns: f64, f: &Failure) -> (S
 /// "10 pF fixed", "no fixed capacitor".
 pub fn fixed_label(fixed: f64) -> String {
     if fixed > 0.0 {
-        format!("{} pF fixed", short(fixed / PF))
+        format!("{} pF fixed", short(crate::units::to_pf(fixed)))
     } else {
         "no fixed capacitor".to_owned()
     }

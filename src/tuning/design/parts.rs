@@ -8,8 +8,10 @@ use crate::model::{Coating, Gauge, WireSpec};
 use crate::physics::wire_gauge;
 use crate::tuning::construction::Construction;
 
-const MM: f64 = 1e-3;
-const PF: f64 = 1e-12;
+// One millimetre and one picofarad in SI, for the tables of typical values below.
+const MM: f64 = crate::units::from_mm(1.0);
+const PF: f64 = crate::units::from_pf(1.0);
+// Exact by definition (the international inch, 1959).
 const INCH: f64 = 25.4e-3;
 
 /// Former diameters accepted, metres (a drill shank or rod a hand winds a VHF coil on;

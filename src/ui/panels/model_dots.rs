@@ -7,6 +7,7 @@ use crate::model::{Analysis, InductanceModel};
 use crate::tuning::digits;
 use crate::ui::charts::ticks;
 use crate::ui::theme;
+use crate::units::to_nh;
 use eframe::egui::{self, Color32, RichText, Sense};
 
 /// Height of one row, points.
@@ -57,7 +58,7 @@ pub fn dots(a: &Analysis) -> Vec<Dot> {
 pub fn row_text(dot: &Dot) -> String {
     let value = dot.value.map_or_else(
         || "not computed".to_owned(),
-        |v| format!("{} nH", digits::fixed(v * 1e9, 2)),
+        |v| format!("{} nH", digits::fixed(to_nh(v), 2)),
     );
     if dot.driving {
         format!("{} {value} (drives the resonance)", dot.name)
@@ -81,7 +82,7 @@ pub fn show(ui: &mut egui::Ui, a: &Analysis) {
     // The axis: the spread with a margin, never narrower than ±0.5 % of the middle.
     let mid = 0.5 * (lo + hi);
     let half = (0.5 * (hi - lo)).max(0.005 * mid.abs()) * 1.15;
-    let (axis_lo, axis_hi) = ((mid - half) * 1e9, (mid + half) * 1e9);
+    let (axis_lo, axis_hi) = (to_nh(mid - half), to_nh(mid + half));
 
     let width = ui.available_width();
     let plot_width = (width - NAMES).max(80.0);
@@ -98,7 +99,7 @@ pub fn show(ui: &mut egui::Ui, a: &Analysis) {
     let left = ui.cursor().left();
     // The spread, behind every row.
     let band = egui::Rect::from_x_y_ranges(
-        to_x(left, lo * 1e9)..=to_x(left, hi * 1e9),
+        to_x(left, to_nh(lo))..=to_x(left, to_nh(hi)),
         top..=top + ROW * rows.len() as f32,
     );
     ui.painter().rect_filled(band, 2.0, spread_fill);
@@ -125,7 +126,7 @@ pub fn show(ui: &mut egui::Ui, a: &Analysis) {
         );
         match dot.value {
             Some(v) => {
-                let centre = egui::pos2(to_x(rect.left(), v * 1e9), rect.center().y);
+                let centre = egui::pos2(to_x(rect.left(), to_nh(v)), rect.center().y);
                 if dot.driving {
                     painter.circle_filled(centre, 4.5, accent);
                 } else {

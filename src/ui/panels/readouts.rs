@@ -11,8 +11,9 @@ use crate::tuning::field_tank::{
 };
 use crate::ui::evaluation::Evaluation;
 use crate::ui::theme;
-use crate::ui::units::{LengthUnit, nh, pf};
+use crate::ui::units::LengthUnit;
 use crate::ui::widgets::{Readout, caution_mark, cautions_line};
+use crate::units::{to_nh, to_pf};
 use eframe::egui::{self, RichText};
 
 /// Inductance in nanohenries with its unit.
@@ -33,12 +34,12 @@ fn own_ratio(classical: f64, figures: &Figures) -> Option<String> {
 }
 
 fn show_nh(henries: f64) -> String {
-    format!("{:.1} nH", nh(henries))
+    format!("{:.1} nH", to_nh(henries))
 }
 
 /// Capacitance in picofarads with its unit.
 fn show_pf(farads: f64) -> String {
-    format!("{:.2} pF", pf(farads))
+    format!("{:.2} pF", to_pf(farads))
 }
 
 /// Heading of the readouts (and the name of their fold).

@@ -13,6 +13,7 @@ use crate::tuning::construction::Construction;
 use crate::tuning::digits;
 use crate::tuning::stray::{Role, Span};
 use crate::ui::widgets::Quantity;
+use crate::units::to_pf;
 use eframe::egui;
 
 /// Accessible name of the building-method picker.
@@ -55,9 +56,9 @@ fn mm<'a>(label: &'a str, value: &'a mut f64, note: &'a str) -> Quantity<'a> {
 fn pf(s: Span) -> String {
     format!(
         "{:.2} ({:.2}–{:.2}) pF",
-        s.typical * 1e12,
-        s.low * 1e12,
-        s.high * 1e12
+        to_pf(s.typical),
+        to_pf(s.low),
+        to_pf(s.high)
     )
 }
 
@@ -117,14 +118,14 @@ impl StrayPanel {
                             );
                             ui.label(format!(
                                 "{} pF, standard error {}",
-                                digits::fixed(f.value * 1e12, 2),
-                                digits::plus_minus(f.error * 1e12, 2, "pF")
+                                digits::fixed(to_pf(f.value), 2),
+                                digits::plus_minus(to_pf(f.error), 2, "pF")
                             ));
                             ui.end_row();
                             ui.label(DIFFERENCE_LABEL);
                             ui.label(format!(
                                 "{} pF ({} the estimate's range)",
-                                digits::signed(f.difference * 1e12, 2),
+                                digits::signed(to_pf(f.difference), 2),
                                 if f.within_estimate {
                                     "within"
                                 } else {
@@ -150,7 +151,7 @@ impl StrayPanel {
                 "With the winding's own tolerances too, and the estimate's range around the \
                  stray as entered ({:.2} pF): expect {} before the first measurement, a spread \
                  of {} (95 % of {} draws).",
-                entered_stray * 1e12,
+                to_pf(entered_stray),
                 digits::spread_range(lo, hi),
                 digits::spread_width(hi - lo),
                 crate::recipe::expectation::DRAWS
@@ -172,7 +173,7 @@ impl StrayPanel {
         ui.button(APPLY_STRAY_LABEL)
             .on_hover_text(format!(
                 "set the tank's stray capacitance to {:.2} pF (undo restores it)",
-                typical * 1e12
+                to_pf(typical)
             ))
             .clicked()
             .then_some(typical)

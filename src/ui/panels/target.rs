@@ -6,12 +6,13 @@ use crate::recipe::Target;
 use crate::tuning::BandPlan;
 use crate::ui::evaluation::Evaluation;
 use crate::ui::theme;
-use crate::ui::units::{LengthUnit, mhz};
+use crate::ui::units::LengthUnit;
+use crate::units::{from_khz, from_mhz, to_khz, to_mhz};
 use eframe::egui::{self, RichText};
 
 /// A frequency in MHz with as many decimals as it needs (one at least, four at most).
 pub fn show_mhz(hz: f64) -> String {
-    let text = format!("{:.4}", mhz(hz));
+    let text = format!("{:.4}", to_mhz(hz));
     let trimmed = text.trim_end_matches('0');
     let trimmed = if trimmed.ends_with('.') {
         format!("{trimmed}0")
@@ -29,7 +30,7 @@ fn parse_mhz_list(text: &str) -> Result<Vec<f64>, String> {
         .filter(|t| !t.is_empty())
     {
         match token.parse::<f64>() {
-            Ok(v) if v.is_finite() && v > 0.0 => out.push(v * 1e6),
+            Ok(v) if v.is_finite() && v > 0.0 => out.push(from_mhz(v)),
             _ => return Err(format!("“{token}” is not a frequency in MHz")),
         }
     }
@@ -224,7 +225,7 @@ fn tolerance_row(ui: &mut egui::Ui, target: &mut crate::recipe::Target) {
     let (lo, hi) = crate::recipe::rules::TOLERANCE_KHZ;
     let label = ui.label(TOLERANCE_LABEL).on_hover_text(TOLERANCE_NOTE);
     ui.horizontal(|ui| {
-        let mut khz = target.tolerance() * 1e-3;
+        let mut khz = to_khz(target.tolerance());
         let field = crate::ui::widgets::steady(ui, TOLERANCE_LABEL, |ui| {
             ui.add(
                 egui::DragValue::new(&mut khz)
@@ -239,7 +240,7 @@ fn tolerance_row(ui: &mut egui::Ui, target: &mut crate::recipe::Target) {
         });
         if field.changed() && khz.is_finite() {
             // Rounded to the field's 0.1 kHz before it reaches the recipe.
-            let hz = ((khz.clamp(lo, hi) * 10.0).round() / 10.0) * 1e3;
+            let hz = from_khz((khz.clamp(lo, hi) * 10.0).round() / 10.0);
             if (hz - target.tolerance()).abs() > 0.5 {
                 target.tolerance = Some(hz);
             }
@@ -252,7 +253,7 @@ fn tolerance_row(ui: &mut egui::Ui, target: &mut crate::recipe::Target) {
             )
             .on_hover_text(format!(
                 "Back to the plan's default, ±{:.1} kHz (common practice)",
-                default * 1e-3
+                to_khz(default)
             ))
             .clicked()
         {
@@ -269,7 +270,7 @@ const TOLERANCE_NOTE: &str = "The resonance counts as on channel when it lies wi
 
 /// Where the tolerance comes from, in words.
 fn tolerance_note(target: &crate::recipe::Target) -> String {
-    let default = target.plan.default_tolerance() * 1e-3;
+    let default = to_khz(target.plan.default_tolerance());
     let service = target
         .plan
         .service()

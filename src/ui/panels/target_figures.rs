@@ -6,8 +6,9 @@ use super::target::show_mhz;
 use crate::recipe::Figures;
 use crate::recipe::Target;
 use crate::ui::theme;
-use crate::ui::units::{LengthUnit, mhz};
+use crate::ui::units::LengthUnit;
 use crate::ui::widgets::{Readout, cautions_line};
+use crate::units::to_khz;
 use eframe::egui;
 
 /// Channels listed in the hover note of "Channels in reach".
@@ -43,7 +44,7 @@ pub fn show(
         } else {
             "uncalibrated"
         },
-        t.tolerance * 1e-3
+        to_khz(t.tolerance)
     );
     Readout::new(
         "Offset from target",
@@ -58,8 +59,8 @@ pub fn show(
         Readout::new(
             "Model before calibration",
             format!(
-                "{:.3} MHz ({})",
-                mhz(before),
+                "{} ({})",
+                crate::tuning::digits::mhz(before),
                 crate::tuning::digits::offset(before - t.channel)
             ),
             "What the model predicted before the bench readings calibrated it (on the field \
@@ -71,7 +72,7 @@ pub fn show(
     }
     Readout::new(
         "Trimmer reaches",
-        format!("{:.3}–{:.3} MHz", mhz(t.window.0), mhz(t.window.1)),
+        crate::tuning::digits::mhz_range(t.window.0, t.window.1),
         "Resonance with the trimmer at its maximum and at its minimum, at this spacing",
     )
     .show(ui);
@@ -143,7 +144,7 @@ pub fn show(
         }
     }
 
-    let per_unit = t.stretch_sensitivity * unit.metres_per_unit() * 1e-3;
+    let per_unit = to_khz(t.stretch_sensitivity * unit.metres_per_unit());
     Readout::new(
         &format!("kHz per {} of stretch", unit.suffix()),
         format!("{per_unit:+.0} kHz/{}", unit.suffix()),

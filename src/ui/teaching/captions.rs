@@ -11,7 +11,8 @@
 use crate::model::limits;
 use crate::recipe::Figures;
 use crate::tuning::digits;
-use crate::ui::units::{LengthUnit, nh, pf};
+use crate::ui::units::LengthUnit;
+use crate::units::{to_nh, to_pf};
 
 /// What a caption speaks of.
 #[derive(Clone, Copy, Debug, PartialEq, Eq)]
@@ -111,7 +112,7 @@ fn topic_caption(
             unit.show(coil.length()),
             unit.show(coil.gap()),
             a.nagaoka_coefficient,
-            nh(a.total_inductance),
+            to_nh(a.total_inductance),
         ),
         Topic::Capacitance => {
             let tank = &shown.tank;
@@ -122,12 +123,12 @@ fn topic_caption(
                  The frequency goes as 1/√(LC), so more capacitance lowers every point of the \
                  curve in the same proportion: the whole curve moves down. At this length the \
                  trimmer's travel spans {}.",
-                pf(tank.trimmer_at(tank.trimmer_setting)),
+                to_pf(tank.trimmer_at(tank.trimmer_setting)),
                 tank.trimmer_setting * 100.0,
-                pf(tank.fixed),
-                pf(tank.stray),
-                pf(a.self_capacitance),
-                pf(a.total_capacitance),
+                to_pf(tank.fixed),
+                to_pf(tank.stray),
+                to_pf(a.self_capacitance),
+                to_pf(a.total_capacitance),
                 digits::mhz_range(low, high),
             )
         }
@@ -153,8 +154,8 @@ fn topic_caption(
                     "A hand near the coil adds about {:.1} pF to the stray (common practice: \
                      1–2 pF): total capacitance {:.2} pF, so the carrier drops to {f}{shift}, \
                      {} from the {} MHz channel: {place}.{back}",
-                    pf(moment.hand),
-                    pf(a.total_capacitance),
+                    to_pf(moment.hand),
+                    to_pf(a.total_capacitance),
                     digits::offset(t.offset),
                     digits::channel_mhz(t.channel),
                 )
@@ -164,7 +165,7 @@ fn topic_caption(
                      (common practice: 1–2 pF). Now the carrier is at {f}, {} from the {} MHz \
                      channel: {place}. This is why the coil is screened or kept away from \
                      fingers once tuned.",
-                    pf(moment.hand),
+                    to_pf(moment.hand),
                     digits::offset(t.offset),
                     digits::channel_mhz(t.channel),
                 )
@@ -188,7 +189,7 @@ fn topic_caption(
                      drop out of the coil and the carrier jumps (common practice). Gap now {}, \
                      inductance {:.1} nH.",
                     unit.show(coil.gap()),
-                    nh(a.total_inductance),
+                    to_nh(a.total_inductance),
                 )
             }
         }
@@ -200,7 +201,7 @@ fn topic_caption(
                  (the lower of the two estimates, which are rough). Above that the coil acts as \
                  a capacitor, so no tank built on it reaches there; the carrier at {f} is at {:.0} \
                  % of it. Stay well below (common practice).",
-                pf(a.self_capacitance),
+                to_pf(a.self_capacitance),
                 a.medhurst_factor,
                 digits::self_resonance(srf),
                 100.0 * a.resonance / srf,
@@ -224,7 +225,7 @@ mod tests {
         };
         let unit = LengthUnit::Millimetres;
         let spacing = caption(Topic::Spacing, &shown, &moment, unit);
-        assert!(spacing.contains(&format!("{:.1} nH", nh(shown.analysis.total_inductance))));
+        assert!(spacing.contains(&format!("{:.1} nH", to_nh(shown.analysis.total_inductance))));
         assert!(spacing.contains(&digits::mhz(shown.analysis.resonance)));
         let ceiling = caption(Topic::Ceiling, &shown, &moment, unit);
         assert!(ceiling.contains(&digits::self_resonance(
@@ -233,7 +234,7 @@ mod tests {
         let c = caption(Topic::Capacitance, &shown, &moment, unit);
         assert!(c.contains(&format!(
             "{:.2} pF in all",
-            pf(shown.analysis.total_capacitance)
+            to_pf(shown.analysis.total_capacitance)
         )));
         for topic in Topic::ALL {
             let text = caption(topic, &shown, &moment, unit);

@@ -12,7 +12,8 @@ use crate::ui::files::ReferencePick;
 use crate::ui::files::{FileDesk, read_reference};
 use crate::ui::panels::capacitance_quantity;
 use crate::ui::theme;
-use crate::ui::units::{LengthUnit, nh};
+use crate::ui::units::LengthUnit;
+use crate::units::to_nh;
 use eframe::egui::{self, RichText};
 
 /// The panel's heading.
@@ -227,7 +228,7 @@ pub(super) fn show(
 
 /// The two large readouts and where the carrier stands against the channel.
 fn readouts(ui: &mut egui::Ui, shown: &Figures) {
-    let inductance = format!("{:.1} nH", nh(shown.analysis.total_inductance));
+    let inductance = format!("{:.1} nH", to_nh(shown.analysis.total_inductance));
     let frequency = digits::mhz(shown.analysis.resonance);
     let big = big_size(ui, &[&inductance, &frequency]);
     egui::Grid::new("teaching readouts")

@@ -8,7 +8,8 @@ use crate::recipe::{Figures, Footing, Recipe, figures_on};
 use crate::tuning::digits;
 use crate::tuning::sweep::spacing_sweep;
 use crate::ui::charts::{ChartOverlay, OverlayKind};
-use crate::ui::units::{LengthUnit, pf};
+use crate::ui::units::LengthUnit;
+use crate::units::to_pf;
 
 /// Points in the reference's curve.
 const SAMPLES: usize = 200;
@@ -113,9 +114,9 @@ impl Reference {
             Difference::new("Wire", wire(a), wire(b), "different".to_owned()),
             Difference::new(
                 "Fixed capacitor",
-                format!("{:.1} pF", pf(ta.fixed)),
-                format!("{:.1} pF", pf(tb.fixed)),
-                format!("{} pF", digits::signed(pf(ta.fixed - tb.fixed), 1)),
+                format!("{:.1} pF", to_pf(ta.fixed)),
+                format!("{:.1} pF", to_pf(tb.fixed)),
+                format!("{} pF", digits::signed(to_pf(ta.fixed - tb.fixed), 1)),
             ),
             Difference::new(
                 "Trimmer",
@@ -124,16 +125,18 @@ impl Reference {
                 format!(
                     "{} pF",
                     digits::signed(
-                        pf(ta.trimmer_at(ta.trimmer_setting) - tb.trimmer_at(tb.trimmer_setting)),
+                        to_pf(
+                            ta.trimmer_at(ta.trimmer_setting) - tb.trimmer_at(tb.trimmer_setting)
+                        ),
                         1
                     )
                 ),
             ),
             Difference::new(
                 "Stray",
-                format!("{:.1} pF", pf(ta.stray)),
-                format!("{:.1} pF", pf(tb.stray)),
-                format!("{} pF", digits::signed(pf(ta.stray - tb.stray), 1)),
+                format!("{:.1} pF", to_pf(ta.stray)),
+                format!("{:.1} pF", to_pf(tb.stray)),
+                format!("{} pF", digits::signed(to_pf(ta.stray - tb.stray), 1)),
             ),
             Difference::new(
                 "Predicted",
@@ -171,8 +174,8 @@ fn wire(c: &Coil) -> String {
 fn trimmer(t: &crate::model::Tank) -> String {
     format!(
         "{:.1}–{:.1} pF at {:.0} %",
-        pf(t.trimmer_min),
-        pf(t.trimmer_max),
+        to_pf(t.trimmer_min),
+        to_pf(t.trimmer_max),
         t.trimmer_setting * 100.0
     )
 }
