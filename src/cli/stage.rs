@@ -17,6 +17,7 @@ use crate::tuning::stage::{
     StageInputs, StageSettings, Start, Topology, Transistor, TransistorSpec, frequency_accuracy,
     stage, transistor::BETA_RANGE,
 };
+use crate::units;
 use serde_json::json;
 use std::path::Path;
 
@@ -47,9 +48,9 @@ fn transistor(args: &Args, kept: Option<&TransistorSpec>) -> Result<TransistorSp
     let model = args.text("transistor-model").map(str::to_owned);
     let figures = [
         within(args, "hfe", BETA_RANGE, "")?,
-        within(args, "cbe-pf", scaled(CBE_RANGE_F, 1e12), " pF")?,
-        within(args, "cbc-pf", scaled(CBC_RANGE_F, 1e12), " pF")?,
-        within(args, "ft-mhz", scaled(FT_RANGE_HZ, 1e-6), " MHz")?,
+        within(args, "cbe-pf", scaled(CBE_RANGE_F, units::to_pf), " pF")?,
+        within(args, "cbc-pf", scaled(CBC_RANGE_F, units::to_pf), " pF")?,
+        within(args, "ft-mhz", scaled(FT_RANGE_HZ, units::to_mhz), " MHz")?,
     ];
     let any_figure = figures.iter().any(Option::is_some);
     let needed = || {
@@ -70,17 +71,17 @@ fn transistor(args: &Args, kept: Option<&TransistorSpec>) -> Result<TransistorSp
             let [b, e, c, t] = figures;
             Ok(TransistorSpec::Figures {
                 hfe: b.unwrap_or(*hfe),
-                cbe: e.map_or(*cbe, |v| v * 1e-12),
-                cbc: c.map_or(*cbc, |v| v * 1e-12),
-                ft: t.map_or(*ft, |v| v * 1e6),
+                cbe: e.map_or(*cbe, units::from_pf),
+                cbc: c.map_or(*cbc, units::from_pf),
+                ft: t.map_or(*ft, units::from_mhz),
             })
         }
         (None, kept) => match (figures, kept) {
             ([Some(b), Some(e), Some(c), Some(t)], _) => Ok(TransistorSpec::Figures {
                 hfe: b,
-                cbe: e * 1e-12,
-                cbc: c * 1e-12,
-                ft: t * 1e6,
+                cbe: units::from_pf(e),
+                cbc: units::from_pf(c),
+                ft: units::from_mhz(t),
             }),
             (_, Some(spec)) if !any_figure => Ok(spec.clone()),
             _ => Err(needed()),
@@ -89,9 +90,9 @@ fn transistor(args: &Args, kept: Option<&TransistorSpec>) -> Result<TransistorSp
 }
 
 /// An SI range in display units, to nine figures (so 1 nF reads 1000 pF, not 1000.0000000000001).
-fn scaled((lo, hi): (f64, f64), k: f64) -> (f64, f64) {
+fn scaled((lo, hi): (f64, f64), to: fn(f64) -> f64) -> (f64, f64) {
     let r = |x: f64| format!("{x:.9e}").parse().unwrap_or(x);
-    (r(lo * k), r(hi * k))
+    (r(to(lo)), r(to(hi)))
 }
 
 /// The stage's settings: the recipe's (`kept`), each flag given replacing its setting; with no
@@ -133,17 +134,23 @@ fn settings(args: &Args, kept: Option<&StageSettings>) -> Result<StageSettings, 
             kept.map(|k| k.bias.emitter),
         )?,
     };
-    let battery = within(args, "battery-mah", BATTERY_RANGE_MAH, " mAh")?.map(|m| m * 3.6);
-    let clapp = within(args, "clapp-pf", scaled(CLAPP_RANGE_F, 1e12), " pF")?.map(|c| c * 1e-12);
+    let battery = within(args, "battery-mah", BATTERY_RANGE_MAH, " mAh")?.map(units::from_mah);
+    let clapp =
+        within(args, "clapp-pf", scaled(CLAPP_RANGE_F, units::to_pf), " pF")?.map(units::from_pf);
     let kept_ratings = kept.map(|k| k.ratings).unwrap_or_default();
     let ratings = Ratings {
         collector_emitter_max: within(args, "vceo-v", VCEO_RANGE_V, " V")?
             .or(kept_ratings.collector_emitter_max),
-        collector_max: within(args, "ic-max-ma", scaled(IC_MAX_RANGE_A, 1e3), " mA")?
-            .map(|i| i * 1e-3)
-            .or(kept_ratings.collector_max),
-        dissipation_max: within(args, "ptot-mw", scaled(PTOT_RANGE_W, 1e3), " mW")?
-            .map(|p| p * 1e-3)
+        collector_max: within(
+            args,
+            "ic-max-ma",
+            scaled(IC_MAX_RANGE_A, units::to_ma),
+            " mA",
+        )?
+        .map(units::from_ma)
+        .or(kept_ratings.collector_max),
+        dissipation_max: within(args, "ptot-mw", scaled(PTOT_RANGE_W, units::to_mw), " mW")?
+            .map(units::from_mw)
             .or(kept_ratings.dissipation_max),
     };
     // The recipe's Clapp capacitor stays with the common-collector stage only.
@@ -200,7 +207,7 @@ pub fn run_stage(words: Vec<String>) -> Result<String, String> {
     let settings = settings(&args, recipe.stage.as_ref())?;
     let f = crate::recipe::figures(&recipe).map_err(|e| format!("invalid recipe: {e}"))?;
     let inputs = settings.inputs().map_err(|e| e.to_string())?;
-    let battery = settings.battery_charge.map(|q| q / 3.6);
+    let battery = settings.battery_charge.map(units::to_mah);
     let s = stage(&f.coil, &f.tank, &f.conditions, &inputs).map_err(|e| e.to_string())?;
     if args.switch("json") {
         let v = stage_json(&s, battery);

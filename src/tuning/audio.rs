@@ -11,6 +11,7 @@ use crate::tuning::drift::{DriftBudget, DriftInputs, DriftTank, UsualChanges, dr
 use crate::tuning::modulation::{
     Modulation, ModulationInputs, ModulationVerdict, Modulator, Service, judge, modulation,
 };
+use crate::units;
 
 /// Accepted zero-bias junction capacitance, farads.
 pub const CJ0_RANGE_F: (f64, f64) = (0.1e-12, 1000e-12);
@@ -190,16 +191,23 @@ impl AudioSettings {
                 "the capacitance beside the junction",
                 self.beside,
                 BESIDE_RANGE_F,
-                1e12,
+                units::to_pf,
                 "pF",
             ),
-            ("junction_cj0_pf", "Cj0", j.cj0, CJ0_RANGE_F, 1e12, "pF"),
+            (
+                "junction_cj0_pf",
+                "Cj0",
+                j.cj0,
+                CJ0_RANGE_F,
+                units::to_pf,
+                "pF",
+            ),
             (
                 "junction_potential_v",
                 "the junction potential",
                 j.contact_potential,
                 VJ_RANGE_V,
-                1.0,
+                same,
                 "V",
             ),
             (
@@ -207,16 +215,16 @@ impl AudioSettings {
                 "the grading exponent",
                 j.grading,
                 M_RANGE,
-                1.0,
+                same,
                 "",
             ),
-            ("forward_knee", "FC", j.forward_knee, FC_RANGE, 1.0, ""),
+            ("forward_knee", "FC", j.forward_knee, FC_RANGE, same, ""),
             (
                 "reverse_bias_v",
                 "the reverse bias",
                 self.bias_v,
                 BIAS_RANGE_V,
-                1.0,
+                same,
                 "V",
             ),
             (
@@ -224,7 +232,7 @@ impl AudioSettings {
                 "the audio peak",
                 self.audio_peak_v,
                 AUDIO_PEAK_RANGE_V,
-                1.0,
+                same,
                 "V",
             ),
             (
@@ -232,7 +240,7 @@ impl AudioSettings {
                 "the coupling capacitor",
                 self.coupling,
                 COUPLING_RANGE_F,
-                1e12,
+                units::to_pf,
                 "pF",
             ),
             (
@@ -240,7 +248,7 @@ impl AudioSettings {
                 "the supply",
                 self.supply_v,
                 SUPPLY_RANGE_V,
-                1.0,
+                same,
                 "V",
             ),
             (
@@ -248,7 +256,7 @@ impl AudioSettings {
                 "the supply change",
                 self.supply_change_v,
                 SUPPLY_CHANGE_RANGE_V,
-                1.0,
+                same,
                 "V",
             ),
             (
@@ -256,7 +264,7 @@ impl AudioSettings {
                 "the temperature change",
                 self.temperature_change_k,
                 TEMPERATURE_CHANGE_RANGE_K,
-                1.0,
+                same,
                 "K",
             ),
             (
@@ -264,7 +272,7 @@ impl AudioSettings {
                 "the hand's capacitance",
                 self.hand,
                 HAND_RANGE_F,
-                1e12,
+                units::to_pf,
                 "pF",
             ),
             (
@@ -272,7 +280,7 @@ impl AudioSettings {
                 "the load change",
                 self.load,
                 LOAD_RANGE_F,
-                1e12,
+                units::to_pf,
                 "pF",
             ),
             (
@@ -280,14 +288,14 @@ impl AudioSettings {
                 "the highest audio frequency",
                 self.audio_max.unwrap_or(15e3),
                 AUDIO_MAX_RANGE_HZ,
-                1e-3,
+                units::to_khz,
                 "kHz",
             ),
         ];
-        for (key, what, v, (lo, hi), scale, unit) in items {
+        for (key, what, v, (lo, hi), to, unit) in items {
             if !(v.is_finite() && (lo..=hi).contains(&v)) {
                 let s = |x: f64| {
-                    let x = x * scale;
+                    let x = to(x);
                     format!("{}", format!("{x:.9e}").parse::<f64>().unwrap_or(x))
                 };
                 return Err(AudioRefused {
@@ -305,8 +313,20 @@ impl AudioSettings {
     }
 }
 
-/// A setting's file key, name, value, accepted range, display scale and unit.
-type Limit<'a> = (&'static str, &'a str, f64, (f64, f64), f64, &'a str);
+/// A setting's file key, name, value, accepted range, display conversion and unit.
+type Limit<'a> = (
+    &'static str,
+    &'a str,
+    f64,
+    (f64, f64),
+    fn(f64) -> f64,
+    &'a str,
+);
+
+/// No conversion (volts, kelvin, a ratio).
+fn same(x: f64) -> f64 {
+    x
+}
 
 /// Everything "Audio and drift" shows.
 #[derive(Clone, Debug, PartialEq)]

@@ -5,6 +5,12 @@
 //! reads it into what the analysis takes, refusing what is out of range with the range.
 
 use super::transistor::{BETA_RANGE, Ratings, Transistor};
+use crate::units;
+
+/// No conversion (volts, ohms, a ratio).
+fn same(x: f64) -> f64 {
+    x
+}
 use super::{
     BATTERY_RANGE_MAH, Bias, RESISTOR_RANGE_OHM, SUPPLY_RANGE_V, StageError, StageInputs, Topology,
 };
@@ -79,7 +85,7 @@ impl Default for StageSettings {
                 ft: 800e6,
             },
             ratings: Ratings::default(),
-            battery_charge: Some(500.0 * 3.6),
+            battery_charge: Some(units::from_mah(500.0)),
             clapp: None,
         }
     }
@@ -100,7 +106,7 @@ fn within(
     what: &str,
     v: f64,
     (lo, hi): (f64, f64),
-    scale: f64,
+    to: fn(f64) -> f64,
     unit: &str,
 ) -> Result<(), SettingRefused> {
     if v.is_finite() && (lo..=hi).contains(&v) {
@@ -108,7 +114,7 @@ fn within(
     } else {
         // To nine figures: 1 nF reads 1000 pF, not 1000.0000000000001.
         let s = |x: f64| {
-            let v = x * scale;
+            let v = to(x);
             format!("{}", format!("{v:.9e}").parse::<f64>().unwrap_or(v))
         };
         Err(SettingRefused {
@@ -133,7 +139,7 @@ impl StageSettings {
             "the supply",
             b.supply_v,
             SUPPLY_RANGE_V,
-            1.0,
+            same,
             "V",
         )?;
         let r = RESISTOR_RANGE_OHM;
@@ -142,7 +148,7 @@ impl StageSettings {
             "the upper bias resistor",
             b.upper,
             r,
-            1.0,
+            same,
             "ohm",
         )?;
         within(
@@ -150,7 +156,7 @@ impl StageSettings {
             "the lower bias resistor",
             b.lower,
             r,
-            1.0,
+            same,
             "ohm",
         )?;
         within(
@@ -158,18 +164,18 @@ impl StageSettings {
             "the emitter resistor",
             b.emitter,
             r,
-            1.0,
+            same,
             "ohm",
         )?;
         match &self.transistor {
             TransistorSpec::Figures { hfe, cbe, cbc, ft } => {
-                within("hfe", "hFE", *hfe, BETA_RANGE, 1.0, "")?;
+                within("hfe", "hFE", *hfe, BETA_RANGE, same, "")?;
                 within(
                     "cbe_pf",
                     "the base–emitter capacitance",
                     *cbe,
                     CBE_RANGE_F,
-                    1e12,
+                    units::to_pf,
                     "pF",
                 )?;
                 within(
@@ -177,7 +183,7 @@ impl StageSettings {
                     "the base–collector capacitance",
                     *cbc,
                     CBC_RANGE_F,
-                    1e12,
+                    units::to_pf,
                     "pF",
                 )?;
                 within(
@@ -185,7 +191,7 @@ impl StageSettings {
                     "the transit frequency",
                     *ft,
                     FT_RANGE_HZ,
-                    1e-6,
+                    units::to_mhz,
                     "MHz",
                 )?;
             }
@@ -198,7 +204,7 @@ impl StageSettings {
         }
         let t = &self.ratings;
         if let Some(v) = t.collector_emitter_max {
-            within("vceo_v", "the V_CEO rating", v, VCEO_RANGE_V, 1.0, "V")?;
+            within("vceo_v", "the V_CEO rating", v, VCEO_RANGE_V, same, "V")?;
         }
         if let Some(v) = t.collector_max {
             within(
@@ -206,7 +212,7 @@ impl StageSettings {
                 "the collector current rating",
                 v,
                 IC_MAX_RANGE_A,
-                1e3,
+                units::to_ma,
                 "mA",
             )?;
         }
@@ -216,13 +222,16 @@ impl StageSettings {
                 "the dissipation rating",
                 v,
                 PTOT_RANGE_W,
-                1e3,
+                units::to_mw,
                 "mW",
             )?;
         }
         if let Some(q) = self.battery_charge {
-            let mah = (BATTERY_RANGE_MAH.0 * 3.6, BATTERY_RANGE_MAH.1 * 3.6);
-            within("battery_mah", "the battery", q, mah, 1.0 / 3.6, "mAh")?;
+            let mah = (
+                units::from_mah(BATTERY_RANGE_MAH.0),
+                units::from_mah(BATTERY_RANGE_MAH.1),
+            );
+            within("battery_mah", "the battery", q, mah, units::to_mah, "mAh")?;
         }
         if let Some(c) = self.clapp {
             within(
@@ -230,7 +239,7 @@ impl StageSettings {
                 "the Clapp capacitor",
                 c,
                 CLAPP_RANGE_F,
-                1e12,
+                units::to_pf,
                 "pF",
             )?;
             if self.topology != Topology::CommonCollector {

@@ -14,6 +14,7 @@ use crate::tuning::audio::{
 use crate::tuning::drift::DriftSource;
 use crate::tuning::modulation::Service;
 use crate::tuning::spice_model::{DeviceType, JunctionModel, parse_model};
+use crate::units;
 use eframe::egui;
 
 /// Accessible name of the fixed capacitor's class picker.
@@ -43,22 +44,23 @@ pub struct AudioPanel {
 /// The button that takes the oscillator stage's own base–collector junction.
 pub const USE_STAGE_JUNCTION: &str = "Use the stage transistor's base–collector junction";
 
-/// A number field showing an SI value in display units (`scale` display units per SI unit):
+/// A number field showing an SI value in a display `unit` (its two conversions):
 /// written back only when the field was changed, so a value is never rounded by being shown.
 fn number(
     ui: &mut egui::Ui,
     label: &str,
     value: &mut f64,
     range: (f64, f64),
-    scale: f64,
+    unit: units::Pair,
     suffix: &str,
 ) -> bool {
     let l = ui.label(label);
-    let mut shown = *value * scale;
+    let (to, from) = unit;
+    let mut shown = to(*value);
     let r = crate::ui::widgets::steady(ui, label, |ui| {
         ui.add(
             egui::DragValue::new(&mut shown)
-                .range(range.0 * scale..=range.1 * scale)
+                .range(to(range.0)..=to(range.1))
                 .speed(0.01)
                 .max_decimals(3)
                 .suffix(suffix),
@@ -67,7 +69,7 @@ fn number(
     });
     ui.end_row();
     if r.changed() {
-        *value = shown / scale;
+        *value = from(shown);
     }
     r.changed()
 }
@@ -110,7 +112,7 @@ fn describe(model: &JunctionModel) -> Result<String, String> {
             "PNP transistor, collector–base junction",
         ),
     };
-    let pf = (CJ0_RANGE_F.0 * 1e12, CJ0_RANGE_F.1 * 1e12);
+    let pf = (units::to_pf(CJ0_RANGE_F.0), units::to_pf(CJ0_RANGE_F.1));
     in_range(cj, law.cj0 * 1e12, pf, " pF")?;
     in_range(vj, law.contact_potential, VJ_RANGE_V, " V")?;
     in_range(m, law.grading, M_RANGE, "")?;
@@ -229,30 +231,51 @@ impl AudioPanel {
             ui.weak(format!(
                 "With the stage's transistor: {:.2} pF of its other capacitances beside the \
                  junction.",
-                s.beside * 1e12
+                units::to_pf(s.beside)
             ));
         }
         egui::Grid::new("tankwright junction inputs")
             .num_columns(2)
             .show(ui, |ui| {
                 let j = &mut s.junction;
-                number(ui, "Junction Cj0", &mut j.cj0, CJ0_RANGE_F, 1e12, " pF");
+                number(
+                    ui,
+                    "Junction Cj0",
+                    &mut j.cj0,
+                    CJ0_RANGE_F,
+                    units::PF,
+                    " pF",
+                );
                 number(
                     ui,
                     "Junction potential",
                     &mut j.contact_potential,
                     VJ_RANGE_V,
-                    1.0,
+                    units::AS_SI,
                     " V",
                 );
-                number(ui, "Grading exponent", &mut j.grading, M_RANGE, 1.0, "");
-                number(ui, "Reverse bias", &mut s.bias_v, BIAS_RANGE_V, 1.0, " V");
+                number(
+                    ui,
+                    "Grading exponent",
+                    &mut j.grading,
+                    M_RANGE,
+                    units::AS_SI,
+                    "",
+                );
+                number(
+                    ui,
+                    "Reverse bias",
+                    &mut s.bias_v,
+                    BIAS_RANGE_V,
+                    units::AS_SI,
+                    " V",
+                );
                 number(
                     ui,
                     "Audio peak",
                     &mut s.audio_peak_v,
                     AUDIO_PEAK_RANGE_V,
-                    1.0,
+                    units::AS_SI,
                     " V",
                 );
                 // Untouched: the service's (the figures say which); typed: kept.
@@ -262,7 +285,7 @@ impl AudioPanel {
                     "Highest audio frequency",
                     &mut audio_max,
                     AUDIO_MAX_RANGE_HZ,
-                    1e-3,
+                    units::KHZ,
                     " kHz",
                 ) {
                     s.audio_max = Some(audio_max);
@@ -272,7 +295,7 @@ impl AudioPanel {
                     "Coupling capacitor",
                     &mut s.coupling,
                     COUPLING_RANGE_F,
-                    1e12,
+                    units::PF,
                     " pF",
                 );
             });
@@ -389,7 +412,7 @@ fn drift_ui(ui: &mut egui::Ui, s: &mut AudioSettings, r: &AudioFigures, toleranc
                 "Supply voltage",
                 &mut s.supply_v,
                 SUPPLY_RANGE_V,
-                1.0,
+                units::AS_SI,
                 " V",
             );
             number(
@@ -397,7 +420,7 @@ fn drift_ui(ui: &mut egui::Ui, s: &mut AudioSettings, r: &AudioFigures, toleranc
                 "Supply change",
                 &mut s.supply_change_v,
                 SUPPLY_CHANGE_RANGE_V,
-                1.0,
+                units::AS_SI,
                 " V",
             );
             number(
@@ -405,7 +428,7 @@ fn drift_ui(ui: &mut egui::Ui, s: &mut AudioSettings, r: &AudioFigures, toleranc
                 "Temperature change",
                 &mut s.temperature_change_k,
                 TEMPERATURE_CHANGE_RANGE_K,
-                1.0,
+                units::AS_SI,
                 " K",
             );
             let l = ui.label(CLASS_LABEL);
@@ -428,10 +451,17 @@ fn drift_ui(ui: &mut egui::Ui, s: &mut AudioSettings, r: &AudioFigures, toleranc
                 "Hand near the coil",
                 &mut s.hand,
                 HAND_RANGE_F,
-                1e12,
+                units::PF,
                 " pF",
             );
-            number(ui, "Load change", &mut s.load, LOAD_RANGE_F, 1e12, " pF");
+            number(
+                ui,
+                "Load change",
+                &mut s.load,
+                LOAD_RANGE_F,
+                units::PF,
+                " pF",
+            );
         });
     let wrap = |ui: &mut egui::Ui, text: String| {
         ui.add(egui::Label::new(text).wrap());

@@ -12,6 +12,7 @@ use crate::tuning::stage::{
     BATTERY_RANGE_MAH, RELIABLE_LOOP_GAIN, RESISTOR_RANGE_OHM, SUPPLY_RANGE_V, StageFigures,
     StageSettings, Start, Topology, Transistor, TransistorSpec, frequency_accuracy, stage,
 };
+use crate::units;
 use eframe::egui;
 
 /// The collapsible section holding the panel.
@@ -58,29 +59,30 @@ pub struct StagePanel {
 
 type Key = (Coil, Tank, Conditions, StageSettings);
 
-/// A number field showing an SI value in display units (`scale` display units per SI unit):
+/// A number field showing an SI value in a display `unit` (its two conversions):
 /// the SI value is written back only when the field was changed, so a value is never rounded
 /// by merely being shown.
 #[expect(
     clippy::too_many_arguments,
-    reason = "one row of a grid: its label, value, range, scale, step and unit"
+    reason = "one row of a grid: its label, value, range, display unit, step and suffix"
 )]
 fn number(
     ui: &mut egui::Ui,
     label: &str,
     value: &mut f64,
     range: (f64, f64),
-    scale: f64,
+    unit: units::Pair,
     speed: f64,
     suffix: &str,
     changed: &mut bool,
 ) {
     let l = ui.label(label);
-    let mut shown = *value * scale;
+    let (to, from) = unit;
+    let mut shown = to(*value);
     let r = crate::ui::widgets::steady(ui, label, |ui| {
         ui.add(
             egui::DragValue::new(&mut shown)
-                .range(range.0 * scale..=range.1 * scale)
+                .range(to(range.0)..=to(range.1))
                 .speed(speed)
                 .max_decimals(3)
                 .suffix(suffix),
@@ -88,7 +90,7 @@ fn number(
         .labelled_by(l.id)
     });
     if r.changed() {
-        *value = shown / scale;
+        *value = from(shown);
         *changed = true;
     }
     ui.end_row();
@@ -121,10 +123,46 @@ impl StagePanel {
                 egui::Grid::new("tankwright stage transistor")
                     .num_columns(2)
                     .show(ui, |ui| {
-                        number(ui, HFE_LABEL, hfe, BETA_RANGE, 1.0, 1.0, "", changed);
-                        number(ui, CBE_LABEL, cbe, CBE_RANGE_F, 1e12, 0.05, " pF", changed);
-                        number(ui, CBC_LABEL, cbc, CBC_RANGE_F, 1e12, 0.02, " pF", changed);
-                        number(ui, FT_LABEL, ft, FT_RANGE_HZ, 1e-6, 10.0, " MHz", changed);
+                        number(
+                            ui,
+                            HFE_LABEL,
+                            hfe,
+                            BETA_RANGE,
+                            units::AS_SI,
+                            1.0,
+                            "",
+                            changed,
+                        );
+                        number(
+                            ui,
+                            CBE_LABEL,
+                            cbe,
+                            CBE_RANGE_F,
+                            units::PF,
+                            0.05,
+                            " pF",
+                            changed,
+                        );
+                        number(
+                            ui,
+                            CBC_LABEL,
+                            cbc,
+                            CBC_RANGE_F,
+                            units::PF,
+                            0.02,
+                            " pF",
+                            changed,
+                        );
+                        number(
+                            ui,
+                            FT_LABEL,
+                            ft,
+                            FT_RANGE_HZ,
+                            units::MHZ,
+                            10.0,
+                            " MHz",
+                            changed,
+                        );
                     });
             }
             TransistorSpec::Model(text) => {
@@ -222,24 +260,54 @@ impl StagePanel {
                     SUPPLY_LABEL,
                     &mut b.supply_v,
                     SUPPLY_RANGE_V,
-                    1.0,
+                    units::AS_SI,
                     0.05,
                     " V",
                     c,
                 );
                 let r = RESISTOR_RANGE_OHM;
-                number(ui, UPPER_LABEL, &mut b.upper, r, 1.0, 50.0, " Ω", c);
-                number(ui, LOWER_LABEL, &mut b.lower, r, 1.0, 50.0, " Ω", c);
-                number(ui, EMITTER_LABEL, &mut b.emitter, r, 1.0, 50.0, " Ω", c);
-                let mut charge = s.battery_charge.unwrap_or(500.0 * 3.6);
+                number(
+                    ui,
+                    UPPER_LABEL,
+                    &mut b.upper,
+                    r,
+                    units::AS_SI,
+                    50.0,
+                    " Ω",
+                    c,
+                );
+                number(
+                    ui,
+                    LOWER_LABEL,
+                    &mut b.lower,
+                    r,
+                    units::AS_SI,
+                    50.0,
+                    " Ω",
+                    c,
+                );
+                number(
+                    ui,
+                    EMITTER_LABEL,
+                    &mut b.emitter,
+                    r,
+                    units::AS_SI,
+                    50.0,
+                    " Ω",
+                    c,
+                );
+                let mut charge = s.battery_charge.unwrap_or(units::from_mah(500.0));
                 let before = charge;
-                let range = (BATTERY_RANGE_MAH.0 * 3.6, BATTERY_RANGE_MAH.1 * 3.6);
+                let range = (
+                    units::from_mah(BATTERY_RANGE_MAH.0),
+                    units::from_mah(BATTERY_RANGE_MAH.1),
+                );
                 number(
                     ui,
                     BATTERY_LABEL,
                     &mut charge,
                     range,
-                    1.0 / 3.6,
+                    units::MAH,
                     10.0,
                     " mAh",
                     c,
@@ -251,7 +319,7 @@ impl StagePanel {
         if s.topology == Topology::CommonCollector {
             let mut on = s.clapp.is_some();
             if ui.checkbox(&mut on, CLAPP_SWITCH).changed() {
-                s.clapp = on.then_some(10e-12);
+                s.clapp = on.then_some(units::from_pf(10.0));
                 changed = true;
             }
             if let Some(cs) = &mut s.clapp {
@@ -263,7 +331,7 @@ impl StagePanel {
                             CLAPP_LABEL,
                             cs,
                             CLAPP_RANGE_F,
-                            1e12,
+                            units::PF,
                             0.1,
                             " pF",
                             &mut changed,
@@ -320,7 +388,7 @@ impl StagePanel {
                 let colour = ui.visuals().error_fg_color;
                 ui.add(egui::Label::new(egui::RichText::new(e).color(colour)).wrap());
             }
-            Ok(f) => figures_ui(ui, f, s.battery_charge.map_or(0.0, |q| q / 3.6)),
+            Ok(f) => figures_ui(ui, f, s.battery_charge.map_or(0.0, units::to_mah)),
         }
     }
 }
