@@ -347,7 +347,10 @@ impl Evaluation {
             .inputs()
             .and_then(|i| crate::tuning::stage::analyse(&f.coil, &f.tank, &f.conditions, &i))
             .ok()
-            .and_then(|s| Operating::shown(s.frequency, s.pulling));
+            .and_then(|s| {
+                let clapp = s.network.clapp.is_some();
+                Operating::differing(s.frequency, s.pulling, clapp, f.analysis.resonance)
+            });
         self.stage = Some((key, operating));
     }
 

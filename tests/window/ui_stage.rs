@@ -263,4 +263,30 @@ fn the_charts_carry_the_stages_operating_frequency_and_its_pulling() {
         .filter(|t| *t == label)
         .count();
     assert_eq!(entries, 2, "one legend entry above each chart: {label}");
+
+    // A Clapp stage: its pulling is against the tank with its series capacitor, and the line
+    // says so.
+    let mut clapp = settings;
+    clapp.topology = tankwright::tuning::stage::Topology::CommonCollector;
+    clapp.bias.emitter = 10e3;
+    clapp.clapp = Some(10e-12);
+    harness.state_mut().recipe_mut().stage = Some(clapp.clone());
+    harness.run();
+    let c = stage(
+        &f.coil,
+        &f.tank,
+        &f.conditions,
+        &clapp.inputs().expect("inputs"),
+    )
+    .expect("stage");
+    let shown = harness.state().chart_operating().expect("on the charts");
+    assert_eq!((shown.frequency, shown.pulling), (c.frequency, c.pulling));
+    assert!(
+        shown
+            .label()
+            .ends_with("kHz from the tank with its Clapp capacitor)"),
+        "{}",
+        shown.label()
+    );
+    assert!(screen_text(&harness).contains(&shown.label()));
 }

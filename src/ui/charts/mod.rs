@@ -84,7 +84,7 @@ pub struct ChartView<'a> {
     /// Muted extra curves on the spacing chart (the teaching bench's ghost and reference).
     pub overlays: &'a [ChartOverlay],
     /// Where the oscillator stage kept in the recipe runs, when that differs from the tank's
-    /// resonance ([`Operating::shown`]).
+    /// resonance ([`Operating::differing`]).
     pub operating: Option<Operating>,
 }
 
@@ -94,24 +94,36 @@ pub struct ChartView<'a> {
 pub struct Operating {
     /// The operating frequency, hertz.
     pub frequency: f64,
-    /// It minus the tank's alone, hertz.
+    /// It minus the tank's alone (with its Clapp capacitor, when there is one), hertz.
     pub pulling: f64,
+    /// The stage has a Clapp series capacitor (its tank is not the charts' tank alone).
+    pub clapp: bool,
 }
 
 impl Operating {
-    /// The stage's figures when they differ from the tank's by a kilohertz or more as shown
-    /// (the readouts' resolution), else `None`.
-    pub fn shown(frequency: f64, pulling: f64) -> Option<Self> {
-        (frequency.is_finite() && pulling.is_finite() && pulling.abs() >= 500.0)
-            .then_some(Self { frequency, pulling })
+    /// The stage's figures when the operating frequency differs from the charts' present
+    /// resonance `shown` hertz by a kilohertz or more as shown (the readouts' resolution),
+    /// else `None`.
+    pub fn differing(frequency: f64, pulling: f64, clapp: bool, shown: f64) -> Option<Self> {
+        let apart = (frequency - shown).abs();
+        (frequency.is_finite() && pulling.is_finite() && apart >= 500.0).then_some(Self {
+            frequency,
+            pulling,
+            clapp,
+        })
     }
 
     /// Its name on the charts and in their legends: where it runs and the pulling in kHz.
     pub fn label(&self) -> String {
         format!(
-            "oscillator runs at {} (pulled {} kHz)",
+            "oscillator runs at {} (pulled {} kHz{})",
             crate::tuning::digits::mhz(self.frequency),
-            crate::tuning::digits::signed(self.pulling * 1e-3, 0)
+            crate::tuning::digits::signed(crate::units::to_khz(self.pulling), 0),
+            if self.clapp {
+                " from the tank with its Clapp capacitor"
+            } else {
+                ""
+            }
         )
     }
 }
