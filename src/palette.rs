@@ -28,6 +28,8 @@ pub const PRESENT: Rgb = Rgb(0x2f, 0x86, 0xd6);
 pub const READING: Rgb = Rgb(0xb8, 0x3f, 0xa8);
 /// The model before calibration.
 pub const UNCALIBRATED: Rgb = Rgb(0x8c, 0x8c, 0x8c);
+/// The oscillator stage's operating frequency: a violet of our own.
+pub const OPERATING: Rgb = Rgb(0x7b, 0x52, 0xc4);
 /// The target channel.
 pub const TARGET: Rgb = Rgb(0x3a, 0xa8, 0x5c);
 /// The aeronautical band: a warning red of our own.

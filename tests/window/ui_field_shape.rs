@@ -109,6 +109,7 @@ fn the_charts_hover_and_band_follow_exact_field_solves() {
         axis: SpacingAxis::Length,
         unit: LengthUnit::Millimetres,
         overlays: &[],
+        operating: None,
     };
     let (lo, hi) = sweeps.length_range_swept();
     for u in [0.1, 0.33, 0.6, 0.9] {

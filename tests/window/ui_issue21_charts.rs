@@ -96,6 +96,7 @@ fn the_hover_of_a_fixed_tank_lists_its_one_curve_once() {
         axis: SpacingAxis::Length,
         unit: LengthUnit::Millimetres,
         overlays: &[],
+        operating: None,
     };
     let text = hover::spacing_text(&view, view.x_of_length(coil.length()));
     let lines: Vec<&str> = text.lines().skip(1).collect();

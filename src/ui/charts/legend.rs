@@ -153,6 +153,9 @@ fn shared(view: &ChartView<'_>, y_mhz: (f64, f64), readings: bool, clipped: bool
             Swatch::Band(palette::target_fill()),
         ));
     }
+    if let Some(op) = view.operating {
+        out.push(Entry::new(op.label(), Swatch::Dashed(palette::OPERATING)));
+    }
     if shows_aeronautical(y_mhz) {
         out.push(Entry::new(
             AERONAUTICAL_BAND_LABEL,

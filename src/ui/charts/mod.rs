@@ -109,6 +109,62 @@ pub struct ChartView<'a> {
     pub unit: LengthUnit,
     /// Muted extra curves on the spacing chart (the teaching bench's ghost and reference).
     pub overlays: &'a [ChartOverlay],
+    /// Where the oscillator stage kept in the recipe runs, when that differs from the tank's
+    /// resonance ([`Operating::differing`]).
+    pub operating: Option<Operating>,
+}
+
+/// The oscillator stage's operating frequency (`tuning::stage`: the tank with the
+/// transistor's capacitances) for the charts.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct Operating {
+    /// The operating frequency, hertz.
+    pub frequency: f64,
+    /// It minus the tank's alone (with its Clapp capacitor, when there is one), hertz.
+    pub pulling: f64,
+    /// The stage has a Clapp series capacitor (its tank is not the charts' tank alone).
+    pub clapp: bool,
+}
+
+impl Operating {
+    /// The stage's figures when the operating frequency differs from the charts' present
+    /// resonance `shown` hertz by a kilohertz or more as shown (the readouts' resolution),
+    /// else `None`.
+    pub fn differing(frequency: f64, pulling: f64, clapp: bool, shown: f64) -> Option<Self> {
+        let apart = (frequency - shown).abs();
+        (frequency.is_finite() && pulling.is_finite() && apart >= 500.0).then_some(Self {
+            frequency,
+            pulling,
+            clapp,
+        })
+    }
+
+    /// Its name on the charts and in their legends: where it runs and the pulling in kHz.
+    pub fn label(&self) -> String {
+        format!(
+            "oscillator runs at {} (pulled {} kHz{})",
+            crate::tuning::digits::mhz(self.frequency),
+            crate::tuning::digits::signed(crate::units::to_khz(self.pulling), 0),
+            if self.clapp {
+                " from the tank with its Clapp capacitor"
+            } else {
+                ""
+            }
+        )
+    }
+}
+
+/// The oscillator's operating frequency as a dashed line across the chart, named with where it
+/// runs and the pulling.
+pub(crate) fn operating_line(plot_ui: &mut egui_plot::PlotUi<'_>, view: &ChartView<'_>) {
+    if let Some(op) = view.operating {
+        plot_ui.hline(
+            egui_plot::HLine::new(op.label(), op.frequency * 1e-6)
+                .color(palette::OPERATING)
+                .style(egui_plot::LineStyle::dashed_loose())
+                .width(1.4),
+        );
+    }
 }
 
 impl ChartView<'_> {
@@ -168,6 +224,8 @@ pub(crate) mod palette {
 
     /// The present coil or setting.
     pub const PRESENT: Color32 = egui(crate::palette::PRESENT);
+    /// The oscillator stage's operating frequency.
+    pub const OPERATING: Color32 = egui(crate::palette::OPERATING);
     /// Bench readings.
     pub const READING: Color32 = egui(crate::palette::READING);
     /// The model before calibration.

@@ -106,6 +106,7 @@ pub fn spacing_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
             }
         }
         super::overlay::draw(plot_ui, view);
+        super::operating_line(plot_ui, view);
         reading_points(plot_ui, view, |r| view.x_of_length(r.length));
 
         present_marker(

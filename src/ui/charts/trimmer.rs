@@ -54,6 +54,7 @@ pub fn trimmer_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
         );
         target_channel(plot_ui, view);
         aeronautical_band(plot_ui, (bounds[2], bounds[3]));
+        super::operating_line(plot_ui, view);
         let at_length = ChartView {
             readings: &same_length,
             ..*view

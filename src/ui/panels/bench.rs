@@ -117,6 +117,7 @@ fn drawing_and_charts(
         },
         unit,
         overlays: extras.overlays,
+        operating: evaluation.operating(),
     };
     let fixed = figures.tank.is_fixed();
     if fixed && !extras.spacing_only {
