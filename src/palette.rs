@@ -30,6 +30,8 @@ pub const READING: Rgb = Rgb(0xb8, 0x3f, 0xa8);
 pub const UNCALIBRATED: Rgb = Rgb(0x8c, 0x8c, 0x8c);
 /// The classical formulas' comparison curve (dotted) once the field shape is drawn.
 pub const CLASSICAL: Rgb = Rgb(0x4f, 0x7a, 0x9e);
+/// The oscillator stage's operating frequency: a violet of our own.
+pub const OPERATING: Rgb = Rgb(0x7b, 0x52, 0xc4);
 /// The target channel.
 pub const TARGET: Rgb = Rgb(0x3a, 0xa8, 0x5c);
 /// The aeronautical band: a warning red of our own.

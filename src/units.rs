@@ -70,6 +70,34 @@ pub const fn to_khz_per_mm(hz_per_metre: f64) -> f64 {
     hz_per_metre / 1e6
 }
 
+/// Coulombs in milliampere-hours (1 mAh = 3.6 C): a battery's capacity.
+pub const fn to_mah(coulombs: f64) -> f64 {
+    coulombs / 3.6
+}
+
+/// Milliampere-hours in coulombs.
+pub const fn from_mah(mah: f64) -> f64 {
+    mah * 3.6
+}
+
+/// A display unit as its two conversions: (from SI, to SI).
+pub type Pair = (fn(f64) -> f64, fn(f64) -> f64);
+
+const fn same(x: f64) -> f64 {
+    x
+}
+
+/// The SI unit itself (volts, ohms, a ratio): no conversion.
+pub const AS_SI: Pair = (same, same);
+/// Picofarads.
+pub const PF: Pair = (to_pf, from_pf);
+/// Megahertz.
+pub const MHZ: Pair = (to_mhz, from_mhz);
+/// Kilohertz.
+pub const KHZ: Pair = (to_khz, from_khz);
+/// Milliampere-hours.
+pub const MAH: Pair = (to_mah, from_mah);
+
 #[cfg(test)]
 mod tests {
     use super::*;

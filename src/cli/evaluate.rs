@@ -87,6 +87,8 @@ impl EvaluateRequest {
             bench_log: Vec::new(),
             stray_estimate: StraySettings::default(),
             coil_measurement: None,
+            stage: None,
+            audio: Default::default(),
         }
     }
 

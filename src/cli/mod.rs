@@ -141,12 +141,16 @@ usage:
   tankwright stage --recipe FILE --supply-v V --bias-upper-ohm R1 --bias-lower-ohm R2
            --emitter-ohm RE (--transistor-model '.model NAME NPN(...)'
            | --hfe B --cbe-pf C --cbc-pf C --ft-mhz F) [--topology common-base|common-collector]
-           [--battery-mah M] [--vceo-v V] [--ic-max-ma I] [--ptot-mw P] [--json]
+           [--clapp-pf C] [--battery-mah M] [--vceo-v V] [--ic-max-ma I] [--ptot-mw P]
+           [--json]
                                           the one-transistor Colpitts stage round the recipe's
                                           tank (its feedback divider the tapped capacitor):
                                           operating point, loop gain and start margin, the
                                           frequency with the transistor's capacitances, supply
-                                          current and battery life, and what to change
+                                          current and battery life, and what to change; a
+                                          stage kept in the recipe stands in for every flag
+                                          not given; --clapp-pf (common collector) puts a
+                                          Clapp series capacitor in the coil's branch
   tankwright help                         this text
 
 evaluate flags (millimetres, picofarads, megahertz):
@@ -185,6 +189,7 @@ modulating junction (adds modulation; the tank then includes the junction at its
   --junction-model '.model NAME D(CJO=.. VJ=.. M=..)'  or a SPICE line (D, NPN, PNP)
   --bias-v V             the junction's DC reverse bias
   --audio-peak-v A       audio peak voltage at the junction (default 0)
+  --rf-peak-v R          RF peak voltage across the tank (default 2, common practice)
   --coupling-pf C        series coupling capacitor (absent: junction straight across the tank)
   --audio-max-khz F      highest audio frequency for Carson's bandwidth (default 15)
 

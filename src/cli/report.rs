@@ -128,7 +128,9 @@ fn tank_lines(r: &Recipe, out: &mut Vec<String>) {
     let t = &r.tank;
     out.push("Tank".to_owned());
     out.push(format!("  fixed              {:>10.2} pF", to_pf(t.fixed)));
-    if t.trimmer_max > 0.0 {
+    if t.is_fixed() {
+        out.push(fixed_trimmer_words(t, "  trimmer            "));
+    } else {
         out.push(format!(
             "  trimmer            {:>10.2} pF   ({:.1}–{:.1} pF at {:.0} %)",
             to_pf(t.trimmer_at(t.trimmer_setting)),
@@ -151,6 +153,19 @@ fn tank_lines(r: &Recipe, out: &mut Vec<String>) {
         to_pf(t.external_capacitance())
     ));
     out.push(String::new());
+}
+
+/// The trimmer's line for a fixed tank: "none (a fixed tank)", naming a capacitance of no
+/// span entered as a trimmer.
+fn fixed_trimmer_words(t: &crate::model::Tank, label: &str) -> String {
+    if t.trimmer_min > 0.0 {
+        format!(
+            "{label}none (a fixed tank; {:.2} pF of no span entered as a trimmer)",
+            to_pf(t.trimmer_min)
+        )
+    } else {
+        format!("{label}none (a fixed tank)")
+    }
 }
 
 fn target_lines(r: &Recipe, f: &Figures, out: &mut Vec<String>) {
@@ -187,7 +202,7 @@ fn target_lines(r: &Recipe, f: &Figures, out: &mut Vec<String>) {
         "  stretch moves it   {:>10.1} kHz per mm",
         to_khz_per_mm(t.stretch_sensitivity)
     ));
-    if r.tank.trimmer_max > r.tank.trimmer_min {
+    if !r.tank.is_fixed() {
         match &t.setting_for_target {
             Ok(s) => out.push(format!(
                 "  or trimmer at      {:>10.1} %    (at the present length)",

@@ -1,24 +1,32 @@
 //! `tankwright stage --recipe R --supply-v V --bias-upper-ohm R1 --bias-lower-ohm R2
 //! --emitter-ohm RE (--transistor-model '.model NAME NPN(...)' | --hfe B --cbe-pf C --cbc-pf C
-//! --ft-mhz F) [--topology common-base|common-collector] [--battery-mah M] [--json]`: the
-//! one-transistor Colpitts stage round a recipe's tank (`tuning::stage` on the tank
-//! `recipe::figures` drives): will it start, where will it run, what does it draw.
+//! --ft-mhz F) [--topology common-base|common-collector] [--clapp-pf C] [--battery-mah M]
+//! [--json]`: the one-transistor Colpitts stage round a recipe's tank (`tuning::stage` on the
+//! tank `recipe::figures` drives): will it start, where will it run, what does it draw. A
+//! stage kept in the recipe (`Recipe::stage`) gives every setting whose flag is not given.
 
 use super::args::{Args, short};
 use crate::recipe::store;
 use crate::tuning::stage::advice::Part;
-use crate::tuning::stage::{
-    BATTERY_RANGE_MAH, Bias, FREQUENCY_ACCURACY, RESISTOR_RANGE_OHM, Ratings, SUPPLY_RANGE_V,
-    StageFigures, StageInputs, Start, Topology, Transistor, stage, transistor::BETA_RANGE,
+use crate::tuning::stage::settings::{
+    CBC_RANGE_F, CBE_RANGE_F, CLAPP_RANGE_F, FT_RANGE_HZ, IC_MAX_RANGE_A, PTOT_RANGE_W,
+    VCEO_RANGE_V,
 };
+use crate::tuning::stage::{
+    BATTERY_RANGE_MAH, Bias, RESISTOR_RANGE_OHM, Ratings, SUPPLY_RANGE_V, StageFigures,
+    StageInputs, StageSettings, Start, Topology, Transistor, TransistorSpec, frequency_accuracy,
+    stage, transistor::BETA_RANGE,
+};
+use crate::units;
 use serde_json::json;
 use std::path::Path;
 
 const USAGE: &str = "tankwright stage --recipe R --supply-v V --bias-upper-ohm R1 \
                      --bias-lower-ohm R2 --emitter-ohm RE (--transistor-model '.model NAME \
                      NPN(...)' | --hfe B --cbe-pf C --cbc-pf C --ft-mhz F) [--topology \
-                     common-base|common-collector] [--battery-mah M] [--vceo-v V] \
-                     [--ic-max-ma I] [--ptot-mw P] [--json]";
+                     common-base|common-collector] [--clapp-pf C] [--battery-mah M] \
+                     [--vceo-v V] [--ic-max-ma I] [--ptot-mw P] [--json] (a stage kept in \
+                     the recipe stands in for every flag not given)";
 
 /// A flag's number within `lo`–`hi` (display units), or the refusal naming the range.
 fn within(
@@ -34,44 +42,137 @@ fn within(
     }
 }
 
-fn required(args: &Args, name: &str, range: (f64, f64), unit: &str) -> Result<f64, String> {
-    within(args, name, range, unit)?.ok_or_else(|| format!("--{name} is needed; usage: {USAGE}"))
-}
-
-/// The transistor from `--transistor-model` or from the four figures (never both).
-fn transistor(args: &Args) -> Result<Transistor, String> {
+/// The transistor from `--transistor-model` or from the four figures (never both), over the
+/// recipe's (`kept`): a figure given alone replaces that figure of the recipe's four.
+fn transistor(args: &Args, kept: Option<&TransistorSpec>) -> Result<TransistorSpec, String> {
     let model = args.text("transistor-model").map(str::to_owned);
     let figures = [
         within(args, "hfe", BETA_RANGE, "")?,
-        within(args, "cbe-pf", (0.0, 1000.0), " pF")?,
-        within(args, "cbc-pf", (0.0, 100.0), " pF")?,
-        within(args, "ft-mhz", (10.0, 100_000.0), " MHz")?,
+        within(args, "cbe-pf", scaled(CBE_RANGE_F, units::to_pf), " pF")?,
+        within(args, "cbc-pf", scaled(CBC_RANGE_F, units::to_pf), " pF")?,
+        within(args, "ft-mhz", scaled(FT_RANGE_HZ, units::to_mhz), " MHz")?,
     ];
     let any_figure = figures.iter().any(Option::is_some);
-    let mut t = match (model, figures) {
-        (Some(_), _) if any_figure => {
-            return Err(
-                "give --transistor-model or --hfe, --cbe-pf, --cbc-pf and --ft-mhz, not both"
-                    .into(),
-            );
-        }
-        (Some(text), _) => Transistor::from_model(&text).map_err(|e| e.to_string())?,
-        (None, [Some(b), Some(cbe), Some(cbc), Some(ft)]) => {
-            Transistor::from_figures(b, cbe * 1e-12, cbc * 1e-12, ft * 1e6)
-        }
-        (None, _) => {
-            return Err(format!(
-                "the transistor is needed: --transistor-model, or all four of --hfe, \
-                 --cbe-pf, --cbc-pf and --ft-mhz; usage: {USAGE}"
-            ));
-        }
+    let needed = || {
+        format!(
+            "the transistor is needed: --transistor-model, or all four of --hfe, \
+             --cbe-pf, --cbc-pf and --ft-mhz (or a stage kept in the recipe); usage: {USAGE}"
+        )
     };
-    t.ratings = Ratings {
-        collector_emitter_max: within(args, "vceo-v", (1.0, 1000.0), " V")?,
-        collector_max: within(args, "ic-max-ma", (0.01, 10_000.0), " mA")?.map(|i| i * 1e-3),
-        dissipation_max: within(args, "ptot-mw", (1.0, 100_000.0), " mW")?.map(|p| p * 1e-3),
+    match (model, kept) {
+        (Some(_), _) if any_figure => Err(
+            "give --transistor-model or --hfe, --cbe-pf, --cbc-pf and --ft-mhz, not both".into(),
+        ),
+        (Some(text), _) => {
+            Transistor::from_model(&text).map_err(|e| e.to_string())?;
+            Ok(TransistorSpec::Model(text))
+        }
+        (None, Some(TransistorSpec::Figures { hfe, cbe, cbc, ft })) => {
+            let [b, e, c, t] = figures;
+            Ok(TransistorSpec::Figures {
+                hfe: b.unwrap_or(*hfe),
+                cbe: e.map_or(*cbe, units::from_pf),
+                cbc: c.map_or(*cbc, units::from_pf),
+                ft: t.map_or(*ft, units::from_mhz),
+            })
+        }
+        (None, kept) => match (figures, kept) {
+            ([Some(b), Some(e), Some(c), Some(t)], _) => Ok(TransistorSpec::Figures {
+                hfe: b,
+                cbe: units::from_pf(e),
+                cbc: units::from_pf(c),
+                ft: units::from_mhz(t),
+            }),
+            (_, Some(spec)) if !any_figure => Ok(spec.clone()),
+            _ => Err(needed()),
+        },
+    }
+}
+
+/// An SI range in display units, to nine figures (so 1 nF reads 1000 pF, not 1000.0000000000001).
+fn scaled((lo, hi): (f64, f64), to: fn(f64) -> f64) -> (f64, f64) {
+    let r = |x: f64| format!("{x:.9e}").parse().unwrap_or(x);
+    (r(to(lo)), r(to(hi)))
+}
+
+/// The stage's settings: the recipe's (`kept`), each flag given replacing its setting; with no
+/// stage kept, the supply, the three resistors and the transistor must be given.
+fn settings(args: &Args, kept: Option<&StageSettings>) -> Result<StageSettings, String> {
+    let need = |name: &str, given: Option<f64>, from: Option<f64>| {
+        given.or(from).ok_or_else(|| {
+            format!("--{name} is needed (no stage is kept in the recipe); usage: {USAGE}")
+        })
     };
-    Ok(t)
+    let topology = match args.text("topology") {
+        None => kept.map_or(Topology::CommonBase, |k| k.topology),
+        Some(name) => Topology::from_cli_name(name).ok_or_else(|| {
+            format!(
+                "unknown topology '{}': --topology is common-base or common-collector",
+                super::clean(name)
+            )
+        })?,
+    };
+    let bias = Bias {
+        supply_v: need(
+            "supply-v",
+            within(args, "supply-v", SUPPLY_RANGE_V, " V")?,
+            kept.map(|k| k.bias.supply_v),
+        )?,
+        upper: need(
+            "bias-upper-ohm",
+            within(args, "bias-upper-ohm", RESISTOR_RANGE_OHM, " ohm")?,
+            kept.map(|k| k.bias.upper),
+        )?,
+        lower: need(
+            "bias-lower-ohm",
+            within(args, "bias-lower-ohm", RESISTOR_RANGE_OHM, " ohm")?,
+            kept.map(|k| k.bias.lower),
+        )?,
+        emitter: need(
+            "emitter-ohm",
+            within(args, "emitter-ohm", RESISTOR_RANGE_OHM, " ohm")?,
+            kept.map(|k| k.bias.emitter),
+        )?,
+    };
+    let battery = within(args, "battery-mah", BATTERY_RANGE_MAH, " mAh")?.map(units::from_mah);
+    let clapp =
+        within(args, "clapp-pf", scaled(CLAPP_RANGE_F, units::to_pf), " pF")?.map(units::from_pf);
+    let kept_ratings = kept.map(|k| k.ratings).unwrap_or_default();
+    let ratings = Ratings {
+        collector_emitter_max: within(args, "vceo-v", VCEO_RANGE_V, " V")?
+            .or(kept_ratings.collector_emitter_max),
+        collector_max: within(
+            args,
+            "ic-max-ma",
+            scaled(IC_MAX_RANGE_A, units::to_ma),
+            " mA",
+        )?
+        .map(units::from_ma)
+        .or(kept_ratings.collector_max),
+        dissipation_max: within(args, "ptot-mw", scaled(PTOT_RANGE_W, units::to_mw), " mW")?
+            .map(units::from_mw)
+            .or(kept_ratings.dissipation_max),
+    };
+    // The recipe's Clapp capacitor stays with the common-collector stage only.
+    let kept_clapp = kept
+        .and_then(|k| k.clapp)
+        .filter(|_| topology == Topology::CommonCollector);
+    let s = StageSettings {
+        topology,
+        bias,
+        transistor: transistor(args, kept.map(|k| &k.transistor))?,
+        ratings,
+        battery_charge: battery.or(kept.and_then(|k| k.battery_charge)),
+        clapp: clapp.or(kept_clapp),
+    };
+    if s.clapp.is_some() && topology != Topology::CommonCollector {
+        return Err(
+            "--clapp-pf: a Clapp series capacitor belongs to the common-collector stage \
+             (add --topology common-collector)"
+                .into(),
+        );
+    }
+    Ok(s)
 }
 
 /// Run `stage` on the words after the subcommand; Ok(the figures) or Err(message).
@@ -82,32 +183,31 @@ pub fn run_stage(words: Vec<String>) -> Result<String, String> {
         .text("recipe")
         .map(str::to_owned)
         .ok_or_else(|| format!("--recipe is needed; usage: {USAGE}"))?;
-    let topology = match args.text("topology") {
-        None => Topology::CommonBase,
-        Some(name) => Topology::from_cli_name(name).ok_or_else(|| {
-            format!(
-                "unknown topology '{}': --topology is common-base or common-collector",
-                super::clean(name)
-            )
-        })?,
-    };
-    let bias = Bias {
-        supply_v: required(&args, "supply-v", SUPPLY_RANGE_V, " V")?,
-        upper: required(&args, "bias-upper-ohm", RESISTOR_RANGE_OHM, " ohm")?,
-        lower: required(&args, "bias-lower-ohm", RESISTOR_RANGE_OHM, " ohm")?,
-        emitter: required(&args, "emitter-ohm", RESISTOR_RANGE_OHM, " ohm")?,
-    };
-    let battery = within(&args, "battery-mah", BATTERY_RANGE_MAH, " mAh")?;
-    let transistor = transistor(&args)?;
+    for name in [
+        "topology",
+        "supply-v",
+        "bias-upper-ohm",
+        "bias-lower-ohm",
+        "emitter-ohm",
+        "battery-mah",
+        "clapp-pf",
+        "transistor-model",
+        "hfe",
+        "cbe-pf",
+        "cbc-pf",
+        "ft-mhz",
+        "vceo-v",
+        "ic-max-ma",
+        "ptot-mw",
+    ] {
+        let _ = args.text(name);
+    }
     args.reject_unknown().map_err(|e| e.to_string())?;
     let recipe = store::load(Path::new(&file)).map_err(|e| e.to_string())?;
+    let settings = settings(&args, recipe.stage.as_ref())?;
     let f = crate::recipe::figures(&recipe).map_err(|e| format!("invalid recipe: {e}"))?;
-    let inputs = StageInputs {
-        topology,
-        bias,
-        transistor,
-        battery_charge: battery.map(|m| m * 3.6),
-    };
+    let inputs = settings.inputs().map_err(|e| e.to_string())?;
+    let battery = settings.battery_charge.map(units::to_mah);
     let s = stage(&f.coil, &f.tank, &f.conditions, &inputs).map_err(|e| e.to_string())?;
     if args.switch("json") {
         let v = stage_json(&s, battery);
@@ -141,7 +241,7 @@ pub fn stage_json(s: &StageFigures, battery_mah: Option<f64>) -> serde_json::Val
         "coil_resistance_ohm": s.coil_resistance,
         "coil_q": s.coil_q,
         "frequency_mhz": s.frequency * 1e-6,
-        "frequency_accuracy": FREQUENCY_ACCURACY,
+        "frequency_accuracy": frequency_accuracy(s.topology),
         "small_signal_frequency_mhz": s.small_signal_frequency.map(|f| f * 1e-6),
         "tank_frequency_mhz": s.tank_frequency * 1e-6,
         "pulling_khz": s.pulling * 1e-3,
@@ -223,7 +323,10 @@ fn stage_text(s: &StageFigures, inputs: &StageInputs, battery_mah: Option<f64>) 
         "a start this hard limits on the collector's swing: expect it up to a few per cent off"
             .to_owned()
     } else {
-        format!("within about {:.1} %", FREQUENCY_ACCURACY * 100.0)
+        format!(
+            "within about {:.1} %",
+            frequency_accuracy(s.topology) * 100.0
+        )
     };
     out.push(format!(
         "  frequency {:.4} MHz ({accuracy}), tank alone {:.4} MHz: pulled {:+.0} kHz",

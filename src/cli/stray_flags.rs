@@ -37,6 +37,7 @@ struct JunctionFlags {
     bias_v: f64,
     audio_peak_v: f64,
     audio_max_hz: f64,
+    rf_peak_v: f64,
     ignored: Vec<String>,
 }
 
@@ -198,6 +199,7 @@ impl Extras {
         let model = args.text("junction-model");
         let bias = args.number("bias-v")?;
         let audio = args.number("audio-peak-v")?;
+        let rf = args.number("rf-peak-v")?;
         let coupling = positive(args, "coupling-pf")?;
         let audio_max = within(
             args,
@@ -208,9 +210,9 @@ impl Extras {
         )?;
         let (law, ignored) = match (three, model) {
             ((None, None, None), None) => {
-                if bias.is_some() || audio.is_some() || coupling.is_some() {
+                if bias.is_some() || audio.is_some() || rf.is_some() || coupling.is_some() {
                     return Err(ArgError(
-                        "--bias-v, --audio-peak-v and --coupling-pf need a junction: give \
+                        "--bias-v, --audio-peak-v, --rf-peak-v and --coupling-pf need a junction: give \
                          --junction-cj0-pf, --junction-vj and --junction-m, or --junction-model"
                             .to_owned(),
                     ));
@@ -270,6 +272,13 @@ impl Extras {
                 short(a)
             )));
         }
+        let rf_peak_v = rf.unwrap_or(crate::tuning::modulation::TANK_RF_PEAK_V);
+        if !(0.0..=1e3).contains(&rf_peak_v) {
+            return Err(ArgError(format!(
+                "--rf-peak-v {} is outside 0–1000 V (the RF peak across the tank)",
+                short(rf_peak_v)
+            )));
+        }
         Ok(Some(JunctionFlags {
             modulator: Modulator {
                 law,
@@ -278,6 +287,7 @@ impl Extras {
             bias_v,
             audio_peak_v: audio.unwrap_or(0.0).abs(),
             audio_max_hz: from_khz(audio_max.unwrap_or(15.0)),
+            rf_peak_v,
             ignored,
         }))
     }
@@ -360,6 +370,7 @@ impl ExtraFigures {
                     bias_v: j.bias_v,
                     audio_peak_v: j.audio_peak_v,
                     audio_max_hz: j.audio_max_hz,
+                    rf_peak_v: j.rf_peak_v,
                 },
             );
             let service = Service::for_carrier(m.carrier);
@@ -496,6 +507,9 @@ impl ExtraFigures {
                     "sensitivity_khz_per_v": to_khz(m.sensitivity),
                     "distortion_pct": m.distortion * 100.0,
                     "carson_bandwidth_khz": to_khz(m.carson_bandwidth),
+                    "rf_at_junction_v": m.rf_at_junction,
+                    "least_reverse_v": m.least_reverse_v,
+                    "forward_on_peaks": m.forward_on_peaks,
                     "deviation_within_limit": verdict.deviation_ok,
                     "advice": verdict.advice,
                     "model_parameters_ignored": ignored,

@@ -28,12 +28,21 @@ pub fn verdict_lines(v: &Verdict) -> Vec<String> {
         } else {
             h.falls_in.join("; ")
         };
-        out.push(format!(
-            "  harmonic {}: {} now, {} over the trimmer: {falls}",
-            h.order,
-            mhz(h.frequency),
-            mhz_range(h.low, h.high)
-        ));
+        // A fixed tank has no travel: the harmonic is one frequency.
+        if v.reach.is_fixed() {
+            out.push(format!(
+                "  harmonic {}: {} (fixed tank): {falls}",
+                h.order,
+                mhz(h.frequency)
+            ));
+        } else {
+            out.push(format!(
+                "  harmonic {}: {} now, {} over the trimmer: {falls}",
+                h.order,
+                mhz(h.frequency),
+                mhz_range(h.low, h.high)
+            ));
+        }
     }
     if let Some(image) = &v.image {
         out.push(format!("  receiver image: {}", image.text));

@@ -7,7 +7,8 @@ use crate::recipe::{Figures, Recipe};
 use crate::tuning::landing::chart_shape;
 use crate::tuning::service::AERONAUTICAL;
 use crate::tuning::sweep::{
-    CHART_SAMPLES, CHART_SETTINGS, chart_length_range, spacing_sweep_on, trimmer_sweep_on,
+    CHART_SAMPLES, CHART_SETTINGS, FIXED_CURVE_LABEL, chart_length_range, spacing_sweep_on,
+    trimmer_sweep_on,
 };
 
 /// Which chart.
@@ -82,8 +83,26 @@ pub struct ChartData {
     pub present: Option<(f64, f64)>,
     /// The target channel.
     pub channel: Option<Channel>,
-    /// Bench readings: (x, measured MHz).
+    /// Bench readings taken as the tank stands: (x, measured MHz).
     pub readings: Vec<(f64, f64)>,
+    /// Bench readings taken with a known capacitor clipped across the tank: (x, measured MHz,
+    /// the capacitor in pF). Each lies on a curve of its own (the tank plus that capacitor),
+    /// so it is drawn apart from the curves and from the other readings.
+    pub clipped: Vec<(f64, f64, f64)>,
+    /// A fixed tank (no trimmer travel): the spacing chart has the one curve
+    /// ([`FIXED_CURVE_LABEL`]) and there is no trimmer chart ([`refused`]).
+    pub fixed_tank: bool,
+}
+
+/// Why the chart of `kind` is not made for `recipe`, if it is not: a fixed tank (no trimmer,
+/// or one of no span) has no trimmer chart, since no setting moves its resonance.
+pub fn refused(kind: ChartKind, recipe: &Recipe) -> Option<String> {
+    (kind == ChartKind::Trimmer && recipe.tank.is_fixed()).then(|| {
+        "no trimmer chart for a fixed tank: this recipe has no trimmer (or one of no span), so \
+         no setting moves the resonance; the spacing chart (--kind spacing) shows it against \
+         the coil's length, the only adjustment"
+            .to_owned()
+    })
 }
 
 impl ChartData {
@@ -116,7 +135,8 @@ impl ChartData {
                     .into_iter()
                     .flat_map(|c| [c.edges.0, c.edges.1]),
             )
-            .chain(self.readings.iter().map(|r| r.1));
+            .chain(self.readings.iter().map(|r| r.1))
+            .chain(self.clipped.iter().map(|r| r.1));
         let (lo, hi) = min_max(ys);
         let margin = 0.06 * (hi - lo).max(0.5);
         (lo - margin, hi + margin)
@@ -165,20 +185,32 @@ pub fn chart_data(kind: ChartKind, recipe: &Recipe, f: &Figures) -> ChartData {
     let shape = f
         .led
         .and_then(|led| chart_shape(&led, &f.coil, &f.tank, range));
+    let fixed_tank = f.tank.is_fixed();
+    // A reading taken with a capacitor clipped on lies on another curve: kept apart.
+    let (plain, clipped): (Vec<_>, Vec<_>) = recipe
+        .bench_log
+        .iter()
+        .partition(|e| e.added_capacitance <= 0.0);
     match kind {
         ChartKind::Spacing => {
+            // One curve for a fixed tank: five identical ones would only stack up.
+            let settings: &[f64] = if fixed_tank { &[0.0] } else { &CHART_SETTINGS };
             let curves = spacing_sweep_on(
                 &f.coil,
                 &f.tank,
                 &f.conditions,
-                &CHART_SETTINGS,
+                settings,
                 range,
                 CHART_SAMPLES,
                 shape.as_ref(),
             )
             .into_iter()
             .map(|c| Curve {
-                label: format!("trimmer {:.0} %", c.setting * 100.0),
+                label: if fixed_tank {
+                    FIXED_CURVE_LABEL.to_owned()
+                } else {
+                    format!("trimmer {:.0} %", c.setting * 100.0)
+                },
                 setting: c.setting,
                 points: finite(c.points.iter().map(|p| (p[0] * 1e3, p[1] * 1e-6))),
             })
@@ -191,11 +223,21 @@ pub fn chart_data(kind: ChartKind, recipe: &Recipe, f: &Figures) -> ChartData {
                 touching: Some(f.coil.shortest_length() * 1e3),
                 present: Some((f.coil.length() * 1e3, resonance)),
                 channel,
-                readings: recipe
-                    .bench_log
+                readings: plain
                     .iter()
                     .map(|e| (e.length * 1e3, e.measured * 1e-6))
                     .collect(),
+                clipped: clipped
+                    .iter()
+                    .map(|e| {
+                        (
+                            e.length * 1e3,
+                            e.measured * 1e-6,
+                            crate::units::to_pf(e.added_capacitance),
+                        )
+                    })
+                    .collect(),
+                fixed_tank,
             }
         }
         ChartKind::Trimmer => {
@@ -221,12 +263,23 @@ pub fn chart_data(kind: ChartKind, recipe: &Recipe, f: &Figures) -> ChartData {
                 channel,
                 // Readings at the present length only: at another length they lie on
                 // another curve.
-                readings: recipe
-                    .bench_log
+                readings: plain
                     .iter()
                     .filter(|e| (e.length - here).abs() <= 1e-6)
                     .map(|e| (e.trimmer_setting * 100.0, e.measured * 1e-6))
                     .collect(),
+                clipped: clipped
+                    .iter()
+                    .filter(|e| (e.length - here).abs() <= 1e-6)
+                    .map(|e| {
+                        (
+                            e.trimmer_setting * 100.0,
+                            e.measured * 1e-6,
+                            crate::units::to_pf(e.added_capacitance),
+                        )
+                    })
+                    .collect(),
+                fixed_tank,
             }
         }
     }

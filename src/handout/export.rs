@@ -65,6 +65,9 @@ pub fn chart_bytes(
     footing: Footing,
 ) -> Result<Vec<u8>, String> {
     let ext = extension(path, &CHART_EXTENSIONS, "a chart")?;
+    if let Some(why) = super::chart_data::refused(kind, recipe) {
+        return Err(why);
+    }
     let f = figures_on(recipe, footing).map_err(|e| format!("invalid recipe: {e}"))?;
     let data = chart_data(kind, recipe, &f);
     if ext == "svg" {

@@ -16,8 +16,9 @@ mod sheet;
 mod spice_netlist;
 mod stage_netlist;
 
-pub use chart_data::{ChartData, ChartKind, Curve, chart_data};
-pub use chart_files::{CHART_SIZE, chart_png, chart_svg};
+pub use chart_data::{ChartData, ChartKind, Curve, chart_data, refused};
+pub use chart_draw::ChartLayout;
+pub use chart_files::{CHART_SIZE, SUPERSAMPLE, chart_file_layout, chart_png, chart_svg};
 pub use export::{
     CHART_EXTENSIONS, SHEET_EXTENSIONS, chart_bytes, sheet_bytes, write_chart, write_sheet,
 };

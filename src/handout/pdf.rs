@@ -245,15 +245,17 @@ impl Pages<'_> {
         let mut w = Writer::new(&mut surface, self.font.clone(), self.metrics);
         let full = PAGE.0 - 2.0 * MARGIN;
         w.title("How spacing moves the frequency");
-        w.paragraph(
-            MARGIN,
-            full,
-            BODY,
+        let explained = if sheet.spacing.fixed_tank {
+            "The curve is the resonance of this fixed tank (no trimmer) as the same turns are \
+             spread from touching to well spaced: spreading lowers the inductance and raises \
+             the frequency, and the length is the only adjustment. The shaded band is the \
+             target channel; the dot is the coil as drawn."
+        } else {
             "Each curve is the resonance for one trimmer setting as the same turns are spread \
              from touching to well spaced: spreading lowers the inductance and raises the \
-             frequency. The shaded band is the target channel; the dot is the coil as drawn.",
-            &black(),
-        );
+             frequency. The shaded band is the target channel; the dot is the coil as drawn."
+        };
+        w.paragraph(MARGIN, full, BODY, explained, &black());
         let top = w.y + 10.0;
         w.y = top + CHART_PIXELS.1 as f32 * CHART_POINTS_PER_PIXEL;
         w.heading("Steps");

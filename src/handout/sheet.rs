@@ -182,7 +182,9 @@ fn pf(c: f64) -> String {
 fn tank_rows(recipe: &Recipe) -> Vec<Row> {
     let t = &recipe.tank;
     let mut rows = vec![row("fixed capacitor", pf(t.fixed))];
-    if t.trimmer_max > 0.0 {
+    if t.is_fixed() {
+        rows.push(row("trimmer", fixed_trimmer_words(t)));
+    } else {
         rows.push(row(
             "trimmer",
             format!(
@@ -216,6 +218,18 @@ fn tank_rows(recipe: &Recipe) -> Vec<Row> {
     rows
 }
 
+/// A fixed tank's trimmer: none, naming a capacitance of no span entered as a trimmer.
+fn fixed_trimmer_words(t: &crate::model::Tank) -> String {
+    if t.trimmer_min > 0.0 {
+        format!(
+            "none: a fixed tank ({} of no span entered as a trimmer)",
+            pf(t.trimmer_min)
+        )
+    } else {
+        "none: a fixed tank".to_owned()
+    }
+}
+
 fn target_rows(recipe: &Recipe, f: &Figures) -> Vec<Row> {
     let t = &f.target;
     // Channel numbers belong to the US plan (47 CFR §73.201).
@@ -242,8 +256,14 @@ fn target_rows(recipe: &Recipe, f: &Figures) -> Vec<Row> {
                 digits::offset(t.offset)
             ),
         ),
-        row("trimmer reaches", digits::mhz_range(t.window.0, t.window.1)),
     ];
+    // A fixed tank reaches one frequency: no range from a frequency to itself.
+    if !recipe.tank.is_fixed() {
+        rows.push(row(
+            "trimmer reaches",
+            digits::mhz_range(t.window.0, t.window.1),
+        ));
+    }
     rows.push(match &t.length_for_target {
         Ok(l) => row(
             "length for the target",
@@ -255,7 +275,7 @@ fn target_rows(recipe: &Recipe, f: &Figures) -> Vec<Row> {
         ),
         Err(e) => row("length for the target", format!("not proposed: {e}")),
     });
-    if recipe.tank.trimmer_max > recipe.tank.trimmer_min {
+    if !recipe.tank.is_fixed() {
         rows.push(match &t.setting_for_target {
             Ok(s) => row(
                 "or trimmer at",
@@ -312,19 +332,38 @@ fn steps(recipe: &Recipe, f: &Figures) -> Vec<String> {
         ),
         None => format!("{} mm former", digits::fixed(g.former_diameter() * 1e3, 2)),
     };
+    let fixed = recipe.tank.is_fixed();
+    let cut = format!(
+        "Cut {} mm of {} and wind {} turns close on the {former}.",
+        digits::fixed(g.wire_length() * 1e3, 0),
+        wire_words(recipe, f),
+        digits::fixed(g.turns(), 2)
+    );
+    let spread = format!(
+        "Spread the turns evenly to {} mm (a gap of {} mm), leaving {} mm leads.",
+        digits::fixed(g.length() * 1e3, 2),
+        digits::fixed(g.gap() * 1e3, 2),
+        digits::fixed(g.lead_length() * 1e3, 1)
+    );
+    let per_mm = digits::fixed(f.target.stretch_sensitivity.abs() * 1e-6, 0);
+    if fixed {
+        // A fixed tank: the length is the only adjustment (no trimmer to set or finish on).
+        return vec![
+            cut,
+            spread,
+            "Power up into a dummy load and measure the frequency.".to_owned(),
+            "Write every reading in the table: frequency, length and the instrument used."
+                .to_owned(),
+            format!(
+                "Squeeze the turns to go lower, spread them to go higher (about {per_mm} kHz \
+                 per mm): the length is the only adjustment of a fixed tank, so finish on it \
+                 and fix the turns in place."
+            ),
+        ];
+    }
     vec![
-        format!(
-            "Cut {} mm of {} and wind {} turns close on the {former}.",
-            digits::fixed(g.wire_length() * 1e3, 0),
-            wire_words(recipe, f),
-            digits::fixed(g.turns(), 2)
-        ),
-        format!(
-            "Spread the turns evenly to {} mm (a gap of {} mm), leaving {} mm leads.",
-            digits::fixed(g.length() * 1e3, 2),
-            digits::fixed(g.gap() * 1e3, 2),
-            digits::fixed(g.lead_length() * 1e3, 1)
-        ),
+        cut,
+        spread,
         format!(
             "Set the trimmer to {} %, power up into a dummy load and measure the frequency.",
             digits::fixed(recipe.tank.trimmer_setting * 100.0, 0)
@@ -332,9 +371,8 @@ fn steps(recipe: &Recipe, f: &Figures) -> Vec<String> {
         "Write every reading in the table: frequency, length, trimmer and the instrument used."
             .to_owned(),
         format!(
-            "Squeeze the turns to go lower, spread them to go higher (about {} kHz per mm), \
-             and finish on the trimmer.",
-            digits::fixed(f.target.stretch_sensitivity.abs() * 1e-6, 0)
+            "Squeeze the turns to go lower, spread them to go higher (about {per_mm} kHz per \
+             mm), and finish on the trimmer."
         ),
     ]
 }

@@ -6,7 +6,7 @@
 //! [`crate::tuning::stage::Network`]); the transistor is a Gummel–Poon `.model` carrying the
 //! parameters the analysis uses (Berkeley SPICE3's defaults for the rest). The base is held at
 //! RF ground by a 1 µF capacitor (common base), the tank meets the base through a 1 µF
-//! blocking capacitor (common collector): the shorts at RF the analysis takes them for (2 mΩ
+//! blocking capacitor (common collector; the Clapp capacitor in its place when there is one): the shorts at RF the analysis takes them for (2 mΩ
 //! at 80 MHz; a 10 nF part's 0.2 Ω in series with the divider's side moved ngspice's
 //! frequency by 4e-4 in the common-collector stage). A 2 ns current step of 10 µA into the tank's hot end
 //! starts the transient from the operating point, so the ring either grows (the stage starts)
@@ -80,10 +80,20 @@ pub fn stage_netlist(f: &StageFigures, inputs: &StageInputs, run: StageRun, extr
             let _ = writeln!(w, "Cbase base 0 1u");
             let _ = writeln!(w, "Vcol hot col DC 0");
         }
-        Topology::CommonCollector => {
-            let _ = writeln!(w, "Cblock hot base 1u");
-            let _ = writeln!(w, "Vcol vcc col DC 0");
-        }
+        Topology::CommonCollector => match n.clapp {
+            Some(c) => {
+                let _ = writeln!(
+                    w,
+                    "* The Clapp series capacitor between the tank and the base"
+                );
+                let _ = writeln!(w, "Cclapp hot base {c:.9e}");
+                let _ = writeln!(w, "Vcol vcc col DC 0");
+            }
+            None => {
+                let _ = writeln!(w, "Cblock hot base 1u");
+                let _ = writeln!(w, "Vcol vcc col DC 0");
+            }
+        },
     }
     let _ = writeln!(w, "Q1 col base emit QSTAGE");
     let (cje, vje, mje) = law_parts(t.base_emitter);

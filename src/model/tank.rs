@@ -42,6 +42,12 @@ pub struct Tank {
 }
 
 impl Tank {
+    /// Whether the tank is fixed: no trimmer, or one whose travel spans nothing (minimum equal
+    /// to maximum), so no setting moves the resonance.
+    pub fn is_fixed(&self) -> bool {
+        self.trimmer_max <= self.trimmer_min
+    }
+
     /// Trimmer capacitance at `setting` (0–1), farads, assuming a linear trimmer.
     pub fn trimmer_at(&self, setting: f64) -> f64 {
         self.trimmer_min + setting * (self.trimmer_max - self.trimmer_min)

@@ -3,18 +3,22 @@
 
 use super::document::{BenchEntry, Recipe, StraySettings, Target};
 use super::schema::{
-    AimSheet, BuildingMethod, CoatingName, CoilMeasurementSheet, CoilSheet, ConditionsSheet,
-    DiameterMm, DividerSheet, ModelName, PlanName, ReadingSheet, RecipeFile, SCHEMA, Scaled,
-    SpacingMm, StraySheet, TankSheet, WireSize,
+    AimSheet, AudioSheet, BuildingMethod, CoatingName, CoilMeasurementSheet, CoilSheet,
+    ConditionsSheet, DiameterMm, DividerSheet, ModelName, PlanName, ReadingSheet, RecipeFile,
+    SCHEMA, Scaled, SpacingMm, StageSheet, StraySheet, TankSheet, TopologyName, TransistorSheet,
+    WireSize,
 };
 use crate::model::{
     Coating, Conditions, DiameterSpec, FeedbackDivider, Gauge, SpacingSpec, Tank, Winding, WireSpec,
 };
+use crate::physics::junction::JunctionLaw;
 use crate::tuning::BandPlan;
+use crate::tuning::audio::AudioSettings;
 use crate::tuning::construction::Construction;
 use crate::tuning::measured_coil::MeasuredCoil;
 use crate::tuning::measured_field::CoilMeasurement;
 use crate::tuning::spread::BuildTolerances;
+use crate::tuning::stage::{Bias, Ratings, StageSettings, Topology, TransistorSpec};
 
 /// The file form of a recipe.
 pub(crate) fn to_file_form(r: &Recipe) -> RecipeFile {
@@ -75,6 +79,129 @@ pub(crate) fn to_file_form(r: &Recipe) -> RecipeFile {
             .collect(),
         stray_estimate: stray_sheet(&r.stray_estimate),
         coil_measurement: r.coil_measurement.as_ref().map(measurement_sheet),
+        stage: r.stage.as_ref().map(stage_sheet),
+        audio: audio_sheet(&r.audio),
+    }
+}
+
+/// The audio settings in the file's terms.
+pub(crate) fn audio_sheet(a: &AudioSettings) -> AudioSheet {
+    AudioSheet {
+        junction_cj0_pf: Scaled::from_si(a.junction.cj0),
+        junction_potential_v: a.junction.contact_potential,
+        grading_exponent: a.junction.grading,
+        forward_knee: a.junction.forward_knee,
+        reverse_bias_v: a.bias_v,
+        audio_peak_v: a.audio_peak_v,
+        rf_peak_v: a.rf_peak_v,
+        audio_max_khz: a.audio_max.map(Scaled::from_si),
+        coupling_pf: Scaled::from_si(a.coupling),
+        fixed_class: a.fixed_class.code.to_owned(),
+        drift_supply_v: a.supply_v,
+        supply_change_v: a.supply_change_v,
+        temperature_change_k: a.temperature_change_k,
+        hand_pf: Scaled::from_si(a.hand),
+        load_change_pf: Scaled::from_si(a.load),
+        junction_in_tank: a.in_tank,
+        transistor_beside_pf: Scaled::from_si(a.beside),
+    }
+}
+
+/// The audio settings a file gives (judged afterwards: `rules::check_audio`; a class this
+/// build does not know is refused before, by the reader).
+fn audio_settings(s: &AudioSheet) -> AudioSettings {
+    let class = crate::physics::dielectric_class::by_name(&s.fixed_class);
+    let usual = AudioSettings::default();
+    {
+        AudioSettings {
+            junction: JunctionLaw {
+                cj0: s.junction_cj0_pf.si(),
+                contact_potential: s.junction_potential_v,
+                grading: s.grading_exponent,
+                forward_knee: s.forward_knee,
+            },
+            bias_v: s.reverse_bias_v,
+            audio_peak_v: s.audio_peak_v,
+            rf_peak_v: s.rf_peak_v,
+            audio_max: s.audio_max_khz.map(Scaled::si),
+            coupling: s.coupling_pf.si(),
+            fixed_class: class.unwrap_or(usual.fixed_class),
+            supply_v: s.drift_supply_v,
+            supply_change_v: s.supply_change_v,
+            temperature_change_k: s.temperature_change_k,
+            hand: s.hand_pf.si(),
+            load: s.load_change_pf.si(),
+            in_tank: s.junction_in_tank,
+            beside: s.transistor_beside_pf.si(),
+        }
+    }
+}
+
+/// 1 mAh in coulombs.
+const MAH: f64 = 3.6;
+
+/// The stage's settings in the file's terms.
+fn stage_sheet(s: &StageSettings) -> StageSheet {
+    StageSheet {
+        topology: match s.topology {
+            Topology::CommonBase => TopologyName::CommonBase,
+            Topology::CommonCollector => TopologyName::CommonCollector,
+        },
+        supply_v: s.bias.supply_v,
+        bias_upper_ohm: s.bias.upper,
+        bias_lower_ohm: s.bias.lower,
+        emitter_ohm: s.bias.emitter,
+        transistor: match &s.transistor {
+            TransistorSpec::Figures { hfe, cbe, cbc, ft } => TransistorSheet::Figures {
+                hfe: *hfe,
+                cbe_pf: Scaled::from_si(*cbe),
+                cbc_pf: Scaled::from_si(*cbc),
+                ft_mhz: Scaled::from_si(*ft),
+            },
+            TransistorSpec::Model(text) => TransistorSheet::SpiceModel(text.clone()),
+        },
+        vceo_v: s.ratings.collector_emitter_max,
+        ic_max_ma: s.ratings.collector_max.map(Scaled::from_si),
+        ptot_mw: s.ratings.dissipation_max.map(Scaled::from_si),
+        battery_mah: s.battery_charge.map(|q| q / MAH),
+        clapp_pf: s.clapp.map(Scaled::from_si),
+    }
+}
+
+/// The stage's settings a file gives (judged afterwards, as the rest).
+fn stage_settings(s: &StageSheet) -> StageSettings {
+    StageSettings {
+        topology: match s.topology {
+            TopologyName::CommonBase => Topology::CommonBase,
+            TopologyName::CommonCollector => Topology::CommonCollector,
+        },
+        bias: Bias {
+            supply_v: s.supply_v,
+            upper: s.bias_upper_ohm,
+            lower: s.bias_lower_ohm,
+            emitter: s.emitter_ohm,
+        },
+        transistor: match &s.transistor {
+            TransistorSheet::Figures {
+                hfe,
+                cbe_pf,
+                cbc_pf,
+                ft_mhz,
+            } => TransistorSpec::Figures {
+                hfe: *hfe,
+                cbe: cbe_pf.si(),
+                cbc: cbc_pf.si(),
+                ft: ft_mhz.si(),
+            },
+            TransistorSheet::SpiceModel(text) => TransistorSpec::Model(text.clone()),
+        },
+        ratings: Ratings {
+            collector_emitter_max: s.vceo_v,
+            collector_max: s.ic_max_ma.map(Scaled::si),
+            dissipation_max: s.ptot_mw.map(Scaled::si),
+        },
+        battery_charge: s.battery_mah.map(|m| m * MAH),
+        clapp: s.clapp_pf.map(Scaled::si),
     }
 }
 
@@ -183,6 +310,8 @@ pub(crate) fn from_file_form(sheet: RecipeFile) -> Recipe {
         bench_log,
         stray_estimate: stray_settings(&sheet.stray_estimate),
         coil_measurement: sheet.coil_measurement.as_ref().map(measurement_of),
+        stage: sheet.stage.as_ref().map(stage_settings),
+        audio: audio_settings(&sheet.audio),
     }
 }
 

@@ -95,6 +95,11 @@ pub struct Recipe {
     pub stray_estimate: StraySettings,
     /// The coil as a network analyser measured it, if kept.
     pub coil_measurement: Option<crate::tuning::measured_field::CoilMeasurement>,
+    /// The oscillator stage round the tank, if set (its bias, transistor, battery, Clapp
+    /// capacitor).
+    pub stage: Option<crate::tuning::stage::StageSettings>,
+    /// The audio panel's junction, audio and drift changes (the usual ones until set).
+    pub audio: crate::tuning::audio::AudioSettings,
 }
 
 impl BenchEntry {
@@ -161,6 +166,8 @@ impl Recipe {
             bench_log: Vec::new(),
             stray_estimate: StraySettings::default(),
             coil_measurement: None,
+            stage: None,
+            audio: Default::default(),
         }
     }
 }

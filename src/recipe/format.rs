@@ -50,6 +50,9 @@ fn doc_comments() -> Field {
         });
         top.field("bench_log")
             .with_doc("Measurements, oldest first.");
+        top.field("stage").with_doc(
+            "The oscillator stage: topology CommonBase or CommonCollector; volts, ohms; transistor Figures(hfe, cbe_pf, cbc_pf, ft_mhz) or SpiceModel(\".model NAME NPN(...)\"); clapp_pf only with CommonCollector.",
+        );
         top.field("stray_estimate").with_doc(
             "building_method: CopperClad, GroundPlaneBoard, Stripboard, Perfboard or Breadboard; the tolerances are ± bounds.",
         );
@@ -187,6 +190,24 @@ pub fn read_text(text: &str) -> Result<Opened, LoadError> {
     };
     if let Err(r) = super::rules::check_sizes(file.bench_log.len(), channels) {
         return Err(refusal_error(r, text));
+    }
+    // A capacitor class this build does not know cannot be held (the recipe keeps the class
+    // itself, not its name): refused here, naming the classes it knows.
+    if crate::physics::dielectric_class::by_name(&file.audio.fixed_class).is_none() {
+        let known: Vec<&str> = crate::physics::dielectric_class::CLASSES
+            .iter()
+            .map(|c| c.code)
+            .collect();
+        return Err(LoadError::new(
+            LoadErrorKind::Invalid,
+            format!(
+                "the fixed capacitor's class '{}' is not one of {}",
+                crate::terminal_text::clean(&file.audio.fixed_class),
+                known.join(", ")
+            ),
+        )
+        .about("audio.fixed_class".to_owned())
+        .at(super::load::locate_key(text, "fixed_class", 0)));
     }
     let recipe = from_file_form(file);
     let refusal = judge(&recipe, text);

@@ -60,5 +60,7 @@ pub fn recipe_of(
             tolerances: settings.tolerances,
         },
         coil_measurement: None,
+        stage: None,
+        audio: Default::default(),
     }
 }

@@ -303,7 +303,20 @@ pub fn judge(r: &Recipe) -> Result<(), Refusal> {
     if let Some(m) = &r.coil_measurement {
         check_measurement(m)?;
     }
+    if let Some(s) = &r.stage {
+        check_stage(s)?;
+    }
+    r.audio
+        .check()
+        .map_err(|e| Refusal::new(format!("audio.{}", e.key), e.key, 0, e.reason))?;
     check_tolerances(&r.stray_estimate.tolerances)
+}
+
+/// The oscillator stage's settings by the recipe rules: each within the range the stage's
+/// analysis accepts (`tuning::stage::settings`), the `.model` line read by the stage's reader.
+pub fn check_stage(s: &crate::tuning::stage::StageSettings) -> Result<(), Refusal> {
+    s.check()
+        .map_err(|e| Refusal::new(format!("stage.{}", e.key), e.key, 0, e.reason))
 }
 
 /// A kept coil measurement by the recipe rules: a coil the model takes, a band of positive

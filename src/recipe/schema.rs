@@ -135,6 +135,135 @@ pub struct RecipeFile {
     /// The coil as a network analyser measured it (absent: none kept).
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub coil_measurement: Option<CoilMeasurementSheet>,
+    /// The oscillator stage round the tank (absent: none set; older files have none).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub stage: Option<StageSheet>,
+    /// The audio panel's junction, audio and drift changes (absent: the usual ones; not
+    /// written while they are those).
+    #[serde(default, skip_serializing_if = "AudioSheet::is_usual")]
+    pub audio: AudioSheet,
+}
+
+/// The modulating junction, the audio and the drift budget's changes: pF, V, kHz, K.
+#[derive(Clone, Debug, PartialEq, Serialize, Deserialize)]
+#[serde(rename = "Audio", deny_unknown_fields, default)]
+pub struct AudioSheet {
+    /// The junction's zero-bias capacitance, pF.
+    pub junction_cj0_pf: Picofarads,
+    /// Its contact potential, volts.
+    pub junction_potential_v: f64,
+    /// Its grading exponent.
+    pub grading_exponent: f64,
+    /// SPICE's forward-bias coefficient FC.
+    pub forward_knee: f64,
+    /// The junction's DC reverse bias, volts.
+    pub reverse_bias_v: f64,
+    /// The audio's peak at the junction, volts.
+    pub audio_peak_v: f64,
+    /// The RF peak across the tank, volts (absent in older files: the usual 2 V).
+    pub rf_peak_v: f64,
+    /// The highest audio frequency, kHz (absent: the service's).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub audio_max_khz: Option<Kilohertz>,
+    /// A coupling capacitor in series with the junction, pF (0: straight across the tank).
+    pub coupling_pf: Picofarads,
+    /// The fixed capacitor's temperature class (EIA-198 code, e.g. C0G).
+    pub fixed_class: String,
+    /// The supply the bias is set at, volts.
+    pub drift_supply_v: f64,
+    /// The supply's change, volts.
+    pub supply_change_v: f64,
+    /// The temperature's change, kelvin.
+    pub temperature_change_k: f64,
+    /// A hand near the coil, pF.
+    pub hand_pf: Picofarads,
+    /// A load change, pF.
+    pub load_change_pf: Picofarads,
+    /// The junction at its bias counts in the tank of every figure.
+    pub junction_in_tank: bool,
+    /// The oscillator transistor's other capacitances beside its junction, pF (taken with
+    /// the stage's own junction; 0: none).
+    #[serde(skip_serializing_if = "is_zero_pf")]
+    pub transistor_beside_pf: Picofarads,
+}
+
+impl AudioSheet {
+    /// Whether these are the usual settings (then the file leaves them out).
+    pub fn is_usual(&self) -> bool {
+        *self == Self::default()
+    }
+}
+
+impl Default for AudioSheet {
+    fn default() -> Self {
+        super::convert::audio_sheet(&crate::tuning::audio::AudioSettings::default())
+    }
+}
+
+/// Milliamperes (of a rating).
+pub type Milliamperes = Scaled<3>;
+/// Milliwatts (of a rating).
+pub type Milliwatts = Scaled<3>;
+
+/// The one-transistor stage round the tank: volts, ohms, pF, MHz, mA, mW, mAh.
+#[derive(Clone, Debug, PartialEq, Serialize, Deserialize)]
+#[serde(rename = "Stage", deny_unknown_fields)]
+pub struct StageSheet {
+    /// Which Colpitts stage.
+    pub topology: TopologyName,
+    /// Supply, volts.
+    pub supply_v: f64,
+    /// Base divider, supply to base, ohms.
+    pub bias_upper_ohm: f64,
+    /// Base divider, base to ground, ohms.
+    pub bias_lower_ohm: f64,
+    /// Emitter resistor, ohms.
+    pub emitter_ohm: f64,
+    /// The transistor.
+    pub transistor: TransistorSheet,
+    /// Collector–emitter rating, volts (absent: not checked).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub vceo_v: Option<f64>,
+    /// Collector current rating, mA (absent: not checked).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub ic_max_ma: Option<Milliamperes>,
+    /// Dissipation rating, mW (absent: not checked).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub ptot_mw: Option<Milliwatts>,
+    /// The battery's capacity, mAh (absent: no battery life stated).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub battery_mah: Option<f64>,
+    /// A Clapp series capacitor between the tank and the base, pF (common collector only;
+    /// absent: none).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub clapp_pf: Option<Picofarads>,
+}
+
+/// The stage's topology.
+#[derive(Clone, Copy, Debug, PartialEq, Eq, Serialize, Deserialize)]
+pub enum TopologyName {
+    /// Base at RF ground, the tank in the collector.
+    CommonBase,
+    /// Collector at RF ground, the tank at the base.
+    CommonCollector,
+}
+
+/// The stage's transistor.
+#[derive(Clone, Debug, PartialEq, Serialize, Deserialize)]
+pub enum TransistorSheet {
+    /// The four figures of a data sheet.
+    Figures {
+        /// Current gain.
+        hfe: f64,
+        /// Base–emitter capacitance, pF.
+        cbe_pf: Picofarads,
+        /// Base–collector capacitance, pF.
+        cbc_pf: Picofarads,
+        /// Transit frequency, MHz.
+        ft_mhz: Megahertz,
+    },
+    /// A SPICE `.model NAME NPN(...)` line as pasted.
+    SpiceModel(String),
 }
 
 /// Nanohenries.

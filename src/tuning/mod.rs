@@ -8,6 +8,7 @@
 
 pub mod advice;
 pub mod apparent;
+pub mod audio;
 pub mod bands;
 pub mod buildable;
 pub mod channel_list;

@@ -55,6 +55,30 @@ pub struct ModulationInputs {
     pub audio_peak_v: f64,
     /// Highest audio frequency, hertz (for Carson's bandwidth).
     pub audio_max_hz: f64,
+    /// The RF peak voltage across the tank, volts: the oscillation itself swings the junction
+    /// beside the audio ([`rf_at_junction`]); [`TANK_RF_PEAK_V`] when not known.
+    pub rf_peak_v: f64,
+}
+
+/// The RF peak across the tank of a small transistor oscillator when nothing better is known,
+/// volts: 2 V (common practice, from memory: a one-transistor VHF oscillator on a 9 V supply
+/// swings its tank by one to a few volts peak).
+pub const TANK_RF_PEAK_V: f64 = 2.0;
+
+/// The RF peak across the junction when the tank swings `rf_peak_v` volts peak: all of it
+/// with the junction straight across the tank; through a coupling capacitor Cc, the share of
+/// the capacitive divider Cc and Cj in series, V·Cc/(Cc + Cj) (two capacitors in series carry
+/// the same charge, so each takes a voltage inversely proportional to its capacitance). Cj is
+/// the junction's capacitance at 0 V, where it starts to conduct: the share at that moment.
+pub fn rf_at_junction(modulator: &Modulator, rf_peak_v: f64) -> f64 {
+    let v = rf_peak_v.abs();
+    match modulator.coupling {
+        None => v,
+        Some(cc) => {
+            let cj = modulator.law.capacitance(0.0);
+            v * cc / (cc + cj)
+        }
+    }
 }
 
 /// The modulation's figures (SI: farads, hertz, hertz per volt; distortion as a fraction).
@@ -79,7 +103,13 @@ pub struct Modulation {
     pub distortion: f64,
     /// Carson's bandwidth 2·(Δf + f_audio) with Δf the larger deviation, hertz.
     pub carson_bandwidth: f64,
-    /// Whether the audio's negative peak drives the junction into forward bias.
+    /// The RF peak across the junction, volts ([`rf_at_junction`]).
+    pub rf_at_junction: f64,
+    /// The least reverse voltage on the junction: bias − audio peak − RF peak at the
+    /// junction, volts (negative: it is driven forward on those peaks).
+    pub least_reverse_v: f64,
+    /// Whether the audio's negative peak together with the RF's drives the junction into
+    /// forward bias (`least_reverse_v` below 0).
     pub forward_on_peaks: bool,
 }
 
@@ -127,6 +157,8 @@ pub fn modulation(
         let h = 1e-4 * (m.law.contact_potential + vb.abs());
         (f(vb + h) - f(vb - h)) / (2.0 * h)
     };
+    let rf = rf_at_junction(m, inputs.rf_peak_v);
+    let least_reverse_v = vb - va - rf;
     Modulation {
         junction_at_bias: m.law.capacitance(vb),
         junction_at_high_bias: m.law.capacitance(vb + va),
@@ -137,7 +169,9 @@ pub fn modulation(
         sensitivity,
         distortion: asymmetry_distortion(up, down),
         carson_bandwidth: carson_bandwidth(up.max(down), inputs.audio_max_hz),
-        forward_on_peaks: vb - va < 0.0,
+        rf_at_junction: rf,
+        least_reverse_v,
+        forward_on_peaks: least_reverse_v < 0.0,
     }
 }
 
@@ -257,11 +291,19 @@ pub fn judge(m: &Modulation, service: Service) -> ModulationVerdict {
         ));
     }
     if m.forward_on_peaks {
-        advice.push(
-            "The audio's negative peaks drive the junction forward: it conducts and clips. \
-             Raise the bias above the audio peak."
-                .to_owned(),
-        );
+        let audio = m.least_reverse_v + m.rf_at_junction;
+        advice.push(format!(
+            "The audio's negative peaks together with the RF across the junction ({:.2} V \
+             peak) drive it forward by {:.2} V: it conducts on those peaks and clips. Raise \
+             the bias by at least that much{}.",
+            m.rf_at_junction,
+            -m.least_reverse_v,
+            if audio < 0.0 {
+                " (the audio alone already passes the bias)"
+            } else {
+                ", or couple the junction through a smaller capacitor so less RF reaches it"
+            }
+        ));
     }
     let bandwidth_ok = m.carson_bandwidth <= service.channel_width();
     if !bandwidth_ok {

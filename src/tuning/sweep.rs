@@ -4,6 +4,10 @@ use super::landing::Shape;
 use crate::model::batch::{SweepColumns, resonance_over_lengths};
 use crate::model::{Coil, Conditions, Tank, evaluate::resonance_of};
 
+/// The name of the one curve a fixed tank (no trimmer travel) draws on a spacing chart, in
+/// the window and the hand-outs: in place of one curve per trimmer setting, all alike.
+pub const FIXED_CURVE_LABEL: &str = "resonance (no trimmer)";
+
 /// Trimmer settings the spacing chart draws a curve for (the window and the hand-outs).
 pub const CHART_SETTINGS: [f64; 5] = [0.0, 0.25, 0.5, 0.75, 1.0];
 

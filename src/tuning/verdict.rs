@@ -145,6 +145,54 @@ pub struct Reach {
     pub high: f64,
 }
 
+impl Reach {
+    /// Whether the tank has no travel at all (a fixed tank: no trimmer, or one of no span),
+    /// so the reach is the one resonance. [`judge`] takes both ends from the same formula,
+    /// so a trimmer of no span gives exactly equal ends.
+    pub fn is_fixed(&self) -> bool {
+        self.high <= self.low
+    }
+
+    /// What the texts name: "the trimmer's travel (92.600–102.200 MHz)", or "the fixed tank
+    /// (94.850 MHz)" when there is no travel (never a range from a frequency to itself).
+    pub fn named(&self) -> String {
+        if self.is_fixed() {
+            format!("the fixed tank ({})", mhz(self.low))
+        } else {
+            format!("the trimmer's travel ({})", mhz_range(self.low, self.high))
+        }
+    }
+
+    /// The reach as a frequency or a range: "94.850 MHz" or "92.600–102.200 MHz".
+    pub fn text(&self) -> String {
+        if self.is_fixed() {
+            mhz(self.low)
+        } else {
+            mhz_range(self.low, self.high)
+        }
+    }
+
+    /// The `n`th harmonic of the reach, named as [`named`](Self::named) names the reach:
+    /// "the 2nd harmonic of the trimmer's travel (185.2–204.4 MHz)" or "the 2nd harmonic of
+    /// the fixed tank (189.700 MHz)".
+    fn harmonic_named(&self, n: u32) -> String {
+        let order = if n == 2 { "2nd" } else { "3rd" };
+        let k = f64::from(n);
+        let h = Reach {
+            low: k * self.low,
+            high: k * self.high,
+        };
+        if self.is_fixed() {
+            format!("the {order} harmonic of the fixed tank ({})", h.text())
+        } else {
+            format!(
+                "the {order} harmonic of the trimmer's travel ({})",
+                h.text()
+            )
+        }
+    }
+}
+
 /// A harmonic and what it falls in over the whole trimmer travel.
 #[derive(Clone, Debug, PartialEq)]
 pub struct Harmonic {
@@ -280,33 +328,66 @@ impl Verdict {
             .as_ref()
             .map(|r| format!(": {r}"))
             .unwrap_or_default();
+        let fixed = self.reach.is_fixed();
         if self.has(FlagKind::Aeronautical) {
-            return format!(
-                "Keep this tank off the air: change the fixed capacitance or fit a smaller \
-                 trimmer so its whole travel stays out of 108–137 MHz{remedy}"
-            );
+            return if fixed {
+                format!(
+                    "Keep this tank off the air: change the fixed capacitance or the coil so the \
+                     fixed tank ({}) moves out of 108–137 MHz{remedy}",
+                    mhz(self.reach.low)
+                )
+            } else {
+                format!(
+                    "Keep this tank off the air: change the fixed capacitance or fit a smaller \
+                     trimmer so its whole travel stays out of 108–137 MHz{remedy}"
+                )
+            };
         }
         let reached = protected_touched(self.reach.low, self.reach.high);
         if let Some(p) = reached.first() {
-            return format!(
-                "Keep this tank off the air: its travel crosses {}, {}; change the fixed \
-                 capacitance or fit a smaller trimmer so the whole travel stays clear{remedy}",
-                p.frequency, p.use_
-            );
+            return if fixed {
+                format!(
+                    "Keep this tank off the air: the fixed tank ({}) sits on {}, {}; change the \
+                     fixed capacitance or the coil so it moves clear{remedy}",
+                    mhz(self.reach.low),
+                    p.frequency,
+                    p.use_
+                )
+            } else {
+                format!(
+                    "Keep this tank off the air: its travel crosses {}, {}; change the fixed \
+                     capacitance or fit a smaller trimmer so the whole travel stays \
+                     clear{remedy}",
+                    p.frequency, p.use_
+                )
+            };
         }
         if self.has(FlagKind::OutsideBand) {
-            return format!(
-                "Narrow or re-centre the trimmer's travel (fixed capacitance, trimmer size) so it \
-                 stays inside the {band}{remedy}"
-            );
+            return if fixed {
+                format!(
+                    "Move the fixed tank ({}) into the {band}: change the fixed capacitance or the \
+                     coil's length{remedy}",
+                    mhz(self.reach.low)
+                )
+            } else {
+                format!(
+                    "Narrow or re-centre the trimmer's travel (fixed capacitance, trimmer size) so \
+                     it stays inside the {band}{remedy}"
+                )
+            };
         }
         if self.has(FlagKind::NarrowGap) {
             return "Open the gap between the bare turns to the minimum or more".to_owned();
         }
         if self.has(FlagKind::BandEdge) {
             return format!(
-                "Move the trimmer's travel away from the edge of the {band}: a warming \
-                 oscillator drifts{remedy}"
+                "Move {} away from the edge of the {band}: a warming oscillator \
+                 drifts{remedy}",
+                if fixed {
+                    "the fixed tank"
+                } else {
+                    "the trimmer's travel"
+                }
             );
         }
         if self.on_channel == Some(false)
@@ -324,6 +405,14 @@ impl Verdict {
                 "On channel: fix the turns in place (wax or glue) and log a bench reading"
                     .to_owned()
             }
+            (Some(false), Some(o)) if o > 0.0 && fixed => {
+                "Lower the frequency: squeeze the turns together (a fixed tank has no trimmer)"
+                    .to_owned()
+            }
+            (Some(false), _) if fixed => {
+                "Raise the frequency: stretch the turns apart (a fixed tank has no trimmer)"
+                    .to_owned()
+            }
             (Some(false), Some(o)) if o > 0.0 => {
                 "Lower the frequency: squeeze the turns together or turn the trimmer up".to_owned()
             }
@@ -334,31 +423,37 @@ impl Verdict {
         }
     }
 
-    /// The safety line: "Safe over the trimmer's travel (…)" or how many flags.
+    /// The safety line: "In band over the trimmer's travel: …" (or "In band: the fixed
+    /// tank (…) …" when there is no trimmer) or how many flags.
     pub fn safety_text(&self) -> String {
-        let reach = mhz_range(self.reach.low, self.reach.high);
+        let reach = self.reach.text();
+        let named = self.reach.named();
+        let fixed = self.reach.is_fixed();
         if self.is_safe() {
-            match self.band {
-                Some(b) => format!(
+            match (self.band, fixed) {
+                (Some(b), false) => format!(
                     "In band over the trimmer's travel: {reach} inside the {}",
                     b.name
                 ),
-                None => {
+                (Some(b), true) => format!("In band: {named} is inside the {}", b.name),
+                (None, false) => {
                     format!("Clear of the aeronautical band over the trimmer's travel: {reach}")
                 }
+                (None, true) => format!("Clear of the aeronautical band: {named}"),
             }
         } else {
             let n = self.flags.iter().filter(|f| f.kind.is_safety()).count();
             let cautions = format!("{n} caution{}", if n == 1 { "" } else { "s" });
             let band = self.band.map_or("band", |b| b.name);
+            let leaves = if fixed { "lies outside" } else { "leaves" };
             if self.flags.iter().any(|f| f.kind.endangers()) {
-                format!("Not safe: the trimmer's travel ({reach}) raises {cautions}")
+                format!("Not safe: {named} raises {cautions}")
             } else if self.has(FlagKind::OutsideBand) {
-                format!("Outside the band: the trimmer's travel ({reach}) leaves the {band}")
+                format!("Outside the band: {named} {leaves} the {band}")
             } else {
                 format!(
-                    "Near the band's edge: the trimmer's travel ({reach}) comes close to the \
-                     edge of the {band} ({cautions})"
+                    "Near the band's edge: {named} comes close to the edge of the {band} \
+                     ({cautions})"
                 )
             }
         }
@@ -527,7 +622,10 @@ pub fn remedy(
 pub fn band_flags(reach: Reach, band: Option<Band>, edge_margin: f64) -> Vec<Flag> {
     let mut flags = Vec::new();
     let (aero_low, aero_high) = AERONAUTICAL;
-    let reach_text = mhz_range(reach.low, reach.high);
+    // "the trimmer's travel (X–Y MHz)" or "the fixed tank (X MHz)" (no trimmer: no travel,
+    // and never a range from a frequency to itself).
+    let named = reach.named();
+    let fixed = reach.is_fixed();
     if reach.high >= aero_low && reach.low <= aero_high {
         let (a, b) = (reach.low.max(aero_low), reach.high.min(aero_high));
         let emergency = if (a..=b).contains(&AERONAUTICAL_EMERGENCY) {
@@ -535,15 +633,28 @@ pub fn band_flags(reach: Reach, band: Option<Band>, edge_margin: f64) -> Vec<Fla
         } else {
             ""
         };
+        let (what, cure) = if fixed {
+            (
+                format!("{named} is in the aeronautical band"),
+                "change the fixed capacitance or the coil so the tank moves clear",
+            )
+        } else {
+            (
+                format!(
+                    "the trimmer's travel reaches {}: {} is in the aeronautical band",
+                    reach.text(),
+                    mhz_range(a, b)
+                ),
+                "narrow the trimmer or change the fixed capacitance so the whole travel stays \
+                 clear",
+            )
+        };
         flags.push(Flag::new(
             FlagKind::Aeronautical,
             format!(
-                "the trimmer's travel reaches {reach_text}: {} is in the aeronautical band \
-                 (108–137 MHz: navigation and air-traffic voice, ITU Radio Regulations Art. 5)\
-                 {emergency}. Do not let this tank radiate there: narrow the trimmer or change \
-                 the fixed capacitance so the whole travel stays clear, and follow your local \
-                 rules",
-                mhz_range(a, b)
+                "{what} (108–137 MHz: navigation and air-traffic voice, ITU Radio Regulations \
+                 Art. 5){emergency}. Do not let this tank radiate there: {cure}, and follow \
+                 your local rules"
             ),
         ));
     }
@@ -551,24 +662,32 @@ pub fn band_flags(reach: Reach, band: Option<Band>, edge_margin: f64) -> Vec<Fla
         let wholly_above = reach.low > band.high;
         let wholly_below = reach.high < band.low;
         if wholly_above || wholly_below {
-            flags.push(Flag::new(
-                FlagKind::OutsideBand,
+            let side = if wholly_above { "above" } else { "below" };
+            let text = if fixed {
                 format!(
-                    "the trimmer's whole travel ({reach_text}) lies {} the {}: no setting of \
-                     the trimmer puts the tank inside the band",
-                    if wholly_above { "above" } else { "below" },
+                    "{named} lies {side} the {}: with no trimmer, only the fixed capacitance \
+                     or the coil moves it into the band",
                     band.name
-                ),
-            ));
+                )
+            } else {
+                format!(
+                    "the trimmer's whole travel ({}) lies {side} the {}: no setting of the \
+                     trimmer puts the tank inside the band",
+                    reach.text(),
+                    band.name
+                )
+            };
+            flags.push(Flag::new(FlagKind::OutsideBand, text));
         }
         let edge = |flags: &mut Vec<Flag>, beyond: bool, near: bool, side: &str, at: f64| {
             if wholly_above || wholly_below {
             } else if beyond {
+                // Only a travel can pass an edge: a fixed tank wholly outside is said above.
                 flags.push(Flag::new(
                     FlagKind::OutsideBand,
                     format!(
-                        "the trimmer's travel ({reach_text}) passes the {side} edge of the {} \
-                         at {}: one turn of the trimmer puts the tank outside the band",
+                        "{named} passes the {side} edge of the {} at {}: one turn of the \
+                         trimmer puts the tank outside the band",
                         band.name,
                         mhz(at)
                     ),
@@ -577,9 +696,8 @@ pub fn band_flags(reach: Reach, band: Option<Band>, edge_margin: f64) -> Vec<Fla
                 flags.push(Flag::new(
                     FlagKind::BandEdge,
                     format!(
-                        "the trimmer's travel ({reach_text}) comes within {} of the {side} \
-                         edge of the {} at {}: a free-running oscillator drifts that far as it \
-                         warms (common practice)",
+                        "{named} comes within {} of the {side} edge of the {} at {}: a \
+                         free-running oscillator drifts that far as it warms (common practice)",
                         offset(edge_margin).trim_start_matches('+'),
                         band.name,
                         mhz(at)
@@ -604,51 +722,59 @@ pub fn band_flags(reach: Reach, band: Option<Band>, edge_margin: f64) -> Vec<Fla
     }
     // One flag for the travel and one for each harmonic, naming every protected frequency
     // crossed with its use and source.
-    let named = |low: f64, high: f64| {
+    let protected = |low: f64, high: f64| {
         protected_touched(low, high)
             .iter()
             .map(|p| format!("{}, {} [{}]", p.frequency, p.use_, p.source))
             .collect::<Vec<_>>()
     };
-    let crossed = named(reach.low, reach.high);
+    let (verb, move_it) = if fixed {
+        (
+            "sits on",
+            "change the fixed capacitance or the coil so it moves clear",
+        )
+    } else {
+        ("crosses", "narrow or move the travel so it stays clear")
+    };
+    let crossed = protected(reach.low, reach.high);
     if !crossed.is_empty() {
         flags.push(Flag::new(
             FlagKind::ProtectedFrequency,
             format!(
-                "the trimmer's travel ({reach_text}) crosses protected distress and safety \
-                 frequencies: {}. Any emission that could disturb them is prohibited: keep \
-                 this tank off the air and narrow or move the travel so it stays clear",
+                "{named} {verb} protected distress and safety frequencies: {}. Any emission \
+                 that could disturb them is prohibited: keep this tank off the air and \
+                 {move_it}",
                 crossed.join("; ")
             ),
         ));
     }
     for n in [2u32, 3] {
         let (h_low, h_high) = (f64::from(n) * reach.low, f64::from(n) * reach.high);
-        let crossed = named(h_low, h_high);
+        let crossed = protected(h_low, h_high);
         if !crossed.is_empty() {
             flags.push(Flag::new(
                 FlagKind::ProtectedFrequency,
                 format!(
-                    "the {} harmonic of the trimmer's travel ({}) crosses protected distress \
-                     and safety frequencies: {}. Filter the output, keep the tank screened, and \
-                     move the travel if the harmonic can leave the bench",
-                    if n == 2 { "2nd" } else { "3rd" },
-                    mhz_range(h_low, h_high),
-                    crossed.join("; ")
+                    "{} {verb} protected distress and safety frequencies: {}. Filter the \
+                     output, keep the tank screened, and move the {} if the harmonic can leave \
+                     the bench",
+                    reach.harmonic_named(n),
+                    crossed.join("; "),
+                    if fixed { "tank" } else { "travel" }
                 ),
             ));
         }
     }
-    for n in [2.0, 3.0] {
-        let (h_low, h_high) = (n * reach.low, n * reach.high);
+    for n in [2u32, 3] {
+        let k = f64::from(n);
+        let (h_low, h_high) = (k * reach.low, k * reach.high);
         if h_high >= aero_low && h_low <= aero_high {
             flags.push(Flag::new(
                 FlagKind::HarmonicAeronautical,
                 format!(
-                    "the {} harmonic of the trimmer's travel ({}) reaches the aeronautical band \
-                     (108–137 MHz): filter the output and keep the tank screened",
-                    if n == 2.0 { "2nd" } else { "3rd" },
-                    mhz_range(h_low, h_high)
+                    "{} reaches the aeronautical band (108–137 MHz): filter the output and \
+                     keep the tank screened",
+                    reach.harmonic_named(n)
                 ),
             ));
         }

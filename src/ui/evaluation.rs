@@ -4,7 +4,8 @@
 //! [`crate::recipe::expectation()`], `tuning::sweep`); this is the one place that keeps its
 //! answers between frames — the figures (on the field solution once the worker has it,
 //! calibrated once there are bench readings), the target figures, the advice, the charts'
-//! sweeps and the spread band around the present curve — so an idle frame computes
+//! sweeps, the spread band around the present curve and the audio panel's figures — so an
+//! idle frame computes
 //! nothing, and the sweeps are always those of the figures shown (the same coil, tank and
 //! conditions).
 //!
@@ -21,11 +22,32 @@ use crate::recipe::{
     Target, Unled, expectation, figures_with,
 };
 use crate::tuning::BandPlan;
+use crate::tuning::audio::{AudioFigures, AudioSettings, audio_figures};
 use crate::tuning::field_tank::FieldTank;
 use crate::tuning::landing::Shape;
+use crate::tuning::stage::StageSettings;
 use crate::ui::charts::ChartCache;
+use crate::ui::charts::Operating;
 use crate::ui::charts::modulation::ModulationSweeps;
 use crate::ui::field_worker::{FiguresRequest, FiguresResult, ShapeRequest, ShapeResult};
+
+/// What the stage's operating frequency was computed for.
+type StageKey = (
+    crate::model::Coil,
+    crate::model::Tank,
+    crate::model::Conditions,
+    StageSettings,
+);
+
+/// What the audio figures were computed for: the coil, the tank without the junction, the
+/// conditions, the settings and the channel's tolerance.
+type AudioKey = (
+    crate::model::Coil,
+    crate::model::Tank,
+    crate::model::Conditions,
+    AudioSettings,
+    f64,
+);
 
 /// Inputs the figures were computed from.
 #[derive(Clone, PartialEq)]
@@ -77,6 +99,11 @@ pub struct Evaluation {
     uncalibrated_sweeps: ChartCache,
     expectation: Option<Expectation>,
     modulation_sweeps: ModulationSweeps,
+    /// The oscillator stage kept in the recipe, what its operating frequency was computed
+    /// for, and that frequency for the charts.
+    stage: Option<(StageKey, Option<Operating>)>,
+    /// The audio panel's figures with what they were computed for.
+    audio: Option<(AudioKey, AudioFigures)>,
     /// The field shape the charts draw, with what it was solved for (the shape worker's
     /// answer for the figures shown; dropped when they change).
     shape: Option<(ShapeRequest, Shape)>,
@@ -108,6 +135,8 @@ impl Evaluation {
             uncalibrated_sweeps: ChartCache::default(),
             expectation: None,
             modulation_sweeps: ModulationSweeps::default(),
+            audio: None,
+            stage: None,
             shape: None,
             uncalibrated_shape: None,
             lent_shape: None,
@@ -477,6 +506,56 @@ impl Evaluation {
         self.modulation_sweeps
             .refresh(&coil, tank, conditions, inputs);
         Some(&self.modulation_sweeps)
+    }
+
+    /// The audio panel's figures for its `settings` with the junction across `tank` (the tank
+    /// as the figures drive it, without the junction) on the coil shown, judged against
+    /// `tolerance` (± hertz): recomputed only when one of these changes. `None` while there is
+    /// no valid coil.
+    pub fn audio(
+        &mut self,
+        tank: &crate::model::Tank,
+        conditions: &crate::model::Conditions,
+        settings: &AudioSettings,
+        tolerance: f64,
+    ) -> Option<&AudioFigures> {
+        let coil = self.latest()?.coil;
+        let key: AudioKey = (coil, *tank, *conditions, *settings, tolerance);
+        if self.audio.as_ref().is_none_or(|(k, _)| !same(k, &key)) {
+            let figures = audio_figures(&coil, tank, conditions, settings, tolerance);
+            self.audio = Some((key, figures));
+        }
+        self.audio.as_ref().map(|(_, f)| f)
+    }
+
+    /// Bring the oscillator stage's operating frequency up to the stage `settings` kept in the
+    /// recipe round the figures shown (`tuning::stage::analyse`, the function of the stage
+    /// panel and `tankwright stage`): recomputed only when the settings or the figures'
+    /// coil, tank or conditions change; nothing without a stage kept.
+    pub fn refresh_stage(&mut self, settings: Option<&StageSettings>) {
+        let Some((settings, f)) = settings.zip(self.latest()) else {
+            self.stage = None;
+            return;
+        };
+        let key: StageKey = (f.coil, f.tank, f.conditions, settings.clone());
+        if self.stage.as_ref().is_some_and(|(k, _)| same(k, &key)) {
+            return;
+        }
+        let operating = settings
+            .inputs()
+            .and_then(|i| crate::tuning::stage::analyse(&f.coil, &f.tank, &f.conditions, &i))
+            .ok()
+            .and_then(|s| {
+                let clapp = s.network.clapp.is_some();
+                Operating::differing(s.frequency, s.pulling, clapp, f.analysis.resonance)
+            });
+        self.stage = Some((key, operating));
+    }
+
+    /// Where the stage kept in the recipe runs, when it differs from the tank's resonance
+    /// (for the charts).
+    pub fn operating(&self) -> Option<Operating> {
+        self.stage.as_ref().and_then(|(_, o)| *o)
     }
 
     /// The modulation charts' sweeps as last computed (for tests and captures).

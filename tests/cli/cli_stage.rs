@@ -78,6 +78,7 @@ fn json_keys_and_figures_are_the_engines() {
         },
         transistor: Transistor::from_model(MODEL).expect("model"),
         battery_charge: Some(500.0 * 3.6),
+        clapp: None,
     };
     let s = stage(&f.coil, &f.tank, &f.conditions, &inputs).expect("stage");
     let num = |k: &str| v[k].as_f64().unwrap_or_else(|| panic!("{k} not a number"));
@@ -218,4 +219,99 @@ fn help_names_the_stage_command() {
         out.contains("tankwright stage --recipe FILE --supply-v V"),
         "{out}"
     );
+}
+
+/// The demo recipe with a stage kept in it (the window's stage panel, or a hand edit, puts it
+/// there), written to `dir`.
+fn recipe_with_stage(dir: &std::path::Path) -> (String, tankwright::recipe::Recipe) {
+    use tankwright::tuning::stage::{Ratings, StageSettings, TransistorSpec};
+    let mut r =
+        tankwright::recipe::store::load(std::path::Path::new(&asset_str(RECIPE))).expect("loads");
+    r.stage = Some(StageSettings {
+        topology: Topology::CommonBase,
+        bias: Bias {
+            supply_v: 9.0,
+            upper: 10e3,
+            lower: 10e3,
+            emitter: 47e3,
+        },
+        transistor: TransistorSpec::Model(MODEL.to_owned()),
+        ratings: Ratings::default(),
+        battery_charge: Some(500.0 * 3.6),
+        clapp: None,
+    });
+    let path = dir.join("with_stage.ron");
+    tankwright::recipe::store::save(&path, &r).expect("saves");
+    (path.to_str().expect("utf-8").to_owned(), r)
+}
+
+/// `stage --recipe R` with no stage flags takes the stage kept in the recipe: the same output
+/// as the same settings given as flags; a flag given replaces its setting alone.
+#[test]
+fn the_recipes_stage_is_used_when_no_flags_are_given_and_flags_override_it() {
+    let dir = tempfile::tempdir().expect("temporary directory");
+    let (path, recipe) = recipe_with_stage(dir.path());
+    let (ok, kept, err) = run_text(&["stage", "--recipe", &path, "--json"]);
+    assert!(ok, "{err}");
+    let mut flags = base_args(&path);
+    flags.extend(
+        [
+            "--transistor-model",
+            MODEL,
+            "--battery-mah",
+            "500",
+            "--json",
+        ]
+        .map(str::to_owned),
+    );
+    let (ok, given, err) = run(&flags);
+    assert!(ok, "{err}");
+    assert_eq!(
+        kept, given,
+        "the kept stage and the same flags give the same figures"
+    );
+
+    // One flag over the kept stage: the emitter resistor alone changes.
+    let (ok, out, err) = run_text(&[
+        "stage",
+        "--recipe",
+        &path,
+        "--emitter-ohm",
+        "4700",
+        "--json",
+    ]);
+    assert!(ok, "{err}");
+    let v: serde_json::Value = serde_json::from_str(&out).expect("JSON");
+    let f = tankwright::recipe::figures(&recipe).expect("figures");
+    let mut settings = recipe.stage.clone().expect("kept");
+    settings.bias.emitter = 4700.0;
+    let s = stage(
+        &f.coil,
+        &f.tank,
+        &f.conditions,
+        &settings.inputs().expect("inputs"),
+    )
+    .expect("stage");
+    let json = v["collector_ma"].as_f64().expect("a number");
+    let engine = s.operating_point.collector_current * 1e3;
+    assert!(
+        (json - engine).abs() <= 1e-14 * engine,
+        "{json} against {engine}"
+    );
+    assert_eq!(v["loop_gain"].as_f64(), Some(s.loop_gain));
+
+    // A Clapp capacitor needs the common-collector stage; with it, it is used.
+    let (ok, out, err) = run_text(&["stage", "--recipe", &path, "--clapp-pf", "10"]);
+    assert!(!ok && out.is_empty(), "{out}");
+    assert!(err.contains("common-collector"), "{err}");
+    let (ok, _, err) = run_text(&[
+        "stage",
+        "--recipe",
+        &path,
+        "--topology",
+        "common-collector",
+        "--clapp-pf",
+        "0.2",
+    ]);
+    assert!(!ok && err.contains("0.5–1000 pF"), "{err}");
 }

@@ -7,6 +7,7 @@ mod cli_bench;
 mod cli_design;
 mod cli_evaluate;
 mod cli_field_budget;
+mod cli_fixed_tank;
 mod cli_impedance;
 mod cli_impossible;
 mod cli_measured;

@@ -199,6 +199,7 @@ fn deviation_is_the_resonance_at_the_peak_capacitances() {
             bias_v: 4.0,
             audio_peak_v: 0.8,
             audio_max_hz: 15e3,
+            rf_peak_v: tankwright::tuning::modulation::TANK_RF_PEAK_V,
         };
         let out = modulation(&coil, 18e-12, &cond, &inputs);
         let across = |c: f64| coupling.map_or(c, |cc| c * cc / (c + cc));
@@ -252,6 +253,7 @@ fn distortion_estimate_matches_a_fourier_sum_of_the_swing() {
                 bias_v: 3.0,
                 audio_peak_v: va,
                 audio_max_hz: 15e3,
+                rf_peak_v: tankwright::tuning::modulation::TANK_RF_PEAK_V,
             },
         );
         assert_eq!(
@@ -286,6 +288,7 @@ fn service_limits_and_advice() {
             bias_v: 4.0,
             audio_peak_v: 1.0,
             audio_max_hz: 15e3,
+            rf_peak_v: tankwright::tuning::modulation::TANK_RF_PEAK_V,
         },
     );
     let narrow = judge(&out, Service::TwoMetreNarrowBand);
@@ -319,10 +322,96 @@ fn chart_sweeps_match_the_point_figures() {
                 bias_v: 4.0,
                 audio_peak_v: p,
                 audio_max_hz: 15e3,
+                rf_peak_v: tankwright::tuning::modulation::TANK_RF_PEAK_V,
             },
         );
         let tol = 1e-9 * point.carrier;
         assert!((up - point.deviation_up).abs() < tol, "{p} V up");
         assert!((down - point.deviation_down).abs() < tol, "{p} V down");
     }
+}
+
+/// The RF peak that reaches a junction coupled to the tank through Cc: ngspice's AC analysis
+/// of the same diode (at 0 V, where it starts to conduct) in series with Cc, driven by the
+/// tank's 2 V peak at 100 MHz (ngspice 39, Debian package): the magnitude across the diode
+/// against `rf_at_junction`, V·Cc/(Cc + Cj(0)). The diode's conductance at 0 V, IS/(N·Vt) ≈
+/// 1.2e-7 S, is 1e-5 of the capacitors' admittance and in quadrature with it, so ngspice's
+/// seven printed figures must agree to 1e-5. Straight across the tank (no Cc) the junction
+/// takes the whole 2 V. The 2 V default is common practice (see TANK_RF_PEAK_V).
+#[test]
+fn rf_share_at_the_junction_matches_ngspice_ac() {
+    use tankwright::tuning::modulation::{TANK_RF_PEAK_V, rf_at_junction};
+    let model = parse_model(DIODE_MODEL).expect("model reads");
+    for cc_pf in [2.2, 4.7, 47.0] {
+        let mut net = format!(
+            "coupled junction\nV1 t 0 DC 0 AC {TANK_RF_PEAK_V}\nC1 t k {cc_pf}p\n\
+             D1 0 k LHVAR\nRB k 0 1G\n"
+        );
+        net.push_str(DIODE_MODEL);
+        net.push_str("\n.control\nac lin 1 100meg 100meg\nprint vm(k)\n.endc\n.end\n");
+        let values = ngspice_values(&net);
+        let spice = values
+            .iter()
+            .find(|(k, _)| k.starts_with("vm(k)"))
+            .map(|p| p.1)
+            .unwrap_or_else(|| panic!("ngspice printed {values:?}"));
+        let ours = rf_at_junction(
+            &Modulator {
+                law: model.law,
+                coupling: Some(cc_pf * 1e-12),
+            },
+            TANK_RF_PEAK_V,
+        );
+        assert!(
+            ((ours - spice) / spice).abs() < 1e-5,
+            "Cc {cc_pf} pF: ours {ours} V, ngspice {spice} V"
+        );
+    }
+    let straight = Modulator {
+        law: model.law,
+        coupling: None,
+    };
+    assert_eq!(rf_at_junction(&straight, TANK_RF_PEAK_V), TANK_RF_PEAK_V);
+}
+
+/// The forward-conduction warning counts the RF beside the audio: a junction straight across
+/// the tank at 2.2 V bias with a 0.5 V audio peak is driven forward by the 2 V RF peak
+/// (2.2 − 0.5 − 2 = −0.3 V), though the audio alone leaves it 1.7 V reverse; through a
+/// 4.7 pF capacitor only the divider's share of the RF reaches it and it stays reverse.
+#[test]
+fn the_forward_warning_counts_the_rf_swing() {
+    use tankwright::tuning::modulation::TANK_RF_PEAK_V;
+    let coil = demo_coil();
+    let cond = Conditions::default();
+    let run = |coupling: Option<f64>| {
+        modulation(
+            &coil,
+            18e-12,
+            &cond,
+            &ModulationInputs {
+                modulator: Modulator {
+                    coupling,
+                    ..collector_base()
+                },
+                bias_v: 2.2,
+                audio_peak_v: 0.5,
+                audio_max_hz: 3e3,
+                rf_peak_v: TANK_RF_PEAK_V,
+            },
+        )
+    };
+    let straight = run(None);
+    assert!(straight.forward_on_peaks);
+    assert!((straight.least_reverse_v - (2.2 - 0.5 - 2.0)).abs() < 1e-12);
+    let advice = judge(&straight, Service::TwoMetreNarrowBand).advice;
+    assert!(
+        advice
+            .iter()
+            .any(|a| a.contains("RF across the junction (2.00 V peak)")),
+        "{advice:?}"
+    );
+    let coupled = run(Some(4.7e-12));
+    // Cj(0) = 2.2 pF: 2 V × 4.7/(4.7 + 2.2) = 1.36 V.
+    assert!((coupled.rf_at_junction - 2.0 * 4.7 / 6.9).abs() < 1e-9);
+    assert!(!coupled.forward_on_peaks);
 }

@@ -22,7 +22,7 @@ use tankwright::model::{
 };
 use tankwright::tuning::stage::{
     Bias, FREQUENCY_ACCURACY, RELIABLE_LOOP_GAIN, SMALL_SIGNAL_ACCURACY, StageFigures, StageInputs,
-    TOO_HARD_LOOP_GAIN, Topology, Transistor, stage,
+    TOO_HARD_LOOP_GAIN, Topology, Transistor, frequency_accuracy, stage,
 };
 
 /// A generic VHF small-signal NPN, invented for the tests (VAF is there to be listed as
@@ -69,6 +69,7 @@ fn inputs(topology: Topology, emitter: f64) -> StageInputs {
         },
         transistor: Transistor::from_model(MODEL).expect("model reads"),
         battery_charge: None,
+        clapp: None,
     }
 }
 
@@ -441,5 +442,143 @@ fn the_advice_carried_out_starts_in_ngspice() {
             after.frequency * 1e-6
         );
         assert!(rel.abs() <= FREQUENCY_ACCURACY, "{}", now.advice);
+    }
+}
+
+/// The Clapp stage (the common-collector Colpitts with a series capacitor C3 in the coil's
+/// branch) from rest in ngspice, as the plain stage above: the ring grows where the tool's
+/// loop gain says it starts and dies where it says it will not (cases within 0.8–1.25 of the
+/// threshold left out), and where it starts reliably (loop gain 3–10) the steady frequency
+/// meets the tool's within its stated accuracy for the common-collector stage (`frequency_accuracy`). The Clapp capacitor moves both
+/// figures (a smaller C3 raises the frequency and, the tank's swing reaching the base divided
+/// down, lowers the loop gain), so the cases span C3 from 3.3 to 33 pF.
+#[test]
+fn the_clapp_stage_starts_and_runs_where_ngspice_has_it() {
+    let dir = tempfile::tempdir().expect("temporary directory");
+    let (mut judged, mut compared) = (0, 0);
+    let mut previous: Option<(f64, f64)> = None;
+    for (k, (clapp_pf, re)) in [
+        (33.0, 1e3),
+        (10.0, 1e3),
+        (3.3, 1e3),
+        (10.0, 4.7e3),
+        (10.0, 100e3),
+        (10.0, 10e3),
+        (33.0, 10e3),
+        (3.3, 2.2e3),
+        (22.0, 10e3),
+        (15.0, 6.8e3),
+        (3.3, 1.5e3),
+    ]
+    .into_iter()
+    .enumerate()
+    {
+        let t = tank(22.0, 47.0);
+        let mut i = inputs(Topology::CommonCollector, re);
+        i.clapp = Some(clapp_pf * 1e-12);
+        let f = analyse(&t, &i);
+        let plain = analyse(&t, &inputs(Topology::CommonCollector, re));
+        if re == 1e3 {
+            // Against the stage without it, and the larger C3 before: a smaller C3, a higher
+            // frequency and a smaller loop gain.
+            assert!(f.frequency > plain.frequency && f.loop_gain < plain.loop_gain);
+            if let Some((fp, gp)) = previous {
+                assert!(f.frequency > fp && f.loop_gain < gp, "C3 {clapp_pf} pF");
+            }
+            previous = Some((f.frequency, f.loop_gain));
+        }
+        let stop = 4e-6;
+        let data = dir.path().join(format!("clapp{k}.txt"));
+        let control = format!(".control\nrun\nwrdata {} v(hot)\n.endc\n", data.display());
+        let net = stage_netlist(
+            &f,
+            &i,
+            StageRun::Transient {
+                stop,
+                max_step: 1.0 / f.frequency / 80.0,
+            },
+            &control,
+        );
+        assert!(net.contains("Cclapp hot base"), "{net}");
+        if ngspice(&net, dir.path(), &format!("clapp{k}")).is_none() {
+            return;
+        }
+        let s = samples(&data);
+        let (early, late) = (swing(&s, 0.2e-6, 0.3e-6), swing(&s, stop - 0.1e-6, stop));
+        let grows = late > early;
+        let case = format!(
+            "Clapp {clapp_pf} pF, RE {re} ohm, Ic {:.4} mA: loop gain {:.3} (without C3 {:.3}), \
+             swing {early:.3e} -> {late:.3e} V",
+            f.operating_point.collector_current * 1e3,
+            f.loop_gain,
+            plain.loop_gain
+        );
+        if (0.8..=1.25).contains(&f.loop_gain) {
+            eprintln!("left out (near the threshold): {case}");
+        } else {
+            judged += 1;
+            assert_eq!(grows, f.starts(), "{case}");
+            eprintln!("agrees: {case}");
+        }
+        if (RELIABLE_LOOP_GAIN..=TOO_HARD_LOOP_GAIN).contains(&f.loop_gain) {
+            let spice = unwarped(&s, 0.8 * stop, stop);
+            let rel = (f.frequency - spice) / spice;
+            eprintln!(
+                "  steady frequency: ngspice {:.6} MHz, tool {:.6} MHz ({rel:+.2e}); tank with \
+                 C3 alone {:.6} MHz, without C3 the stage runs at {:.6} MHz",
+                spice * 1e-6,
+                f.frequency * 1e-6,
+                f.tank_frequency * 1e-6,
+                plain.frequency * 1e-6
+            );
+            assert!(
+                rel.abs() <= frequency_accuracy(Topology::CommonCollector),
+                "{case}: ngspice {spice} Hz"
+            );
+            compared += 1;
+        }
+    }
+    assert!(
+        judged >= 4 && compared >= 2,
+        "{judged} judged, {compared} compared"
+    );
+}
+
+/// The Clapp relation: with the tank's own capacitors and the transistor's capacitances
+/// taken away and the losses small, the circuit oscillates where the coil resonates with C1,
+/// C2 and C3 in series, ω² = (1/L)·(1/C1 + 1/C2 + 1/C3) (J. K. Clapp, "An
+/// inductance-capacitance oscillator of unusual frequency stability", Proc. IRE 36(3), 1948,
+/// pp. 356–358; from memory). The tool's zero-phase frequency of its nodal network meets it
+/// within the losses' shift, second order in 1/Q: 1e-4 with the coil's Q above 100, a
+/// transconductance a tenth of the critical one's order and 1 MΩ resistors.
+#[test]
+fn the_clapp_network_oscillates_where_the_clapp_relation_puts_it() {
+    let t = tank(22.0, 47.0);
+    let mut i = inputs(Topology::CommonCollector, 1e6);
+    for clapp_pf in [3.3, 10.0, 33.0] {
+        i.clapp = Some(clapp_pf * 1e-12);
+        let f = analyse(&t, &i);
+        let ideal = tankwright::tuning::stage::Network {
+            tank_capacitance: 0.0,
+            c_pi: 0.0,
+            c_mu: 0.0,
+            gm: 1e-4,
+            base_r: 1e6,
+            ..f.network
+        };
+        let (c1, c2, c3) = (ideal.upper, ideal.lower, clapp_pf * 1e-12);
+        let clapp = (1.0 / (ideal.inductance) * (1.0 / c1 + 1.0 / c2 + 1.0 / c3)).sqrt()
+            / (2.0 * std::f64::consts::PI);
+        let q = 2.0 * std::f64::consts::PI * clapp * ideal.inductance / ideal.series_resistance;
+        assert!(q > 100.0, "Q {q}");
+        let (tool, _) = ideal.zero_phase(clapp).expect("a zero-phase frequency");
+        let rel = (tool - clapp) / clapp;
+        eprintln!(
+            "C3 {clapp_pf} pF: Clapp's relation {:.6} MHz, the tool's network {:.6} MHz \
+             ({rel:+.2e}), Q {q:.0}",
+            clapp * 1e-6,
+            tool * 1e-6
+        );
+        assert!(rel.abs() <= 1e-4, "C3 {clapp_pf} pF: {rel:e}");
     }
 }

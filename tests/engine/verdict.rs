@@ -605,3 +605,59 @@ fn each_services_starting_point_is_in_band_and_hides_no_divider() {
         Some(Service::FmBroadcast)
     );
 }
+
+/// Issue 21: a fixed tank (no trimmer: Tank::fixed_only) has no travel, so the verdict names
+/// "the fixed tank (… MHz)" and never a travel from a frequency to itself. The demo coil with
+/// a fixed capacitor that puts it inside 108–137 MHz, the aeronautical band (ITU Radio
+/// Regulations Art. 5), and with one that puts it below the FM broadcast band (88–108 MHz,
+/// ITU RR Art. 5, Region 2 as the US plan holds it): both flagged, in words fit for a fixed
+/// tank.
+#[test]
+fn a_fixed_tank_is_named_as_one_frequency_never_a_travel() {
+    let demo = tankwright::recipe::Recipe::demo();
+    let coil = coil(&demo.winding);
+    let cond = Conditions::default();
+    // The first fixed capacitance (0.5 pF steps) that puts the tank in each range.
+    let fixed_for = |lo: f64, hi: f64| {
+        (1..2000)
+            .map(|i| f64::from(i) * 0.5)
+            .find(|pf| {
+                let tank = Tank::fixed_only(pf * 1e-12, 2e-12);
+                let f = judge(&coil, &tank, &cond, &Aim::new(BandPlan::UsFm, None)).resonance;
+                (lo..hi).contains(&f)
+            })
+            .unwrap_or_else(|| panic!("no fixed capacitance puts the demo coil in {lo}–{hi} Hz"))
+    };
+    for (fixed_pf, kind) in [
+        (fixed_for(115e6, 130e6), FlagKind::Aeronautical),
+        (fixed_for(70e6, 85e6), FlagKind::OutsideBand),
+    ] {
+        let tank = Tank::fixed_only(fixed_pf * 1e-12, 2e-12);
+        let v = judge(&coil, &tank, &cond, &Aim::new(BandPlan::UsFm, Some(98.7e6)));
+        assert!(v.reach.is_fixed(), "{fixed_pf} pF: {:?}", v.reach);
+        assert!(v.has(kind), "{fixed_pf} pF: {:?}", v.flags);
+        let named = format!("the fixed tank ({})", digits::mhz(v.resonance));
+        let mut texts: Vec<String> = v.flags.iter().map(|f| f.text.clone()).collect();
+        texts.push(v.safety_text());
+        texts.push(v.next_step());
+        assert!(
+            v.flags.iter().any(|f| f.text.contains(&named)),
+            "{fixed_pf} pF: no flag names {named:?}: {texts:#?}"
+        );
+        let same = digits::mhz_range(v.resonance, v.resonance);
+        for t in &texts {
+            assert!(!t.contains("trimmer's travel"), "{fixed_pf} pF: {t}");
+            assert!(!t.contains("turn the trimmer"), "{fixed_pf} pF: {t}");
+            assert!(!t.contains(&same), "{fixed_pf} pF: {t}");
+        }
+    }
+    // A trimmer of any span is still a travel.
+    let v = judge(
+        &coil,
+        &demo.tank,
+        &cond,
+        &Aim::new(BandPlan::UsFm, Some(98.7e6)),
+    );
+    assert!(!v.reach.is_fixed());
+    assert!(v.safety_text().contains("trimmer's travel"));
+}

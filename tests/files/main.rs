@@ -5,8 +5,10 @@
 
 mod file_safety;
 mod handout_files;
+mod handout_issue21;
 mod recipe_files_respected;
 mod recipe_malformed;
 mod recipe_roundtrip;
+mod recipe_stage;
 mod recipe_store;
 mod working_copy;

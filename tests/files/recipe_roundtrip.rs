@@ -382,6 +382,8 @@ fn file_strategy(
                     bench_log,
                     stray_estimate,
                     coil_measurement,
+                    stage: None,
+                    audio: Default::default(),
                 }
             },
         )

@@ -14,6 +14,7 @@ mod ui_field;
 mod ui_field_shape;
 mod ui_figures_worker;
 mod ui_include_reading;
+mod ui_issue21_charts;
 mod ui_junction_tank;
 mod ui_layout;
 mod ui_new_recipe;

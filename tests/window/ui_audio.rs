@@ -65,6 +65,7 @@ fn the_deviation_shown_is_the_engines_and_drift_follows_the_capacitor_class() {
             bias_v: 3.0,
             audio_peak_v: 0.5,
             audio_max_hz: 15e3,
+            rf_peak_v: tankwright::tuning::modulation::TANK_RF_PEAK_V,
         },
     );
     let line = line_starting(&harness, "Carrier ");
@@ -100,6 +101,7 @@ fn engine(harness: &Harness<'_, App>, law: JunctionLaw, bias_v: f64, audio_peak_
             bias_v,
             audio_peak_v,
             audio_max_hz: 15e3,
+            rf_peak_v: tankwright::tuning::modulation::TANK_RF_PEAK_V,
         },
     );
     format!(
@@ -216,6 +218,7 @@ fn sweeps_are_recomputed_only_when_their_inputs_change() {
         bias_v: 4.5,
         audio_peak_v: 0.1,
         audio_max_hz: 15e3,
+        rf_peak_v: tankwright::tuning::modulation::TANK_RF_PEAK_V,
     };
     let mut s = ModulationSweeps::default();
     assert!(s.refresh(&coil, &recipe.tank, &recipe.conditions, &inputs));
@@ -320,9 +323,14 @@ fn the_audio_top_follows_the_service_and_a_carrier_in_no_band_is_named() {
     harness.run();
     harness.run();
     assert_eq!(value(&harness), 3.0, "2 m voice");
-    // Typed: kept whatever the service.
+    // Typed: kept whatever the service (the setting is the recipe's since issue 19, so the
+    // recipe keeps it while its coil and tank go back to the FM demo's).
     set(&mut harness, "Highest audio frequency", 5.0);
-    *harness.state_mut().recipe_mut() = tankwright::recipe::Recipe::demo();
+    let demo = tankwright::recipe::Recipe::demo();
+    let recipe = harness.state_mut().recipe_mut();
+    recipe.winding = demo.winding;
+    recipe.tank = demo.tank;
+    recipe.target = demo.target;
     harness.run();
     harness.run();
     assert_eq!(value(&harness), 5.0);
@@ -336,4 +344,107 @@ fn the_audio_top_follows_the_service_and_a_carrier_in_no_band_is_named() {
     let carrier = harness.state().figures().expect("valid").analysis.resonance;
     assert!(carrier > 148e6, "{carrier}");
     assert!(line_starting(&harness, "No service applies at").contains("only as a yardstick"));
+}
+
+/// The audio panel's settings are the recipe's (issue 19: kept with it, SI inside): each edit
+/// lands in `Recipe::audio`, a typed highest audio frequency is kept as typed, and the carrier
+/// shown is the engine's (`tuning::audio::audio_figures`, through `tuning::modulation`, whose
+/// junction law is checked against ngspice in tests/engine/reference_junction.rs) for the
+/// settings kept.
+#[test]
+fn the_audio_settings_are_kept_in_the_recipe() {
+    use tankwright::tuning::audio::{AudioSettings, audio_figures};
+    let mut harness = workbench();
+    assert_eq!(harness.state().recipe().audio, AudioSettings::default());
+    set(&mut harness, "Junction Cj0", 5.0);
+    set(&mut harness, "Coupling capacitor", 10.0);
+    set(&mut harness, "Hand near the coil", 2.0);
+    set(&mut harness, "Highest audio frequency", 8.0);
+    let a = harness.state().recipe().audio;
+    assert!((a.junction.cj0 - 5e-12).abs() < 1e-24, "{}", a.junction.cj0);
+    assert!((a.coupling - 10e-12).abs() < 1e-24, "{}", a.coupling);
+    assert!((a.hand - 2e-12).abs() < 1e-24, "{}", a.hand);
+    assert_eq!(a.audio_max, Some(8e3));
+    let recipe = harness.state().recipe().clone();
+    let coil = Coil::from_winding(&recipe.winding).unwrap();
+    let tolerance = recipe.target.tolerance();
+    let f = audio_figures(&coil, &recipe.tank, &recipe.conditions, &a, tolerance);
+    let line = line_starting(&harness, "Carrier ");
+    let expected = format!(
+        "Carrier {:.3} MHz with the junction at {:.2} pF",
+        f.modulation.carrier * 1e-6,
+        f.modulation.junction_at_bias * 1e12
+    );
+    assert!(line.starts_with(&expected), "{line} vs {expected}");
+    assert!(
+        line.contains(&format!(
+            "Carson bandwidth {:.0} kHz",
+            f.modulation.carson_bandwidth * 1e-3
+        )),
+        "{line}"
+    );
+}
+
+/// Issue 25: the audio panel offers the oscillator stage's own transistor as the modulating
+/// junction. Taken, the law and bias are the stage's (its collector–base junction at the
+/// operating point) and the carrier's slope the panel works with is the stage panel's figure
+/// for the same junction in the same tank (both through `tuning::modulation`, whose junction
+/// law is checked against ngspice's operating-point capacitance in
+/// tests/engine/reference_junction.rs). Through a Clapp capacitor the junction is not across
+/// the tank, and taking it is refused in words.
+#[test]
+fn the_stage_transistors_junction_modulates_at_the_stages_own_slope() {
+    use tankwright::recipe::{Footing, figures_on};
+    use tankwright::tuning::audio::audio_figures;
+    use tankwright::tuning::stage::{Topology, stage};
+    use tankwright::ui::panels::audio::USE_STAGE_JUNCTION;
+    let mut harness = workbench();
+    set(&mut harness, "Audio peak", 0.0);
+    harness.get_by_label(USE_STAGE_JUNCTION).click();
+    harness.run();
+    let recipe = harness.state().recipe().clone();
+    let f = figures_on(&recipe, Footing::Classical).expect("figures");
+    let settings = recipe.stage.clone().unwrap_or_default();
+    let s = stage(
+        &f.coil,
+        &f.tank,
+        &f.conditions,
+        &settings.inputs().expect("inputs"),
+    )
+    .expect("stage")
+    .junction;
+    assert_eq!(recipe.audio.junction, s.law);
+    assert_eq!(recipe.audio.bias_v, s.bias_v);
+    assert_eq!(recipe.audio.coupling, 0.0);
+    let a = audio_figures(
+        &f.coil,
+        &recipe.audio.rest_of_tank(&f.tank),
+        &f.conditions,
+        &recipe.audio,
+        recipe.target.tolerance(),
+    );
+    let rel = (a.modulation.sensitivity - s.hz_per_volt) / s.hz_per_volt;
+    assert!(
+        rel.abs() <= 1e-6,
+        "panel {} Hz/V, stage {} Hz/V",
+        a.modulation.sensitivity,
+        s.hz_per_volt
+    );
+    let line = line_starting(&harness, "Carrier ");
+    let slope = format!("{:.1} kHz per volt", s.hz_per_volt * 1e-3);
+    assert!(line.contains(&slope), "{line} lacks {slope}");
+
+    // A Clapp stage: refused, the settings unchanged.
+    let before = harness.state().recipe().audio;
+    let recipe = harness.state_mut().recipe_mut();
+    let mut clapp = recipe.stage.clone().unwrap_or_default();
+    clapp.topology = Topology::CommonCollector;
+    clapp.clapp = Some(10e-12);
+    recipe.stage = Some(clapp);
+    harness.run();
+    harness.get_by_label(USE_STAGE_JUNCTION).click();
+    harness.run();
+    let refused = line_starting(&harness, "Not taken: ");
+    assert!(refused.contains("Clapp"), "{refused}");
+    assert_eq!(harness.state().recipe().audio, before);
 }

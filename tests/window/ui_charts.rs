@@ -223,6 +223,7 @@ fn chart_harness(axis: SpacingAxis) -> Harness<'static, ChartState> {
                     axis: s.axis,
                     unit: LengthUnit::Millimetres,
                     overlays: &[],
+                    operating: None,
                 };
                 let (spacing, setting) = ui
                     .vertical(|ui| {
@@ -330,6 +331,7 @@ fn charts_draw_before_the_first_refresh() {
                 axis: SpacingAxis::Gap,
                 unit: LengthUnit::Inches,
                 overlays: &[],
+                operating: None,
             };
             ui.columns(2, |c| {
                 let _ = spacing_chart(&mut c[0], &view);
@@ -519,6 +521,7 @@ fn hover_reads_the_curves_at_the_pointers_length() {
             axis,
             unit,
             overlays: &[],
+            operating: None,
         };
         let x = view.x_of_length(coil.length());
         let text = hover::spacing_text(&view, x);

@@ -110,6 +110,7 @@ fn the_charts_hover_and_band_follow_exact_field_solves() {
         axis: SpacingAxis::Length,
         unit: LengthUnit::Millimetres,
         overlays: &[],
+        operating: None,
     };
     let (lo, hi) = sweeps.length_range_swept();
     for u in [0.1, 0.33, 0.6, 0.9] {
@@ -369,6 +370,7 @@ fn the_classical_formulas_stay_as_a_dotted_comparison() {
         axis: SpacingAxis::Length,
         unit: LengthUnit::Millimetres,
         overlays: &[],
+        operating: None,
     };
     let (lo, hi) = view.cache.length_range_swept();
     for u in [0.2, 0.5, 0.8] {

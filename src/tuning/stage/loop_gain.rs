@@ -95,6 +95,9 @@ pub struct Network {
     pub c_pi: f64,
     /// Base–collector capacitance, farads.
     pub c_mu: f64,
+    /// The Clapp series capacitor between the coil's hot end and the base, farads (common
+    /// collector only; `None`: the coil meets the base through a short at RF).
+    pub clapp: Option<f64>,
 }
 
 impl Network {
@@ -113,6 +116,16 @@ impl Network {
     fn tank(&self, s: Complex64) -> Complex64 {
         Complex64::new(1.0, 0.0) / (self.series_resistance + s * self.inductance)
             + s * self.tank_capacitance
+    }
+
+    /// The coil's branch from the base to ground in the common-collector stage: the tank,
+    /// in series with the Clapp capacitor when there is one.
+    fn coil_branch(&self, s: Complex64) -> Complex64 {
+        let y = self.tank(s);
+        match self.clapp {
+            Some(c) => Complex64::new(1.0, 0.0) / (Complex64::new(1.0, 0.0) / y + 1.0 / (s * c)),
+            None => y,
+        }
     }
 
     /// The return ratio T at angular frequency `w`.
@@ -140,7 +153,7 @@ impl Network {
             }
             Topology::CommonCollector => {
                 let ybe = s * (self.upper + self.c_pi) + g_pi;
-                let y00 = self.tank(s) + s * self.c_mu + 1.0 / self.base_r + ybe;
+                let y00 = self.coil_branch(s) + s * self.c_mu + 1.0 / self.base_r + ybe;
                 let y11 = ybe + s * self.lower + 1.0 / self.emitter_r;
                 // g_m·v_be flows from the collector (RF ground) into the emitter (node 1);
                 // v_be = v_b − v_e.

@@ -22,6 +22,7 @@ pub mod bias;
 pub mod critical;
 pub mod junction;
 pub mod loop_gain;
+pub mod settings;
 pub mod transistor;
 
 use crate::model::{Coil, Conditions, Tank, evaluate::resonance_of, evaluate_coil};
@@ -30,6 +31,7 @@ pub use bias::{Bias, OperatingPoint, operating_point};
 pub use critical::critical_scale;
 pub use junction::{JunctionShare, junction_share};
 pub use loop_gain::{Network, Topology};
+pub use settings::{SettingRefused, StageSettings, TransistorSpec};
 pub use transistor::{JunctionCapacitance, Ratings, Transistor};
 
 /// Below this loop gain a stage may start on the bench and fail cold, with a weaker
@@ -59,6 +61,23 @@ pub const SMALL_SIGNAL_ACCURACY: f64 = 1e-4;
 /// gains of 30–200).
 pub const FREQUENCY_ACCURACY: f64 = 2e-3;
 
+/// The operating frequency's stated accuracy in the common-collector stage, relative, while
+/// the loop gain lies within [`RELIABLE_LOOP_GAIN`]–[`TOO_HARD_LOOP_GAIN`]. Measured against
+/// ngspice's steady oscillation (tests/engine/reference_stage.rs, the Clapp cases: C3 3.3–33
+/// pF, loop gains 5.3–9.9): the tool low by 1.7e-4 to 2.2e-3, most with the larger series
+/// capacitors at the higher loop gains (the base's larger swing limits the stage further
+/// than the describing function, [`critical_scale`], sees), so above the common-base
+/// stage's [`FREQUENCY_ACCURACY`].
+pub const FREQUENCY_ACCURACY_COMMON_COLLECTOR: f64 = 3e-3;
+
+/// The operating frequency's stated accuracy for `topology` (relative, loop gain 3–10).
+pub fn frequency_accuracy(topology: Topology) -> f64 {
+    match topology {
+        Topology::CommonBase => FREQUENCY_ACCURACY,
+        Topology::CommonCollector => FREQUENCY_ACCURACY_COMMON_COLLECTOR,
+    }
+}
+
 /// Accepted supply, volts.
 pub const SUPPLY_RANGE_V: (f64, f64) = (0.5, 30.0);
 /// Accepted resistors (bias divider and emitter), ohms.
@@ -77,6 +96,9 @@ pub struct StageInputs {
     pub transistor: Transistor,
     /// The battery's capacity, coulombs (1 mAh = 3.6 C).
     pub battery_charge: Option<f64>,
+    /// A Clapp series capacitor between the tank and the base, farads (common collector
+    /// only): the coil with the tank's own capacitors, in series with it, from base to ground.
+    pub clapp: Option<f64>,
 }
 
 /// How readily the stage starts.
@@ -240,6 +262,22 @@ impl StageInputs {
         if let Some(q) = self.battery_charge {
             check("the battery", q / 3.6, BATTERY_RANGE_MAH, "mAh")?;
         }
+        if let Some(c) = self.clapp {
+            check(
+                "the Clapp capacitor",
+                c * 1e12,
+                (
+                    settings::CLAPP_RANGE_F.0 * 1e12,
+                    settings::CLAPP_RANGE_F.1 * 1e12,
+                ),
+                "pF",
+            )?;
+            if self.topology != Topology::CommonCollector {
+                return Err(StageError(
+                    "a Clapp series capacitor belongs to the common-collector stage".to_owned(),
+                ));
+            }
+        }
         Ok(())
     }
 }
@@ -289,12 +327,14 @@ pub fn analyse(
     let diffusion = t.transit_time * gm;
     let c_pi = t.base_emitter.at(-op.base_emitter_v) + diffusion;
     let c_mu = t.base_collector.at(op.collector_base_v.max(0.0));
-    let loaded_external = own
-        + c_mu
-        + match inputs.topology {
-            Topology::CommonBase => series(divider.upper, divider.lower + c_pi),
-            Topology::CommonCollector => series(divider.upper + c_pi, divider.lower),
-        };
+    // What the coil sees beyond its own capacitors: the divider with the transistor's
+    // capacitances, through the Clapp capacitor when there is one.
+    let at_base = match inputs.topology {
+        Topology::CommonBase => c_mu + series(divider.upper, divider.lower + c_pi),
+        Topology::CommonCollector => c_mu + series(divider.upper + c_pi, divider.lower),
+    };
+    let through_clapp = |c: f64| inputs.clapp.map_or(c, |cs| series(cs, c));
+    let loaded_external = own + through_clapp(at_base);
     let loaded = evaluate_coil(coil, loaded_external, conditions);
     let network = Network {
         topology: inputs.topology,
@@ -309,6 +349,7 @@ pub fn analyse(
         beta: t.beta,
         c_pi,
         c_mu,
+        clapp: inputs.clapp,
     };
     let active = op.active() && op.collector_current > 0.0;
     let small = network.zero_phase(loaded.resonance);
@@ -327,12 +368,22 @@ pub fn analyse(
         (_, _, Some((fs, _))) => fs,
         _ => loaded.resonance,
     };
-    let tank_frequency = resonance_of(coil, tank.external_capacitance(), conditions);
+    // The tank alone: its own capacitors and the divider (through the Clapp capacitor when
+    // there is one), no transistor.
+    let tank_frequency = resonance_of(
+        coil,
+        own + through_clapp(series(divider.upper, divider.lower)),
+        conditions,
+    );
     let junction = junction_share(
         coil,
         conditions,
-        loaded_external,
-        loaded.self_capacitance,
+        &junction::Across {
+            own,
+            rest_at_base: at_base - c_mu,
+            clapp: inputs.clapp,
+            self_capacitance: loaded.self_capacitance,
+        },
         t,
         &op,
     );

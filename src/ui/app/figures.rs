@@ -12,12 +12,17 @@ impl App {
     /// one has come, and bring the figures up to the recipe and the answer; true if they
     /// changed.
     pub(super) fn refresh_figures(&mut self, ctx: &egui::Context) -> bool {
-        // The junction counted in the tank (the audio panel's switch) is in every figure,
-        // put there by the same function as `evaluate --junction-…`; never in the recipe.
-        let with_junction = self.audio_panel.junction_in_tank().map(|(m, bias)| Recipe {
-            tank: crate::tuning::modulation::tank_with_junction(&self.recipe.tank, &m, bias),
-            ..self.recipe.clone()
-        });
+        // The junction counted in the tank (the audio settings' switch) is in every figure,
+        // put there by the same function as `evaluate --junction-…`; never in the recipe's
+        // tank.
+        let with_junction = self
+            .recipe
+            .audio
+            .junction_in_tank()
+            .map(|(m, bias)| Recipe {
+                tank: crate::tuning::modulation::tank_with_junction(&self.recipe.tank, &m, bias),
+                ..self.recipe.clone()
+            });
         let recipe = with_junction.as_ref().unwrap_or(&self.recipe);
         let footing = self.preferences.footing();
         let request = (footing == Footing::FieldSolution)
@@ -36,6 +41,8 @@ impl App {
         // Then the charts' field shape for the figures now shown.
         self.shape.ask(self.evaluation.shape_request(), ctx);
         self.shape.poll();
+        // The stage kept in the recipe, for the charts' operating-frequency line.
+        self.evaluation.refresh_stage(self.recipe.stage.as_ref());
         let shaped = self.evaluation.set_shape(self.shape.ready());
         // And the "before calibration" curve's, while the figures are calibrated.
         self.uncalibrated_shape
@@ -70,6 +77,12 @@ impl App {
             || self.evaluation.is_updating()
             || self.shape.is_working()
             || self.uncalibrated_shape.is_working()
+    }
+
+    /// Where the stage kept in the recipe runs, as the charts show it (for tests and
+    /// captures).
+    pub fn chart_operating(&self) -> Option<crate::ui::charts::Operating> {
+        self.evaluation.operating()
     }
 
     /// Whether the charts draw the field shape (for tests and captures).

@@ -213,14 +213,32 @@ impl App {
                     .map_or(recipe.target.tolerance(), |f| f.target.tolerance);
                 // Without the junction the panel counts in it (if any): the modulation adds
                 // it back at each bias.
-                let tank = audio_panel.without_junction(&tank);
-                audio_panel.show(ui, coil.as_ref(), &tank, &conditions, tolerance);
+                let rest = recipe.audio.rest_of_tank(&tank);
+                let figures = evaluation.audio(&rest, &conditions, &recipe.audio, tolerance);
+                let audio_max = figures.map_or(15e3, |f| f.audio_max);
+                if audio_panel.show(ui, &mut recipe.audio, figures, tolerance)
+                    && let Some(coil) = coil.as_ref()
+                {
+                    // The stage's own junction, from the stage as the recipe keeps it (the
+                    // demo stage until one is set), round the tank without the audio's
+                    // junction.
+                    let bare = recipe.audio.without_junction(&tank);
+                    let taken = recipe
+                        .stage
+                        .clone()
+                        .unwrap_or_default()
+                        .inputs()
+                        .and_then(|i| crate::tuning::stage::analyse(coil, &bare, &conditions, &i))
+                        .map_err(|e| e.to_string())
+                        .and_then(|f| recipe.audio.use_stage_junction(&f.junction, &tank));
+                    audio_panel.stage_junction_taken(taken);
+                }
                 egui::CollapsingHeader::new(MODULATION_CHARTS)
                     .default_open(true)
                     .show(ui, |ui| {
-                        let inputs = audio_panel.inputs();
+                        let inputs = recipe.audio.inputs_with(audio_max);
                         if let Some(sweeps) =
-                            evaluation.modulation_sweeps(&tank, &conditions, &inputs)
+                            evaluation.modulation_sweeps(&rest, &conditions, &inputs)
                         {
                             modulation_charts(ui, sweeps);
                         }
@@ -229,7 +247,7 @@ impl App {
         egui::CollapsingHeader::new(panels::stage::SECTION)
             .default_open(false)
             .show(ui, |ui| {
-                stage_panel.show(ui, coil.as_ref(), &tank, &conditions);
+                stage_panel.show(ui, &mut recipe.stage, coil.as_ref(), &tank, &conditions);
             });
     }
 

@@ -45,7 +45,10 @@ impl ChartCache {
             return false;
         }
         let range = self.length_range(coil);
-        self.spacing = spacing_sweep_on(coil, tank, conditions, &SETTINGS, range, SAMPLES, shape);
+        // A fixed tank (no trimmer travel) has one curve: five identical ones would only
+        // stack up and fill the hover with the same line five times.
+        let settings: &[f64] = if tank.is_fixed() { &[0.0] } else { &SETTINGS };
+        self.spacing = spacing_sweep_on(coil, tank, conditions, settings, range, SAMPLES, shape);
         self.trimmer = trimmer_sweep_on(coil, tank, conditions, SAMPLES, shape);
         self.shape = shape.cloned();
         // The sweep raises the low end to the touching limit; keep what it actually used.

@@ -38,7 +38,10 @@ fn hovered<'a>(pos: &egui_plot::HoverPosition<'a>) -> (f64, &'a str, f64) {
 
 /// A reading or marker near the pointer, as a first line: "bench readings: 98.412 MHz".
 fn marker_line(name: &str, y_mhz: f64) -> Option<String> {
-    let is_marker = name == "bench readings" || name == "this coil" || name == "this setting";
+    let is_marker = name == super::READINGS_LABEL
+        || name == "this coil"
+        || name == "this setting"
+        || (name.starts_with("reading with ") && name.ends_with(" clipped on"));
     (is_marker && y_mhz.is_finite()).then(|| format!("{name}: {} MHz", digits::fixed(y_mhz, 3)))
 }
 
@@ -58,14 +61,20 @@ pub fn spacing_text(view: &ChartView<'_>, x: f64) -> String {
         return lines.join("\n");
     }
     let mut any = false;
+    // A fixed tank has one curve (no trimmer): one line, never five identical ones.
+    let fixed = view.tank.is_fixed();
     for curve in view.cache.spacing_curves() {
         if let Some(hz) = value_at(&curve.points, length) {
             any = true;
-            lines.push(format!(
-                "trimmer {:.0} %: {}",
-                curve.setting * 100.0,
-                digits::mhz(hz)
-            ));
+            lines.push(if fixed {
+                format!("{}: {}", super::FIXED_CURVE_LABEL, digits::mhz(hz))
+            } else {
+                format!(
+                    "trimmer {:.0} %: {}",
+                    curve.setting * 100.0,
+                    digits::mhz(hz)
+                )
+            });
         }
     }
     if let Some(before) = view.uncalibrated {
@@ -73,11 +82,15 @@ pub fn spacing_text(view: &ChartView<'_>, x: f64) -> String {
         if let Some(curve) = before.spacing_curve_nearest(present)
             && let Some(hz) = value_at(&curve.points, length)
         {
-            lines.push(format!(
-                "before calibration, {:.0} %: {}",
-                curve.setting * 100.0,
-                digits::mhz(hz)
-            ));
+            lines.push(if fixed {
+                format!("before calibration: {}", digits::mhz(hz))
+            } else {
+                format!(
+                    "before calibration, {:.0} %: {}",
+                    curve.setting * 100.0,
+                    digits::mhz(hz)
+                )
+            });
         }
     }
     if let Some(classical) = view.classical

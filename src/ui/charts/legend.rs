@@ -19,6 +19,8 @@ pub enum Swatch {
     Band(Color32),
     /// A point.
     Point(Color32),
+    /// A hollow square (a reading taken with a capacitor clipped on).
+    HollowSquare(Color32),
     /// A colour ramp from one colour to the other (the trimmer curves).
     Ramp(Color32, Color32),
 }
@@ -113,6 +115,14 @@ fn paint_swatch(p: &egui::Painter, rect: egui::Rect, swatch: Swatch) {
         Swatch::Point(c) => {
             p.circle_filled(rect.center(), 3.5, c);
         }
+        Swatch::HollowSquare(c) => {
+            p.rect_stroke(
+                egui::Rect::from_center_size(rect.center(), egui::vec2(8.0, 8.0)),
+                0.0,
+                egui::Stroke::new(1.5, c),
+                egui::StrokeKind::Middle,
+            );
+        }
         Swatch::Ramp(a, b) => {
             let steps = 6;
             for i in 0..steps {
@@ -145,13 +155,16 @@ fn shows_aeronautical(y_mhz: (f64, f64)) -> bool {
 
 /// The entries both charts share after their own curves: target channel, aeronautical band
 /// (when the axis reaches it), bench readings (when there are any shown).
-fn shared(view: &ChartView<'_>, y_mhz: (f64, f64), readings: bool) -> Vec<Entry> {
+fn shared(view: &ChartView<'_>, y_mhz: (f64, f64), readings: bool, clipped: bool) -> Vec<Entry> {
     let mut out = Vec::new();
     if view.has_target() {
         out.push(Entry::new(
             "target channel",
             Swatch::Band(palette::target_fill()),
         ));
+    }
+    if let Some(op) = view.operating {
+        out.push(Entry::new(op.label(), Swatch::Dashed(palette::OPERATING)));
     }
     if shows_aeronautical(y_mhz) {
         out.push(Entry::new(
@@ -161,8 +174,14 @@ fn shared(view: &ChartView<'_>, y_mhz: (f64, f64), readings: bool) -> Vec<Entry>
     }
     if readings {
         out.push(Entry::new(
-            "bench readings",
+            super::READINGS_LABEL,
             Swatch::Point(palette::READING),
+        ));
+    }
+    if clipped {
+        out.push(Entry::new(
+            super::CLIPPED_READINGS_LABEL,
+            Swatch::HollowSquare(palette::READING),
         ));
     }
     out
@@ -188,14 +207,22 @@ pub fn spacing_entries(
     visuals: &egui::Visuals,
     y_mhz: (f64, f64),
 ) -> Vec<Entry> {
-    let mut out = vec![
+    let curves = if view.tank.is_fixed() {
+        Entry::new(
+            super::FIXED_CURVE_LABEL,
+            Swatch::Line(palette::trimmer(visuals, 0.0)),
+        )
+    } else {
         Entry::new(
             "trimmer 0–100 %",
             Swatch::Ramp(
                 palette::trimmer(visuals, 0.0),
                 palette::trimmer(visuals, 1.0),
             ),
-        ),
+        )
+    };
+    let mut out = vec![
+        curves,
         Entry::new("this coil", Swatch::Point(palette::PRESENT)),
         Entry::new("turns touching", Swatch::Dashed(palette::touching(visuals))),
     ];
@@ -212,17 +239,22 @@ pub fn spacing_entries(
             .iter()
             .map(|o| Entry::new(o.name.clone(), Swatch::Dashed(o.kind.colour()))),
     );
-    out.extend(shared(view, y_mhz, !view.readings.is_empty()));
+    out.extend(shared(
+        view,
+        y_mhz,
+        view.readings.iter().any(|r| !r.clipped()),
+        view.readings.iter().any(|r| r.clipped()),
+    ));
     out
 }
 
-/// The trimmer chart's legend for a frequency axis of `y_mhz`; `readings` when bench
-/// readings at the present length are drawn.
+/// The trimmer chart's legend for a frequency axis of `y_mhz`; `readings` (unclipped, with
+/// a capacitor clipped on) when bench readings at the present length are drawn.
 pub fn trimmer_entries(
     view: &ChartView<'_>,
     visuals: &egui::Visuals,
     y_mhz: (f64, f64),
-    readings: bool,
+    readings: (bool, bool),
 ) -> Vec<Entry> {
     let mut out = vec![
         Entry::new(
@@ -232,6 +264,6 @@ pub fn trimmer_entries(
         Entry::new("this setting", Swatch::Point(palette::PRESENT)),
     ];
     out.extend(classical_entry(view));
-    out.extend(shared(view, y_mhz, readings));
+    out.extend(shared(view, y_mhz, readings.0, readings.1));
     out
 }

@@ -57,6 +57,9 @@ pub struct ReadingMark {
     pub setting: f64,
     /// Measured frequency, hertz.
     pub measured: f64,
+    /// A known capacitor clipped across the tank for the reading, farads (0 for none): such
+    /// a reading lies on another curve and is drawn apart ([`reading_points`]).
+    pub added: f64,
 }
 
 /// Name of the classical comparison curve (our own words for the shape the classical formulas
@@ -73,6 +76,29 @@ pub struct ClassicalComparison<'a> {
     /// Their resonance at the present coil and setting, hertz.
     pub here: f64,
 }
+
+impl ReadingMark {
+    /// Whether a capacitor was clipped on for the reading.
+    pub fn clipped(&self) -> bool {
+        self.added > 0.0
+    }
+
+    /// The name a clipped-on reading is drawn and hovered by: "reading with +10.0 pF
+    /// clipped on".
+    pub fn clipped_name(&self) -> String {
+        format!("reading with {} clipped on", clip_words(self.added))
+    }
+}
+
+/// A clipped-on capacitance as its marker's label: "+10.0 pF".
+pub fn clip_words(farads: f64) -> String {
+    format!(
+        "+{} pF",
+        crate::tuning::digits::fixed(crate::units::to_pf(farads), 1)
+    )
+}
+
+pub use crate::tuning::sweep::FIXED_CURVE_LABEL;
 
 /// Everything the charts draw from (borrowed; drawing never changes the model).
 pub struct ChartView<'a> {
@@ -101,6 +127,62 @@ pub struct ChartView<'a> {
     pub unit: LengthUnit,
     /// Muted extra curves on the spacing chart (the teaching bench's ghost and reference).
     pub overlays: &'a [ChartOverlay],
+    /// Where the oscillator stage kept in the recipe runs, when that differs from the tank's
+    /// resonance ([`Operating::differing`]).
+    pub operating: Option<Operating>,
+}
+
+/// The oscillator stage's operating frequency (`tuning::stage`: the tank with the
+/// transistor's capacitances) for the charts.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct Operating {
+    /// The operating frequency, hertz.
+    pub frequency: f64,
+    /// It minus the tank's alone (with its Clapp capacitor, when there is one), hertz.
+    pub pulling: f64,
+    /// The stage has a Clapp series capacitor (its tank is not the charts' tank alone).
+    pub clapp: bool,
+}
+
+impl Operating {
+    /// The stage's figures when the operating frequency differs from the charts' present
+    /// resonance `shown` hertz by a kilohertz or more as shown (the readouts' resolution),
+    /// else `None`.
+    pub fn differing(frequency: f64, pulling: f64, clapp: bool, shown: f64) -> Option<Self> {
+        let apart = (frequency - shown).abs();
+        (frequency.is_finite() && pulling.is_finite() && apart >= 500.0).then_some(Self {
+            frequency,
+            pulling,
+            clapp,
+        })
+    }
+
+    /// Its name on the charts and in their legends: where it runs and the pulling in kHz.
+    pub fn label(&self) -> String {
+        format!(
+            "oscillator runs at {} (pulled {} kHz{})",
+            crate::tuning::digits::mhz(self.frequency),
+            crate::tuning::digits::signed(crate::units::to_khz(self.pulling), 0),
+            if self.clapp {
+                " from the tank with its Clapp capacitor"
+            } else {
+                ""
+            }
+        )
+    }
+}
+
+/// The oscillator's operating frequency as a dashed line across the chart, named with where it
+/// runs and the pulling.
+pub(crate) fn operating_line(plot_ui: &mut egui_plot::PlotUi<'_>, view: &ChartView<'_>) {
+    if let Some(op) = view.operating {
+        plot_ui.hline(
+            egui_plot::HLine::new(op.label(), op.frequency * 1e-6)
+                .color(palette::OPERATING)
+                .style(egui_plot::LineStyle::dashed_loose())
+                .width(1.4),
+        );
+    }
 }
 
 impl ChartView<'_> {
@@ -160,6 +242,8 @@ pub(crate) mod palette {
 
     /// The present coil or setting.
     pub const PRESENT: Color32 = egui(crate::palette::PRESENT);
+    /// The oscillator stage's operating frequency.
+    pub const OPERATING: Color32 = egui(crate::palette::OPERATING);
     /// Bench readings.
     pub const READING: Color32 = egui(crate::palette::READING);
     /// The model before calibration.
@@ -300,38 +384,71 @@ pub(crate) fn pointer_x<R>(
     Some(response.transform.value_from_position(pos).x)
 }
 
+/// The least height of a live chart's plot, points (its legend comes on top): the centre
+/// scrolls rather than squeeze a chart to a strip (issue 21: about 110 px at 1280×720).
+pub const MIN_PLOT_HEIGHT: f32 = 220.0;
+
 /// A chart that holds still: no pan, zoom or scroll (a drag sets a value instead), a crosshair,
 /// no legend inside (each chart draws its own above it: [`legend`]), resonance in MHz up the
 /// side and `x_label` along the bottom, both axes at 1–2–5 steps ([`ticks`]).
 pub(crate) fn still_plot<'a>(id: &str, x_label: String) -> egui_plot::Plot<'a> {
     let plot = held_still(egui_plot::Plot::new(id))
         .show_crosshair(true)
-        .min_size(egui::vec2(160.0, 120.0));
+        .min_size(egui::vec2(160.0, MIN_PLOT_HEIGHT));
     ticks::nice_axes(plot, x_label, "resonance (MHz)")
 }
 
-/// Bench readings as points at (`x_of(reading)`, measured MHz).
+/// Bench readings as points at (`x_of(reading)`, measured MHz): the unclipped readings as
+/// filled diamonds, each reading taken with a capacitor clipped on as a hollow square of its
+/// own, labelled with the capacitance ("+10.0 pF"): it lies on another curve (the tank plus
+/// that capacitor), so it must not read as a point of the curves drawn.
 pub(crate) fn reading_points(
     plot_ui: &mut egui_plot::PlotUi<'_>,
     view: &ChartView<'_>,
     x_of: impl Fn(&ReadingMark) -> f64,
 ) {
-    if view.readings.is_empty() {
-        return;
-    }
-    let points: Vec<[f64; 2]> = view
+    let plain: Vec<[f64; 2]> = view
         .readings
         .iter()
+        .filter(|r| !r.clipped())
         .map(|r| [x_of(r), r.measured * 1e-6])
         .collect();
-    plot_ui.points(
-        egui_plot::Points::new("bench readings", points)
-            .color(palette::READING)
-            .shape(egui_plot::MarkerShape::Diamond)
-            .filled(true)
-            .radius(5.0),
-    );
+    if !plain.is_empty() {
+        plot_ui.points(
+            egui_plot::Points::new(READINGS_LABEL, plain)
+                .color(palette::READING)
+                .shape(egui_plot::MarkerShape::Diamond)
+                .filled(true)
+                .radius(5.0),
+        );
+    }
+    for r in view.readings.iter().filter(|r| r.clipped()) {
+        let at = [x_of(r), r.measured * 1e-6];
+        plot_ui.points(
+            egui_plot::Points::new(r.clipped_name(), vec![at])
+                .color(palette::READING)
+                .shape(egui_plot::MarkerShape::Square)
+                .filled(false)
+                .radius(5.5),
+        );
+        plot_ui.text(
+            egui_plot::Text::new(
+                "",
+                egui_plot::PlotPoint::new(at[0], at[1]),
+                egui::RichText::new(format!("  {}", clip_words(r.added)))
+                    .small()
+                    .color(palette::READING),
+            )
+            .anchor(egui::Align2::LEFT_CENTER),
+        );
+    }
 }
+
+/// Name of the unclipped bench readings on the charts (their legend entry and hover).
+pub const READINGS_LABEL: &str = "bench readings";
+
+/// Name of the legend entry for readings taken with a capacitor clipped on.
+pub const CLIPPED_READINGS_LABEL: &str = "reading with a capacitor clipped on (its own curve)";
 
 /// The target channel: its band shaded and its centre drawn as a line (the band alone is too
 /// narrow to see beside a sweep of tens of MHz).

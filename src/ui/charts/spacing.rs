@@ -62,8 +62,13 @@ pub fn spacing_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
         aeronautical_band(plot_ui, (bounds[2], bounds[3]));
         super::spread_band::spread_band(plot_ui, view);
 
+        let fixed = view.tank.is_fixed();
         for curve in view.cache.spacing_curves().iter().rev() {
-            let name = format!("trimmer {:.0} %", curve.setting * 100.0);
+            let name = if fixed {
+                super::FIXED_CURVE_LABEL.to_owned()
+            } else {
+                format!("trimmer {:.0} %", curve.setting * 100.0)
+            };
             let points: PlotPoints<'_> = curve
                 .points
                 .iter()
@@ -75,7 +80,9 @@ pub fn spacing_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
                     .width(1.8),
             );
         }
-        curve_labels(plot_ui, view, &visuals, bounds[1]);
+        if !fixed {
+            curve_labels(plot_ui, view, &visuals, bounds[1]);
+        }
 
         if let Some(before) = view.uncalibrated {
             let present = view.tank.trimmer_setting;
@@ -85,14 +92,16 @@ pub fn spacing_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
                     .iter()
                     .map(|p| [view.x_of_length(p[0]), p[1] * 1e-6])
                     .collect();
+                let name = if fixed {
+                    "before calibration".to_owned()
+                } else {
+                    format!("before calibration, {:.0} %", curve.setting * 100.0)
+                };
                 plot_ui.line(
-                    Line::new(
-                        format!("before calibration, {:.0} %", curve.setting * 100.0),
-                        points,
-                    )
-                    .color(palette::UNCALIBRATED)
-                    .style(LineStyle::dashed_dense())
-                    .width(1.4),
+                    Line::new(name, points)
+                        .color(palette::UNCALIBRATED)
+                        .style(LineStyle::dashed_dense())
+                        .width(1.4),
                 );
             }
         }
@@ -117,6 +126,7 @@ pub fn spacing_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
             );
         }
         super::overlay::draw(plot_ui, view);
+        super::operating_line(plot_ui, view);
         reading_points(plot_ui, view, |r| view.x_of_length(r.length));
 
         present_marker(

@@ -35,7 +35,10 @@ pub fn trimmer_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
             view,
             &visuals,
             (bounds[2], bounds[3]),
-            !same_length.is_empty(),
+            (
+                same_length.iter().any(|r| !r.clipped()),
+                same_length.iter().any(|r| r.clipped()),
+            ),
         ),
     );
 
@@ -65,6 +68,7 @@ pub fn trimmer_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
         }
         target_channel(plot_ui, view);
         aeronautical_band(plot_ui, (bounds[2], bounds[3]));
+        super::operating_line(plot_ui, view);
         let at_length = ChartView {
             readings: &same_length,
             ..*view

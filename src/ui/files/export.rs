@@ -100,7 +100,17 @@ impl FileDesk {
             if i == 1 {
                 ui.separator();
             }
-            if ui.button(export.menu_label()).clicked() {
+            // A fixed tank has no trimmer chart: the item is greyed, its hover says why.
+            let refused = match export {
+                Export::Chart(kind, _) => crate::handout::refused(kind, doc),
+                Export::Sheet => None,
+            };
+            let button = ui.add_enabled(refused.is_none(), egui::Button::new(export.menu_label()));
+            let button = match &refused {
+                Some(why) => button.on_disabled_hover_text(why),
+                None => button,
+            };
+            if button.clicked() {
                 ui.close();
                 self.export(export, doc, footing);
             }

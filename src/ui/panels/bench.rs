@@ -14,6 +14,13 @@ use eframe::egui::{self, RichText};
 const SIDE_BY_SIDE_WIDTH: f32 = 560.0;
 /// Share of the centre's height given to the coil drawing.
 const DRAWING_SHARE: f32 = 0.36;
+/// The least height of a chart (legend and plot), points: below it the plot was a strip
+/// (about 110 px at 1280×720, issue 21); the centre scrolls instead.
+pub const MIN_CHART_HEIGHT: f32 = 280.0;
+
+/// Said where the trimmer chart would be, for a fixed tank.
+pub const FIXED_TANK_NOTE: &str = "A fixed tank: no trimmer, so no trimmer chart. The coil's \
+                                   length is the only adjustment: the spacing chart shows it.";
 
 /// What the teaching bench adds to the centre (nothing by default).
 #[derive(Default)]
@@ -50,6 +57,30 @@ pub fn show(
             .color(theme::refusal(ui)),
         );
     }
+    // Everything below scrolls when the centre is too short for the drawing and charts at
+    // their least heights; inside, the available height is still the visible height.
+    let picks = egui::ScrollArea::vertical()
+        .id_salt("tankwright centre")
+        .auto_shrink(false)
+        .show(ui, |ui| {
+            drawing_and_charts(ui, evaluation, figures, readings, spacing, unit, extras)
+        })
+        .inner;
+    commands.extend(picks);
+}
+
+/// The coil drawing and the charts below it: each chart at least [`MIN_CHART_HEIGHT`] tall;
+/// what the user drags, as commands.
+fn drawing_and_charts(
+    ui: &mut egui::Ui,
+    evaluation: &Evaluation,
+    figures: &crate::recipe::Figures,
+    readings: &[BenchEntry],
+    spacing: SpacingSpec,
+    unit: LengthUnit,
+    extras: &Extras<'_>,
+) -> Vec<Command> {
+    let mut commands = Vec::new();
     let width = ui.available_width();
     let drawing_height = (ui.available_height() * DRAWING_SHARE).max(160.0);
     let drawn = ui
@@ -68,6 +99,7 @@ pub fn show(
             length: e.length,
             setting: e.trimmer_setting,
             measured: e.measured,
+            added: e.added_capacitance,
         })
         .collect();
     let view = ChartView {
@@ -86,9 +118,15 @@ pub fn show(
         },
         unit,
         overlays: extras.overlays,
+        operating: evaluation.operating(),
     };
-    let chart_height = ui.available_height();
-    let (spacing_pick, trimmer_pick) = if extras.spacing_only {
+    let fixed = figures.tank.is_fixed();
+    if fixed && !extras.spacing_only {
+        // No flat trimmer chart for a tank with no trimmer: a sentence says why.
+        ui.label(FIXED_TANK_NOTE);
+    }
+    let chart_height = ui.available_height().max(MIN_CHART_HEIGHT);
+    let (spacing_pick, trimmer_pick) = if extras.spacing_only || fixed {
         let size = egui::vec2(width, chart_height);
         let pick = ui.allocate_ui(size, |ui| charts::spacing_chart(ui, &view));
         (pick.inner, None)
@@ -105,8 +143,10 @@ pub fn show(
             )
         })
     } else {
-        // A narrow centre stacks the charts.
-        let size = egui::vec2(width, 0.5 * chart_height - ui.spacing().item_spacing.y);
+        // A narrow centre stacks the charts, each at least the least height (the centre
+        // scrolls).
+        let half = (0.5 * chart_height - ui.spacing().item_spacing.y).max(MIN_CHART_HEIGHT);
+        let size = egui::vec2(width, half);
         (
             ui.allocate_ui(size, |ui| charts::spacing_chart(ui, &view))
                 .inner,
@@ -120,4 +160,5 @@ pub fn show(
     if let Some(setting) = trimmer_pick {
         commands.push(Command::SetTrimmer(setting));
     }
+    commands
 }

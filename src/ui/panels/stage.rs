@@ -1,15 +1,18 @@
 //! The oscillator stage round the tank (issue 25): its bias and transistor typed here, a small
 //! schematic with the values on it, and the engine's figures and advice (`tuning::stage`, the
-//! same function `tankwright stage` calls, on the tank the figures drive). The settings live
-//! in the window, not in the recipe; they are recomputed only when an input or the tank
-//! changes.
+//! same function `tankwright stage` calls, on the tank the figures drive). The settings are
+//! the recipe's (`Recipe::stage`, saved with it; the demo stage is shown until the first
+//! change sets them); the figures are recomputed only when a setting or the tank changes.
 
 use super::stage_schematic::{self, Values};
 use crate::model::{Coil, Conditions, Tank};
+use crate::tuning::stage::settings::{CBC_RANGE_F, CBE_RANGE_F, CLAPP_RANGE_F, FT_RANGE_HZ};
+use crate::tuning::stage::transistor::BETA_RANGE;
 use crate::tuning::stage::{
-    Bias, FREQUENCY_ACCURACY, RELIABLE_LOOP_GAIN, StageFigures, StageInputs, Start, Topology,
-    Transistor, stage,
+    BATTERY_RANGE_MAH, RELIABLE_LOOP_GAIN, RESISTOR_RANGE_OHM, SUPPLY_RANGE_V, StageFigures,
+    StageSettings, Start, Topology, Transistor, TransistorSpec, frequency_accuracy, stage,
 };
+use crate::units;
 use eframe::egui;
 
 /// The collapsible section holding the panel.
@@ -39,76 +42,57 @@ pub const USE_MODEL_BUTTON: &str = "Use this transistor model";
 /// The button that goes back to the four figures.
 pub const USE_FIGURES_BUTTON: &str = "Use the four figures";
 
-/// What the user sets, in display units.
-#[derive(Clone, Copy, Debug, PartialEq)]
-struct Settings {
-    topology: Topology,
-    supply_v: f64,
-    upper_ohm: f64,
-    lower_ohm: f64,
-    emitter_ohm: f64,
-    hfe: f64,
-    cbe_pf: f64,
-    cbc_pf: f64,
-    ft_mhz: f64,
-    battery_mah: f64,
-}
+/// Clapp capacitor field (common collector).
+pub const CLAPP_LABEL: &str = "Clapp series capacitor";
+/// The switch that puts a Clapp capacitor in the common-collector stage.
+pub const CLAPP_SWITCH: &str = "Clapp series capacitor in the tank's branch";
 
-/// The panel's inputs and its last figures.
+/// The panel's pasted text, its last refusal and its last figures; the settings themselves
+/// live in the recipe (`Recipe::stage`), so they are saved with it.
+#[derive(Default)]
 pub struct StagePanel {
-    settings: Settings,
     model_text: String,
-    /// The transistor read from the pasted line, when it is used instead of the figures.
-    model: Option<Transistor>,
     /// Why the last pasted line was refused.
     model_error: Option<String>,
     cached: Option<(Key, Result<StageFigures, String>)>,
 }
 
-type Key = (Coil, Tank, Conditions, Settings, Option<Transistor>);
+type Key = (Coil, Tank, Conditions, StageSettings);
 
-impl Default for StagePanel {
-    fn default() -> Self {
-        // The Lantern Hill club's bench stage (demo data): a 9 V battery, a 10 k / 10 k base
-        // divider and 100 k in the emitter, a small VHF transistor's figures.
-        Self {
-            settings: Settings {
-                topology: Topology::CommonBase,
-                supply_v: 9.0,
-                upper_ohm: 10e3,
-                lower_ohm: 10e3,
-                emitter_ohm: 100e3,
-                hfe: 80.0,
-                cbe_pf: 2.0,
-                cbc_pf: 0.8,
-                ft_mhz: 800.0,
-                battery_mah: 500.0,
-            },
-            model_text: String::new(),
-            model: None,
-            model_error: None,
-            cached: None,
-        }
-    }
-}
-
+/// A number field showing an SI value in a display `unit` (its two conversions):
+/// the SI value is written back only when the field was changed, so a value is never rounded
+/// by merely being shown.
+#[expect(
+    clippy::too_many_arguments,
+    reason = "one row of a grid: its label, value, range, display unit, step and suffix"
+)]
 fn number(
     ui: &mut egui::Ui,
     label: &str,
     value: &mut f64,
     range: (f64, f64),
+    unit: units::Pair,
     speed: f64,
     suffix: &str,
+    changed: &mut bool,
 ) {
     let l = ui.label(label);
-    ui.add(
-        egui::DragValue::new(value)
-            .range(range.0..=range.1)
-            .speed(speed)
-            .max_decimals(3)
-            .suffix(suffix),
-    )
-    .labelled_by(l.id);
+    let (to, from) = unit;
+    let mut shown = to(*value);
+    let r = crate::ui::widgets::steady(ui, label, |ui| {
+        ui.add(
+            egui::DragValue::new(&mut shown)
+                .range(to(range.0)..=to(range.1))
+                .speed(speed)
+                .max_decimals(3)
+                .suffix(suffix),
+        )
+        .labelled_by(l.id)
+    });
+    if r.changed() {
+        *value = from(shown);
+        *changed = true;
+    }
     ui.end_row();
 }
 
@@ -128,50 +112,88 @@ fn ohms(r: f64) -> String {
 }
 
 impl StagePanel {
-    fn inputs(&self) -> StageInputs {
-        let s = &self.settings;
-        StageInputs {
-            topology: s.topology,
-            bias: Bias {
-                supply_v: s.supply_v,
-                upper: s.upper_ohm,
-                lower: s.lower_ohm,
-                emitter: s.emitter_ohm,
-            },
-            transistor: self.model.clone().unwrap_or_else(|| {
-                Transistor::from_figures(s.hfe, s.cbe_pf * 1e-12, s.cbc_pf * 1e-12, s.ft_mhz * 1e6)
-            }),
-            battery_charge: Some(s.battery_mah * 3.6),
-        }
-    }
-
-    fn transistor_ui(&mut self, ui: &mut egui::Ui) {
-        let s = &mut self.settings;
-        match &self.model {
-            None => {
+    fn transistor_ui(
+        &mut self,
+        ui: &mut egui::Ui,
+        settings: &mut StageSettings,
+        changed: &mut bool,
+    ) {
+        match &mut settings.transistor {
+            TransistorSpec::Figures { hfe, cbe, cbc, ft } => {
                 egui::Grid::new("tankwright stage transistor")
                     .num_columns(2)
                     .show(ui, |ui| {
-                        number(ui, HFE_LABEL, &mut s.hfe, (5.0, 2000.0), 1.0, "");
-                        number(ui, CBE_LABEL, &mut s.cbe_pf, (0.0, 1000.0), 0.05, " pF");
-                        number(ui, CBC_LABEL, &mut s.cbc_pf, (0.0, 100.0), 0.02, " pF");
-                        number(ui, FT_LABEL, &mut s.ft_mhz, (10.0, 100_000.0), 10.0, " MHz");
+                        number(
+                            ui,
+                            HFE_LABEL,
+                            hfe,
+                            BETA_RANGE,
+                            units::AS_SI,
+                            1.0,
+                            "",
+                            changed,
+                        );
+                        number(
+                            ui,
+                            CBE_LABEL,
+                            cbe,
+                            CBE_RANGE_F,
+                            units::PF,
+                            0.05,
+                            " pF",
+                            changed,
+                        );
+                        number(
+                            ui,
+                            CBC_LABEL,
+                            cbc,
+                            CBC_RANGE_F,
+                            units::PF,
+                            0.02,
+                            " pF",
+                            changed,
+                        );
+                        number(
+                            ui,
+                            FT_LABEL,
+                            ft,
+                            FT_RANGE_HZ,
+                            units::MHZ,
+                            10.0,
+                            " MHz",
+                            changed,
+                        );
                     });
             }
-            Some(t) => {
-                let mut text = format!(
-                    "Transistor from the model {}: hFE {:.0}, IS {:.2e} A, TF {:.0} ps.",
-                    t.name.as_deref().unwrap_or("?"),
-                    t.beta,
-                    t.saturation_current,
-                    t.transit_time * 1e12
-                );
-                if !t.unused.is_empty() {
-                    text.push_str(&format!(" Not used: {}.", t.unused.join(", ")));
+            TransistorSpec::Model(text) => {
+                match Transistor::from_model(text) {
+                    Ok(t) => {
+                        let mut line = format!(
+                            "Transistor from the model {}: hFE {:.0}, IS {:.2e} A, TF {:.0} ps.",
+                            t.name.as_deref().unwrap_or("?"),
+                            t.beta,
+                            t.saturation_current,
+                            t.transit_time * 1e12
+                        );
+                        if !t.unused.is_empty() {
+                            line.push_str(&format!(" Not used: {}.", t.unused.join(", ")));
+                        }
+                        ui.add(egui::Label::new(line).wrap());
+                    }
+                    Err(e) => {
+                        let colour = ui.visuals().error_fg_color;
+                        ui.add(
+                            egui::Label::new(
+                                egui::RichText::new(format!("The recipe's model line: {e}"))
+                                    .color(colour),
+                            )
+                            .wrap(),
+                        );
+                    }
                 }
-                ui.add(egui::Label::new(text).wrap());
                 if ui.button(USE_FIGURES_BUTTON).clicked() {
-                    self.model = None;
+                    settings.transistor = StageSettings::default().transistor;
+                    *changed = true;
                 }
             }
         }
@@ -181,6 +203,7 @@ impl StagePanel {
                 let l = ui.label(MODEL_LABEL);
                 ui.add(
                     egui::TextEdit::multiline(&mut self.model_text)
+                        .id_salt("stage_model_line")
                         .hint_text(".model NAME NPN(IS=… BF=… CJE=… CJC=… TF=…)")
                         .desired_rows(3)
                         .desired_width(f32::INFINITY)
@@ -189,9 +212,10 @@ impl StagePanel {
                 .labelled_by(l.id);
                 if ui.button(USE_MODEL_BUTTON).clicked() {
                     match Transistor::from_model(&self.model_text) {
-                        Ok(t) => {
-                            self.model = Some(t);
+                        Ok(_) => {
+                            settings.transistor = TransistorSpec::Model(self.model_text.clone());
                             self.model_error = None;
+                            *changed = true;
                         }
                         Err(e) => {
                             self.model_error = Some(format!(
@@ -208,54 +232,132 @@ impl StagePanel {
             });
     }
 
-    /// Show the stage's inputs, its schematic and its figures for `coil` in `tank` at
+    /// Show the stage's inputs (the recipe's `stage`, the demo stage until one is set: set
+    /// there on the first change), its schematic and its figures for `coil` in `tank` at
     /// `conditions` (the tank the figures drive).
     pub fn show(
         &mut self,
         ui: &mut egui::Ui,
+        kept: &mut Option<StageSettings>,
         coil: Option<&Coil>,
         tank: &Tank,
         conditions: &Conditions,
     ) {
-        let s = &mut self.settings;
+        let mut s = kept.clone().unwrap_or_default();
+        let mut changed = false;
         ui.horizontal(|ui| {
             for t in Topology::ALL {
-                ui.selectable_value(&mut s.topology, t, t.label());
+                changed |= ui.selectable_value(&mut s.topology, t, t.label()).changed();
             }
         });
+        let c = &mut changed;
         egui::Grid::new("tankwright stage bias")
             .num_columns(2)
             .show(ui, |ui| {
-                number(ui, SUPPLY_LABEL, &mut s.supply_v, (0.5, 30.0), 0.05, " V");
-                number(ui, UPPER_LABEL, &mut s.upper_ohm, (1.0, 10e6), 50.0, " Ω");
-                number(ui, LOWER_LABEL, &mut s.lower_ohm, (1.0, 10e6), 50.0, " Ω");
+                let b = &mut s.bias;
+                number(
+                    ui,
+                    SUPPLY_LABEL,
+                    &mut b.supply_v,
+                    SUPPLY_RANGE_V,
+                    units::AS_SI,
+                    0.05,
+                    " V",
+                    c,
+                );
+                let r = RESISTOR_RANGE_OHM;
+                number(
+                    ui,
+                    UPPER_LABEL,
+                    &mut b.upper,
+                    r,
+                    units::AS_SI,
+                    50.0,
+                    " Ω",
+                    c,
+                );
+                number(
+                    ui,
+                    LOWER_LABEL,
+                    &mut b.lower,
+                    r,
+                    units::AS_SI,
+                    50.0,
+                    " Ω",
+                    c,
+                );
                 number(
                     ui,
                     EMITTER_LABEL,
-                    &mut s.emitter_ohm,
-                    (1.0, 10e6),
+                    &mut b.emitter,
+                    r,
+                    units::AS_SI,
                     50.0,
                     " Ω",
+                    c,
+                );
+                let mut charge = s.battery_charge.unwrap_or(units::from_mah(500.0));
+                let before = charge;
+                let range = (
+                    units::from_mah(BATTERY_RANGE_MAH.0),
+                    units::from_mah(BATTERY_RANGE_MAH.1),
                 );
                 number(
                     ui,
                     BATTERY_LABEL,
-                    &mut s.battery_mah,
-                    (1.0, 1e6),
+                    &mut charge,
+                    range,
+                    units::MAH,
                     10.0,
                     " mAh",
+                    c,
                 );
+                if charge != before {
+                    s.battery_charge = Some(charge);
+                }
             });
-        self.transistor_ui(ui);
+        if s.topology == Topology::CommonCollector {
+            let mut on = s.clapp.is_some();
+            if ui.checkbox(&mut on, CLAPP_SWITCH).changed() {
+                s.clapp = on.then_some(units::from_pf(10.0));
+                changed = true;
+            }
+            if let Some(cs) = &mut s.clapp {
+                egui::Grid::new("tankwright stage clapp")
+                    .num_columns(2)
+                    .show(ui, |ui| {
+                        number(
+                            ui,
+                            CLAPP_LABEL,
+                            cs,
+                            CLAPP_RANGE_F,
+                            units::PF,
+                            0.1,
+                            " pF",
+                            &mut changed,
+                        );
+                    });
+            }
+        } else if s.clapp.is_some() {
+            // Leaving the common-collector stage takes its Clapp capacitor out.
+            s.clapp = None;
+            changed = true;
+        }
+        self.transistor_ui(ui, &mut s, &mut changed);
+        if changed {
+            *kept = Some(s.clone());
+        }
         let Some(coil) = coil else {
             return;
         };
-        let key: Key = (*coil, *tank, *conditions, self.settings, self.model.clone());
+        let key: Key = (*coil, *tank, *conditions, s.clone());
         if self.cached.as_ref().is_none_or(|(k, _)| *k != key) {
-            let figures = stage(coil, tank, conditions, &self.inputs()).map_err(|e| e.to_string());
+            let figures = s
+                .inputs()
+                .and_then(|i| stage(coil, tank, conditions, &i))
+                .map_err(|e| e.to_string());
             self.cached = Some((key, figures));
         }
-        let s = self.settings;
         let own = tank.fixed + tank.trimmer_at(tank.trimmer_setting) + tank.stray;
         let (c_upper, c_lower) = tank.feedback.map_or((String::new(), String::new()), |d| {
             (
@@ -263,14 +365,15 @@ impl StagePanel {
                 format!("{:.1} pF", d.lower * 1e12),
             )
         });
+        let b = &s.bias;
         stage_schematic::draw(
             ui,
             s.topology,
             &Values {
-                supply: format!("{} V", s.supply_v),
-                upper: ohms(s.upper_ohm),
-                lower: ohms(s.lower_ohm),
-                emitter: ohms(s.emitter_ohm),
+                supply: format!("{} V", b.supply_v),
+                upper: ohms(b.upper),
+                lower: ohms(b.lower),
+                emitter: ohms(b.emitter),
                 c_upper,
                 c_lower,
                 tank: format!("{:.1} pF", own * 1e12),
@@ -285,7 +388,7 @@ impl StagePanel {
                 let colour = ui.visuals().error_fg_color;
                 ui.add(egui::Label::new(egui::RichText::new(e).color(colour)).wrap());
             }
-            Ok(f) => figures_ui(ui, f, s.battery_mah),
+            Ok(f) => figures_ui(ui, f, s.battery_charge.map_or(0.0, units::to_mah)),
         }
     }
 }
@@ -317,7 +420,10 @@ fn figures_ui(ui: &mut egui::Ui, f: &StageFigures, battery_mah: f64) {
     let accuracy = if f.start == Start::TooHard {
         "a hard start runs further off".to_owned()
     } else {
-        format!("within about {:.1} %", FREQUENCY_ACCURACY * 100.0)
+        format!(
+            "within about {:.1} %",
+            frequency_accuracy(f.topology) * 100.0
+        )
     };
     line(format!(
         "Runs at {:.3} MHz ({accuracy}); the tank alone {:.3} MHz: pulled {:+.0} kHz",

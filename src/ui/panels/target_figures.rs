@@ -70,6 +70,74 @@ pub fn show(
         .indent(true)
         .show(ui);
     }
+    if figures.tank.is_fixed() {
+        // A fixed tank: no travel to list, no channels "in reach" of a trimmer, no setting
+        // for the target; the length is the adjustment (below).
+        Readout::new(
+            "Trimmer",
+            "none (a fixed tank)".to_owned(),
+            "This tank has no trimmer (or one of no span): its resonance moves only with the \
+             coil's length or a change of fixed capacitance",
+        )
+        .show(ui);
+    } else {
+        trimmer_readouts(ui, figures, target, commands);
+    }
+
+    let per_unit = to_khz(t.stretch_sensitivity * unit.metres_per_unit());
+    Readout::new(
+        &format!("kHz per {} of stretch", unit.suffix()),
+        format!("{per_unit:+.0} kHz/{}", unit.suffix()),
+        "How far the resonance moves when the coil is stretched, at the present trimmer setting \
+         (central difference of ±1 % of the length)",
+    )
+    .show(ui);
+
+    match &t.length_for_target {
+        Ok(length) => {
+            let change = length - figures.coil.length();
+            Readout::new(
+                "Length for target",
+                format!(
+                    "{} ({}{})",
+                    unit.show(*length),
+                    if change >= 0.0 { "+" } else { "−" },
+                    unit.show(change.abs())
+                ),
+                "Coil length (turns × pitch) that lands on the channel at the present trimmer \
+                 setting, by bisection between close-wound and four diameters",
+            )
+            .show(ui);
+            if ui
+                .button("Stretch to target")
+                .on_hover_text("Set the coil length to the length for target")
+                .clicked()
+            {
+                commands.push(Command::SetLength(*length));
+            }
+        }
+        Err(why) => {
+            Readout::new(
+                "Length for target",
+                "out of reach".to_owned(),
+                "Coil length that lands on the channel at the present trimmer setting",
+            )
+            .show(ui);
+            cautions_line(ui, &why.to_string());
+            ui.add_enabled(false, egui::Button::new("Stretch to target"));
+        }
+    }
+}
+
+/// The trimmer's readouts: what it reaches, the channels in that reach, and the setting for
+/// the target (a tank with a trimmer travel).
+fn trimmer_readouts(
+    ui: &mut egui::Ui,
+    figures: &Figures,
+    target: &Target,
+    commands: &mut Vec<Command>,
+) {
+    let t = &figures.target;
     Readout::new(
         "Trimmer reaches",
         crate::tuning::digits::mhz_range(t.window.0, t.window.1),
@@ -141,50 +209,6 @@ pub fn show(
             )
             .show(ui);
             cautions_line(ui, &why.to_string());
-        }
-    }
-
-    let per_unit = to_khz(t.stretch_sensitivity * unit.metres_per_unit());
-    Readout::new(
-        &format!("kHz per {} of stretch", unit.suffix()),
-        format!("{per_unit:+.0} kHz/{}", unit.suffix()),
-        "How far the resonance moves when the coil is stretched, at the present trimmer setting \
-         (central difference of ±1 % of the length)",
-    )
-    .show(ui);
-
-    match &t.length_for_target {
-        Ok(length) => {
-            let change = length - figures.coil.length();
-            Readout::new(
-                "Length for target",
-                format!(
-                    "{} ({}{})",
-                    unit.show(*length),
-                    if change >= 0.0 { "+" } else { "−" },
-                    unit.show(change.abs())
-                ),
-                "Coil length (turns × pitch) that lands on the channel at the present trimmer \
-                 setting, by bisection between close-wound and four diameters",
-            )
-            .show(ui);
-            if ui
-                .button("Stretch to target")
-                .on_hover_text("Set the coil length to the length for target")
-                .clicked()
-            {
-                commands.push(Command::SetLength(*length));
-            }
-        }
-        Err(why) => {
-            Readout::new(
-                "Length for target",
-                "out of reach".to_owned(),
-                "Coil length that lands on the channel at the present trimmer setting",
-            )
-            .show(ui);
-            cautions_line(ui, &why.to_string());
-            ui.add_enabled(false, egui::Button::new("Stretch to target"));
         }
     }
 }

@@ -117,6 +117,22 @@ fn topic_caption(
             a.nagaoka_coefficient,
             to_nh(a.total_inductance),
         ),
+        Topic::Capacitance if shown.tank.is_fixed() => {
+            // A fixed tank: no trimmer to name, no travel from a frequency to itself.
+            let tank = &shown.tank;
+            format!(
+                "The fixed capacitor ({:.1} pF) and the stray ({:.1} pF) sit across the coil \
+                 beside its own {:.2} pF: {:.2} pF in all, with no trimmer (a fixed tank). The \
+                 frequency goes as 1/√(LC), so more capacitance lowers every point of the \
+                 curve in the same proportion: the whole curve moves down. At this length the \
+                 tank resonates at {}.",
+                to_pf(tank.fixed + tank.trimmer_at(tank.trimmer_setting)),
+                to_pf(tank.stray),
+                to_pf(a.self_capacitance),
+                to_pf(a.total_capacitance),
+                digits::mhz(shown.target.resonance),
+            )
+        }
         Topic::Capacitance => {
             let tank = &shown.tank;
             let (low, high) = moment.travel.unwrap_or(shown.target.window);

@@ -13,16 +13,19 @@ pub const PRESENTATION_KEY: Key = Key::F5;
 /// small room on a 1280×720 projector, common practice for slides).
 pub const TYPE_SCALE: f32 = 1.6;
 
+/// The small type (the charts' legends, their curve labels and hover) on a projector, points:
+/// about 18 pt, read from the back of a small room on a 1280×720 projector like the body
+/// (common practice for slides: nothing under about 18 pt). The legends sit above the charts
+/// (charts/legend.rs), so their larger type covers no curve.
+pub const LEGEND_POINTS: f32 = 18.0;
+
 /// Enlarge `style`'s type and spacing for the projector.
 pub fn enlarge(style: &mut egui::Style) {
     for (text_style, font) in &mut style.text_styles {
-        let scale = match text_style {
-            // The legend and hover use the small size: grown less, so the legend does not
-            // cover the curves.
-            TextStyle::Small => TYPE_SCALE * 0.85,
-            _ => TYPE_SCALE,
-        };
-        font.size *= scale;
+        match text_style {
+            TextStyle::Small => font.size = font.size.max(LEGEND_POINTS),
+            _ => font.size *= TYPE_SCALE,
+        }
     }
     style.spacing.interact_size *= 1.3;
     style.spacing.button_padding *= 1.4;
