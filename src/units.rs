@@ -60,6 +60,10 @@ unit_pair!(to_mw, from_mw, up 1e3, "Watts", "milliwatts");
 unit_pair!(to_kohm, from_kohm, down 1e3, "Ohms", "kilohms");
 unit_pair!(to_mohm, from_mohm, up 1e3, "Ohms", "milliohms");
 unit_pair!(to_ms, from_ms, up 1e3, "Seconds", "milliseconds");
+unit_pair!(to_us, from_us, up 1e6, "Seconds", "microseconds");
+unit_pair!(to_ps, from_ps, up 1e12, "Seconds", "picoseconds");
+unit_pair!(to_megohm, from_megohm, down 1e6, "Ohms", "megohms");
+unit_pair!(to_millisiemens, from_millisiemens, up 1e3, "Siemens", "millisiemens");
 unit_pair!(to_ppm, from_ppm, up 1e6, "A fraction", "parts per million");
 
 /// Hertz to kilohertz per millimetre, for a slope in hertz per metre (the stretch
@@ -105,7 +109,7 @@ mod tests {
     #[test]
     fn each_pair_returns_what_it_was_given() {
         type Conversion = fn(f64) -> f64;
-        let pairs: [(Conversion, Conversion); 17] = [
+        let pairs: [(Conversion, Conversion); 21] = [
             (to_mm, from_mm),
             (to_um, from_um),
             (to_pf, from_pf),
@@ -123,6 +127,10 @@ mod tests {
             (to_mohm, from_mohm),
             (to_ms, from_ms),
             (to_ppm, from_ppm),
+            (to_us, from_us),
+            (to_ps, from_ps),
+            (to_megohm, from_megohm),
+            (to_millisiemens, from_millisiemens),
         ];
         for (to, from) in pairs {
             for si in [1e-12, 3.3e-9, 0.1, 1.0, 98.7e6] {

@@ -18,6 +18,7 @@ use crate::tuning::stage::{
     stage, transistor::BETA_RANGE,
 };
 use crate::units;
+use crate::units::{to_khz, to_ma, to_mhz, to_millisiemens, to_pf, to_us};
 use serde_json::json;
 use std::path::Path;
 
@@ -228,30 +229,30 @@ pub fn stage_json(s: &StageFigures, battery_mah: Option<f64>) -> serde_json::Val
         "loop_gain": s.loop_gain,
         "start_margin": s.start_margin,
         "transformer_estimate": s.transformer_estimate,
-        "collector_ma": op.collector_current * 1e3,
+        "collector_ma": to_ma(op.collector_current),
         "collector_emitter_v": op.collector_emitter_v,
         "base_v": op.base_v,
         "emitter_v": op.emitter_v,
-        "transconductance_ms": op.transconductance * 1e3,
+        "transconductance_ms": to_millisiemens(op.transconductance),
         "active": s.active,
         "rating_faults": s.rating_faults,
-        "c_pi_pf": s.c_pi * 1e12,
-        "c_mu_pf": s.c_mu * 1e12,
-        "transit_frequency_mhz": s.transit_frequency * 1e-6,
+        "c_pi_pf": to_pf(s.c_pi),
+        "c_mu_pf": to_pf(s.c_mu),
+        "transit_frequency_mhz": to_mhz(s.transit_frequency),
         "coil_resistance_ohm": s.coil_resistance,
         "coil_q": s.coil_q,
-        "frequency_mhz": s.frequency * 1e-6,
+        "frequency_mhz": to_mhz(s.frequency),
         "frequency_accuracy": frequency_accuracy(s.topology),
-        "small_signal_frequency_mhz": s.small_signal_frequency.map(|f| f * 1e-6),
-        "tank_frequency_mhz": s.tank_frequency * 1e-6,
-        "pulling_khz": s.pulling * 1e-3,
-        "supply_ma": s.supply_current * 1e3,
+        "small_signal_frequency_mhz": s.small_signal_frequency.map(to_mhz),
+        "tank_frequency_mhz": to_mhz(s.tank_frequency),
+        "pulling_khz": to_khz(s.pulling),
+        "supply_ma": to_ma(s.supply_current),
         "battery_mah": battery_mah,
         "battery_hours": s.battery_life.map(|t| t / 3600.0),
         "junction": {
-            "c_bc_pf": s.junction.capacitance * 1e12,
+            "c_bc_pf": to_pf(s.junction.capacitance),
             "share": s.junction.share,
-            "khz_per_v": s.junction.hz_per_volt * 1e-3,
+            "khz_per_v": to_khz(s.junction.hz_per_volt),
         },
         "unused_model_parameters": s.unused,
         "advice": s.advice,
@@ -288,11 +289,11 @@ fn stage_text(s: &StageFigures, inputs: &StageInputs, battery_mah: Option<f64>) 
         format!(
             "  operating point: collector {:.3} mA, collector-emitter {:.2} V, base {:.2} V, \
              emitter {:.2} V, gm {:.2} mS{}",
-            op.collector_current * 1e3,
+            to_ma(op.collector_current),
             op.collector_emitter_v,
             op.base_v,
             op.emitter_v,
-            op.transconductance * 1e3,
+            to_millisiemens(op.transconductance),
             if s.active {
                 ""
             } else {
@@ -305,9 +306,9 @@ fn stage_text(s: &StageFigures, inputs: &StageInputs, battery_mah: Option<f64>) 
     }
     out.push(format!(
         "  transistor at that point: C_pi {:.2} pF, C_mu {:.2} pF, fT {:.0} MHz",
-        s.c_pi * 1e12,
-        s.c_mu * 1e12,
-        s.transit_frequency * 1e-6
+        to_pf(s.c_pi),
+        to_pf(s.c_mu),
+        to_mhz(s.transit_frequency)
     ));
     out.push(format!(
         "  coil at the operating frequency: {:.3} ohm, Q {:.0}",
@@ -330,27 +331,27 @@ fn stage_text(s: &StageFigures, inputs: &StageInputs, battery_mah: Option<f64>) 
     };
     out.push(format!(
         "  frequency {:.4} MHz ({accuracy}), tank alone {:.4} MHz: pulled {:+.0} kHz",
-        s.frequency * 1e-6,
-        s.tank_frequency * 1e-6,
-        s.pulling * 1e-3
+        to_mhz(s.frequency),
+        to_mhz(s.tank_frequency),
+        to_khz(s.pulling)
     ));
     if let (Some(f), Some(rate)) = (s.small_signal_frequency, s.ring_growth_rate)
         && s.start != Start::TooHard
     {
         out.push(format!(
             "  at switch-on it rings at {:.4} MHz, {} tenfold every {:.2} us",
-            f * 1e-6,
+            to_mhz(f),
             if rate > 0.0 { "growing" } else { "dying away" },
-            std::f64::consts::LN_10 / rate.abs() * 1e6
+            to_us(std::f64::consts::LN_10 / rate.abs())
         ));
     }
     out.push(format!(
         "  base-collector junction: {:.2} pF, {:.1} % of the tank's capacitance, {:+.1} kHz per volt",
-        s.junction.capacitance * 1e12,
+        to_pf(s.junction.capacitance),
         s.junction.share * 100.0,
-        s.junction.hz_per_volt * 1e-3
+        to_khz(s.junction.hz_per_volt)
     ));
-    let mut supply = format!("  supply current {:.3} mA", s.supply_current * 1e3);
+    let mut supply = format!("  supply current {:.3} mA", to_ma(s.supply_current));
     if let (Some(m), Some(t)) = (battery_mah, s.battery_life) {
         supply.push_str(&format!(
             ": a {} mAh battery lasts about {:.0} hours",

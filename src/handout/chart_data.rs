@@ -10,6 +10,7 @@ use crate::tuning::sweep::{
     CHART_SAMPLES, CHART_SETTINGS, FIXED_CURVE_LABEL, chart_length_range, spacing_sweep_on,
     trimmer_sweep_on,
 };
+use crate::units::{to_mhz, to_mm};
 
 /// Which chart.
 #[derive(Clone, Copy, Debug, PartialEq, Eq)]
@@ -145,7 +146,7 @@ impl ChartData {
     /// The aeronautical band (108–137 MHz) where the frequency range reaches into it.
     pub fn aeronautical(&self) -> Option<(f64, f64)> {
         let (lo, hi) = self.y_range();
-        let band = (AERONAUTICAL.0 * 1e-6, AERONAUTICAL.1 * 1e-6);
+        let band = (to_mhz(AERONAUTICAL.0), to_mhz(AERONAUTICAL.1));
         (hi > band.0 && lo < band.1).then_some((band.0.max(lo), band.1.min(hi)))
     }
 }
@@ -170,14 +171,14 @@ pub fn chart_data(kind: ChartKind, recipe: &Recipe, f: &Figures) -> ChartData {
     let channel = (f.target.channel.is_finite() && f.target.channel > 0.0).then(|| {
         let half = 0.5 * f.target.channel_width.abs();
         Channel {
-            centre: f.target.channel * 1e-6,
+            centre: to_mhz(f.target.channel),
             edges: (
-                (f.target.channel - half) * 1e-6,
-                (f.target.channel + half) * 1e-6,
+                to_mhz(f.target.channel - half),
+                to_mhz(f.target.channel + half),
             ),
         }
     });
-    let resonance = f.target.resonance * 1e-6;
+    let resonance = to_mhz(f.target.resonance);
     let title = format!("{} — {}", kind.title(), recipe.name.trim());
     let range = chart_length_range(&f.coil);
     // The field shape over the chart when the field solution leads the figures (the
@@ -220,19 +221,19 @@ pub fn chart_data(kind: ChartKind, recipe: &Recipe, f: &Figures) -> ChartData {
                 title,
                 x_label: "coil length, turns × pitch (mm)",
                 curves,
-                touching: Some(f.coil.shortest_length() * 1e3),
-                present: Some((f.coil.length() * 1e3, resonance)),
+                touching: Some(to_mm(f.coil.shortest_length())),
+                present: Some((to_mm(f.coil.length()), resonance)),
                 channel,
                 readings: plain
                     .iter()
-                    .map(|e| (e.length * 1e3, e.measured * 1e-6))
+                    .map(|e| (to_mm(e.length), to_mhz(e.measured)))
                     .collect(),
                 clipped: clipped
                     .iter()
                     .map(|e| {
                         (
-                            e.length * 1e3,
-                            e.measured * 1e-6,
+                            to_mm(e.length),
+                            to_mhz(e.measured),
                             crate::units::to_pf(e.added_capacitance),
                         )
                     })
@@ -254,7 +255,7 @@ pub fn chart_data(kind: ChartKind, recipe: &Recipe, f: &Figures) -> ChartData {
                 title,
                 x_label: "trimmer setting (%)",
                 curves: vec![Curve {
-                    label: format!("resonance at {:.2} mm", here * 1e3),
+                    label: format!("resonance at {:.2} mm", to_mm(here)),
                     setting: 0.5,
                     points: finite(points.iter().map(|p| (p[0] * 100.0, p[1] * 1e-6))),
                 }],
@@ -266,7 +267,7 @@ pub fn chart_data(kind: ChartKind, recipe: &Recipe, f: &Figures) -> ChartData {
                 readings: plain
                     .iter()
                     .filter(|e| (e.length - here).abs() <= 1e-6)
-                    .map(|e| (e.trimmer_setting * 100.0, e.measured * 1e-6))
+                    .map(|e| (e.trimmer_setting * 100.0, to_mhz(e.measured)))
                     .collect(),
                 clipped: clipped
                     .iter()
@@ -274,7 +275,7 @@ pub fn chart_data(kind: ChartKind, recipe: &Recipe, f: &Figures) -> ChartData {
                     .map(|e| {
                         (
                             e.trimmer_setting * 100.0,
-                            e.measured * 1e-6,
+                            to_mhz(e.measured),
                             crate::units::to_pf(e.added_capacitance),
                         )
                     })

@@ -11,6 +11,7 @@ use crate::tuning::BandPlan;
 use crate::tuning::bands::us_fm_channel_number;
 use crate::tuning::buildable::former_drills;
 use crate::tuning::digits;
+use crate::units::{to_khz, to_khz_per_mm, to_mhz, to_mm, to_pf};
 
 /// A label and its value.
 pub type Row = (String, String);
@@ -83,8 +84,8 @@ pub fn sheet(recipe: &Recipe, footing: Footing) -> Result<Sheet, String> {
             .map(|(i, e)| {
                 [
                     (i + 1).to_string(),
-                    digits::fixed(e.measured * 1e-6, 4),
-                    digits::fixed(e.length * 1e3, 2),
+                    digits::fixed(to_mhz(e.measured), 4),
+                    digits::fixed(to_mm(e.length), 2),
                     digits::fixed(e.trimmer_setting * 100.0, 0),
                     e.instrument.clone(),
                     e.note.clone(),
@@ -106,17 +107,17 @@ fn row(label: &str, value: String) -> Row {
 fn wire_words(recipe: &Recipe, f: &Figures) -> String {
     let g = &f.coil;
     let size = match recipe.winding.wire.gauge {
-        Gauge::Awg(n) => format!("AWG {n} ({:.3} mm)", g.wire_bare() * 1e3),
-        Gauge::Swg(n) => format!("SWG {n} ({:.3} mm)", g.wire_bare() * 1e3),
-        Gauge::Metric(d) => format!("{:.3} mm", d * 1e3),
+        Gauge::Awg(n) => format!("AWG {n} ({:.3} mm)", to_mm(g.wire_bare())),
+        Gauge::Swg(n) => format!("SWG {n} ({:.3} mm)", to_mm(g.wire_bare())),
+        Gauge::Metric(d) => format!("{:.3} mm", to_mm(d)),
     };
     let coating = match recipe.winding.wire.coating {
         Coating::Bare => "bare copper".to_owned(),
         Coating::EnamelGrade1 => {
-            format!("enamel grade 1, {:.3} mm overall", g.wire_overall() * 1e3)
+            format!("enamel grade 1, {:.3} mm overall", to_mm(g.wire_overall()))
         }
         Coating::EnamelGrade2 => {
-            format!("enamel grade 2, {:.3} mm overall", g.wire_overall() * 1e3)
+            format!("enamel grade 2, {:.3} mm overall", to_mm(g.wire_overall()))
         }
     };
     format!("{size}, {coating}")
@@ -131,7 +132,7 @@ fn drill_words(f: &Figures) -> Option<String> {
             format!(
                 "{} ({} mm from the former)",
                 d.label,
-                digits::signed(d.difference * 1e3, 2)
+                digits::signed(to_mm(d.difference), 2)
             )
         })
         .collect();
@@ -144,8 +145,8 @@ fn coil_rows(recipe: &Recipe, f: &Figures) -> Vec<Row> {
         "former",
         format!(
             "{} mm (mean diameter {} mm)",
-            digits::fixed(g.former_diameter() * 1e3, 3),
-            digits::fixed(g.mean_diameter() * 1e3, 3)
+            digits::fixed(to_mm(g.former_diameter()), 3),
+            digits::fixed(to_mm(g.mean_diameter()), 3)
         ),
     )];
     if let Some(d) = drill_words(f) {
@@ -157,13 +158,13 @@ fn coil_rows(recipe: &Recipe, f: &Figures) -> Vec<Row> {
         "length (turns × pitch)",
         format!(
             "{} mm, a gap of {} mm between turns",
-            digits::fixed(g.length() * 1e3, 2),
-            digits::fixed(g.gap() * 1e3, 2)
+            digits::fixed(to_mm(g.length()), 2),
+            digits::fixed(to_mm(g.gap()), 2)
         ),
     ));
     rows.push(row(
         "leads",
-        format!("{} mm each", digits::fixed(g.lead_length() * 1e3, 1)),
+        format!("{} mm each", digits::fixed(to_mm(g.lead_length()), 1)),
     ));
     rows.push(row(
         "wire to cut",
@@ -176,7 +177,7 @@ fn coil_rows(recipe: &Recipe, f: &Figures) -> Vec<Row> {
 }
 
 fn pf(c: f64) -> String {
-    format!("{} pF", digits::fixed(c * 1e12, 2))
+    format!("{} pF", digits::fixed(to_pf(c), 2))
 }
 
 fn tank_rows(recipe: &Recipe) -> Vec<Row> {
@@ -189,8 +190,8 @@ fn tank_rows(recipe: &Recipe) -> Vec<Row> {
             "trimmer",
             format!(
                 "{}–{} pF, set to {} % ({})",
-                digits::fixed(t.trimmer_min * 1e12, 1),
-                digits::fixed(t.trimmer_max * 1e12, 1),
+                digits::fixed(to_pf(t.trimmer_min), 1),
+                digits::fixed(to_pf(t.trimmer_max), 1),
                 digits::fixed(t.trimmer_setting * 100.0, 0),
                 pf(t.trimmer_at(t.trimmer_setting))
             ),
@@ -245,7 +246,7 @@ fn target_rows(recipe: &Recipe, f: &Figures) -> Vec<Row> {
             format!(
                 "{} MHz{number}, on channel within ±{} kHz",
                 digits::channel_mhz(t.channel),
-                digits::fixed(t.tolerance * 1e-3, 0)
+                digits::fixed(to_khz(t.tolerance), 0)
             ),
         ),
         row(
@@ -269,8 +270,8 @@ fn target_rows(recipe: &Recipe, f: &Figures) -> Vec<Row> {
             "length for the target",
             format!(
                 "{} mm ({} mm from now)",
-                digits::fixed(l * 1e3, 2),
-                digits::signed((l - f.coil.length()) * 1e3, 2)
+                digits::fixed(to_mm(*l), 2),
+                digits::signed(to_mm(l - f.coil.length()), 2)
             ),
         ),
         Err(e) => row("length for the target", format!("not proposed: {e}")),
@@ -288,7 +289,7 @@ fn target_rows(recipe: &Recipe, f: &Figures) -> Vec<Row> {
         "stretching moves it",
         format!(
             "{} kHz per mm",
-            digits::fixed(t.stretch_sensitivity * 1e-6, 0)
+            digits::fixed(to_khz_per_mm(t.stretch_sensitivity), 0)
         ),
     ));
     rows
@@ -304,8 +305,8 @@ fn expect_lines(recipe: &Recipe, f: &Figures) -> Vec<String> {
              entered; with that estimate instead the resonance would be {} (typical {}).",
             settings.construction.label(),
             pf(s.typical),
-            digits::fixed(s.low * 1e12, 2),
-            digits::fixed(s.high * 1e12, 2),
+            digits::fixed(to_pf(s.low), 2),
+            digits::fixed(to_pf(s.high), 2),
             pf(recipe.tank.stray),
             digits::spread_range(e.window.low, e.window.high),
             digits::mhz_at(
@@ -328,24 +329,24 @@ fn steps(recipe: &Recipe, f: &Figures) -> Vec<String> {
     let former = match drill_words(f) {
         Some(d) => format!(
             "{} mm former (nearest drill or rod: {d})",
-            digits::fixed(g.former_diameter() * 1e3, 2)
+            digits::fixed(to_mm(g.former_diameter()), 2)
         ),
-        None => format!("{} mm former", digits::fixed(g.former_diameter() * 1e3, 2)),
+        None => format!("{} mm former", digits::fixed(to_mm(g.former_diameter()), 2)),
     };
     let fixed = recipe.tank.is_fixed();
     let cut = format!(
         "Cut {} mm of {} and wind {} turns close on the {former}.",
-        digits::fixed(g.wire_length() * 1e3, 0),
+        digits::fixed(to_mm(g.wire_length()), 0),
         wire_words(recipe, f),
         digits::fixed(g.turns(), 2)
     );
     let spread = format!(
         "Spread the turns evenly to {} mm (a gap of {} mm), leaving {} mm leads.",
-        digits::fixed(g.length() * 1e3, 2),
-        digits::fixed(g.gap() * 1e3, 2),
-        digits::fixed(g.lead_length() * 1e3, 1)
+        digits::fixed(to_mm(g.length()), 2),
+        digits::fixed(to_mm(g.gap()), 2),
+        digits::fixed(to_mm(g.lead_length()), 1)
     );
-    let per_mm = digits::fixed(f.target.stretch_sensitivity.abs() * 1e-6, 0);
+    let per_mm = digits::fixed(to_mhz(f.target.stretch_sensitivity.abs()), 0);
     if fixed {
         // A fixed tank: the length is the only adjustment (no trimmer to set or finish on).
         return vec![

@@ -22,6 +22,7 @@ use crate::model::Coil;
 use crate::recipe::{Figures, Recipe};
 use crate::tuning::impedance::impedance_sweep;
 use crate::tuning::measured_coil::{MeasuredCoil, fit_measured_coil};
+use crate::units::{to_mhz, to_pf};
 use std::f64::consts::PI;
 use std::fmt::Write as _;
 
@@ -73,7 +74,7 @@ pub fn spice_netlist(recipe: &Recipe, f: &Figures) -> Result<(String, CoilNetwor
     let _ = writeln!(
         w,
         "* The tool's resonance: {:.6} MHz ({})",
-        resonance * 1e-6,
+        to_mhz(resonance),
         f.basis_text()
     );
     let _ = writeln!(
@@ -92,7 +93,7 @@ pub fn spice_netlist(recipe: &Recipe, f: &Figures) -> Result<(String, CoilNetwor
                 resonance * (1.0 + FIT_HALF_BAND) * 1e-6,
                 m.used,
                 m.residual * 100.0,
-                m.at_frequency * 1e-6
+                to_mhz(m.at_frequency)
             );
             if let Some(led) = &f.led
                 && (led.scale - 1.0).abs() > 1e-12
@@ -124,8 +125,8 @@ pub fn spice_netlist(recipe: &Recipe, f: &Figures) -> Result<(String, CoilNetwor
             w,
             "* The trimmer at {:.1} % of its travel ({:.2}-{:.2} pF, linear)",
             tank.trimmer_setting * 100.0,
-            tank.trimmer_min * 1e12,
-            tank.trimmer_max * 1e12
+            to_pf(tank.trimmer_min),
+            to_pf(tank.trimmer_max)
         );
         let _ = writeln!(
             w,

@@ -13,6 +13,7 @@
 //! or dies away.
 
 use crate::tuning::stage::{JunctionCapacitance, StageFigures, StageInputs, Topology};
+use crate::units::{to_ma, to_mhz};
 use std::fmt::Write as _;
 
 /// The analysis the netlist asks for.
@@ -49,8 +50,8 @@ pub fn stage_netlist(f: &StageFigures, inputs: &StageInputs, run: StageRun, extr
         w,
         "* The tool: loop gain {:.4}, operating frequency {:.6} MHz, collector {:.6} mA",
         f.loop_gain,
-        f.frequency * 1e-6,
-        f.operating_point.collector_current * 1e3
+        to_mhz(f.frequency),
+        to_ma(f.operating_point.collector_current)
     );
     let _ = writeln!(w, "Vcc vcc 0 DC {:.9e}", b.supply_v);
     let _ = writeln!(w, "R1 vcc base {:.9e}", b.upper);

@@ -13,6 +13,7 @@ use super::service::{
 };
 use super::solve::trimmer_window;
 use crate::model::{Coil, Conditions, Tank, evaluate::resonance_of};
+use crate::units::{to_mm, to_pf};
 
 /// What a flag is about.
 #[derive(Clone, Copy, Debug, PartialEq, Eq, Hash)]
@@ -310,7 +311,7 @@ impl Verdict {
 
     /// What to do next, lengths in millimetres (see [`next_step_in`](Self::next_step_in)).
     pub fn next_step(&self) -> String {
-        self.next_step_in(|m| format!("{:.2} mm", m * 1e3))
+        self.next_step_in(|m| format!("{:.2} mm", to_mm(m)))
     }
 
     /// What to do next, the most pressing first: touching bare turns, the aeronautical band,
@@ -549,7 +550,7 @@ pub fn remedy(
     let trimmer_max = tank.trimmer_at(1.0);
     // Everything across the coil but the fixed capacitor and the trimmer (stray, divider).
     let others = tank.external_capacitance_at(0.0) - trimmer_min - tank.fixed;
-    let pf = |c: f64| c * 1e12;
+    let pf = |c: f64| to_pf(c);
     let room = need_max - need_min;
     let span = trimmer_max - trimmer_min;
     if span <= room {

@@ -14,6 +14,7 @@
 use super::{RELIABLE_LOOP_GAIN, StageFigures, StageInputs, Start, TOO_HARD_LOOP_GAIN, analyse};
 use crate::model::{Coil, Conditions, FeedbackDivider, Tank};
 use crate::tuning::design::parts::e_series;
+use crate::units::{to_kohm, to_ma, to_megohm, to_pf};
 
 /// The part the advice changes.
 #[derive(Clone, Copy, Debug, PartialEq, Eq)]
@@ -74,9 +75,9 @@ impl Change {
 
 fn ohms(r: f64) -> String {
     if r >= 1e6 {
-        format!("{} MΩ", trim(r / 1e6))
+        format!("{} MΩ", trim(to_megohm(r)))
     } else if r >= 1e3 {
-        format!("{} kΩ", trim(r / 1e3))
+        format!("{} kΩ", trim(to_kohm(r)))
     } else {
         format!("{} Ω", trim(r))
     }
@@ -152,7 +153,7 @@ pub fn propose(
         (Part::LowerBiasResistor, b.lower, 100.0, 1e6),
         (
             Part::LowerDividerCapacitor,
-            tank.feedback.map_or(0.0, |d| d.lower * 1e12),
+            tank.feedback.map_or(0.0, |d| to_pf(d.lower)),
             1.0,
             1000.0,
         ),
@@ -223,13 +224,13 @@ pub fn advise(
                 ohms(c.from),
                 ohms(c.to),
                 c.loop_gain,
-                c.collector_current * 1e3
+                to_ma(c.collector_current)
             ),
             Part::LowerDividerCapacitor => format!(
                 "Change the divider's lower capacitor from {} pF to {} pF (E12; ratio 1:{:.1}) \
                  {why}, then retrim the tank: loop gain {:.1}.",
-                trim(c.from * 1e12),
-                trim(c.to * 1e12),
+                trim(to_pf(c.from)),
+                trim(to_pf(c.to)),
                 c.to / tank.feedback.map_or(c.to, |d| d.upper),
                 c.loop_gain
             ),

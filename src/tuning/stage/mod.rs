@@ -27,6 +27,7 @@ pub mod transistor;
 
 use crate::model::{Coil, Conditions, Tank, evaluate::resonance_of, evaluate_coil};
 use crate::physics::junction::series;
+use crate::units::{to_ma, to_mw, to_pf};
 pub use bias::{Bias, OperatingPoint, operating_point};
 pub use critical::critical_scale;
 pub use junction::{JunctionShare, junction_share};
@@ -265,10 +266,10 @@ impl StageInputs {
         if let Some(c) = self.clapp {
             check(
                 "the Clapp capacitor",
-                c * 1e12,
+                to_pf(c),
                 (
-                    settings::CLAPP_RANGE_F.0 * 1e12,
-                    settings::CLAPP_RANGE_F.1 * 1e12,
+                    to_pf(settings::CLAPP_RANGE_F.0),
+                    to_pf(settings::CLAPP_RANGE_F.1),
                 ),
                 "pF",
             )?;
@@ -406,8 +407,8 @@ pub fn analyse(
     {
         rating_faults.push(format!(
             "the collector current {:.2} mA is above the rated {:.2} mA",
-            op.collector_current * 1e3,
-            max * 1e3
+            to_ma(op.collector_current),
+            to_ma(max)
         ));
     }
     if let Some(max) = r.dissipation_max
@@ -415,8 +416,8 @@ pub fn analyse(
     {
         rating_faults.push(format!(
             "the dissipation {:.0} mW is above the rated {:.0} mW",
-            op.dissipation * 1e3,
-            max * 1e3
+            to_mw(op.dissipation),
+            to_ma(max)
         ));
     }
     Ok(StageFigures {

@@ -15,6 +15,7 @@ use crate::tuning::drift::DriftSource;
 use crate::tuning::modulation::Service;
 use crate::tuning::spice_model::{DeviceType, JunctionModel, parse_model};
 use crate::units;
+use crate::units::{to_khz, to_mhz, to_pf};
 use eframe::egui;
 
 /// The field of the RF peak across the tank (it swings the junction beside the audio).
@@ -115,13 +116,13 @@ fn describe(model: &JunctionModel) -> Result<String, String> {
         ),
     };
     let pf = (units::to_pf(CJ0_RANGE_F.0), units::to_pf(CJ0_RANGE_F.1));
-    in_range(cj, law.cj0 * 1e12, pf, " pF")?;
+    in_range(cj, to_pf(law.cj0), pf, " pF")?;
     in_range(vj, law.contact_potential, VJ_RANGE_V, " V")?;
     in_range(m, law.grading, M_RANGE, "")?;
     let mut text = format!(
         "Read {} ({what}): Cj0 {} pF, potential {} V, exponent {}, FC {}.",
         model.name,
-        short(law.cj0 * 1e12),
+        short(to_pf(law.cj0)),
         short(law.contact_potential),
         short(law.grading),
         short(law.forward_knee)
@@ -346,15 +347,15 @@ impl AudioPanel {
                 "Carrier {:.3} MHz with the junction at {:.2} pF ({:.2} pF at the audio's upper \
                  peak, {:.2} pF at its lower); deviation +{:.1} / −{:.1} kHz, {:.1} kHz per \
                  volt, second harmonic {:.2} %, Carson bandwidth {:.0} kHz.",
-                m.carrier * 1e-6,
-                m.junction_at_bias * 1e12,
-                m.junction_at_high_bias * 1e12,
-                m.junction_at_low_bias * 1e12,
-                m.deviation_up * 1e-3,
-                m.deviation_down * 1e-3,
-                m.sensitivity * 1e-3,
+                to_mhz(m.carrier),
+                to_pf(m.junction_at_bias),
+                to_pf(m.junction_at_high_bias),
+                to_pf(m.junction_at_low_bias),
+                to_khz(m.deviation_up),
+                to_khz(m.deviation_down),
+                to_khz(m.sensitivity),
                 m.distortion * 100.0,
-                m.carson_bandwidth * 1e-3
+                to_khz(m.carson_bandwidth)
             ),
         );
         wrap(ui, swing_words(m, s.audio_peak_v));
@@ -366,7 +367,7 @@ impl AudioPanel {
                     "No service applies at {:.3} MHz: neither the FM broadcast band (76–108 \
                      MHz) nor the 2 m band (144–148 MHz) holds it. The figures below use {} \
                      only as a yardstick.",
-                    r.modulation.carrier * 1e-6,
+                    to_mhz(r.modulation.carrier),
                     r.service.label()
                 ),
             );
@@ -384,7 +385,7 @@ impl AudioPanel {
                 } else {
                     "spills out of"
                 },
-                r.service.channel_width() * 1e-3
+                to_khz(r.service.channel_width())
             ),
         );
         for advice in &v.advice {
@@ -484,24 +485,24 @@ fn drift_ui(ui: &mut egui::Ui, s: &mut AudioSettings, r: &AudioFigures, toleranc
             for line in &r.drift.lines {
                 ui.label(line.source.label());
                 ui.label(change_text(line.source, line.change));
-                ui.label(format!("{:+.1} kHz", line.shift * 1e-3));
+                ui.label(format!("{:+.1} kHz", to_khz(line.shift)));
                 ui.end_row();
             }
             ui.label("all at once");
             ui.label("");
-            ui.label(format!("{:+.1} kHz", r.drift.total * 1e-3));
+            ui.label(format!("{:+.1} kHz", to_khz(r.drift.total)));
             ui.end_row();
             ui.strong("worst case");
             ui.label("");
-            ui.strong(format!("±{:.1} kHz", r.drift.worst_case * 1e-3));
+            ui.strong(format!("±{:.1} kHz", to_khz(r.drift.worst_case)));
             ui.end_row();
         });
     let verdict = if r.drift.within_tolerance {
-        format!("Stays within ±{:.1} kHz of the channel.", tolerance * 1e-3)
+        format!("Stays within ±{:.1} kHz of the channel.", to_khz(tolerance))
     } else {
         format!(
             "Leaves the ±{:.1} kHz channel tolerance; the largest cause is {}.",
-            tolerance * 1e-3,
+            to_khz(tolerance),
             r.drift.dominant.map_or("unknown", |d| d.label())
         )
     };
@@ -514,7 +515,7 @@ fn drift_ui(ui: &mut egui::Ui, s: &mut AudioSettings, r: &AudioFigures, toleranc
 /// A drift line's change as shown: volts, kelvin or picofarads.
 fn change_text(source: DriftSource, change: f64) -> String {
     match source.unit() {
-        "F" => format!("{:+.2} pF", change * 1e12),
+        "F" => format!("{:+.2} pF", to_pf(change)),
         unit => format!("{change:+.1} {unit}"),
     }
 }

@@ -13,6 +13,7 @@ use crate::tuning::stage::{
     StageSettings, Start, Topology, Transistor, TransistorSpec, frequency_accuracy, stage,
 };
 use crate::units;
+use crate::units::{to_khz, to_kohm, to_ma, to_megohm, to_mhz, to_pf, to_ps};
 use eframe::egui;
 
 /// The collapsible section holding the panel.
@@ -103,9 +104,9 @@ fn ohms(r: f64) -> String {
         s.trim_end_matches('0').trim_end_matches('.').to_owned()
     };
     if r >= 1e6 {
-        format!("{}M", trim(r / 1e6))
+        format!("{}M", trim(to_megohm(r)))
     } else if r >= 1e3 {
-        format!("{}k", trim(r / 1e3))
+        format!("{}k", trim(to_kohm(r)))
     } else {
         trim(r)
     }
@@ -173,7 +174,7 @@ impl StagePanel {
                             t.name.as_deref().unwrap_or("?"),
                             t.beta,
                             t.saturation_current,
-                            t.transit_time * 1e12
+                            to_ps(t.transit_time)
                         );
                         if !t.unused.is_empty() {
                             line.push_str(&format!(" Not used: {}.", t.unused.join(", ")));
@@ -361,8 +362,8 @@ impl StagePanel {
         let own = tank.fixed + tank.trimmer_at(tank.trimmer_setting) + tank.stray;
         let (c_upper, c_lower) = tank.feedback.map_or((String::new(), String::new()), |d| {
             (
-                format!("{:.1} pF", d.upper * 1e12),
-                format!("{:.1} pF", d.lower * 1e12),
+                format!("{:.1} pF", to_pf(d.upper)),
+                format!("{:.1} pF", to_pf(d.lower)),
             )
         });
         let b = &s.bias;
@@ -376,7 +377,7 @@ impl StagePanel {
                 emitter: ohms(b.emitter),
                 c_upper,
                 c_lower,
-                tank: format!("{:.1} pF", own * 1e12),
+                tank: format!("{:.1} pF", to_pf(own)),
                 coil: format!("{} t", coil.turns()),
             },
         );
@@ -406,7 +407,7 @@ fn figures_ui(ui: &mut egui::Ui, f: &StageFigures, battery_mah: f64) {
     ));
     line(format!(
         "Collector {:.3} mA at {:.2} V collector–emitter{}",
-        op.collector_current * 1e3,
+        to_ma(op.collector_current),
         op.collector_emitter_v,
         if f.active {
             ""
@@ -427,20 +428,20 @@ fn figures_ui(ui: &mut egui::Ui, f: &StageFigures, battery_mah: f64) {
     };
     line(format!(
         "Runs at {:.3} MHz ({accuracy}); the tank alone {:.3} MHz: pulled {:+.0} kHz",
-        f.frequency * 1e-6,
-        f.tank_frequency * 1e-6,
-        f.pulling * 1e-3
+        to_mhz(f.frequency),
+        to_mhz(f.tank_frequency),
+        to_khz(f.pulling)
     ));
     line(format!(
         "Base–collector junction {:.2} pF ({:.1} % of the tank): {:+.1} kHz per volt",
-        f.junction.capacitance * 1e12,
+        to_pf(f.junction.capacitance),
         f.junction.share * 100.0,
-        f.junction.hz_per_volt * 1e-3
+        to_khz(f.junction.hz_per_volt)
     ));
     let hours = f.battery_life.map_or(0.0, |t| t / 3600.0);
     line(format!(
         "Supply {:.3} mA: a {battery_mah:.0} mAh battery lasts about {hours:.0} hours",
-        f.supply_current * 1e3
+        to_ma(f.supply_current)
     ));
     line(format!("Advice: {}", f.advice));
 }
