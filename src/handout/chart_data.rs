@@ -213,7 +213,7 @@ pub fn chart_data(kind: ChartKind, recipe: &Recipe, f: &Figures) -> ChartData {
                     format!("trimmer {:.0} %", c.setting * 100.0)
                 },
                 setting: c.setting,
-                points: finite(c.points.iter().map(|p| (p[0] * 1e3, p[1] * 1e-6))),
+                points: finite(c.points.iter().map(|p| (to_mm(p[0]), to_mhz(p[1])))),
             })
             .collect();
             ChartData {
@@ -257,7 +257,7 @@ pub fn chart_data(kind: ChartKind, recipe: &Recipe, f: &Figures) -> ChartData {
                 curves: vec![Curve {
                     label: format!("resonance at {:.2} mm", to_mm(here)),
                     setting: 0.5,
-                    points: finite(points.iter().map(|p| (p[0] * 100.0, p[1] * 1e-6))),
+                    points: finite(points.iter().map(|p| (p[0] * 100.0, to_mhz(p[1])))),
                 }],
                 touching: None,
                 present: Some((f.tank.trimmer_setting * 100.0, resonance)),

@@ -29,6 +29,7 @@ mod ink {
         RGBColor(c.0, c.1, c.2)
     }
 }
+use crate::units::from_mhz;
 use ink::ramp;
 
 /// How a legend entry's swatch is drawn.
@@ -157,7 +158,7 @@ pub fn draw<DB: DrawingBackend>(
         legend.push((
             format!(
                 "target channel {} MHz",
-                crate::tuning::digits::channel_mhz(channel.centre * 1e6)
+                crate::tuning::digits::channel_mhz(from_mhz(channel.centre))
             ),
             Swatch::Line(ink::TARGET, 2.0),
         ));
@@ -235,7 +236,7 @@ pub fn draw<DB: DrawingBackend>(
             )))
             .map_err(fail)?;
         legend.push((
-            format!("{what}: {}", crate::tuning::digits::mhz(y * 1e6)),
+            format!("{what}: {}", crate::tuning::digits::mhz(from_mhz(y))),
             Swatch::Circle(ink::PRESENT),
         ));
     }

@@ -89,8 +89,8 @@ pub fn spice_netlist(recipe: &Recipe, f: &Figures) -> Result<(String, CoilNetwor
                 "* The coil: L in series with R, shunted by C, fitted by least squares to the field\n\
                  * solution of the wire (helix, leads, closing path) from {:.3} to {:.3} MHz\n\
                  * ({} points; RMS difference of X {:.3} %), R at {:.3} MHz.",
-                resonance * (1.0 - FIT_HALF_BAND) * 1e-6,
-                resonance * (1.0 + FIT_HALF_BAND) * 1e-6,
+                to_mhz(resonance * (1.0 - FIT_HALF_BAND)),
+                to_mhz(resonance * (1.0 + FIT_HALF_BAND)),
                 m.used,
                 m.residual * 100.0,
                 to_mhz(m.at_frequency)

@@ -19,6 +19,7 @@ const MIN_RADIUS_OVER_SKIN_DEPTH: f64 = 3.0;
 /// traffic voice (ITU Radio Regulations, Article 5). The one home of these figures: the
 /// verdict reads them as `tuning::service::AERONAUTICAL`.
 pub const AERONAUTICAL_BAND: (f64, f64) = (108e6, 137e6);
+use crate::units::{to_mhz, to_mm, to_um};
 use AERONAUTICAL_BAND as AERONAUTICAL;
 
 fn push(out: &mut Vec<Warning>, topic: WarningTopic, message: String) {
@@ -49,7 +50,7 @@ pub(super) fn collect(a: &Judged<'_>) -> Vec<Warning> {
             format!(
                 "Wheeler 1928 is outside its range (length {:.2} mm < 0.8 × radius); it differs \
                  from the exact current sheet by {err:+.1} %",
-                g.length() * 1e3
+                to_mm(g.length())
             ),
         );
     }
@@ -60,7 +61,7 @@ pub(super) fn collect(a: &Judged<'_>) -> Vec<Warning> {
             format!(
                 "pitch {:.2} mm exceeds half the diameter: Rosa's round-wire correction assumes \
                  a pitch small against the diameter; trust the filament sum here",
-                g.pitch() * 1e3
+                to_mm(g.pitch())
             ),
         );
     }
@@ -84,7 +85,7 @@ pub(super) fn collect(a: &Judged<'_>) -> Vec<Warning> {
                 "resonance is {:.0} % of the lower self-resonance estimate ({:.0} MHz): the \
                  coil no longer behaves as a plain inductance",
                 ratio * 100.0,
-                lower * 1e-6
+                to_mhz(lower)
             ),
         );
     }
@@ -104,7 +105,7 @@ pub(super) fn collect(a: &Judged<'_>) -> Vec<Warning> {
             format!(
                 "skin depth {:.1} µm is not small against the wire radius: the proximity factor \
                  (a high-frequency model) overstates the loss",
-                a.skin_depth * 1e6
+                to_um(a.skin_depth)
             ),
         );
     }
@@ -141,7 +142,7 @@ pub(super) fn collect(a: &Judged<'_>) -> Vec<Warning> {
             WarningTopic::Band,
             format!(
                 "{:.2} MHz is in the aeronautical band (108–137 MHz): do not radiate there",
-                a.resonance * 1e-6
+                to_mhz(a.resonance)
             ),
         );
     }

@@ -12,6 +12,7 @@ use crate::tuning::fit::{Fit, length_uncertainty};
 use crate::tuning::reading_reach;
 use crate::ui::units::LengthUnit;
 use crate::ui::widgets::steady;
+use crate::units::{from_mhz, from_mm, from_pf, to_khz, to_mhz, to_nh, to_pf};
 use eframe::egui;
 
 /// What the bench log asks the app to do (applied at the end of the frame).
@@ -97,10 +98,10 @@ impl Default for Form {
 impl Form {
     fn of(e: &BenchEntry) -> Self {
         Self {
-            measured_mhz: e.measured * 1e-6,
+            measured_mhz: to_mhz(e.measured),
             length: Some(e.length),
             trimmer_pct: Some(e.trimmer_setting * 100.0),
-            added_pf: e.added_capacitance * 1e12,
+            added_pf: to_pf(e.added_capacitance),
             added_tolerance_pct: e
                 .added_tolerance
                 .unwrap_or(crate::tuning::fit::CLIP_ON_TOLERANCE)
@@ -175,12 +176,12 @@ impl BenchLogPanel {
                         ui.end_row();
                         for (i, e) in log.iter().enumerate() {
                             ui.label(format!("{}", i + 1));
-                            ui.label(format!("{:.4} MHz", e.measured * 1e-6));
+                            ui.label(format!("{:.4} MHz", to_mhz(e.measured)));
                             ui.label(unit.show(e.length));
                             let mut trimmer = format!("{:.0} %", e.trimmer_setting * 100.0);
                             if e.added_capacitance > 0.0 {
                                 trimmer
-                                    .push_str(&format!(" +{:.1} pF", e.added_capacitance * 1e12));
+                                    .push_str(&format!(" +{:.1} pF", to_pf(e.added_capacitance)));
                             }
                             ui.label(trimmer);
                             residual_cell(ui, fit, i);
@@ -284,7 +285,7 @@ impl BenchLogPanel {
                 let changed = steady(ui, "length", |ui| {
                     ui.add(
                         egui::DragValue::new(&mut shown)
-                            .range(0.0..=2000.0 * 1e-3 / per_unit)
+                            .range(0.0..=from_mm(2000.0) / per_unit)
                             .speed(0.01)
                             .fixed_decimals(unit.decimals())
                             .suffix(format!(" {}", unit.suffix())),
@@ -403,11 +404,11 @@ impl BenchLogPanel {
             .is_some_and(|e| e.include_anyway);
         let entry = length.map(|length| BenchEntry {
             include_anyway,
-            measured: self.form.measured_mhz * 1e6,
+            measured: from_mhz(self.form.measured_mhz),
             length,
             trimmer_setting: (self.form.trimmer_pct.unwrap_or(present_trimmer) / 100.0)
                 .clamp(0.0, 1.0),
-            added_capacitance: self.form.added_pf.max(0.0) * 1e-12,
+            added_capacitance: from_pf(self.form.added_pf.max(0.0)),
             instrument: self.form.instrument.trim().to_owned(),
             error_ppm: self.form.error_known.then_some(self.form.error_ppm),
             note: self.form.note.trim().to_owned(),
@@ -495,7 +496,7 @@ fn field_width(ui: &egui::Ui) -> f32 {
 fn residual_cell(ui: &mut egui::Ui, fit: Option<&Fit>, i: usize) {
     match fit.and_then(|f| Some((f.residuals.get(i)?, f.sigmas.get(i)?))) {
         Some((r, s)) => {
-            let text = format!("{:+.1} kHz", r * 1e-3);
+            let text = format!("{:+.1} kHz", to_khz(*r));
             if r.abs() > crate::tuning::fit::RESIDUAL_LIMIT * s {
                 ui.colored_label(ui.visuals().warn_fg_color, text)
             } else {
@@ -503,7 +504,7 @@ fn residual_cell(ui: &mut egui::Ui, fit: Option<&Fit>, i: usize) {
             }
             .on_hover_text(format!(
                 "measured minus the calibrated model; the instrument's error is ±{:.1} kHz",
-                s * 1e-3
+                to_khz(*s)
             ));
         }
         None => {
@@ -531,8 +532,8 @@ fn fit_ui(ui: &mut egui::Ui, figures: &Figures, unit: LengthUnit) -> Option<Benc
                 "Calibrated on {} reading{}: {:+.2} ± {:.2} pF beyond the model; {scale}.",
                 fit.readings_used,
                 if fit.readings_used == 1 { "" } else { "s" },
-                fit.calibration.extra_capacitance * 1e12,
-                fit.extra_capacitance_error * 1e12,
+                to_pf(fit.calibration.extra_capacitance),
+                to_pf(fit.extra_capacitance_error),
             ))
             .on_hover_text(
                 "Weighted least squares on the model (moved onto the field solution when it \
@@ -599,20 +600,21 @@ fn inverse_square_chart(
         .filter(|r| (r.length - length).abs() <= 1e-9)
         .map(|r| {
             [
-                r.external_capacitance(&recipe.tank) * 1e12,
-                1e12 / (r.measured * r.measured),
+                to_pf(r.external_capacitance(&recipe.tank)),
+                1.0 / (to_mhz(r.measured) * to_mhz(r.measured)),
             ]
         })
         .collect();
     let x_max = points.iter().map(|p| p[0]).fold(0.0, f64::max) * 1.1;
-    let x_min = -line.hidden_capacitance * 1e12;
-    // y in 1/MHz²: 1/f² [s²] × 1e12.
-    let y_at = |pf: f64| (line.slope * pf * 1e-12 + line.intercept) * 1e12;
+    let x_min = to_pf(-line.hidden_capacitance);
+    // y in 1/MHz²: 1/f² [s²] × (1e6)², the line's 1/f² at `pf` picofarads.
+    let per_mhz_squared = from_mhz(1.0) * from_mhz(1.0);
+    let y_at = |pf: f64| (line.slope * from_pf(pf) + line.intercept) * per_mhz_squared;
     ui.label(format!(
         "1/f² against the tank's capacitance: {:.1} nH from the slope, {:.2} pF unseen by the \
          model plus the coil's own from where the line crosses zero",
-        line.inductance * 1e9,
-        line.hidden_capacitance * 1e12
+        to_nh(line.inductance),
+        to_pf(line.hidden_capacitance)
     ));
     let response = Plot::new("tankwright inverse square chart")
         .height(150.0)

@@ -204,7 +204,7 @@ fn the_hand_out_charts_draw_the_field_shape() {
             .find(|c| c.setting == 0.5)
             .expect("a 50 % curve");
         for (a, b) in drawn.points.iter().zip(&engine[0].points) {
-            assert_eq!(a.1, b[1] * 1e-6);
+            assert_eq!(a.1, tankwright::units::to_mhz(b[1]));
         }
         let trimmer = chart_data(ChartKind::Trimmer, &r, &f);
         for p in trimmer.curves[0].points.iter().step_by(24) {

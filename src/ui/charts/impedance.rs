@@ -11,6 +11,7 @@ use crate::recipe::{FieldBasis, Figures};
 use crate::tuning::impedance::{DEFAULT_FROM, PAST_RESONANCE, classical_impedance};
 use crate::tuning::measured_field::network_impedance;
 use crate::ui::field_worker::FieldWorker;
+use crate::units::{to_mhz, to_nh, to_pf};
 use eframe::egui::{self, Color32, RichText};
 use egui_plot::{Corner, GridMark, Legend, Line, LineStyle, Plot, PlotPoints, VLine};
 use num_complex::Complex64;
@@ -42,9 +43,9 @@ fn decade_label(mark: GridMark, _range: &RangeInclusive<f64>) -> String {
     }
     let v = 10f64.powf(rounded);
     if v >= 1e6 {
-        format!("{:.0}M", v * 1e-6)
+        format!("{:.0}M", crate::units::to_megohm(v))
     } else if v >= 1e3 {
-        format!("{:.0}k", v * 1e-3)
+        format!("{:.0}k", crate::units::to_kohm(v))
     } else if v >= 1.0 {
         format!("{v:.0}")
     } else {
@@ -99,7 +100,7 @@ fn log_points(frequencies: &[f64], value: impl Fn(usize) -> f64) -> PlotPoints<'
         .enumerate()
         .filter_map(|(i, f)| {
             let v = value(i);
-            (v.is_finite() && v > 0.0).then(|| [(f * 1e-6).log10(), v.log10()])
+            (v.is_finite() && v > 0.0).then(|| [(to_mhz(*f)).log10(), v.log10()])
         })
         .collect()
 }
@@ -188,7 +189,7 @@ pub fn impedance_section(ui: &mut egui::Ui, figures: Option<&Figures>, field: &F
     let field_z: Option<Vec<Complex64>> =
         sweep.map(|s| s.points.iter().map(|p| p.impedance).collect());
 
-    let operating = (figures.analysis.resonance * 1e-6).log10();
+    let operating = (to_mhz(figures.analysis.resonance)).log10();
     let operating_name = match (&figures.field, figures.calibrated()) {
         (_, true) => "operating frequency (calibrated)",
         (FieldBasis::Solved { .. }, false) => "operating frequency (field-solved)",
@@ -197,8 +198,8 @@ pub fn impedance_section(ui: &mut egui::Ui, figures: Option<&Figures>, field: &F
     };
     let field_srf = result
         .and_then(|r| r.tank.as_ref().ok())
-        .map(|t| (t.self_resonance * 1e-6).log10());
-    let lumped_srf = (a.self_resonance.lumped * 1e-6).log10();
+        .map(|t| (to_mhz(t.self_resonance)).log10());
+    let lumped_srf = (to_mhz(a.self_resonance.lumped)).log10();
     let height = (ui.available_width() * 0.5).clamp(150.0, 230.0);
     // A coil measurement kept with the recipe: its network over the band measured, and what
     // it says against the field solution of the coil as measured.
@@ -208,7 +209,7 @@ pub fn impedance_section(ui: &mut egui::Ui, figures: Option<&Figures>, field: &F
             let seen = m
                 .measured
                 .self_resonance_seen
-                .map(|f| format!(", reactance crossing zero at {:.1} MHz", f * 1e-6))
+                .map(|f| format!(", reactance crossing zero at {:.1} MHz", to_mhz(f)))
                 .unwrap_or_default();
             ui.add(
                 egui::Label::new(
@@ -216,8 +217,8 @@ pub fn impedance_section(ui: &mut egui::Ui, figures: Option<&Figures>, field: &F
                         "Measured coil dotted: {:.1} nH, {:.3} pF{seen}; {:.3} × the field \
                          solution's inductance and {:.2} × its self-capacitance over the same \
                          band.",
-                        m.measured.inductance * 1e9,
-                        m.measured.self_capacitance * 1e12,
+                        to_nh(m.measured.inductance),
+                        to_pf(m.measured.self_capacitance),
                         m.scale,
                         m.measured.self_capacitance / m.field.self_capacitance
                     ))

@@ -19,6 +19,7 @@ mod trimmer;
 use crate::model::{Coil, Tank};
 use crate::tuning::service::AERONAUTICAL;
 use crate::ui::units::LengthUnit;
+use crate::units::to_mhz;
 use eframe::egui::{self, Color32};
 
 pub use cache::{ChartCache, SETTINGS};
@@ -177,7 +178,7 @@ impl Operating {
 pub(crate) fn operating_line(plot_ui: &mut egui_plot::PlotUi<'_>, view: &ChartView<'_>) {
     if let Some(op) = view.operating {
         plot_ui.hline(
-            egui_plot::HLine::new(op.label(), op.frequency * 1e-6)
+            egui_plot::HLine::new(op.label(), to_mhz(op.frequency))
                 .color(palette::OPERATING)
                 .style(egui_plot::LineStyle::dashed_loose())
                 .width(1.4),
@@ -211,7 +212,7 @@ impl ChartView<'_> {
     /// padded.
     pub(crate) fn frequency_axis(&self, hertz: impl Iterator<Item = f64>) -> (f64, f64) {
         let (mut lo, mut hi) = hertz.fold((f64::INFINITY, f64::NEG_INFINITY), |(lo, hi), f| {
-            (lo.min(f * 1e-6), hi.max(f * 1e-6))
+            (lo.min(to_mhz(f)), hi.max(to_mhz(f)))
         });
         if self.has_target() {
             let (band_lo, band_hi) = self.channel_mhz();
@@ -224,10 +225,7 @@ impl ChartView<'_> {
     /// The target channel, MHz: (low edge, high edge).
     pub(crate) fn channel_mhz(&self) -> (f64, f64) {
         let half = 0.5 * self.channel_width_hz.abs();
-        (
-            (self.target_hz - half) * 1e-6,
-            (self.target_hz + half) * 1e-6,
-        )
+        (to_mhz(self.target_hz - half), to_mhz(self.target_hz + half))
     }
 }
 
@@ -351,7 +349,7 @@ pub(crate) fn present_marker(
 ) {
     if resonance_hz.is_finite() {
         plot_ui.points(
-            egui_plot::Points::new(name, vec![[x, resonance_hz * 1e-6]])
+            egui_plot::Points::new(name, vec![[x, to_mhz(resonance_hz)]])
                 .color(palette::PRESENT)
                 .filled(true)
                 .radius(5.0),
@@ -411,7 +409,7 @@ pub(crate) fn reading_points(
         .readings
         .iter()
         .filter(|r| !r.clipped())
-        .map(|r| [x_of(r), r.measured * 1e-6])
+        .map(|r| [x_of(r), to_mhz(r.measured)])
         .collect();
     if !plain.is_empty() {
         plot_ui.points(
@@ -423,7 +421,7 @@ pub(crate) fn reading_points(
         );
     }
     for r in view.readings.iter().filter(|r| r.clipped()) {
-        let at = [x_of(r), r.measured * 1e-6];
+        let at = [x_of(r), to_mhz(r.measured)];
         plot_ui.points(
             egui_plot::Points::new(r.clipped_name(), vec![at])
                 .color(palette::READING)
@@ -458,7 +456,7 @@ pub(crate) fn target_channel(plot_ui: &mut egui_plot::PlotUi<'_>, view: &ChartVi
     }
     let (band_lo, band_hi) = view.channel_mhz();
     plot_ui.hline(
-        egui_plot::HLine::new("target channel", view.target_hz * 1e-6)
+        egui_plot::HLine::new("target channel", to_mhz(view.target_hz))
             .color(palette::TARGET)
             .width(1.0),
     );
@@ -480,7 +478,7 @@ pub const AERONAUTICAL_BAND_LABEL: &str = "aeronautical band (108–137 MHz)";
 /// frequency axis (`y_mhz`, MHz: low, high) reaches into it. The axis is never widened to
 /// show it, so the band (and its legend entry) appears only when the sweep comes near it.
 pub(crate) fn aeronautical_band(plot_ui: &mut egui_plot::PlotUi<'_>, y_mhz: (f64, f64)) {
-    let (lo, hi) = (AERONAUTICAL.0 * 1e-6, AERONAUTICAL.1 * 1e-6);
+    let (lo, hi) = (to_mhz(AERONAUTICAL.0), to_mhz(AERONAUTICAL.1));
     if !(y_mhz.1 > lo && y_mhz.0 < hi) {
         return;
     }

@@ -13,6 +13,7 @@ use crate::model::{Coil, Conditions, Tank};
 use crate::tuning::modulation::{
     Modulation, ModulationInputs, Service, carrier_over_bias, deviation_over_audio, modulation,
 };
+use crate::units::{to_khz, to_mhz};
 use eframe::egui;
 use egui_plot::{HLine, Line, LineStyle, Plot, PlotPoints, Points, Span, VLine};
 
@@ -163,7 +164,7 @@ pub fn carrier_bias_chart(ui: &mut egui::Ui, sweeps: &ModulationSweeps) {
     let strong = ui.visuals().strong_text_color();
     let curve = sweeps.carrier_over_bias();
     let (vb, va) = (inputs.bias_v, inputs.audio_peak_v.abs());
-    let (y_lo, y_hi) = padded(curve.iter().map(|p| p[1] * 1e-6));
+    let (y_lo, y_hi) = padded(curve.iter().map(|p| to_mhz(p[1])));
     let x_lo = curve.first().map_or(0.0, |p| p[0]);
     let x_hi = curve.last().map_or(BIAS_AXIS_MIN_TOP, |p| p[0]);
     let mut entries = vec![Entry::new("carrier", Swatch::Line(strong))];
@@ -189,7 +190,7 @@ pub fn carrier_bias_chart(ui: &mut egui::Ui, sweeps: &ModulationSweeps) {
     .show(ui, |plot_ui| {
         plot_ui.set_plot_bounds_x(x_lo..=x_hi);
         plot_ui.set_plot_bounds_y(y_lo..=y_hi);
-        let points: PlotPoints<'_> = curve.iter().map(|p| [p[0], p[1] * 1e-6]).collect();
+        let points: PlotPoints<'_> = curve.iter().map(|p| [p[0], to_mhz(p[1])]).collect();
         plot_ui.line(Line::new("carrier", points).color(strong).width(1.8));
         if va > 0.0 {
             plot_ui.span(
@@ -200,8 +201,8 @@ pub fn carrier_bias_chart(ui: &mut egui::Ui, sweeps: &ModulationSweeps) {
                     .border_width(1.0),
             );
             let swing = [
-                [vb - va, (present.carrier - present.deviation_down) * 1e-6],
-                [vb + va, (present.carrier + present.deviation_up) * 1e-6],
+                [vb - va, to_mhz(present.carrier - present.deviation_down)],
+                [vb + va, to_mhz(present.carrier + present.deviation_up)],
             ];
             plot_ui.points(
                 Points::new("carrier at the audio's peaks", swing.to_vec())
@@ -211,7 +212,7 @@ pub fn carrier_bias_chart(ui: &mut egui::Ui, sweeps: &ModulationSweeps) {
             );
         }
         plot_ui.points(
-            Points::new("present bias", vec![[vb, present.carrier * 1e-6]])
+            Points::new("present bias", vec![[vb, to_mhz(present.carrier)]])
                 .color(palette::PRESENT)
                 .filled(true)
                 .radius(5.0),
@@ -256,12 +257,12 @@ pub fn deviation_chart(ui: &mut egui::Ui, sweeps: &ModulationSweeps) {
     };
     let visuals = ui.visuals().clone();
     let curve = sweeps.deviation_over_audio();
-    let limit_khz = service.peak_deviation_limit() * 1e-3;
+    let limit_khz = to_khz(service.peak_deviation_limit());
     let (vb, va) = (inputs.bias_v, inputs.audio_peak_v.abs());
     let (_, y_hi) = padded(
         curve
             .iter()
-            .flat_map(|p| [p[1] * 1e-3, p[2] * 1e-3])
+            .flat_map(|p| [to_khz(p[1]), to_khz(p[2])])
             .chain([0.0, limit_khz]),
     );
     let x_hi = curve.last().map_or(1.0, |p| p[0]);
@@ -300,8 +301,8 @@ pub fn deviation_chart(ui: &mut egui::Ui, sweeps: &ModulationSweeps) {
     .show(ui, |plot_ui| {
         plot_ui.set_plot_bounds_x(0.0..=x_hi);
         plot_ui.set_plot_bounds_y(0.0..=y_hi);
-        let up: PlotPoints<'_> = curve.iter().map(|p| [p[0], p[1] * 1e-3]).collect();
-        let down: PlotPoints<'_> = curve.iter().map(|p| [p[0], p[2] * 1e-3]).collect();
+        let up: PlotPoints<'_> = curve.iter().map(|p| [p[0], to_khz(p[1])]).collect();
+        let down: PlotPoints<'_> = curve.iter().map(|p| [p[0], to_khz(p[2])]).collect();
         plot_ui.line(
             Line::new("upwards (bias + peak)", up)
                 .color(palette::PRESENT)
@@ -330,8 +331,8 @@ pub fn deviation_chart(ui: &mut egui::Ui, sweeps: &ModulationSweeps) {
             Points::new(
                 "present audio peak",
                 vec![
-                    [va, present.deviation_up * 1e-3],
-                    [va, present.deviation_down * 1e-3],
+                    [va, to_khz(present.deviation_up)],
+                    [va, to_khz(present.deviation_down)],
                 ],
             )
             .color(palette::READING)

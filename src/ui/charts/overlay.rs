@@ -6,6 +6,7 @@
 
 use super::ChartView;
 use crate::model::Coil;
+use crate::units::to_mhz;
 use eframe::egui::Color32;
 use egui_plot::{Line, LineStyle, MarkerShape, PlotPoints, Points};
 
@@ -62,7 +63,7 @@ pub(crate) fn draw(plot_ui: &mut egui_plot::PlotUi<'_>, view: &ChartView<'_>) {
                 .curve
                 .iter()
                 .filter(|p| p[1].is_finite())
-                .map(|p| [overlay.x(view, p[0]), p[1] * 1e-6])
+                .map(|p| [overlay.x(view, p[0]), to_mhz(p[1])])
                 .collect();
             let style = match overlay.kind {
                 OverlayKind::Ghost => LineStyle::dotted_dense(),
@@ -81,7 +82,7 @@ pub(crate) fn draw(plot_ui: &mut egui_plot::PlotUi<'_>, view: &ChartView<'_>) {
             plot_ui.points(
                 Points::new(
                     overlay.name.as_str(),
-                    vec![[overlay.x(view, length), hz * 1e-6]],
+                    vec![[overlay.x(view, length), to_mhz(hz)]],
                 )
                 .color(colour)
                 .shape(MarkerShape::Circle)

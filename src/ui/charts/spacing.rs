@@ -5,6 +5,7 @@ use super::{
     pointer_x, present_marker, reading_points, still_plot, target_channel,
 };
 use crate::tuning::sweep::SpacingCurve;
+use crate::units::to_mhz;
 use eframe::egui;
 use egui_plot::{Line, LineStyle, PlotPoints, Span, VLine};
 
@@ -72,7 +73,7 @@ pub fn spacing_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
             let points: PlotPoints<'_> = curve
                 .points
                 .iter()
-                .map(|p| [view.x_of_length(p[0]), p[1] * 1e-6])
+                .map(|p| [view.x_of_length(p[0]), to_mhz(p[1])])
                 .collect();
             plot_ui.line(
                 Line::new(name, points)
@@ -90,7 +91,7 @@ pub fn spacing_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
                 let points: PlotPoints<'_> = curve
                     .points
                     .iter()
-                    .map(|p| [view.x_of_length(p[0]), p[1] * 1e-6])
+                    .map(|p| [view.x_of_length(p[0]), to_mhz(p[1])])
                     .collect();
                 let name = if fixed {
                     "before calibration".to_owned()
@@ -113,7 +114,7 @@ pub fn spacing_chart(ui: &mut egui::Ui, view: &ChartView<'_>) -> Option<f64> {
             let points: PlotPoints<'_> = curve
                 .points
                 .iter()
-                .map(|p| [view.x_of_length(p[0]), p[1] * 1e-6])
+                .map(|p| [view.x_of_length(p[0]), to_mhz(p[1])])
                 .collect();
             plot_ui.line(
                 Line::new(
@@ -177,7 +178,7 @@ fn curve_labels(
                 .points
                 .iter()
                 .rev()
-                .map(|p| [view.x_of_length(p[0]), p[1] * 1e-6])
+                .map(|p| [view.x_of_length(p[0]), to_mhz(p[1])])
                 .find(|p| p[0] <= x_max && p[1].is_finite())?;
             let y = plot_ui
                 .screen_from_plot(egui_plot::PlotPoint::new(end[0], end[1]))

@@ -4,6 +4,7 @@
 //! before any measurement, what the fit's errors leave after a bench calibration.
 
 use super::{ChartView, palette};
+use crate::units::to_mhz;
 use eframe::egui::{Color32, Stroke};
 use egui_plot::{FilledArea, PlotUi};
 
@@ -27,8 +28,8 @@ pub(crate) fn spread_band(plot_ui: &mut PlotUi<'_>, view: &ChartView<'_>) {
     for &[l, lo, hi] in band {
         if l.is_finite() && lo.is_finite() && hi.is_finite() {
             xs.push(view.x_of_length(l));
-            lows.push(lo * 1e-6);
-            highs.push(hi * 1e-6);
+            lows.push(to_mhz(lo));
+            highs.push(to_mhz(hi));
         }
     }
     if xs.len() < 2 {

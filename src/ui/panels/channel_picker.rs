@@ -7,6 +7,7 @@
 //! ([`crate::recipe::rules::check_frequency_mhz`]) before it can be picked.
 
 use crate::tuning::BandPlan;
+use crate::units::from_mhz;
 use eframe::egui::{self, RichText};
 
 /// Accessible name of the text field inside the open picker.
@@ -34,7 +35,7 @@ pub fn typed_frequency(text: &str) -> Option<f64> {
     let mhz: f64 = t.parse().ok()?;
     crate::recipe::rules::check_frequency_mhz(mhz, "the typed frequency").ok()?;
     // Whole hertz, as a plan's channels are.
-    Some((mhz * 1e6).round())
+    Some((from_mhz(mhz)).round())
 }
 
 impl ChannelPicker {

@@ -19,6 +19,7 @@ pub mod winding;
 
 use crate::ui::units::LengthUnit;
 use crate::ui::widgets::Quantity;
+use crate::units::from_mm;
 
 /// Something the user asked for, carried out at the end of the frame.
 #[derive(Clone, Debug, PartialEq)]
@@ -60,7 +61,7 @@ pub(crate) fn length_quantity<'a>(
     step_mm: f64,
 ) -> Quantity<'a> {
     let per_unit = unit.metres_per_unit();
-    let to_unit = |mm: f64| mm * 1e-3 / per_unit;
+    let to_unit = |mm: f64| from_mm(mm) / per_unit;
     let (step, decimals) = match unit {
         LengthUnit::Millimetres => (step_mm, unit.decimals()),
         LengthUnit::Inches => (

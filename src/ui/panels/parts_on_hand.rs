@@ -18,6 +18,7 @@ use crate::tuning::design::parts::{
 use crate::tuning::design::{Design, DesignSettings, fixed_label, search};
 use crate::tuning::digits::{mhz_range, mm, spread_range};
 use crate::tuning::verdict::Aim;
+use crate::units::from_mm;
 use eframe::egui;
 use std::sync::mpsc::{Receiver, TryRecvError, channel};
 
@@ -92,7 +93,7 @@ impl PartsOnHandText {
             wires: read("wires", &self.wires, |t| parse_wire(t, coating))?,
             fixed: parse_fixed_list(&self.fixed).map_err(|e| format!("fixed capacitors: {e}"))?,
             trimmers: read("trimmers", &self.trimmers, parse_trimmer)?,
-            lead_length: self.lead_mm * 1e-3,
+            lead_length: from_mm(self.lead_mm),
             construction,
         };
         parts.check().map_err(|e| e.to_string())?;

@@ -13,7 +13,7 @@ use crate::ui::files::{FileDesk, read_reference};
 use crate::ui::panels::capacitance_quantity;
 use crate::ui::theme;
 use crate::ui::units::LengthUnit;
-use crate::units::to_nh;
+use crate::units::{from_pf, to_nh};
 use eframe::egui::{self, RichText};
 
 /// The panel's heading.
@@ -161,7 +161,7 @@ pub(super) fn show(
         let _ = capacitance_quantity("Hand capacitance", &mut farads, HAND_RANGE)
             .note("What a hand near the coil adds to the stray (1–2 pF: common practice)")
             .show(ui);
-        let (lo, hi) = (HAND_RANGE.0 * 1e-12, HAND_RANGE.1 * 1e-12);
+        let (lo, hi) = (from_pf(HAND_RANGE.0), from_pf(HAND_RANGE.1));
         if farads.is_finite() {
             teaching.hand.capacitance = farads.clamp(lo, hi);
         }

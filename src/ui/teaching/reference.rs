@@ -9,7 +9,7 @@ use crate::tuning::digits;
 use crate::tuning::sweep::spacing_sweep;
 use crate::ui::charts::{ChartOverlay, OverlayKind};
 use crate::ui::units::LengthUnit;
-use crate::units::to_pf;
+use crate::units::{to_mm, to_pf};
 
 /// Points in the reference's curve.
 const SAMPLES: usize = 200;
@@ -165,9 +165,9 @@ impl Reference {
 
 fn wire(c: &Coil) -> String {
     if c.is_bare() {
-        format!("bare {:.2} mm", c.wire_bare() * 1e3)
+        format!("bare {:.2} mm", to_mm(c.wire_bare()))
     } else {
-        format!("enamelled {:.2} mm", c.wire_bare() * 1e3)
+        format!("enamelled {:.2} mm", to_mm(c.wire_bare()))
     }
 }
 
