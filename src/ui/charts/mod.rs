@@ -59,7 +59,7 @@ pub struct ReadingMark {
     /// Measured frequency, hertz.
     pub measured: f64,
     /// A known capacitor clipped across the tank for the reading, farads (0 for none): such
-    /// a reading lies on another curve and is drawn apart ([`reading_points`]).
+    /// a reading lies on another curve and is drawn apart (`reading_points`).
     pub added: f64,
 }
 
