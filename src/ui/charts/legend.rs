@@ -61,9 +61,12 @@ pub fn show(ui: &mut egui::Ui, entries: &[Entry]) {
 fn entry_widget(ui: &mut egui::Ui, entry: &Entry) {
     let font = egui::TextStyle::Small.resolve(ui.style());
     let colour = ui.visuals().text_color();
+    // A name longer than the chart is wide (a half-width chart beside the other) wraps within
+    // it rather than running over the neighbour's legend.
+    let wrap_width = (ui.max_rect().width() - SWATCH_WIDTH - 3.0).max(40.0);
     let galley = ui
         .painter()
-        .layout_no_wrap(entry.name.clone(), font, colour);
+        .layout(entry.name.clone(), font, colour, wrap_width);
     let height = galley
         .size()
         .y
