@@ -5,7 +5,7 @@
 //! f = 1/(2π√(LC)) (Thomson's formula), so there is no trimmer chart to draw; the RF peak
 //! across a tank of a small oscillator, 2 V, is common practice (from memory).
 
-use crate::common::{asset_str, run_text as run};
+use crate::common::{JUNCTION_COIL, asset_str, run_text as run};
 
 /// The shipped apprentice exercise is a fixed tank.
 const FIXED: &str = "apprentice_enamel_exercise.ron";
@@ -51,30 +51,13 @@ fn the_report_of_a_fixed_tank_says_so_and_never_a_travel_to_itself() {
     assert!(!out.contains("or trimmer at"), "{out}");
 }
 
-const COIL: [&str; 14] = [
-    "evaluate",
-    "--mean-diameter-mm",
-    "7",
-    "--turns",
-    "5",
-    "--length-mm",
-    "9",
-    "--wire-mm",
-    "0.8",
-    "--lead-mm",
-    "4",
-    "--capacitance-pf",
-    "22",
-    "--json",
-];
-
 /// A junction straight across the tank at 2.2 V bias with a 0.5 V audio peak: the 2 V RF
 /// peak (default) drives it forward (2.2 − 0.5 − 2 = −0.3 V); with `--rf-peak-v 1` it stays
 /// reverse (0.7 V). The JSON says so with the RF at the junction beside.
 #[test]
 fn the_forward_warning_counts_the_rf_peak() {
     let run_json = |extra: &[&str]| {
-        let mut args: Vec<&str> = COIL.to_vec();
+        let mut args: Vec<&str> = JUNCTION_COIL.to_vec();
         args.extend_from_slice(&[
             "--junction-cj0-pf",
             "2.2",
@@ -101,6 +84,6 @@ fn the_forward_warning_counts_the_rf_peak() {
     assert!(advice.contains("RF across the junction"), "{advice}");
     let v = run_json(&["--rf-peak-v", "1"]);
     assert_eq!(v["modulation"]["forward_on_peaks"].as_bool(), Some(false));
-    let (ok, _, err) = run(&[&COIL[..], &["--rf-peak-v", "1"]].concat());
+    let (ok, _, err) = run(&[&JUNCTION_COIL[..], &["--rf-peak-v", "1"]].concat());
     assert!(!ok && err.contains("need a junction"), "{err}");
 }

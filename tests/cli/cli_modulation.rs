@@ -1,27 +1,10 @@
 //! The headless `evaluate` with the stray estimate, a modulating junction and the drift
 //! budget, run as a user would run it.
 
-use crate::common::run_text as run;
-
-const COIL: [&str; 14] = [
-    "evaluate",
-    "--mean-diameter-mm",
-    "7",
-    "--turns",
-    "5",
-    "--length-mm",
-    "9",
-    "--wire-mm",
-    "0.8",
-    "--lead-mm",
-    "4",
-    "--capacitance-pf",
-    "22",
-    "--json",
-];
+use crate::common::{JUNCTION_COIL, run_text as run};
 
 fn json(extra: &[&str]) -> serde_json::Value {
-    let mut args: Vec<&str> = COIL.to_vec();
+    let mut args: Vec<&str> = JUNCTION_COIL.to_vec();
     args.extend_from_slice(extra);
     let (ok, out, err) = run(&args);
     assert!(ok, "{err}");
@@ -185,7 +168,7 @@ fn drift_lines_and_class() {
 #[test]
 fn bad_flags_are_refused_in_words() {
     let with = |extra: &[&str]| {
-        let mut args: Vec<&str> = COIL.to_vec();
+        let mut args: Vec<&str> = JUNCTION_COIL.to_vec();
         args.extend_from_slice(extra);
         run(&args)
     };
@@ -231,7 +214,7 @@ fn bad_flags_are_refused_in_words() {
 
 #[test]
 fn the_report_shows_the_new_sections() {
-    let mut args: Vec<&str> = COIL[..13].to_vec();
+    let mut args: Vec<&str> = JUNCTION_COIL[..13].to_vec();
     args.extend_from_slice(&JUNCTION);
     args.extend_from_slice(&["--construction", "copper-clad"]);
     let (ok, out, err) = run(&args);

@@ -38,3 +38,22 @@ pub fn stdout(o: &Output) -> String {
 pub fn stderr(o: &Output) -> String {
     String::from_utf8_lossy(&o.stderr).into_owned()
 }
+
+/// `evaluate --json` of the coil the junction and drift checks share: 7 mm mean diameter, 5 turns
+/// over 9 mm of 0.8 mm wire, 4 mm leads, 22 pF across (one copy for every file that uses it).
+pub const JUNCTION_COIL: [&str; 14] = [
+    "evaluate",
+    "--mean-diameter-mm",
+    "7",
+    "--turns",
+    "5",
+    "--length-mm",
+    "9",
+    "--wire-mm",
+    "0.8",
+    "--lead-mm",
+    "4",
+    "--capacitance-pf",
+    "22",
+    "--json",
+];
